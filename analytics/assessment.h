@@ -1,0 +1,233 @@
+// The assessment document: everything ferrum concludes about one unit on one
+// day. It is the single source that the JSON output (`ferrum assess --json`),
+// the PDF reports and the fleet ranking read. Absent data is std::nullopt
+// (null in JSON), never 0.
+//
+// Field names follow the JSON keys documented in the README.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "analytics/calendar.h"
+#include "analytics/unit_data.h"
+
+namespace ferrum::analytics {
+
+// One factor of the health index.
+struct FactorScore {
+  std::string name;              // "dga", "oil_quality", "paper", "thermal", "infrared", "inspection", "age"
+  std::optional<double> score;   // 0..4 factor rating (4 = best), null when no data
+  double weight = 0;             // weight K_j (0 when left out for missing data)
+  double contribution = 0;       // points of the 0..100 index this factor contributes
+  std::string source;            // published method behind the scoring
+  std::string detail;            // one line: what drove the score
+};
+
+struct LifeEstimate {
+  std::string basis;  // "paper", "gases", "thermal", "condition"
+  std::optional<double> years, low_years, high_years;
+  std::string method;  // how it was obtained
+};
+
+struct RemainingLife {
+  std::optional<double> years;
+  std::optional<double> low_years;
+  std::optional<double> high_years;
+  std::string limiting_factor;          // "paper", "gases", "thermal", "condition", or "" when unknown
+  std::vector<LifeEstimate> estimates;  // every estimate, the limiting one included
+};
+
+// One gas reading of the latest sample, with per-gas trend.
+struct GasReading {
+  std::string gas;                       // "H2", "CH4", ...
+  std::optional<double> ppm;             // null when not measured or below limit
+  bool below_limit = false;
+  std::optional<int> c57104_2008_condition;  // level reached by this gas (1..4)
+  std::optional<double> rate_ppm_per_year;   // least-squares over recent samples
+};
+
+struct DuvalPoint {
+  Day date = 0;
+  double pct_ch4 = 0, pct_c2h4 = 0, pct_c2h2 = 0;
+  std::string zone;  // published zone code
+};
+
+struct DgaSummary {
+  std::optional<Day> sample_date;
+  std::optional<double> tdcg_ppm;
+  std::optional<int> c57104_2008_condition;  // 1..4
+  std::optional<int> c57104_2019_status;     // 1..3
+  std::optional<std::string> duval_triangle_1;     // "PD","T1","T2","T3","D1","D2","DT"
+  std::optional<std::string> duval_pentagon_1;
+  std::optional<std::string> iec60599_ratio_fault; // "PD","D1","D2","T1","T2","T3"
+  std::optional<double> co2_co_ratio;
+  std::optional<double> tdcg_rate_ppm_per_day;
+  std::string c57104_2008_interval;   // sampling interval from the standard's procedure
+  std::string c57104_2008_action;     // operating procedure from the standard
+  std::string c57104_2019_reason;     // which gas/rate decided the status
+  std::string key_gas;                // key-gas reading, plain words
+  std::string co2_co_reading;         // plain words
+  std::string iec60599_reading;       // fault name, or why no diagnosis
+  std::string duval_reading;          // fault name, or why no diagnosis
+  bool active_arcing = false;         // acetylene appearing or rising / D1-D2 signature
+  std::vector<GasReading> gases;
+  std::vector<DuvalPoint> duval_history;  // recent samples, for the triangle plot
+};
+
+struct OilCheck {
+  std::string test;                 // "moisture", "breakdown", "acidity", "ift", "pf25", "pf100", "color"
+  std::optional<double> value;
+  std::optional<double> limit;
+  std::string limit_kind;           // "max" or "min"
+  std::string unit;                 // "mg/kg", "kV", ...
+  std::optional<bool> within_limit;
+  std::string source;               // e.g. "IEEE C57.106-2015 Table 5, 69-230 kV"
+};
+
+struct OilSummary {
+  std::optional<Day> sample_date;
+  std::vector<OilCheck> checks;
+  std::optional<double> relative_saturation_pct;
+  std::optional<double> water_solubility_ppm;   // at the sampling temperature
+  std::optional<double> paper_moisture_pct;
+  std::string moisture_method;
+  std::string oil_class;                          // C57.106 clause 7 class reading
+  std::vector<std::string> notes;                 // warnings: cold sample, missing temperature, ...
+};
+
+struct PaperSummary {
+  std::optional<Day> sample_date;
+  std::optional<double> furan_2fal_ppb;
+  std::optional<double> dp_estimate;
+  std::string dp_method;
+  std::optional<double> dp_alternative;   // second correlation, for comparison
+  std::string dp_alternative_method;
+  std::optional<double> life_used_pct;
+  bool trustworthy = true;
+  std::string note;
+};
+
+// A point of the chart series, already reduced for plotting.
+struct SeriesPoint {
+  Timestamp t = 0;
+  double value = 0;
+};
+
+struct ThermalSummary {
+  std::optional<Timestamp> from, to;
+  std::string method;                          // "IEC 60076-7 difference equations" / "IEEE C57.91 clause 7"
+  std::optional<double> peak_hot_spot_c;
+  std::optional<double> peak_top_oil_c;
+  std::optional<double> equivalent_ageing_factor;  // F_EQA (IEEE) or mean V (IEC)
+  std::optional<double> loss_of_life_hours;
+  std::optional<double> loss_of_life_pct;
+  std::optional<double> hours_above_nameplate;
+  std::optional<double> peak_load_pu, p99_load_pu;
+  std::optional<double> hours_above_normal_cyclic;     // hot spot above the normal cyclic limit
+  std::optional<double> hours_above_long_emergency;
+  std::optional<double> hours_above_short_emergency;
+  std::optional<double> load_growth_pct_per_year;
+  std::optional<double> top_oil_discrepancy_k;      // measured minus model, mean, when measured data exist
+  double covered_hours = 0;
+  double bridged_hours = 0;
+  bool ambient_from_profile = false;
+  std::vector<std::string> parameter_sources;   // "x = 0.8 (IEC 60076-7 Table 5, ONAF)", ...
+  std::vector<std::string> notes;
+  double normal_cyclic_limit_c = 120, long_emergency_limit_c = 140, short_emergency_limit_c = 160;
+  std::vector<SeriesPoint> load_series;      // per unit, reduced (e.g. daily max)
+  std::vector<SeriesPoint> hot_spot_series;  // °C, reduced (e.g. daily max)
+};
+
+struct InfraredFinding {
+  Day date = 0;
+  std::string component;
+  std::optional<double> rise_over_reference_k;
+  std::optional<double> rise_over_ambient_k;
+  std::optional<double> corrected_rise_k;   // corrected to rated load
+  std::optional<int> severity;              // 1 least .. 4 most severe
+  std::string severity_text;
+  bool low_load = false;                    // scan below the reliable load, correction unreliable
+  std::string source;
+};
+
+struct InspectionFinding {
+  std::string item;
+  Rating rating = Rating::good;
+  Day date = 0;
+  std::optional<Rating> previous;
+  bool worse = false;
+  std::string note;
+};
+
+struct Action {
+  int priority = 3;     // 1 = most urgent
+  Day due = 0;
+  std::string text;
+  std::string reason;
+};
+
+struct DataFreshness {
+  std::string kind;                  // "oil", "infrared", "inspection", "load"
+  std::optional<Day> latest;
+  std::optional<double> age_years;
+};
+
+struct UnitAssessment {
+  UnitInfo unit;
+  Day as_of = 0;
+  std::optional<double> health_index;  // 0..100
+  std::string band;                    // plain band name
+  std::string band_expected_life;      // expected-life range of the band
+  std::string confidence;              // "4 of 7 factors, last oil sample 3 years old"
+  std::vector<FactorScore> factors;
+  RemainingLife remaining_life;
+  DgaSummary dga;
+  OilSummary oil;
+  PaperSummary paper;
+  ThermalSummary thermal;
+  std::vector<InfraredFinding> infrared;
+  std::vector<InspectionFinding> inspection;
+  std::vector<Action> actions;
+  std::vector<std::string> missing;
+  std::vector<DataFreshness> freshness;
+  std::vector<std::string> methods;      // every method applied, with its source
+  std::vector<std::string> assumptions;  // defaulted parameters, missing ambient, ...
+  // Gas history for the trend chart: one entry per sample.
+  struct GasHistoryPoint {
+    Day date = 0;
+    std::optional<double> h2, ch4, c2h6, c2h4, c2h2, co, co2;
+  };
+  std::vector<GasHistoryPoint> gas_history;
+  bool unsafe_inspection = false;
+  bool active_arcing = false;
+};
+
+// One row of the fleet ranking.
+struct RankedUnit {
+  int rank = 0;                  // 1 = highest risk; equal risks share a rank
+  bool tied = false;
+  std::string unit_id, site;
+  double rated_mva = 0;
+  std::optional<double> health_index;
+  std::string band;
+  std::optional<double> remaining_life_years;
+  std::string limiting_factor;
+  std::optional<double> probability_of_failure;  // per year, from the documented mapping
+  double consequence = 0;
+  std::optional<double> risk;
+  std::string recommended_action;  // "replace", "refurbish", "intensify monitoring", "routine"
+  std::optional<int> action_year;
+  bool insufficient_data = false;
+  std::string note;
+};
+
+struct FleetRanking {
+  Day as_of = 0;
+  std::vector<RankedUnit> units;              // ranked first, then units without enough data
+  struct YearMva { int year = 0; double mva = 0; int units = 0; };
+  std::vector<YearMva> mva_due_by_year;       // next ten years
+};
+
+}  // namespace ferrum::analytics

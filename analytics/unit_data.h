@@ -1,0 +1,108 @@
+// Inputs of the assessment: everything the store knows about one unit,
+// already validated and converted to the units named on each field.
+// Built by the daemon from the database; analytics only read it.
+#pragma once
+
+#include <cmath>
+#include <limits>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "analytics/calendar.h"
+#include "analytics/lab_value.h"
+
+namespace ferrum::analytics {
+
+enum class PaperType { kraft, upgraded };  // non-upgraded kraft / thermally upgraded
+enum class OilType { mineral, ester };
+
+// Nameplate and register data of one unit (units register file).
+struct UnitInfo {
+  std::string unit_id;
+  std::string site;
+  std::string serial;
+  double rated_mva = 0;        // MVA
+  double hv_kv = 0;            // kV, line-to-line
+  double lv_kv = 0;            // kV, line-to-line
+  std::string cooling;         // "ONAN", "ONAF", "OFAF", "ODAF", ... upper case
+  int year_built = 0;
+  int phases = 3;
+  std::string vector_group;    // e.g. "Dyn11"
+  OilType oil = OilType::mineral;
+  PaperType paper = PaperType::kraft;
+  std::optional<double> oil_volume_l;
+  int criticality = 3;         // 1 lowest .. 5 highest
+  std::optional<int> customers_served;
+  // Thermal data from the test report, when known.
+  std::optional<double> top_oil_rise_k;       // rated top-oil rise over ambient, K
+  std::optional<double> hot_spot_gradient_k;  // rated hot-spot to top-oil gradient, K
+  std::optional<double> load_loss_ratio;      // load losses at rated current / no-load losses
+  // Last oil change or regeneration (resets furans), when recorded.
+  std::optional<Day> oil_treated;
+};
+
+// One oil-lab sample (main tank unless sample_point says otherwise).
+struct OilSample {
+  Day date = 0;
+  std::string lab_ref;
+  std::string sample_point;  // "main_tank", "oltc", ...
+  // Dissolved gases, µL/L (ppm).
+  LabValue h2, ch4, c2h6, c2h4, c2h2, co, co2, o2, n2;
+  LabValue moisture_ppm;      // mg/kg
+  LabValue oil_temp_c;        // oil temperature at sampling, °C
+  LabValue breakdown_kv;      // kV
+  std::string breakdown_method;  // e.g. "ASTM D1816 2 mm", "ASTM D877", "IEC 60156"
+  LabValue acidity_mgkoh_g;   // mg KOH/g
+  LabValue ift_mn_m;          // mN/m
+  LabValue pf25_pct;          // power factor at 25 °C, %
+  LabValue pf100_pct;         // power factor at 100 °C, %
+  LabValue color;             // ASTM D1500 colour number
+  LabValue furan_2fal_ppb;    // 2-furaldehyde, µg/L (ppb)
+};
+
+// One load-series point. Missing optional values are NaN (millions of
+// points: no std::optional overhead).
+struct LoadPoint {
+  Timestamp t = 0;  // UTC seconds
+  double load_pu = 0;  // per unit of rated power
+  double ambient_c = std::numeric_limits<double>::quiet_NaN();
+  double top_oil_c = std::numeric_limits<double>::quiet_NaN();  // measured
+};
+
+struct InfraredScan {
+  Day date = 0;
+  std::string component;
+  double spot_c = 0;
+  std::optional<double> reference_c;  // similar component under similar load
+  std::optional<double> ambient_c;
+  std::optional<double> load_pct;     // load at the time of the scan, % of rated
+  std::optional<double> emissivity;
+  std::string image_ref;
+  std::string note;
+};
+
+enum class Rating { good = 1, fair = 2, poor = 3, very_poor = 4, unsafe = 5 };
+
+struct InspectionRecord {
+  Day date = 0;
+  std::string item;   // from the documented vocabulary, e.g. "bushings"
+  Rating rating = Rating::good;
+  std::string note;
+  std::string inspector;
+};
+
+// Everything known about one unit; series sorted by time.
+struct UnitData {
+  UnitInfo info;
+  std::vector<OilSample> oil_samples;
+  std::vector<LoadPoint> load;
+  std::vector<InfraredScan> infrared;
+  std::vector<InspectionRecord> inspections;
+};
+
+const char* to_string(Rating r);
+const char* to_string(PaperType p);
+const char* to_string(OilType o);
+
+}  // namespace ferrum::analytics
