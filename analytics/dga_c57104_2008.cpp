@@ -1,0 +1,146 @@
+#include "analytics/dga_c57104_2008.h"
+
+#include <cmath>
+#include <cstdio>
+
+namespace ferrum::analytics {
+namespace {
+
+// Upper bounds (ppm) of Conditions 1, 2 and 3 in IEEE C57.104-2008 Table 1,
+// in kAllGases order. Condition 4 is anything above the third bound.
+constexpr std::array<std::array<double, 3>, 7> kGasBounds = {{
+    {100, 700, 1800},     // H2
+    {120, 400, 1000},     // CH4
+    {65, 100, 150},       // C2H6
+    {50, 100, 200},       // C2H4
+    {1, 9, 35},           // C2H2
+    {350, 570, 1400},     // CO
+    {2500, 4000, 10000},  // CO2
+}};
+constexpr std::array<double, 3> kTdcgBounds = {720, 1920, 4630};
+
+int level_of(double ppm, const std::array<double, 3>& bounds) {
+  for (int i = 0; i < 3; ++i)
+    if (ppm <= bounds[i]) return i + 1;
+  return 4;
+}
+
+std::string describe(const char* what, double ppm, int condition) {
+  char buf[96];
+  std::snprintf(buf, sizeof buf, "%s %.0f ppm (Condition %d)", what, ppm, condition);
+  return buf;
+}
+
+struct Table3Row {
+  const char* interval[3];  // rate >30, 10-30, <10
+  int days[3];
+  const char* action_fast;  // rate >30
+  const char* action_slow;  // otherwise
+};
+
+// IEEE C57.104-2008 Table 3, rows for Conditions 1..4 (from memory, domain.md A.2).
+constexpr Table3Row kTable3[4] = {
+    {{"monthly", "quarterly", "annual"}, {30, 91, 365},
+     "Exercise caution; analyse individual gases for cause; determine load dependence",
+     "Continue normal operation"},
+    {{"monthly", "monthly", "quarterly"}, {30, 30, 91},
+     "Exercise caution; analyse individual gases for cause; determine load dependence",
+     "Exercise caution; analyse individual gases for cause; determine load dependence"},
+    {{"weekly", "weekly", "monthly"}, {7, 7, 30},
+     "Exercise extreme caution; analyse individual gases for cause; plan an outage; advise the manufacturer",
+     "Exercise extreme caution; analyse individual gases for cause; plan an outage; advise the manufacturer"},
+    {{"daily", "daily", "weekly"}, {1, 1, 7},
+     "Consider removal from service; advise the manufacturer",
+     "Exercise extreme caution; analyse individual gases for cause; plan an outage; advise the manufacturer"},
+};
+
+}  // namespace
+
+int c57104_2008_gas_condition(Gas gas, double ppm) { return level_of(ppm, kGasBounds[gas_index(gas)]); }
+
+int c57104_2008_tdcg_condition(double tdcg) { return level_of(tdcg, kTdcgBounds); }
+
+std::optional<double> tdcg_ppm(const OilSample& sample) {
+  double sum = 0;
+  for (Gas g : kCombustibleGases) {
+    auto v = gas_ppm_or_zero(sample, g);
+    if (!v) return std::nullopt;
+    sum += *v;
+  }
+  return sum;
+}
+
+C57104_2008Condition classify_c57104_2008(const OilSample& sample) {
+  C57104_2008Condition r;
+  int worst = 0;
+  for (Gas g : kAllGases) {
+    auto v = gas_ppm_or_zero(sample, g);
+    if (!v) continue;
+    int c = c57104_2008_gas_condition(g, *v);
+    r.gas_condition[gas_index(g)] = c;
+    if (c > worst) {
+      worst = c;
+      r.deciding = describe(gas_name(g), *v, c);
+    }
+  }
+  r.tdcg_ppm = tdcg_ppm(sample);
+  if (r.tdcg_ppm) {
+    r.tdcg_condition = c57104_2008_tdcg_condition(*r.tdcg_ppm);
+    // On a tie the total decides: the guide's conditions are defined on TDCG.
+    if (*r.tdcg_condition >= worst) {
+      worst = *r.tdcg_condition;
+      r.deciding = describe("TDCG", *r.tdcg_ppm, worst);
+    }
+  }
+  if (worst == 0) {
+    r.why_not = "no dissolved gas analysed";
+    return r;
+  }
+  r.applicable = true;
+  r.condition = worst;
+  return r;
+}
+
+std::optional<double> tdcg_rate_ppm_per_day(const OilSample& earlier, const OilSample& later) {
+  const int days = later.date - earlier.date;
+  if (days < 1) return std::nullopt;
+  auto a = tdcg_ppm(earlier), b = tdcg_ppm(later);
+  if (!a || !b) return std::nullopt;
+  return (*b - *a) / days;
+}
+
+C57104_2008Procedure c57104_2008_table3(int condition, std::optional<double> rate, double hv_kv,
+                                        const C57104_2008Table3Options& options) {
+  C57104_2008Procedure p;
+  if (condition < 1 || condition > 4) {
+    p.why_not = "no C57.104-2008 condition";
+    return p;
+  }
+  p.applicable = true;
+  p.condition = condition;
+  p.rate_ppm_per_day = rate;
+  int column = 2;
+  if (!rate) {
+    p.rate_band = "unknown";
+  } else if (*rate > 30) {
+    column = 0;
+    p.rate_band = ">30";
+  } else if (*rate >= 10) {
+    column = 1;
+    p.rate_band = "10-30";
+  } else {
+    p.rate_band = "<10";
+  }
+  const Table3Row& row = kTable3[condition - 1];
+  p.interval = row.interval[column];
+  p.interval_days = row.days[column];
+  p.action = column == 0 ? row.action_fast : row.action_slow;
+  if (condition == 1 && column == 2 && hv_kv >= options.ehv_threshold_kv) {
+    p.interval = "6-monthly";
+    p.interval_days = 182;
+  }
+  if (!rate) p.action += " (TDCG rate unknown: resample to establish the trend)";
+  return p;
+}
+
+}  // namespace ferrum::analytics
