@@ -1,0 +1,47 @@
+// Insulation ageing from hot-spot temperature.
+//
+// * IEC 60076-7:2005 §6.2 relative ageing rate V:
+//   non-upgraded (kraft) paper V = 2^((θ_h − 98)/6)       (eq. 2)
+//   thermally upgraded paper   V = exp(15000/383 − 15000/(θ_h + 273))  (eq. 3)
+// * IEEE C57.91-2011 clause 5 ageing acceleration factor (65 °C-rise,
+//   thermally upgraded insulation): F_AA = exp(15000/383 − 15000/(θ_H + 273)),
+//   equivalent ageing F_EQA = Σ F_AA·Δt / Σ Δt, %LOL = F_EQA·t·100 / normal life.
+// Equations from memory (domain.md D.1/D.2, high confidence). Normal
+// insulation life default 180 000 h: IEEE C57.91-2011 Table 1 (from memory).
+//
+// Inputs: θ_h hot-spot temperature in °C; durations in hours. Outputs
+// dimensionless rates (1 = normal ageing at the reference temperature: 98 °C
+// for kraft, 110 °C for upgraded paper) and hours.
+// Validity: the relations are fitted for roughly 80..160 °C; outside that
+// they are extrapolations.
+#pragma once
+
+#include <string>
+
+#include "analytics/unit_data.h"
+
+namespace ferrum::analytics {
+
+// IEC 60076-7 relative ageing rate, non-upgraded paper (1 at 98 °C).
+double iec_ageing_rate_kraft(double hot_spot_c);
+// IEC 60076-7 / IEEE C57.91 Arrhenius form for upgraded paper (1 at 110 °C).
+// IEEE calls it F_AA.
+double ageing_acceleration_factor(double hot_spot_c);
+// The rate for the unit's paper type.
+double ageing_rate(PaperType paper, double hot_spot_c);
+// Name and source of the rate used for a paper type.
+std::string ageing_rate_source(PaperType paper);
+
+// Equivalent ageing over a period from accumulated ageing.
+struct AgeingSummary {
+  double period_h = 0;            // Σ Δt
+  double loss_of_life_h = 0;      // Σ V·Δt, equivalent hours at the reference temperature
+  double equivalent_factor = 0;   // F_EQA = loss_of_life_h / period_h (0 when period is 0)
+  double loss_of_life_pct = 0;    // 100·loss_of_life_h / normal_life_h
+  double normal_life_h = 0;
+};
+
+// REQUIRES: normal_life_h > 0.
+AgeingSummary summarise_ageing(double period_h, double loss_of_life_h, double normal_life_h);
+
+}  // namespace ferrum::analytics

@@ -1,0 +1,52 @@
+// Top-oil and hot-spot temperature by the difference-equation method of
+// IEC 60076-7:2005 clause 8.2 (Annex C form), plus the closed-form steady
+// state and the exponential response to a load step of the same clause.
+//
+// Source: IEC 60076-7:2005 "Loading guide for oil-immersed power
+// transformers", §8.2.3 (difference equations) and §8.2.2 (exponential
+// functions). Equations written from memory (domain.md D.2, medium-high
+// confidence).
+//
+// Inputs: K load factor (per unit of rated current ≈ rated power), θ_a
+// ambient temperature °C, Dt time step in minutes. Outputs in °C and K.
+// Validity: 0 <= K <= ~2 (the loading guide's emergency range); the standard
+// asks for Dt <= half of the smallest time constant, which iec_max_step_min()
+// gives and which callers sub-step to.
+#pragma once
+
+#include "analytics/iec60076_7_characteristics.h"
+
+namespace ferrum::analytics {
+
+// State of the difference equations between steps.
+struct IecThermalState {
+  double top_oil_c = 0;  // θ_o
+  double dh1_k = 0;      // Δθ_h1, first hot-spot rise term
+  double dh2_k = 0;      // Δθ_h2, second (oil-flow) term
+  double hot_spot_c() const { return top_oil_c + dh1_k - dh2_k; }
+};
+
+// Ultimate (steady-state) top-oil rise over ambient at load K, K:
+// Δθ_or·((1 + K²R)/(1 + R))^x.
+double iec_steady_top_oil_rise(const IecThermalParameters& p, double k);
+// Ultimate hot-spot to top-oil gradient, K: Δθ_hr·K^y.
+double iec_steady_hot_spot_gradient(const IecThermalParameters& p, double k);
+
+// Steady state at constant K and θ_a: the standard's recommended start.
+IecThermalState iec_steady_state(const IecThermalParameters& p, double k, double ambient_c);
+
+// Largest step the standard allows: half of the smallest of k11·τ_o,
+// k22·τ_w and τ_o/k22, in minutes.
+double iec_max_step_min(const IecThermalParameters& p);
+
+// Advances the state by one step of dt_min at load k and ambient θ_a
+// (the values of step n). REQUIRES: 0 < dt_min <= iec_max_step_min(p).
+void iec_step(const IecThermalParameters& p, double k, double ambient_c, double dt_min, IecThermalState& s);
+
+// Hot-spot response function f2(t) of §8.2.2 for a load increase:
+// k21·(1 − e^(−t/(k22·τ_w))) − (k21 − 1)·(1 − e^(−t/(τ_o/k22))).
+double iec_hot_spot_step_response(const IecThermalParameters& p, double t_min);
+// Top-oil response f1(t) = 1 − e^(−t/(k11·τ_o)).
+double iec_top_oil_step_response(const IecThermalParameters& p, double t_min);
+
+}  // namespace ferrum::analytics
