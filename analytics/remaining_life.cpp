@@ -1,0 +1,175 @@
+#include "analytics/remaining_life.h"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+
+namespace ferrum::analytics {
+
+namespace {
+
+std::string fmt(double v, int decimals = 2) {
+  char buf[64];
+  std::snprintf(buf, sizeof buf, "%.*f", decimals, v);
+  return buf;
+}
+
+LifeEstimate not_applicable(const char* basis, std::string why) {
+  LifeEstimate e;
+  e.basis = basis;
+  e.method = "not applicable: " + std::move(why);
+  return e;
+}
+
+// Years to consume `amount` at `rate` per year, with the +-u range on the rate
+// and everything limited to the horizon.
+void fill_years(LifeEstimate& e, double amount, double rate, const RemainingLifeOptions& o) {
+  auto clip = [&](double y) { return std::clamp(y, 0.0, o.horizon_years); };
+  if (amount <= 0) {
+    e.years = e.low_years = e.high_years = 0.0;
+    return;
+  }
+  double u = std::clamp(o.rate_uncertainty, 0.0, 0.95);
+  e.years = clip(amount / rate);
+  e.low_years = clip(amount / (rate * (1 + u)));
+  e.high_years = clip(amount / (rate * (1 - u)));
+}
+
+bool gas_rule_applies(const std::string& trigger, const UnitAssessment& a) {
+  if (trigger == "active_arcing") return a.active_arcing || a.dga.active_arcing;
+  if (trigger == "dga_condition_4") return a.dga.c57104_2008_condition == 4;
+  if (trigger == "dga_condition_3") return a.dga.c57104_2008_condition == 3;
+  if (trigger == "dga_status_3") return a.dga.c57104_2019_status == 3;
+  return false;
+}
+
+}  // namespace
+
+std::optional<double> exponential_time_to(double from, double to, double rate) {
+  if (!(from > 0) || !(to > 0) || !std::isfinite(rate) || rate == 0) return std::nullopt;
+  double t = std::log(to / from) / rate;
+  if (!std::isfinite(t)) return std::nullopt;
+  if (t < 0) {
+    // Already past the target when moving in the rate's direction.
+    bool past = rate > 0 ? from >= to : from <= to;
+    return past ? std::optional<double>(0.0) : std::nullopt;
+  }
+  return t;
+}
+
+std::optional<double> service_years(const UnitInfo& unit, Day as_of) {
+  if (unit.year_built <= 0 || unit.year_built > civil_from_days(as_of).year) return std::nullopt;
+  double y = years_between(days_from_civil(unit.year_built, 7, 1), as_of);
+  return std::max(y, 0.0);
+}
+
+LifeEstimate paper_life(const RemainingLifeOptions& o, const UnitAssessment& a) {
+  const auto& p = a.paper;
+  if (!p.dp_estimate || !std::isfinite(*p.dp_estimate)) return not_applicable("paper", "no DP estimate");
+  auto age = service_years(a.unit, a.as_of);
+  if (!age || *age < 0.5) return not_applicable("paper", "installation year unknown or under half a year");
+  double dp = *p.dp_estimate;
+  double r_hist = std::max(0.0, (o.initial_dp - dp) / *age);
+  std::optional<double> r_th;
+  if (auto f = a.thermal.equivalent_ageing_factor; f && std::isfinite(*f) && *f >= 0 && o.dp200_life_hours > 0)
+    r_th = *f * (o.initial_dp - o.end_of_life_dp) / (o.dp200_life_hours / o.hours_per_year);
+  double rate = std::max(r_hist, r_th.value_or(0));
+  if (!(rate > 0)) return not_applicable("paper", "no measurable paper ageing (DP at or above DP0)");
+  LifeEstimate e;
+  e.basis = "paper";
+  fill_years(e, dp - o.end_of_life_dp, rate, o);
+  bool thermal_faster = r_th && *r_th > r_hist;
+  e.method = "DP " + fmt(dp, 0) + " to " + fmt(o.end_of_life_dp, 0) + " at " + fmt(rate, 1) + " DP/year (" +
+             (thermal_faster ? "recent thermal ageing, F_EQA x (DP0-200)/150 000 h, IEEE C57.91 Table 1"
+                             : "own history since installation from DP0 " + fmt(o.initial_dp, 0)) +
+             ")";
+  if (!p.dp_method.empty()) e.method += "; DP from " + p.dp_method;
+  if (!p.trustworthy) e.method += "; DP estimate flagged untrustworthy (oil treatment)";
+  return e;
+}
+
+LifeEstimate thermal_life(const RemainingLifeOptions& o, const UnitAssessment& a) {
+  const auto& t = a.thermal;
+  auto f = t.equivalent_ageing_factor;
+  if (!f || !std::isfinite(*f) || *f < 0) return not_applicable("thermal", "no equivalent ageing factor");
+  auto age = service_years(a.unit, a.as_of);
+  if (!age) return not_applicable("thermal", "installation year unknown: life consumed before the load record");
+  double age_h = *age * o.hours_per_year;
+  double recorded_h = std::min(std::max(t.covered_hours, 0.0), age_h);
+  double consumed = t.loss_of_life_hours && std::isfinite(*t.loss_of_life_hours)
+                        ? *t.loss_of_life_hours + *f * (age_h - recorded_h)
+                        : *f * age_h;
+  LifeEstimate e;
+  e.basis = "thermal";
+  double left_h = o.normal_insulation_life_hours - consumed;
+  if (*f <= 0 && left_h > 0) {
+    e.years = e.low_years = e.high_years = o.horizon_years;
+  } else {
+    fill_years(e, left_h, *f * o.hours_per_year, o);
+  }
+  e.method = "normal life " + fmt(o.normal_insulation_life_hours, 0) + " h (IEEE C57.91 Table 1) minus " +
+             fmt(consumed, 0) + " h consumed, at F_EQA " + fmt(*f, 3);
+  return e;
+}
+
+LifeEstimate condition_life(const RemainingLifeOptions& o, const UnitAssessment& a) {
+  if (!a.health_index || !std::isfinite(*a.health_index)) return not_applicable("condition", "no health index");
+  if (!(o.expected_life_years > 0) || !(o.hi_end_of_life > 0) || !(o.hi_new > o.hi_end_of_life))
+    return not_applicable("condition", "invalid exponential ageing options");
+  double hi = std::max(*a.health_index, 1e-6);
+  double b_expected = std::log(o.hi_end_of_life / o.hi_new) / o.expected_life_years;  // < 0
+  double b = b_expected;
+  std::string how = "expected rate (age unknown)";
+  if (auto age = service_years(a.unit, a.as_of); age && *age > 0) {
+    double own = std::log(std::min(hi, o.hi_new) / o.hi_new) / *age;
+    b = std::clamp(own, o.max_rate_multiple * b_expected, o.min_rate_multiple * b_expected);
+    how = "own rate " + fmt(own, 4) + "/year" + (b != own ? ", limited to " + fmt(b, 4) : std::string());
+  }
+  LifeEstimate e;
+  e.basis = "condition";
+  // ln(HI_EOL/HI) is the "amount" and -B the rate.
+  fill_years(e, std::log(hi / o.hi_end_of_life), -b, o);
+  e.method = "HI(t) = HI0 e^(B t): HI " + fmt(hi, 1) + " to " + fmt(o.hi_end_of_life, 0) + ", B from " + how +
+             "; expected life " + fmt(o.expected_life_years, 0) + " years";
+  return e;
+}
+
+LifeEstimate gas_life(const RemainingLifeOptions& o, const UnitAssessment& a) {
+  for (const auto& r : o.gas_rules) {
+    if (!gas_rule_applies(r.trigger, a)) continue;
+    LifeEstimate e;
+    e.basis = "gases";
+    e.years = r.years;
+    e.low_years = r.low_years;
+    e.high_years = r.high_years;
+    e.method = r.trigger + ": fixed estimate " + fmt(r.years, 1) + " years (common practice: a unit gassing at " +
+               "this level is expected to need intervention soon; ferrum mapping, not a published formula)";
+    return e;
+  }
+  return not_applicable("gases", "no severe gassing");
+}
+
+void estimate_remaining_life(const RemainingLifeOptions& o, UnitAssessment& a) {
+  RemainingLife rl;
+  rl.estimates = {paper_life(o, a), gas_life(o, a), thermal_life(o, a), condition_life(o, a)};
+  const LifeEstimate* best = nullptr;
+  for (const auto& e : rl.estimates)
+    if (e.years && (!best || *e.years < *best->years)) best = &e;
+  if (best) {
+    rl.years = best->years;
+    rl.low_years = best->low_years;
+    rl.high_years = best->high_years;
+    rl.limiting_factor = best->basis;
+  } else {
+    a.missing.push_back("remaining life: no paper, gas, thermal or condition basis");
+  }
+  a.methods.push_back("remaining life: smallest of paper (DP to 200), gases, thermal (IEEE C57.91 "
+                      "normal life) and condition (exponential HI ageing) estimates");
+  if (a.thermal.equivalent_ageing_factor && a.thermal.covered_hours > 0)
+    a.assumptions.push_back("thermal life consumed before the load record taken at the recorded F_EQA");
+  if (a.paper.dp_estimate)
+    a.assumptions.push_back("paper DP0 " + fmt(o.initial_dp, 0) + " at mid-year of manufacture");
+  a.remaining_life = std::move(rl);
+}
+
+}  // namespace ferrum::analytics
