@@ -1,0 +1,656 @@
+// SQLite implementation of the store, on the SQLite C API: the hot ingest path
+// needs prepared statements reused across a whole file (stack-notes.md: Poco's
+// Data layer re-parses SQL on every execute), and one code path is simpler
+// than two.
+#include <sqlite3.h>
+
+#include <cmath>
+#include <map>
+#include <sstream>
+#include <unordered_map>
+
+#include "schema/migrations.h"
+#include "schema/store.h"
+
+namespace ferrum::store {
+namespace {
+
+#define FILE_COLUMNS \
+  "id, sha256, party, original_name, kind, status, rows, problem_count, received_at, stored_as, receipt_json"
+#define UNIT_COLUMNS                                                                                           \
+  "unit_id, site, serial, rated_mva, hv_kv, lv_kv, cooling, year_built, phases, vector_group, oil_type, paper," \
+  " oil_volume_l, criticality, customers_served, top_oil_rise_k, hot_spot_gradient_k, load_loss_ratio,"       \
+  " oil_treated_day"
+
+
+using analytics::LabValue;
+
+// RAII prepared statement with 1-based binds and 0-based columns.
+class Statement {
+ public:
+  Statement(sqlite3* db, const char* sql) : db_(db) {
+    if (sqlite3_prepare_v2(db, sql, -1, &stmt_, nullptr) != SQLITE_OK)
+      throw StoreError(std::string("cannot prepare SQL: ") + sqlite3_errmsg(db) + " in: " + sql);
+  }
+  ~Statement() { sqlite3_finalize(stmt_); }
+  Statement(const Statement&) = delete;
+  Statement& operator=(const Statement&) = delete;
+
+  Statement& bind(int i, std::int64_t v) { check(sqlite3_bind_int64(stmt_, i, v)); return *this; }
+  Statement& bind(int i, int v) { return bind(i, static_cast<std::int64_t>(v)); }
+  Statement& bind(int i, long long v) { return bind(i, static_cast<std::int64_t>(v)); }
+  Statement& bind(int i, double v) {
+    check(std::isnan(v) ? sqlite3_bind_null(stmt_, i) : sqlite3_bind_double(stmt_, i, v));
+    return *this;
+  }
+  Statement& bind(int i, std::string_view v) {
+    check(sqlite3_bind_text(stmt_, i, v.data(), static_cast<int>(v.size()), SQLITE_TRANSIENT));
+    return *this;
+  }
+  Statement& bind(int i, const std::string& v) { return bind(i, std::string_view(v)); }
+  Statement& bind(int i, const char* v) { return bind(i, std::string_view(v)); }
+  Statement& bind_null(int i) { check(sqlite3_bind_null(stmt_, i)); return *this; }
+  template <class T>
+  Statement& bind(int i, const std::optional<T>& v) {
+    if (v) return bind(i, *v);
+    return bind_null(i);
+  }
+  Statement& bind_text_or_null(int i, const std::string& v) {
+    return v.empty() ? bind_null(i) : bind(i, v);
+  }
+
+  // True while a row is available.
+  bool step() {
+    const int rc = sqlite3_step(stmt_);
+    if (rc == SQLITE_ROW) return true;
+    if (rc == SQLITE_DONE) return false;
+    throw StoreError(std::string("database error: ") + sqlite3_errmsg(db_));
+  }
+  void run() {
+    step();
+    reset();
+  }
+  void reset() {
+    sqlite3_reset(stmt_);
+    sqlite3_clear_bindings(stmt_);
+  }
+
+  bool is_null(int c) const { return sqlite3_column_type(stmt_, c) == SQLITE_NULL; }
+  std::int64_t i64(int c) const { return sqlite3_column_int64(stmt_, c); }
+  int i32(int c) const { return sqlite3_column_int(stmt_, c); }
+  double real(int c) const { return sqlite3_column_double(stmt_, c); }
+  double real_or_nan(int c) const { return is_null(c) ? std::nan("") : real(c); }
+  std::optional<double> opt_real(int c) const {
+    return is_null(c) ? std::nullopt : std::optional<double>(real(c));
+  }
+  std::string text(int c) const {
+    const auto* p = sqlite3_column_text(stmt_, c);
+    return p ? std::string(reinterpret_cast<const char*>(p), sqlite3_column_bytes(stmt_, c)) : std::string();
+  }
+
+ private:
+  void check(int rc) {
+    if (rc != SQLITE_OK) throw StoreError(std::string("cannot bind value: ") + sqlite3_errmsg(db_));
+  }
+  sqlite3* db_;
+  sqlite3_stmt* stmt_ = nullptr;
+};
+
+void exec(sqlite3* db, const char* sql) {
+  char* err = nullptr;
+  if (sqlite3_exec(db, sql, nullptr, nullptr, &err) != SQLITE_OK) {
+    std::string msg = err ? err : "unknown error";
+    sqlite3_free(err);
+    throw StoreError("database error: " + msg);
+  }
+}
+
+// Test columns of an oil sample, in the order stored.
+struct OilField {
+  const char* test;
+  LabValue analytics::OilSample::*member;
+};
+constexpr OilField kOilFields[] = {
+    {"h2_ppm", &analytics::OilSample::h2},
+    {"ch4_ppm", &analytics::OilSample::ch4},
+    {"c2h6_ppm", &analytics::OilSample::c2h6},
+    {"c2h4_ppm", &analytics::OilSample::c2h4},
+    {"c2h2_ppm", &analytics::OilSample::c2h2},
+    {"co_ppm", &analytics::OilSample::co},
+    {"co2_ppm", &analytics::OilSample::co2},
+    {"o2_ppm", &analytics::OilSample::o2},
+    {"n2_ppm", &analytics::OilSample::n2},
+    {"moisture_ppm", &analytics::OilSample::moisture_ppm},
+    {"oil_temp_c", &analytics::OilSample::oil_temp_c},
+    {"breakdown_kv", &analytics::OilSample::breakdown_kv},
+    {"acidity_mgkoh_g", &analytics::OilSample::acidity_mgkoh_g},
+    {"ift_mn_m", &analytics::OilSample::ift_mn_m},
+    {"pf25_pct", &analytics::OilSample::pf25_pct},
+    {"pf100_pct", &analytics::OilSample::pf100_pct},
+    {"color", &analytics::OilSample::color},
+    {"furan_2fal_ppb", &analytics::OilSample::furan_2fal_ppb},
+};
+
+analytics::Rating rating_from(const std::string& s) {
+  using analytics::Rating;
+  if (s == "fair") return Rating::fair;
+  if (s == "poor") return Rating::poor;
+  if (s == "very_poor") return Rating::very_poor;
+  if (s == "unsafe") return Rating::unsafe;
+  return Rating::good;
+}
+
+std::string json_escape(const std::string& s) {
+  std::string out;
+  for (char c : s) {
+    if (c == '"' || c == '\\') { out += '\\'; out += c; }
+    else if (static_cast<unsigned char>(c) < 0x20) { char b[8]; std::snprintf(b, sizeof b, "\\u%04x", c); out += b; }
+    else out += c;
+  }
+  return out;
+}
+
+class SqliteStore final : public Store {
+ public:
+  explicit SqliteStore(const std::string& path) {
+    const int flags = SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE | SQLITE_OPEN_FULLMUTEX;
+    if (sqlite3_open_v2(path.c_str(), &db_, flags, nullptr) != SQLITE_OK) {
+      std::string msg = db_ ? sqlite3_errmsg(db_) : "out of memory";
+      sqlite3_close(db_);
+      throw StoreError("cannot open database " + path + ": " + msg);
+    }
+    sqlite3_busy_timeout(db_, 5000);
+    sqlite3_extended_result_codes(db_, 1);
+    try {
+      check_is_ferrum_db(path);
+      exec(db_, "PRAGMA journal_mode=WAL; PRAGMA synchronous=NORMAL; PRAGMA foreign_keys=ON;");
+      migrate();
+    } catch (...) {
+      sqlite3_close(db_);
+      throw;
+    }
+  }
+  ~SqliteStore() override {
+    statements_.clear();
+    sqlite3_close(db_);
+  }
+
+  void begin() override { exec(db_, "BEGIN IMMEDIATE"); }
+  void commit() override { exec(db_, "COMMIT"); }
+  void rollback() override {
+    if (!sqlite3_get_autocommit(db_)) exec(db_, "ROLLBACK");
+    unit_keys_.clear();  // keys of units inserted in the rolled-back transaction
+  }
+
+  std::int64_t add_file(const FileRecord& f) override {
+    auto& s = stmt("INSERT INTO files(sha256, party, original_name, kind, status, rows, problem_count,"
+                   " received_at, stored_as, receipt_json) VALUES(?,?,?,?,?,?,?,?,?,?)");
+    s.bind(1, f.sha256).bind(2, f.party).bind(3, f.original_name).bind_text_or_null(4, f.kind)
+        .bind(5, f.status).bind(6, f.rows).bind(7, f.problem_count).bind(8, f.received_at)
+        .bind_text_or_null(9, f.stored_as).bind(10, f.receipt_json);
+    s.run();
+    return sqlite3_last_insert_rowid(db_);
+  }
+
+  void update_file(const FileRecord& f) override {
+    auto& s = stmt("UPDATE files SET kind=?, status=?, rows=?, problem_count=?, stored_as=?, receipt_json=? WHERE id=?");
+    s.bind_text_or_null(1, f.kind).bind(2, f.status).bind(3, f.rows).bind(4, f.problem_count)
+        .bind_text_or_null(5, f.stored_as).bind(6, f.receipt_json).bind(7, f.id);
+    s.run();
+  }
+
+  std::optional<FileRecord> accepted_file_with_hash(const std::string& sha) override {
+    return one_file("SELECT " FILE_COLUMNS " FROM files WHERE sha256=? AND status='accepted' ORDER BY id LIMIT 1", sha);
+  }
+  std::optional<FileRecord> latest_file_with_hash(const std::string& sha) override {
+    return one_file("SELECT " FILE_COLUMNS " FROM files WHERE sha256=? ORDER BY id DESC LIMIT 1", sha);
+  }
+
+  std::vector<FileRecord> recent_files(int limit, const std::string& status) override {
+    auto& s = stmt("SELECT " FILE_COLUMNS " FROM files WHERE (?1 = '' OR status = ?1) ORDER BY id DESC LIMIT ?2");
+    s.bind(1, status).bind(2, limit);
+    return read_files(s);
+  }
+
+  std::vector<FileRecord> files_for_unit(std::string_view unit_id) override {
+    auto& s = stmt(
+        "SELECT " FILE_COLUMNS " FROM files WHERE status='accepted' AND id IN ("
+        " SELECT file_id FROM units WHERE unit_id=?1"
+        " UNION SELECT replaced_by_file FROM unit_history WHERE unit_id=?1"
+        " UNION SELECT s.file_id FROM oil_samples s JOIN units u USING(unit_key) WHERE u.unit_id=?1"
+        " UNION SELECT i.file_id FROM infrared_scans i JOIN units u USING(unit_key) WHERE u.unit_id=?1"
+        " UNION SELECT n.file_id FROM inspections n JOIN units u USING(unit_key) WHERE u.unit_id=?1"
+        " UNION SELECT DISTINCT l.file_id FROM load_points l JOIN units u USING(unit_key) WHERE u.unit_id=?1"
+        ") ORDER BY id");
+    s.bind(1, unit_id);
+    return read_files(s);
+  }
+
+  std::vector<std::string> units_of_file(std::int64_t file_id) override {
+    auto& s = stmt(
+        "SELECT unit_id FROM units WHERE file_id=?1"
+        " UNION SELECT u.unit_id FROM oil_samples s JOIN units u USING(unit_key) WHERE s.file_id=?1"
+        " UNION SELECT u.unit_id FROM infrared_scans i JOIN units u USING(unit_key) WHERE i.file_id=?1"
+        " UNION SELECT u.unit_id FROM inspections n JOIN units u USING(unit_key) WHERE n.file_id=?1"
+        " UNION SELECT u.unit_id FROM units u WHERE EXISTS (SELECT 1 FROM load_points l"
+        "   WHERE l.unit_key = u.unit_key AND l.file_id=?1)"
+        " ORDER BY 1");
+    s.bind(1, file_id);
+    std::vector<std::string> out;
+    while (s.step()) out.push_back(s.text(0));
+    s.reset();
+    return out;
+  }
+
+  std::optional<analytics::UnitInfo> find_unit(std::string_view unit_id) override {
+    auto& s = stmt("SELECT " UNIT_COLUMNS " FROM units WHERE unit_id=?");
+    s.bind(1, unit_id);
+    std::optional<analytics::UnitInfo> out;
+    if (s.step()) out = read_unit(s);
+    s.reset();
+    return out;
+  }
+
+  std::vector<analytics::UnitInfo> units() override {
+    auto& s = stmt("SELECT " UNIT_COLUMNS " FROM units ORDER BY unit_id");
+    std::vector<analytics::UnitInfo> out;
+    while (s.step()) out.push_back(read_unit(s));
+    s.reset();
+    return out;
+  }
+
+  bool upsert_unit(const analytics::UnitInfo& u, std::int64_t file_id, int line) override {
+    const auto old = find_unit(u.unit_id);
+    const std::string new_json = unit_json(u);
+    if (old && unit_json(*old) == new_json) return false;
+    if (old) {
+      auto& h = stmt("INSERT INTO unit_history(unit_id, replaced_at, replaced_by_file, old_row_json)"
+                     " VALUES(?, strftime('%Y-%m-%dT%H:%M:%SZ','now'), ?, ?)");
+      h.bind(1, u.unit_id).bind(2, file_id).bind(3, unit_json(*old));
+      h.run();
+    }
+    auto& s = stmt(
+        "INSERT INTO units(unit_id, site, serial, rated_mva, hv_kv, lv_kv, cooling, year_built, phases,"
+        " vector_group, oil_type, paper, oil_volume_l, criticality, customers_served, top_oil_rise_k,"
+        " hot_spot_gradient_k, load_loss_ratio, oil_treated_day, file_id, line)"
+        " VALUES(?1,?2,?3,?4,?5,?6,?7,?8,?9,?10,?11,?12,?13,?14,?15,?16,?17,?18,?19,?20,?21)"
+        " ON CONFLICT(unit_id) DO UPDATE SET site=?2, serial=?3, rated_mva=?4, hv_kv=?5, lv_kv=?6,"
+        " cooling=?7, year_built=?8, phases=?9, vector_group=?10, oil_type=?11, paper=?12,"
+        " oil_volume_l=?13, criticality=?14, customers_served=?15, top_oil_rise_k=?16,"
+        " hot_spot_gradient_k=?17, load_loss_ratio=?18, oil_treated_day=?19, file_id=?20, line=?21");
+    s.bind(1, u.unit_id).bind(2, u.site).bind_text_or_null(3, u.serial).bind(4, u.rated_mva)
+        .bind(5, u.hv_kv).bind(6, u.lv_kv).bind(7, u.cooling).bind(8, u.year_built).bind(9, u.phases)
+        .bind_text_or_null(10, u.vector_group).bind(11, analytics::to_string(u.oil))
+        .bind(12, analytics::to_string(u.paper)).bind(13, u.oil_volume_l).bind(14, u.criticality)
+        .bind(15, u.customers_served).bind(16, u.top_oil_rise_k).bind(17, u.hot_spot_gradient_k)
+        .bind(18, u.load_loss_ratio).bind(19, u.oil_treated).bind(20, file_id).bind(21, line);
+    s.run();
+    unit_keys_.erase(u.unit_id);
+    return true;
+  }
+
+  void add_oil_sample(const std::string& unit_id, const analytics::OilSample& o, std::int64_t file_id,
+                      int line) override {
+    const std::int64_t key = unit_key(unit_id);
+    auto& ins = stmt("INSERT INTO oil_samples(unit_key, sample_day, lab_ref, sample_point, breakdown_method,"
+                     " file_id, line) VALUES(?,?,?,?,?,?,?)");
+    ins.bind(1, key).bind(2, o.date).bind(3, o.lab_ref).bind(4, o.sample_point).bind(5, o.breakdown_method)
+        .bind(6, file_id).bind(7, line);
+    ins.run();
+    const std::int64_t id = sqlite3_last_insert_rowid(db_);
+    // A corrected re-issue (same unit, day, lab reference and sample point)
+    // supersedes the earlier sample, which stays as history.
+    auto& sup = stmt("UPDATE oil_samples SET superseded_by=?1 WHERE unit_key=?2 AND sample_day=?3 AND lab_ref=?4"
+                     " AND sample_point=?5 AND id<>?1 AND superseded_by IS NULL");
+    sup.bind(1, id).bind(2, key).bind(3, o.date).bind(4, o.lab_ref).bind(5, o.sample_point);
+    sup.run();
+    auto& val = stmt("INSERT INTO oil_values(sample_id, test, state, value) VALUES(?,?,?,?)");
+    for (const auto& f : kOilFields) {
+      const LabValue& v = o.*(f.member);
+      if (!v.present()) continue;
+      val.bind(1, id).bind(2, f.test).bind(3, v.is_measured() ? 1 : 2).bind(4, v.value);
+      val.run();
+    }
+  }
+
+  LoadInsert add_load_point(const std::string& unit_id, const analytics::LoadPoint& p, std::int64_t file_id,
+                            int line) override {
+    const std::int64_t key = unit_key(unit_id);
+    // An earlier file's point for the same time is replaced; a second point
+    // for the same time in the same file is left alone and reported.
+    auto& s = stmt(
+        "INSERT INTO load_points(unit_key, ts, load_pu, ambient_c, top_oil_c, file_id, line)"
+        " VALUES(?1,?2,?3,?4,?5,?6,?7) ON CONFLICT(unit_key, ts) DO UPDATE SET load_pu=?3, ambient_c=?4,"
+        " top_oil_c=?5, file_id=?6, line=?7 WHERE load_points.file_id <> ?6");
+    s.bind(1, key).bind(2, p.t).bind(3, p.load_pu).bind(4, p.ambient_c).bind(5, p.top_oil_c)
+        .bind(6, file_id).bind(7, line);
+    const sqlite3_int64 before = sqlite3_total_changes64(db_);
+    s.run();
+    if (sqlite3_total_changes64(db_) == before) return LoadInsert::duplicate_in_file;
+    return LoadInsert::added;
+  }
+
+  void add_infrared(const std::string& unit_id, const analytics::InfraredScan& r, std::int64_t file_id,
+                    int line) override {
+    const std::int64_t key = unit_key(unit_id);
+    auto& del = stmt("DELETE FROM infrared_scans WHERE unit_key=? AND survey_day=? AND component=?");
+    del.bind(1, key).bind(2, r.date).bind(3, r.component);
+    del.run();
+    auto& s = stmt("INSERT INTO infrared_scans(unit_key, survey_day, component, spot_c, reference_c, ambient_c,"
+                   " load_pct, emissivity, image_ref, note, file_id, line) VALUES(?,?,?,?,?,?,?,?,?,?,?,?)");
+    s.bind(1, key).bind(2, r.date).bind(3, r.component).bind(4, r.spot_c).bind(5, r.reference_c)
+        .bind(6, r.ambient_c).bind(7, r.load_pct).bind(8, r.emissivity).bind_text_or_null(9, r.image_ref)
+        .bind_text_or_null(10, r.note).bind(11, file_id).bind(12, line);
+    s.run();
+  }
+
+  void add_inspection(const std::string& unit_id, const analytics::InspectionRecord& r, std::int64_t file_id,
+                      int line) override {
+    const std::int64_t key = unit_key(unit_id);
+    auto& del = stmt("DELETE FROM inspections WHERE unit_key=? AND inspection_day=? AND item=?");
+    del.bind(1, key).bind(2, r.date).bind(3, r.item);
+    del.run();
+    auto& s = stmt("INSERT INTO inspections(unit_key, inspection_day, item, rating, note, inspector, file_id, line)"
+                   " VALUES(?,?,?,?,?,?,?,?)");
+    s.bind(1, key).bind(2, r.date).bind(3, r.item).bind(4, analytics::to_string(r.rating))
+        .bind_text_or_null(5, r.note).bind_text_or_null(6, r.inspector).bind(7, file_id).bind(8, line);
+    s.run();
+  }
+
+  void add_conversion(std::int64_t file_id, const std::string& column, const std::string& original_unit,
+                      const std::string& stored_as) override {
+    auto& s = stmt("INSERT OR REPLACE INTO conversions(file_id, column, original_unit, stored_as) VALUES(?,?,?,?)");
+    s.bind(1, file_id).bind(2, column).bind(3, original_unit).bind(4, stored_as);
+    s.run();
+  }
+
+  analytics::UnitData unit_data(std::string_view unit_id) override {
+    analytics::UnitData d;
+    auto info = find_unit(unit_id);
+    if (!info) return d;
+    d.info = *info;
+    const std::int64_t key = unit_key(std::string(unit_id));
+    read_oil(key, d.oil_samples);
+    d.load = load_points(unit_id, INT64_MIN, INT64_MAX);
+    {
+      auto& s = stmt("SELECT survey_day, component, spot_c, reference_c, ambient_c, load_pct, emissivity,"
+                     " image_ref, note FROM infrared_scans WHERE unit_key=? ORDER BY survey_day, component");
+      s.bind(1, key);
+      while (s.step()) {
+        analytics::InfraredScan r;
+        r.date = s.i32(0);
+        r.component = s.text(1);
+        r.spot_c = s.real(2);
+        r.reference_c = s.opt_real(3);
+        r.ambient_c = s.opt_real(4);
+        r.load_pct = s.opt_real(5);
+        r.emissivity = s.opt_real(6);
+        r.image_ref = s.text(7);
+        r.note = s.text(8);
+        d.infrared.push_back(std::move(r));
+      }
+      s.reset();
+    }
+    {
+      auto& s = stmt("SELECT inspection_day, item, rating, note, inspector FROM inspections WHERE unit_key=?"
+                     " ORDER BY inspection_day, item");
+      s.bind(1, key);
+      while (s.step()) {
+        analytics::InspectionRecord r;
+        r.date = s.i32(0);
+        r.item = s.text(1);
+        r.rating = rating_from(s.text(2));
+        r.note = s.text(3);
+        r.inspector = s.text(4);
+        d.inspections.push_back(std::move(r));
+      }
+      s.reset();
+    }
+    return d;
+  }
+
+  std::vector<analytics::LoadPoint> load_points(std::string_view unit_id, analytics::Timestamp from,
+                                                analytics::Timestamp to) override {
+    std::vector<analytics::LoadPoint> out;
+    auto info = find_unit(unit_id);
+    if (!info) return out;
+    auto& s = stmt("SELECT ts, load_pu, ambient_c, top_oil_c FROM load_points WHERE unit_key=? AND ts BETWEEN ? AND ?"
+                   " ORDER BY ts");
+    s.bind(1, unit_key(std::string(unit_id))).bind(2, from).bind(3, to);
+    while (s.step()) {
+      analytics::LoadPoint p;
+      p.t = s.i64(0);
+      p.load_pu = s.real(1);
+      p.ambient_c = s.real_or_nan(2);
+      p.top_oil_c = s.real_or_nan(3);
+      out.push_back(p);
+    }
+    s.reset();
+    return out;
+  }
+
+  long count_rows(const std::string& table) override {
+    static const char* kTables[] = {"files", "units", "unit_history", "oil_samples", "oil_values", "load_points",
+                                    "infrared_scans", "inspections", "alerts", "conversions"};
+    for (const char* t : kTables) {
+      if (table == t) {
+        Statement s(db_, ("SELECT count(*) FROM " + table).c_str());
+        s.step();
+        return static_cast<long>(s.i64(0));
+      }
+    }
+    throw StoreError("no table named " + table);
+  }
+
+  std::int64_t add_alert(const Alert& a) override {
+    auto& s = stmt("INSERT INTO alerts(unit_id, kind, raised_at, text) VALUES(?,?,?,?)");
+    s.bind(1, a.unit_id).bind(2, a.kind).bind(3, a.raised_at).bind(4, a.text);
+    s.run();
+    return sqlite3_last_insert_rowid(db_);
+  }
+
+  std::vector<Alert> open_alerts() override {
+    auto& s = stmt("SELECT id, unit_id, kind, raised_at, text FROM alerts WHERE acknowledged_at IS NULL ORDER BY id");
+    std::vector<Alert> out;
+    while (s.step()) out.push_back(Alert{s.i64(0), s.text(1), s.text(2), s.text(3), s.text(4), true});
+    s.reset();
+    return out;
+  }
+
+  std::optional<std::string> state(const std::string& key) override {
+    auto& s = stmt("SELECT value FROM daemon_state WHERE key=?");
+    s.bind(1, key);
+    std::optional<std::string> out;
+    if (s.step()) out = s.text(0);
+    s.reset();
+    return out;
+  }
+  void set_state(const std::string& key, const std::string& value) override {
+    auto& s = stmt("INSERT INTO daemon_state(key, value) VALUES(?,?) ON CONFLICT(key) DO UPDATE SET value=excluded.value");
+    s.bind(1, key).bind(2, value);
+    s.run();
+  }
+
+ private:
+
+  Statement& stmt(const char* sql) {
+    auto it = statements_.find(sql);
+    if (it == statements_.end()) it = statements_.emplace(sql, std::make_unique<Statement>(db_, sql)).first;
+    it->second->reset();
+    return *it->second;
+  }
+
+  std::optional<FileRecord> one_file(const char* sql, const std::string& sha) {
+    auto& s = stmt(sql);
+    s.bind(1, sha);
+    auto files = read_files(s);
+    if (files.empty()) return std::nullopt;
+    return files.front();
+  }
+
+  static std::vector<FileRecord> read_files(Statement& s) {
+    std::vector<FileRecord> out;
+    while (s.step()) {
+      FileRecord f;
+      f.id = s.i64(0);
+      f.sha256 = s.text(1);
+      f.party = s.text(2);
+      f.original_name = s.text(3);
+      f.kind = s.text(4);
+      f.status = s.text(5);
+      f.rows = static_cast<long>(s.i64(6));
+      f.problem_count = static_cast<long>(s.i64(7));
+      f.received_at = s.text(8);
+      f.stored_as = s.text(9);
+      f.receipt_json = s.text(10);
+      out.push_back(std::move(f));
+    }
+    s.reset();
+    return out;
+  }
+
+  static analytics::UnitInfo read_unit(const Statement& s) {
+    analytics::UnitInfo u;
+    u.unit_id = s.text(0);
+    u.site = s.text(1);
+    u.serial = s.text(2);
+    u.rated_mva = s.real(3);
+    u.hv_kv = s.real(4);
+    u.lv_kv = s.real(5);
+    u.cooling = s.text(6);
+    u.year_built = s.i32(7);
+    u.phases = s.i32(8);
+    u.vector_group = s.text(9);
+    u.oil = s.text(10) == "ester" ? analytics::OilType::ester : analytics::OilType::mineral;
+    u.paper = s.text(11) == "upgraded" ? analytics::PaperType::upgraded : analytics::PaperType::kraft;
+    u.oil_volume_l = s.opt_real(12);
+    u.criticality = s.i32(13);
+    if (!s.is_null(14)) u.customers_served = s.i32(14);
+    u.top_oil_rise_k = s.opt_real(15);
+    u.hot_spot_gradient_k = s.opt_real(16);
+    u.load_loss_ratio = s.opt_real(17);
+    if (!s.is_null(18)) u.oil_treated = s.i32(18);
+    return u;
+  }
+
+  static std::string unit_json(const analytics::UnitInfo& u) {
+    std::ostringstream o;
+    o.precision(10);
+    auto opt = [&](const auto& v) -> std::string {
+      if (!v) return "null";
+      std::ostringstream t;
+      t.precision(10);
+      t << *v;
+      return t.str();
+    };
+    o << "{\"unit_id\":\"" << json_escape(u.unit_id) << "\",\"site\":\"" << json_escape(u.site)
+      << "\",\"serial\":\"" << json_escape(u.serial) << "\",\"rated_mva\":" << u.rated_mva
+      << ",\"hv_kv\":" << u.hv_kv << ",\"lv_kv\":" << u.lv_kv << ",\"cooling\":\"" << json_escape(u.cooling)
+      << "\",\"year_built\":" << u.year_built << ",\"phases\":" << u.phases << ",\"vector_group\":\""
+      << json_escape(u.vector_group) << "\",\"oil_type\":\"" << analytics::to_string(u.oil)
+      << "\",\"paper\":\"" << analytics::to_string(u.paper) << "\",\"oil_volume_l\":" << opt(u.oil_volume_l)
+      << ",\"criticality\":" << u.criticality << ",\"customers_served\":" << opt(u.customers_served)
+      << ",\"top_oil_rise_k\":" << opt(u.top_oil_rise_k) << ",\"hot_spot_gradient_k\":"
+      << opt(u.hot_spot_gradient_k) << ",\"load_loss_ratio\":" << opt(u.load_loss_ratio)
+      << ",\"oil_treated_day\":" << opt(u.oil_treated) << "}";
+    return o.str();
+  }
+
+  void read_oil(std::int64_t key, std::vector<analytics::OilSample>& out) {
+    auto& s = stmt(
+        "SELECT s.id, s.sample_day, s.lab_ref, s.sample_point, s.breakdown_method, v.test, v.state, v.value"
+        " FROM oil_samples s LEFT JOIN oil_values v ON v.sample_id = s.id"
+        " WHERE s.unit_key=? AND s.superseded_by IS NULL ORDER BY s.sample_day, s.id");
+    s.bind(1, key);
+    std::int64_t current = -1;
+    while (s.step()) {
+      if (s.i64(0) != current) {
+        current = s.i64(0);
+        analytics::OilSample o;
+        o.date = s.i32(1);
+        o.lab_ref = s.text(2);
+        o.sample_point = s.text(3);
+        o.breakdown_method = s.text(4);
+        out.push_back(std::move(o));
+      }
+      if (s.is_null(5)) continue;
+      const std::string test = s.text(5);
+      for (const auto& f : kOilFields) {
+        if (test != f.test) continue;
+        LabValue& v = out.back().*(f.member);
+        v = s.i32(6) == 1 ? LabValue::measured(s.real(7)) : LabValue::below(s.real_or_nan(7));
+      }
+    }
+    s.reset();
+  }
+
+  std::int64_t unit_key(const std::string& unit_id) {
+    auto it = unit_keys_.find(unit_id);
+    if (it != unit_keys_.end()) return it->second;
+    auto& s = stmt("SELECT unit_key FROM units WHERE unit_id=?");
+    s.bind(1, unit_id);
+    if (!s.step()) {
+      s.reset();
+      throw StoreError("unit " + unit_id + " is not in the register");
+    }
+    const std::int64_t key = s.i64(0);
+    s.reset();
+    unit_keys_.emplace(unit_id, key);
+    return key;
+  }
+
+  void check_is_ferrum_db(const std::string& path) {
+    // A file that is not a database at all fails on the first read.
+    char* err = nullptr;
+    if (sqlite3_exec(db_, "SELECT count(*) FROM sqlite_master", nullptr, nullptr, &err) != SQLITE_OK) {
+      std::string msg = err ? err : "unknown error";
+      sqlite3_free(err);
+      throw IncompatibleStore(path + " is not a usable SQLite database (" + msg + ")");
+    }
+    Statement v(db_, "PRAGMA user_version");
+    v.step();
+    const int version = v.i32(0);
+    Statement t(db_, "SELECT count(*) FROM sqlite_master WHERE type='table'");
+    t.step();
+    if (version == 0 && t.i64(0) > 0)
+      throw IncompatibleStore(path + " holds tables but is not a ferrum database");
+    if (version > schema_version())
+      throw IncompatibleStore(path + " was written by a newer ferrum (schema version " + std::to_string(version) +
+                              ", this build knows up to " + std::to_string(schema_version()) +
+                              "); refusing to touch it");
+  }
+
+  void migrate() {
+    Statement v(db_, "PRAGMA user_version");
+    v.step();
+    const int current = v.i32(0);
+    for (const Migration& m : embedded_migrations()) {
+      if (m.version <= current) continue;
+      exec(db_, "BEGIN IMMEDIATE");
+      try {
+        exec(db_, m.sql);
+        exec(db_, ("PRAGMA user_version=" + std::to_string(m.version)).c_str());
+        exec(db_, "COMMIT");
+      } catch (const StoreError& e) {
+        exec(db_, "ROLLBACK");
+        throw StoreError(std::string("migration ") + m.name + " failed: " + e.what());
+      }
+    }
+  }
+
+  sqlite3* db_ = nullptr;
+  std::map<const char*, std::unique_ptr<Statement>> statements_;
+  std::unordered_map<std::string, std::int64_t> unit_keys_;
+};
+
+}  // namespace
+
+int schema_version() {
+  int v = 0;
+  for (const Migration& m : embedded_migrations()) v = std::max(v, m.version);
+  return v;
+}
+
+std::unique_ptr<Store> open_sqlite_store(const std::string& path) { return std::make_unique<SqliteStore>(path); }
+
+}  // namespace ferrum::store

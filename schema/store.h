@@ -1,0 +1,120 @@
+// The store: everything ferrum keeps, behind one interface so that the
+// SQLite implementation (schema/sqlite_store.h) can later be joined by a
+// PostgreSQL one for large fleets. All SQL lives in schema/.
+//
+// Thread-safety: a Store is used by one thread at a time. Errors are thrown
+// as StoreError with the database's message.
+#pragma once
+
+#include <cstdint>
+#include <memory>
+#include <optional>
+#include <stdexcept>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "analytics/unit_data.h"
+
+namespace ferrum::store {
+
+class StoreError : public std::runtime_error {
+ public:
+  using std::runtime_error::runtime_error;
+};
+
+// The database was written by a newer ferrum, or is not a ferrum database.
+class IncompatibleStore : public StoreError {
+ public:
+  using StoreError::StoreError;
+};
+
+struct FileRecord {
+  std::int64_t id = 0;
+  std::string sha256;
+  std::string party;
+  std::string original_name;
+  std::string kind;          // empty when the kind could not be recognised
+  std::string status;        // "accepted", "rejected", "duplicate"
+  long rows = 0;
+  long problem_count = 0;
+  std::string received_at;   // UTC ISO 8601
+  std::string stored_as;     // relative to the site root
+  std::string receipt_json;
+};
+
+struct Alert {
+  std::int64_t id = 0;
+  std::string unit_id, kind, raised_at, text;
+  bool open = true;
+};
+
+// Outcome of adding one load point.
+enum class LoadInsert { added, replaced_earlier_file, duplicate_in_file };
+
+class Store {
+ public:
+  virtual ~Store() = default;
+
+  // One transaction per dropped file: all of its rows or none.
+  virtual void begin() = 0;
+  virtual void commit() = 0;
+  virtual void rollback() = 0;
+
+  // Files.
+  virtual std::int64_t add_file(const FileRecord& file) = 0;
+  virtual void update_file(const FileRecord& file) = 0;
+  virtual std::optional<FileRecord> accepted_file_with_hash(const std::string& sha256) = 0;
+  // The newest record of a file with this content, whatever its status.
+  virtual std::optional<FileRecord> latest_file_with_hash(const std::string& sha256) = 0;
+  virtual std::vector<FileRecord> recent_files(int limit, const std::string& status = "") = 0;
+  virtual std::vector<FileRecord> files_for_unit(std::string_view unit_id) = 0;
+  // Units touched by the rows of one file.
+  virtual std::vector<std::string> units_of_file(std::int64_t file_id) = 0;
+
+  // Units register. upsert_unit returns true when the unit is new or changed;
+  // a replaced row is kept in the unit's history.
+  virtual std::optional<analytics::UnitInfo> find_unit(std::string_view unit_id) = 0;
+  virtual std::vector<analytics::UnitInfo> units() = 0;
+  virtual bool upsert_unit(const analytics::UnitInfo& unit, std::int64_t file_id, int line) = 0;
+
+  // Measurements. REQUIRES: the unit exists.
+  virtual void add_oil_sample(const std::string& unit_id, const analytics::OilSample& sample,
+                              std::int64_t file_id, int line) = 0;
+  virtual LoadInsert add_load_point(const std::string& unit_id, const analytics::LoadPoint& point,
+                                    std::int64_t file_id, int line) = 0;
+  virtual void add_infrared(const std::string& unit_id, const analytics::InfraredScan& scan,
+                            std::int64_t file_id, int line) = 0;
+  virtual void add_inspection(const std::string& unit_id, const analytics::InspectionRecord& rec,
+                              std::int64_t file_id, int line) = 0;
+  virtual void add_conversion(std::int64_t file_id, const std::string& column,
+                              const std::string& original_unit, const std::string& stored_as) = 0;
+
+  // Everything known about a unit, series sorted by time; superseded oil
+  // samples left out.
+  virtual analytics::UnitData unit_data(std::string_view unit_id) = 0;
+  // Only the load points within [from, to] (UTC seconds).
+  virtual std::vector<analytics::LoadPoint> load_points(std::string_view unit_id,
+                                                        analytics::Timestamp from,
+                                                        analytics::Timestamp to) = 0;
+  // Row counts per table, for status and tests.
+  virtual long count_rows(const std::string& table) = 0;
+
+  // Alerts.
+  virtual std::int64_t add_alert(const Alert& alert) = 0;
+  virtual std::vector<Alert> open_alerts() = 0;
+
+  // Small persistent facts of the daemon (last weekly bundle, ...).
+  virtual std::optional<std::string> state(const std::string& key) = 0;
+  virtual void set_state(const std::string& key, const std::string& value) = 0;
+};
+
+// Opens (creating if needed) the SQLite database at path, in WAL mode, and
+// applies pending migrations. Throws IncompatibleStore for a newer schema or
+// a file that is not a ferrum database, StoreError otherwise.
+std::unique_ptr<Store> open_sqlite_store(const std::string& path);
+
+// Schema version this build writes.
+int schema_version();
+
+}  // namespace ferrum::store

@@ -1,0 +1,133 @@
+#include <gtest/gtest.h>
+
+#include <cstdio>
+#include <filesystem>
+#include <fstream>
+
+#include "schema/store.h"
+
+namespace fs = std::filesystem;
+using namespace ferrum;
+
+namespace {
+
+class StoreTest : public ::testing::Test {
+ protected:
+  void SetUp() override {
+    dir_ = fs::temp_directory_path() / ("ferrum-store-" + std::to_string(::getpid()) + "-" +
+                                        ::testing::UnitTest::GetInstance()->current_test_info()->name());
+    fs::remove_all(dir_);
+    fs::create_directories(dir_);
+    db_ = (dir_ / "ferrum.db").string();
+  }
+  void TearDown() override { fs::remove_all(dir_); }
+
+  static analytics::UnitInfo unit(const std::string& id) {
+    analytics::UnitInfo u;
+    u.unit_id = id;
+    u.site = "North";
+    u.rated_mva = 40;
+    u.hv_kv = 132;
+    u.lv_kv = 33;
+    u.cooling = "ONAF";
+    u.year_built = 1985;
+    return u;
+  }
+
+  std::int64_t file(store::Store& s, const std::string& sha = "abc") {
+    store::FileRecord f;
+    f.sha256 = sha;
+    f.party = "planning";
+    f.original_name = "units.csv";
+    f.status = "accepted";
+    f.received_at = "2026-12-01T00:00:00Z";
+    f.receipt_json = "{}";
+    return s.add_file(f);
+  }
+
+  fs::path dir_;
+  std::string db_;
+};
+
+TEST_F(StoreTest, MigratesAndReopens) {
+  { auto s = store::open_sqlite_store(db_); EXPECT_EQ(s->count_rows("units"), 0); }
+  auto s = store::open_sqlite_store(db_);
+  EXPECT_EQ(s->count_rows("files"), 0);
+  EXPECT_GE(store::schema_version(), 1);
+}
+
+TEST_F(StoreTest, RefusesNewerSchema) {
+  { auto s = store::open_sqlite_store(db_); }
+  {
+    // Pretend a future ferrum wrote it.
+    auto cmd = "sqlite3 '" + db_ + "' 'PRAGMA user_version=999'";
+    if (std::system(cmd.c_str()) != 0) GTEST_SKIP() << "sqlite3 shell not installed";
+  }
+  EXPECT_THROW(store::open_sqlite_store(db_), store::IncompatibleStore);
+}
+
+TEST_F(StoreTest, RefusesGarbageFile) {
+  std::ofstream(db_) << std::string(8192, 'x');
+  EXPECT_THROW(store::open_sqlite_store(db_), store::IncompatibleStore);
+}
+
+TEST_F(StoreTest, UnitUpsertKeepsHistory) {
+  auto s = store::open_sqlite_store(db_);
+  const auto f = file(*s);
+  EXPECT_TRUE(s->upsert_unit(unit("T1"), f, 2));
+  EXPECT_FALSE(s->upsert_unit(unit("T1"), f, 2));  // unchanged
+  auto changed = unit("T1");
+  changed.criticality = 5;
+  EXPECT_TRUE(s->upsert_unit(changed, f, 3));
+  EXPECT_EQ(s->count_rows("unit_history"), 1);
+  EXPECT_EQ(s->find_unit("T1")->criticality, 5);
+}
+
+TEST_F(StoreTest, OilSampleSupersededByCorrectedReissue) {
+  auto s = store::open_sqlite_store(db_);
+  const auto f = file(*s);
+  s->upsert_unit(unit("T1"), f, 2);
+  analytics::OilSample o;
+  o.date = analytics::days_from_civil(2026, 3, 14);
+  o.lab_ref = "L-1";
+  o.h2 = analytics::LabValue::measured(100);
+  o.c2h2 = analytics::LabValue::below(0.5);
+  s->add_oil_sample("T1", o, f, 2);
+  o.h2 = analytics::LabValue::measured(90);  // corrected
+  s->add_oil_sample("T1", o, f, 3);
+  const auto d = s->unit_data("T1");
+  ASSERT_EQ(d.oil_samples.size(), 1u);
+  EXPECT_DOUBLE_EQ(d.oil_samples[0].h2.value, 90);
+  EXPECT_TRUE(d.oil_samples[0].c2h2.is_below_limit());
+  EXPECT_DOUBLE_EQ(d.oil_samples[0].c2h2.value, 0.5);
+  EXPECT_FALSE(d.oil_samples[0].ch4.present());
+  EXPECT_EQ(s->count_rows("oil_samples"), 2);  // the earlier values stay as history
+}
+
+TEST_F(StoreTest, LoadDuplicatesDetectedWithinFileReplacedAcrossFiles) {
+  auto s = store::open_sqlite_store(db_);
+  const auto f1 = file(*s, "a");
+  const auto f2 = file(*s, "b");
+  s->upsert_unit(unit("T1"), f1, 2);
+  analytics::LoadPoint p{1000, 0.5};
+  EXPECT_EQ(s->add_load_point("T1", p, f1, 2), store::LoadInsert::added);
+  EXPECT_EQ(s->add_load_point("T1", p, f1, 3), store::LoadInsert::duplicate_in_file);
+  p.load_pu = 0.7;
+  EXPECT_NE(s->add_load_point("T1", p, f2, 2), store::LoadInsert::duplicate_in_file);
+  const auto pts = s->load_points("T1", 0, 5000);
+  ASSERT_EQ(pts.size(), 1u);
+  EXPECT_DOUBLE_EQ(pts[0].load_pu, 0.7);
+  EXPECT_TRUE(std::isnan(pts[0].ambient_c));
+}
+
+TEST_F(StoreTest, RollbackLeavesNothing) {
+  auto s = store::open_sqlite_store(db_);
+  s->begin();
+  const auto f = file(*s);
+  s->upsert_unit(unit("T1"), f, 2);
+  s->rollback();
+  EXPECT_EQ(s->count_rows("units"), 0);
+  EXPECT_EQ(s->count_rows("files"), 0);
+}
+
+}  // namespace
