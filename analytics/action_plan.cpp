@@ -1,0 +1,125 @@
+#include "analytics/action_plan.h"
+
+#include <algorithm>
+#include <cctype>
+#include <cmath>
+#include <cstdio>
+#include <map>
+#include <tuple>
+
+#include "analytics/health_index.h"
+
+namespace ferrum::analytics {
+
+namespace {
+
+std::string fmt(double v, int decimals) {
+  char buf[64];
+  std::snprintf(buf, sizeof buf, "%.*f", decimals, v);
+  return buf;
+}
+
+// Lower case, single spaces, no surrounding space or final full stop.
+std::string merge_key(const std::string& text) {
+  std::string k;
+  for (char c : text) {
+    if (std::isspace(static_cast<unsigned char>(c))) {
+      if (!k.empty() && k.back() != ' ') k += ' ';
+    } else {
+      k += static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+    }
+  }
+  while (!k.empty() && (k.back() == ' ' || k.back() == '.')) k.pop_back();
+  return k;
+}
+
+void add_reason(std::string& reasons, const std::string& r) {
+  if (r.empty()) return;
+  // Reasons are joined with "; ": compare against each part, not substrings.
+  std::size_t start = 0;
+  while (start <= reasons.size()) {
+    std::size_t end = reasons.find("; ", start);
+    if (reasons.compare(start, end == std::string::npos ? std::string::npos : end - start, r) == 0) return;
+    if (end == std::string::npos) break;
+    start = end + 2;
+  }
+  reasons += (reasons.empty() ? "" : "; ") + r;
+}
+
+void add_health_actions(const ActionPlanOptions& o, UnitAssessment& a) {
+  if (!a.health_index) return;
+  double hi = *a.health_index;
+  std::string why = "health index " + fmt(hi, 1) + (a.band.empty() ? "" : " (" + a.band + ")");
+  if (hi < o.replace_below_hi)
+    a.actions.push_back({1, a.as_of + o.replace_due_days, "Plan replacement or rebuild",
+                         why + ": assess risk immediately (Jahromi 2009 HI table)"});
+  else if (hi < o.plan_below_hi)
+    a.actions.push_back({2, a.as_of + o.plan_due_days, "Start planning replacement or refurbishment",
+                         why + ": plan replacement or rebuild considering risk (Jahromi 2009 HI table)"});
+  else if (hi < o.monitor_below_hi)
+    a.actions.push_back({3, a.as_of + o.monitor_due_days, "Intensify monitoring and diagnostic testing",
+                         why + ": more diagnostic testing (Jahromi 2009 HI table)"});
+}
+
+void add_life_actions(const ActionPlanOptions& o, UnitAssessment& a) {
+  const auto& rl = a.remaining_life;
+  if (!rl.years || *rl.years >= o.replace_within_years) return;
+  int due = std::min(o.replace_due_days * 4, static_cast<int>(*rl.years * 365.25 / 2));
+  a.actions.push_back({*rl.years < 1 ? 1 : 2, a.as_of + std::max(due, 0), "Plan replacement or rebuild",
+                       "remaining life " + fmt(*rl.years, 1) + " years, limited by " + rl.limiting_factor});
+}
+
+void add_data_actions(const ActionPlanOptions& o, UnitAssessment& a) {
+  for (const auto& f : data_freshness(a)) {
+    const char* text = nullptr;
+    int priority = 4;
+    if (f.kind == "oil") {
+      text = "Take an oil sample for DGA, oil quality and furans";
+      priority = 3;
+    } else if (f.kind == "infrared") {
+      text = "Carry out an infrared survey";
+    } else if (f.kind == "inspection") {
+      text = "Carry out a visual inspection";
+    }
+    if (!text) continue;  // the load record is the daemon's, not a field task
+    if (!f.latest)
+      a.actions.push_back({priority, a.as_of + o.data_due_days, text, "no " + f.kind + " data on record"});
+    else if (f.age_years && *f.age_years > o.stale_after_years)
+      a.actions.push_back({priority, a.as_of + o.data_due_days, text,
+                           "latest " + f.kind + " data " + fmt(*f.age_years, 1) + " years old"});
+  }
+}
+
+}  // namespace
+
+std::vector<Action> merge_actions(const std::vector<Action>& actions) {
+  std::vector<Action> out;
+  std::map<std::string, std::size_t> index;
+  for (const auto& act : actions) {
+    auto [it, fresh] = index.emplace(merge_key(act.text), out.size());
+    if (fresh) {
+      out.push_back(act);
+      continue;
+    }
+    Action& m = out[it->second];
+    if (act.priority < m.priority) m.text = act.text;  // the most urgent wording leads
+    m.priority = std::min(m.priority, act.priority);
+    m.due = std::min(m.due, act.due);
+    add_reason(m.reason, act.reason);
+  }
+  std::sort(out.begin(), out.end(), [](const Action& x, const Action& y) {
+    return std::tie(x.priority, x.due, x.text) < std::tie(y.priority, y.due, y.text);
+  });
+  return out;
+}
+
+void finalize_actions(UnitAssessment& a) { finalize_actions(ActionPlanOptions{}, a); }
+
+void finalize_actions(const ActionPlanOptions& o, UnitAssessment& a) {
+  add_health_actions(o, a);
+  add_life_actions(o, a);
+  add_data_actions(o, a);
+  a.actions = merge_actions(a.actions);
+}
+
+}  // namespace ferrum::analytics
