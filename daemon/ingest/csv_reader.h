@@ -1,0 +1,152 @@
+// Streaming reader for drop files: CSV per RFC 4180, UTF-8.
+//
+// What it accepts (schema/drop-files.md is the contractor-facing version):
+//  * an optional UTF-8 byte-order mark; a UTF-16 mark rejects the file;
+//  * before the header: blank lines and lines starting with '#' (comments);
+//  * one header row; the delimiter is detected from it: ';' when it has more
+//    semicolons than commas outside quotes (such files may also use a decimal
+//    comma, see decimal_comma()), else ',';
+//  * records ending in LF, CRLF or a lone CR; quoted fields may hold the
+//    delimiter, doubled quotes and line breaks; spaces around a quoted field
+//    are ignored; blank lines between records are skipped.
+//
+// Damaged input never throws, crashes or hangs. Each malformed record gets
+// one Problem (see problems.h) and reading goes on with the next record:
+// a quote inside an unquoted field, text after a closing quote, a NUL byte,
+// invalid UTF-8, more or fewer fields than the header, a record longer than
+// CsvOptions::max_record_bytes (the rest of that physical line is skipped
+// without buffering it). A quote left open at the end of the input is
+// reported at the line where its record starts, and ends the reading.
+//
+// Memory: one record at a time, in a buffer reused across records; the
+// fields are views into it, valid until the next call to next().
+// Not thread-safe. The istream must outlive the reader.
+#pragma once
+
+#include <cstddef>
+#include <cstdint>
+#include <istream>
+#include <span>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "daemon/ingest/problems.h"
+
+namespace ferrum::ingest {
+
+struct CsvOptions {
+  // A record (all its physical lines) longer than this is a problem and is
+  // skipped. Default 1 MiB: far above any real row, small enough that a
+  // 2 GB line without line breaks cannot exhaust memory.
+  std::size_t max_record_bytes = std::size_t{1} << 20;
+  // Bytes read from the stream at a time. Default 64 KiB.
+  std::size_t chunk_bytes = std::size_t{64} << 10;
+};
+
+enum class RecordStatus {
+  ok,         // fields() holds a well-formed record with as many fields as the header
+  malformed,  // one problem was logged for this record; fields() is empty
+  end,        // no more records
+};
+
+class CsvReader {
+ public:
+  explicit CsvReader(std::istream& in, CsvOptions options = {});
+
+  CsvReader(const CsvReader&) = delete;
+  CsvReader& operator=(const CsvReader&) = delete;
+
+  // Skips the byte-order mark, comments and blank lines, detects the
+  // delimiter and reads the header row. Returns false, after logging one
+  // problem (at the header's line, or line 1 for an empty file), when there
+  // is no usable header: empty file, UTF-16, NUL bytes, invalid UTF-8,
+  // unbalanced quotes, or a header longer than max_record_bytes.
+  // REQUIRES: called once, before next().
+  bool read_header(ProblemLog& problems);
+
+  // Header names, trimmed of surrounding spaces, as written (case kept).
+  const std::vector<std::string>& header() const { return header_; }
+  std::int64_t header_line() const { return header_line_; }
+  char delimiter() const { return delimiter_; }
+  // True for semicolon-delimited files, where numbers may use a decimal comma.
+  bool decimal_comma() const { return delimiter_ == ';'; }
+
+  // Reads the next record. On `malformed` one problem was logged to
+  // `problems` and the reader is positioned at the following record.
+  // REQUIRES: read_header() returned true.
+  RecordStatus next(ProblemLog& problems);
+
+  // The fields of the last record read with `ok`, unquoted and unescaped but
+  // not trimmed. Views are valid until the next call to next().
+  std::span<const std::string_view> fields() const { return views_; }
+  // 1-based physical line where the last record started.
+  std::int64_t record_line() const { return record_line_; }
+  // Header name of the 0-based column `index`, or "" past the header.
+  std::string_view column_name(std::size_t index) const;
+
+ private:
+  // Bytes of the stream with a small push-back area in front (used to
+  // re-read the header line once its delimiter is known).
+  class ByteSource {
+   public:
+    ByteSource(std::istream& in, std::size_t chunk) : in_(in), chunk_(chunk) {}
+    static constexpr int kEnd = -1;
+    int get() {
+      if (back_pos_ < back_.size()) return static_cast<unsigned char>(back_[back_pos_++]);
+      if (pos_ == end_ && !refill()) return kEnd;
+      return static_cast<unsigned char>(buf_[pos_++]);
+    }
+    int peek() {
+      if (back_pos_ < back_.size()) return static_cast<unsigned char>(back_[back_pos_]);
+      if (pos_ == end_ && !refill()) return kEnd;
+      return static_cast<unsigned char>(buf_[pos_]);
+    }
+    // The next get() returns these bytes first, then what was pending.
+    void push_back(std::string bytes) {
+      back_ = std::move(bytes) + back_.substr(back_pos_);
+      back_pos_ = 0;
+    }
+
+   private:
+    bool refill();
+    std::istream& in_;
+    std::size_t chunk_;
+    std::vector<char> buf_;
+    std::size_t pos_ = 0, end_ = 0;
+    std::string back_;
+    std::size_t back_pos_ = 0;
+  };
+
+  // Result of scanning one record into buf_/spans_.
+  struct Scan {
+    bool at_end = false;        // input ended before any byte of a record
+    bool failed = false;        // a problem was found (first one kept below)
+    int problem_field = 0;      // 0-based field of the problem
+    std::string problem_reason;
+    bool blank = false;         // the record is an empty line
+  };
+
+  Scan scan_record();
+  void fail(Scan& scan, std::string reason);
+  void skip_rest_of_line();
+  bool skip_byte_order_mark(ProblemLog& problems);
+  bool read_header_line(std::string& line, ProblemLog& problems, bool& at_end);
+  void build_views();
+  bool check_utf8(ProblemLog& problems);
+  void log_record_problem(ProblemLog& problems, int field, std::string reason);
+
+  ByteSource src_;
+  CsvOptions options_;
+  char delimiter_ = ',';
+  std::vector<std::string> header_;
+  std::int64_t header_line_ = 0;
+  std::int64_t line_ = 1;          // physical line of the next byte
+  std::int64_t record_line_ = 0;
+  bool finished_ = false;          // an unterminated quote consumed the input
+  std::string buf_;                // bytes of the current record's fields
+  std::vector<std::size_t> ends_;  // end offset in buf_ of each field
+  std::vector<std::string_view> views_;
+};
+
+}  // namespace ferrum::ingest
