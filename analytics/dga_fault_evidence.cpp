@@ -1,0 +1,37 @@
+#include "analytics/dga_fault_evidence.h"
+
+#include <cstdio>
+
+#include "analytics/dga_gases.h"
+
+namespace ferrum::analytics {
+
+FaultEvidence dga_fault_evidence(const OilSample& sample, const TypicalGasLevels& typical,
+                                 bool rising) {
+  const std::pair<Gas, double> limits[] = {{Gas::h2, typical.h2},     {Gas::ch4, typical.ch4},
+                                           {Gas::c2h6, typical.c2h6}, {Gas::c2h4, typical.c2h4},
+                                           {Gas::c2h2, typical.c2h2}};
+  FaultEvidence e;
+  std::string above;
+  for (const auto& [gas, limit] : limits) {
+    const LabValue& v = gas_value(sample, gas);
+    if (v.is_measured() && v.value > limit) {
+      char buf[64];
+      std::snprintf(buf, sizeof buf, "%s%s %.4g ppm > %.4g", above.empty() ? "" : ", ",
+                    gas_name(gas), v.value, limit);
+      above += buf;
+    }
+  }
+  if (!above.empty()) {
+    e.present = true;
+    e.reason = "above typical: " + above;
+  } else if (rising) {
+    e.present = true;
+    e.reason = "gases rising";
+  } else {
+    e.reason = "no diagnosis: concentrations too low (all fault gases at or below typical values and not rising)";
+  }
+  return e;
+}
+
+}  // namespace ferrum::analytics
