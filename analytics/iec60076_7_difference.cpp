@@ -24,11 +24,20 @@ double iec_max_step_min(const IecThermalParameters& p) {
   return 0.5 * std::min({p.k11 * p.tau_o_min, p.k22 * p.tau_w_min, p.tau_o_min / p.k22});
 }
 
-void iec_step(const IecThermalParameters& p, double k, double ambient_c, double dt_min, IecThermalState& s) {
-  const double g = iec_steady_hot_spot_gradient(p, k);
-  s.top_oil_c += dt_min / (p.k11 * p.tau_o_min) * (iec_steady_top_oil_rise(p, k) - (s.top_oil_c - ambient_c));
+IecStepTargets iec_step_targets(const IecThermalParameters& p, double k) {
+  return {iec_steady_top_oil_rise(p, k), iec_steady_hot_spot_gradient(p, k)};
+}
+
+void iec_step(const IecThermalParameters& p, const IecStepTargets& t, double ambient_c, double dt_min,
+              IecThermalState& s) {
+  const double g = t.gradient_k;
+  s.top_oil_c += dt_min / (p.k11 * p.tau_o_min) * (t.top_oil_rise_k - (s.top_oil_c - ambient_c));
   s.dh1_k += dt_min / (p.k22 * p.tau_w_min) * (p.k21 * g - s.dh1_k);
   s.dh2_k += dt_min / (p.tau_o_min / p.k22) * ((p.k21 - 1) * g - s.dh2_k);
+}
+
+void iec_step(const IecThermalParameters& p, double k, double ambient_c, double dt_min, IecThermalState& s) {
+  iec_step(p, iec_step_targets(p, k), ambient_c, dt_min, s);
 }
 
 double iec_hot_spot_step_response(const IecThermalParameters& p, double t_min) {

@@ -43,6 +43,16 @@ double iec_max_step_min(const IecThermalParameters& p);
 // (the values of step n). REQUIRES: 0 < dt_min <= iec_max_step_min(p).
 void iec_step(const IecThermalParameters& p, double k, double ambient_c, double dt_min, IecThermalState& s);
 
+// The load-dependent terms of a step, computed once per load value so that
+// sub-steps at the same load need no pow().
+struct IecStepTargets {
+  double top_oil_rise_k = 0;  // iec_steady_top_oil_rise(p, k)
+  double gradient_k = 0;      // iec_steady_hot_spot_gradient(p, k)
+};
+IecStepTargets iec_step_targets(const IecThermalParameters& p, double k);
+void iec_step(const IecThermalParameters& p, const IecStepTargets& targets, double ambient_c, double dt_min,
+              IecThermalState& s);
+
 // Hot-spot response function f2(t) of §8.2.2 for a load increase:
 // k21·(1 − e^(−t/(k22·τ_w))) − (k21 − 1)·(1 − e^(−t/(τ_o/k22))).
 double iec_hot_spot_step_response(const IecThermalParameters& p, double t_min);

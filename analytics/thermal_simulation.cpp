@@ -56,9 +56,10 @@ class Integrator {
     // Sub-step long intervals (see kStepFractionOfLimit).
     const int n = std::max(1, static_cast<int>(std::ceil(dt_min / max_step_min_)));
     const double h = dt_min / n;
+    const IecStepTargets targets = iec_step_targets(m_.iec, k);
     double aged = 0;
     for (int i = 0; i < n; ++i) {
-      iec_step(m_.iec, k, ambient, h, iec_);
+      iec_step(m_.iec, targets, ambient, h, iec_);
       aged += ageing_rate(m_.paper, iec_.hot_spot_c()) * h / 60.0;
     }
     return aged;
