@@ -318,7 +318,7 @@ int rating_from_cuts(double value, const RatingCuts& cuts, bool higher_is_better
 const HealthBand* band_of(double hi, const std::vector<HealthBand>& bands) {
   if (!std::isfinite(hi)) return nullptr;
   for (const auto& b : bands)
-    if (hi >= b.lower) return &b;
+    if (hi > b.lower) return &b;
   return bands.empty() ? nullptr : &bands.back();
 }
 

@@ -68,7 +68,9 @@ using RatingCuts = std::array<double, 4>;
 
 // A condition band of the index.
 struct HealthBand {
-  double lower = 0;            // HI >= lower (the top band also includes 100)
+  double lower = 0;            // HI > lower (the bottom band also includes 0). Edges
+                               // belong to the worse band, so that a cap at the
+                               // top of the worst band (30) lands in that band.
   std::string name;            // plain name, ferrum's own wording
   std::string expected_life;   // expected-life range from the published method
   std::string requirement;     // what the method asks for in this band

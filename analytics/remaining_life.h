@@ -81,8 +81,9 @@ LifeEstimate condition_life(const RemainingLifeOptions& o, const UnitAssessment&
 LifeEstimate gas_life(const RemainingLifeOptions& o, const UnitAssessment& a);
 
 // Time for an exponentially growing (rate > 0) or decaying (rate < 0)
-// quantity to go from `from` to `to`: ln(to/from)/rate. nullopt when it never
-// gets there (wrong sign, zero rate, non-positive values); 0 when already past.
+// quantity to go from `from` to `to`: ln(to/from)/rate. 0 when already past
+// the target in the direction of travel; nullopt for a zero or non-finite rate
+// or non-positive values.
 std::optional<double> exponential_time_to(double from, double to, double rate_per_year);
 
 // Age in years at as_of, counted from mid-year of year_built; nullopt if unknown.

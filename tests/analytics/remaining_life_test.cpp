@@ -1,0 +1,155 @@
+// Tests of the remaining-life estimates (analytics/remaining_life.h), each on
+// a constructed unit whose answer is known in closed form.
+#include "analytics/remaining_life.h"
+
+#include <gtest/gtest.h>
+
+#include <cmath>
+
+namespace fa = ferrum::analytics;
+
+namespace {
+
+// Built 2004, assessed 2024-07-01: exactly 20 service years from mid-2004
+// (7305 days = 20 x 365 + 5 leap days, / 365.25 = 20).
+fa::UnitAssessment unit20() {
+  fa::UnitAssessment a;
+  a.as_of = fa::days_from_civil(2024, 7, 1);
+  a.unit.unit_id = "T20";
+  a.unit.year_built = 2004;
+  return a;
+}
+
+}  // namespace
+
+TEST(RemainingLife, ServiceYearsFromMidYear) {
+  auto a = unit20();
+  EXPECT_DOUBLE_EQ(*fa::service_years(a.unit, a.as_of), 20.0);
+  a.unit.year_built = 0;
+  EXPECT_FALSE(fa::service_years(a.unit, a.as_of));
+  a.unit.year_built = 2030;
+  EXPECT_FALSE(fa::service_years(a.unit, a.as_of));
+}
+
+// Paper, own history: DP0 1000 -> 600 in 20 years = 20 DP/year; to DP 200
+// (end of life, domain.md C, verified S13) is 400 / 20 = 20 years. Range at
+// +-30 % on the rate: 400/26 = 15.38 and 400/14 = 28.57 years.
+TEST(RemainingLife, PaperFromOwnHistory) {
+  auto a = unit20();
+  a.paper.dp_estimate = 600;
+  a.thermal.equivalent_ageing_factor = 0.1;  // thermal rate 4.68 DP/year: slower, not used
+  auto e = fa::paper_life(fa::RemainingLifeOptions{}, a);
+  ASSERT_TRUE(e.years);
+  EXPECT_NEAR(*e.years, 20.0, 1e-9);
+  EXPECT_NEAR(*e.low_years, 400.0 / 26, 1e-9);
+  EXPECT_NEAR(*e.high_years, 400.0 / 14, 1e-9);
+  EXPECT_NE(e.method.find("own history"), std::string::npos);
+}
+
+// Paper, projected with recent thermal ageing: at F_EQA = 1 the paper loses
+// DP0 - 200 = 800 DP in 150 000 h (IEEE C57.91-2011 Table 1 "retained DP 200",
+// from memory) = 17.112 years, i.e. 46.75 DP/year > 20 DP/year of history.
+// From DP 600 the remaining 400 DP take half that life: 8.556 years.
+TEST(RemainingLife, PaperProjectedWithFasterThermalAgeing) {
+  auto a = unit20();
+  a.paper.dp_estimate = 600;
+  a.thermal.equivalent_ageing_factor = 1.0;
+  auto e = fa::paper_life(fa::RemainingLifeOptions{}, a);
+  EXPECT_NEAR(*e.years, 150000.0 / 8766 / 2, 1e-9);
+  EXPECT_NE(e.method.find("recent thermal ageing"), std::string::npos);
+}
+
+TEST(RemainingLife, PaperEdges) {
+  auto a = unit20();
+  fa::RemainingLifeOptions o;
+  EXPECT_FALSE(fa::paper_life(o, a).years);  // no DP
+  a.paper.dp_estimate = 150;                  // past end of life
+  EXPECT_DOUBLE_EQ(*fa::paper_life(o, a).years, 0);
+  a.paper.dp_estimate = 1000;                 // no measurable ageing, no thermal data
+  EXPECT_FALSE(fa::paper_life(o, a).years);
+}
+
+// Thermal: 180 000 h normal life (IEEE C57.91-2011 Table 1, from memory). At a
+// constant F_EQA 0.5 the whole life lasts 180 000 / (0.5 x 8766) = 41.068 years;
+// after 20 years 21.068 remain.
+TEST(RemainingLife, ThermalAtConstantAgeing) {
+  auto a = unit20();
+  a.thermal.equivalent_ageing_factor = 0.5;
+  auto e = fa::thermal_life(fa::RemainingLifeOptions{}, a);
+  ASSERT_TRUE(e.years);
+  EXPECT_NEAR(*e.years, 180000.0 / (0.5 * 8766) - 20, 1e-9);
+  // Same answer when one recorded year consumed its share (0.5 x 8766 h).
+  a.thermal.covered_hours = 8766;
+  a.thermal.loss_of_life_hours = 4383;
+  EXPECT_NEAR(*fa::thermal_life(fa::RemainingLifeOptions{}, a).years, 180000.0 / 4383 - 20, 1e-9);
+  // A hotter recorded year (2 x the hours) shortens it by 4383 h / 4383 h/yr = 1 year.
+  a.thermal.loss_of_life_hours = 8766;
+  EXPECT_NEAR(*fa::thermal_life(fa::RemainingLifeOptions{}, a).years, 180000.0 / 4383 - 21, 1e-9);
+}
+
+// Condition: HI(t) = 100 e^(B t) (domain.md F.3). HI 60 at 20 years gives
+// B = ln(0.6)/20 = -0.025541/yr, inside [2, 0.5] x ln(0.3)/60; HI 30 is then
+// reached at t = 20 ln(0.3)/ln(0.6) = 47.138 years, i.e. 27.138 years from now.
+TEST(RemainingLife, ConditionExponentialOwnRate) {
+  auto a = unit20();
+  a.health_index = 60;
+  auto e = fa::condition_life(fa::RemainingLifeOptions{}, a);
+  ASSERT_TRUE(e.years);
+  EXPECT_NEAR(*e.years, 20 * std::log(0.3) / std::log(0.6) - 20, 1e-9);
+}
+
+// The own rate is limited to twice the expected rate (CNAIM v2.1 6.1.8 form,
+// from memory): HI 40 at 20 years would give ln(0.4)/20 = -0.0458 < 2 x
+// ln(0.3)/60 = -0.04013; limited, ln(40/30)/0.04013 = 7.168 years.
+TEST(RemainingLife, ConditionRateLimited) {
+  auto a = unit20();
+  a.health_index = 40;
+  auto e = fa::condition_life(fa::RemainingLifeOptions{}, a);
+  EXPECT_NEAR(*e.years, std::log(40.0 / 30) / (-2 * std::log(0.3) / 60), 1e-9);
+  a.health_index = 30;  // at the end-of-life index
+  EXPECT_DOUBLE_EQ(*fa::condition_life(fa::RemainingLifeOptions{}, a).years, 0);
+}
+
+// CNAIM checks of domain.md F.3 (computed there; CNAIM formulas from memory):
+// beta1 = ln(5.5/0.5)/60 = 0.03996 reaches HS 1.66 at 30 years; a unit at HS
+// 3.0 at age 30 (beta2 = ln(6)/30 = 0.0597) reaches 5.45 ten years later.
+TEST(RemainingLife, ExponentialTimeMatchesCnaimChecks) {
+  double beta1 = std::log(5.5 / 0.5) / 60;
+  EXPECT_NEAR(beta1, 0.03996, 1e-5);
+  EXPECT_NEAR(*fa::exponential_time_to(0.5, 1.66, beta1), 30, 0.05);
+  double beta2 = std::log(3.0 / 0.5) / 30;
+  EXPECT_NEAR(beta2, 0.0597, 1e-4);
+  EXPECT_NEAR(*fa::exponential_time_to(3.0, 5.45, beta2), 10, 0.01);
+  EXPECT_DOUBLE_EQ(*fa::exponential_time_to(6, 5.5, beta2), 0);  // already past
+  EXPECT_FALSE(fa::exponential_time_to(3, 5.5, 0));
+  EXPECT_DOUBLE_EQ(*fa::exponential_time_to(3, 5.5, -0.1), 0);  // decaying, already below
+  EXPECT_FALSE(fa::exponential_time_to(0, 5.5, 0.1));
+}
+
+TEST(RemainingLife, SmallestEstimateLimitsAndOthersAreKept) {
+  auto a = unit20();
+  a.paper.dp_estimate = 600;                 // 20 years
+  a.thermal.equivalent_ageing_factor = 0.1;  // thermal: far longer
+  a.health_index = 60;                       // 27.1 years
+  fa::estimate_remaining_life(fa::RemainingLifeOptions{}, a);
+  EXPECT_EQ(a.remaining_life.limiting_factor, "paper");
+  EXPECT_NEAR(*a.remaining_life.years, 20, 1e-9);
+  EXPECT_EQ(a.remaining_life.estimates.size(), 4u);
+
+  a.dga.c57104_2008_condition = 4;  // ferrum mapping: 1 year (0..2)
+  fa::estimate_remaining_life(fa::RemainingLifeOptions{}, a);
+  EXPECT_EQ(a.remaining_life.limiting_factor, "gases");
+  EXPECT_DOUBLE_EQ(*a.remaining_life.years, 1);
+  EXPECT_DOUBLE_EQ(*a.remaining_life.high_years, 2);
+  a.dga.c57104_2008_condition = 2;  // below the mapping: no gas estimate
+  fa::estimate_remaining_life(fa::RemainingLifeOptions{}, a);
+  EXPECT_EQ(a.remaining_life.limiting_factor, "paper");
+}
+
+TEST(RemainingLife, NothingKnownGivesNoEstimate) {
+  fa::UnitAssessment a;
+  fa::estimate_remaining_life(fa::RemainingLifeOptions{}, a);
+  EXPECT_FALSE(a.remaining_life.years);
+  EXPECT_TRUE(a.remaining_life.limiting_factor.empty());
+  EXPECT_FALSE(a.missing.empty());
+}
