@@ -1,0 +1,305 @@
+#include "daemon/ingest/field_parsers.h"
+
+#include <array>
+#include <charconv>
+#include <cmath>
+
+namespace ferrum::ingest {
+
+namespace {
+
+using analytics::Day;
+using analytics::LabValue;
+using analytics::Timestamp;
+
+char lower(char c) { return (c >= 'A' && c <= 'Z') ? static_cast<char>(c - 'A' + 'a') : c; }
+char upper(char c) { return (c >= 'a' && c <= 'z') ? static_cast<char>(c - 'a' + 'A') : c; }
+bool is_digit(char c) { return c >= '0' && c <= '9'; }
+
+template <class T>
+Parsed<T> failure(const char* why) {
+  Parsed<T> p;
+  p.error = why;
+  return p;
+}
+
+template <class T>
+Parsed<T> success(T value) {
+  Parsed<T> p;
+  p.value = std::move(value);
+  return p;
+}
+
+// Reads exactly `n` digits at s[pos]; -1 when they are not all digits.
+int read_digits(std::string_view s, std::size_t pos, std::size_t n) {
+  if (pos + n > s.size()) return -1;
+  int v = 0;
+  for (std::size_t i = pos; i < pos + n; ++i) {
+    if (!is_digit(s[i])) return -1;
+    v = v * 10 + (s[i] - '0');
+  }
+  return v;
+}
+
+constexpr const char* kBadDate = "not a date: write dates as YYYY-MM-DD, e.g. 2026-03-14";
+
+// The date part of a date or timestamp: YYYY-MM-DD at the start of `s`.
+Parsed<Day> parse_date_prefix(std::string_view s) {
+  if (s.size() < 10 || s[4] != '-' || s[7] != '-') return failure<Day>(kBadDate);
+  const int y = read_digits(s, 0, 4), m = read_digits(s, 5, 2), d = read_digits(s, 8, 2);
+  if (y < 0 || m < 0 || d < 0) return failure<Day>(kBadDate);
+  if (!analytics::is_valid_date(y, m, d)) {
+    return failure<Day>("no such calendar date (check month and day)");
+  }
+  return success<Day>(analytics::days_from_civil(y, m, d));
+}
+
+// 'Z' or ±hh[:mm] / ±hhmm at the whole of `s`; minutes east of UTC.
+Parsed<int> parse_offset(std::string_view s) {
+  constexpr const char* kBad = "bad UTC offset: write Z, +02:00 or -05:00";
+  if (s.size() == 1 && (s[0] == 'Z' || s[0] == 'z')) return success(0);
+  if (s.empty() || (s[0] != '+' && s[0] != '-')) return failure<int>(kBad);
+  const int sign = s[0] == '-' ? -1 : 1;
+  const int h = read_digits(s, 1, 2);
+  int m = 0;
+  if (s.size() == 6 && s[3] == ':') {
+    m = read_digits(s, 4, 2);
+  } else if (s.size() == 5) {
+    m = read_digits(s, 3, 2);
+  } else if (s.size() != 3) {
+    return failure<int>(kBad);
+  }
+  if (h < 0 || m < 0 || m > 59 || h * 60 + m > 14 * 60) return failure<int>(kBad);
+  return success(sign * (h * 60 + m));
+}
+
+}  // namespace
+
+std::string_view trim(std::string_view text) {
+  while (!text.empty() && (text.front() == ' ' || text.front() == '\t')) text.remove_prefix(1);
+  while (!text.empty() && (text.back() == ' ' || text.back() == '\t')) text.remove_suffix(1);
+  return text;
+}
+
+bool iequals(std::string_view a, std::string_view b) {
+  if (a.size() != b.size()) return false;
+  for (std::size_t i = 0; i < a.size(); ++i) {
+    if (lower(a[i]) != lower(b[i])) return false;
+  }
+  return true;
+}
+
+Parsed<double> parse_number(std::string_view text, bool decimal_comma) {
+  text = trim(text);
+  if (text.empty()) return failure<double>("a number is needed here");
+  std::array<char, 64> buf{};
+  if (text.size() >= buf.size()) return failure<double>("not a number");
+  std::size_t n = 0, commas = 0, points = 0;
+  for (std::size_t i = 0; i < text.size(); ++i) {
+    char c = text[i];
+    if (c == '+' && i == 0) continue;  // from_chars takes no leading '+'
+    if (c == ',') {
+      if (!decimal_comma) {
+        return failure<double>("a comma is not a decimal separator in a comma-separated file: use a point");
+      }
+      ++commas;
+      c = '.';
+    } else if (c == '.') {
+      ++points;
+    }
+    buf[n++] = c;
+  }
+  if (commas + points > 1) {
+    return failure<double>("not a number (write no thousands separators and one decimal separator)");
+  }
+  double v = 0;
+  const auto [end, ec] = std::from_chars(buf.data(), buf.data() + n, v);
+  if (ec != std::errc() || end != buf.data() + n || !std::isfinite(v)) {
+    return failure<double>("not a number");
+  }
+  return success(v);
+}
+
+Parsed<std::int64_t> parse_integer(std::string_view text) {
+  text = trim(text);
+  if (!text.empty() && text.front() == '+') text.remove_prefix(1);
+  std::int64_t v = 0;
+  const auto [end, ec] = std::from_chars(text.data(), text.data() + text.size(), v);
+  if (text.empty() || ec != std::errc() || end != text.data() + text.size()) {
+    return failure<std::int64_t>("not a whole number");
+  }
+  return success(v);
+}
+
+Parsed<Day> parse_date(std::string_view text) {
+  text = trim(text);
+  if (text.size() != 10) return failure<Day>(kBadDate);
+  return parse_date_prefix(text);
+}
+
+Parsed<TimeValue> parse_timestamp(std::string_view text, int site_utc_offset_min) {
+  constexpr const char* kBad =
+      "not a timestamp: write YYYY-MM-DDThh:mm[:ss] with optional Z or +hh:mm, e.g. "
+      "2026-03-14T06:15+01:00";
+  text = trim(text);
+  const Parsed<Day> day = parse_date_prefix(text);
+  if (!day.ok()) return failure<TimeValue>(day.error == kBadDate ? kBad : day.error);
+  if (text.size() < 16 || (text[10] != 'T' && text[10] != 't' && text[10] != ' ') ||
+      text[13] != ':') {
+    return failure<TimeValue>(kBad);
+  }
+  const int h = read_digits(text, 11, 2), mi = read_digits(text, 14, 2);
+  int s = 0;
+  std::size_t pos = 16;
+  if (pos < text.size() && text[pos] == ':') {
+    s = read_digits(text, pos + 1, 2);
+    pos += 3;
+    if (pos < text.size() && (text[pos] == '.' || text[pos] == ',')) {  // fraction: dropped
+      ++pos;
+      const std::size_t digits_start = pos;
+      while (pos < text.size() && is_digit(text[pos])) ++pos;
+      if (pos == digits_start) return failure<TimeValue>(kBad);
+    }
+  }
+  if (h < 0 || mi < 0 || s < 0) return failure<TimeValue>(kBad);
+  if (h > 23 || mi > 59 || s > 59) return failure<TimeValue>("no such time of day (hh 00-23, mm and ss 00-59)");
+  TimeValue out;
+  std::string_view zone = trim(text.substr(pos));
+  int offset = site_utc_offset_min;
+  if (zone.empty()) {
+    out.offset_assumed = true;
+  } else {
+    const Parsed<int> z = parse_offset(zone);
+    if (!z.ok()) return failure<TimeValue>(z.error);
+    offset = z.value;
+  }
+  out.utc = analytics::start_of(day.value) + h * 3600 + mi * 60 + s -
+            static_cast<Timestamp>(offset) * 60;
+  return success(out);
+}
+
+Parsed<LabValue> parse_lab_value(std::string_view text, bool decimal_comma) {
+  text = trim(text);
+  if (text.empty()) return success(LabValue{});
+  if (iequals(text, "ND")) return success(LabValue::below());
+  if (text.front() == '<') {
+    const std::string_view limit = trim(text.substr(1));
+    if (iequals(limit, "ND")) return success(LabValue::below());
+    const Parsed<double> v = parse_number(limit, decimal_comma);
+    if (!v.ok()) return failure<LabValue>("not a lab value: write a number, <limit (e.g. <5) or ND");
+    if (v.value < 0) return failure<LabValue>("a detection limit cannot be negative");
+    return success(LabValue::below(v.value));
+  }
+  const Parsed<double> v = parse_number(text, decimal_comma);
+  if (!v.ok()) return failure<LabValue>(v.error);
+  return success(LabValue::measured(v.value));
+}
+
+std::string to_snake_case(std::string_view text) {
+  std::string out;
+  out.reserve(text.size());
+  for (char c : text) {
+    if (c == ' ' || c == '-' || c == '_' || c == '\t') {
+      if (!out.empty() && out.back() != '_') out += '_';
+    } else {
+      out += lower(c);
+    }
+  }
+  while (!out.empty() && out.back() == '_') out.pop_back();
+  return out;
+}
+
+Parsed<std::string> parse_cooling(std::string_view text) {
+  constexpr const char* kBad =
+      "unknown cooling class: write an IEC 60076-2 code such as ONAN, ONAF, OFAF, ODAF, OFWF, "
+      "ODWF or a combined rating such as ONAN/ONAF";
+  std::string best;
+  int best_rank = -1;
+  std::string stage;
+  const auto take_stage = [&]() -> bool {
+    static constexpr std::string_view kInternal = "NFD", kExternal = "NF";
+    if (stage.size() != 4 || std::string_view("OKL").find(stage[0]) == std::string_view::npos ||
+        kInternal.find(stage[1]) == std::string_view::npos ||
+        (stage[2] != 'A' && stage[2] != 'W') || kExternal.find(stage[3]) == std::string_view::npos) {
+      return false;
+    }
+    // More forced internal circulation ranks above more forced external cooling.
+    const int rank = static_cast<int>(kInternal.find(stage[1]) * 2 + kExternal.find(stage[3]));
+    if (rank >= best_rank) {
+      best_rank = rank;
+      best = stage;
+    }
+    stage.clear();
+    return true;
+  };
+  for (char c : trim(text)) {
+    if (c == ' ') continue;
+    if (c == '/') {
+      if (!take_stage()) return failure<std::string>(kBad);
+    } else {
+      stage += upper(c);
+    }
+  }
+  if (!take_stage()) return failure<std::string>(kBad);
+  return success(best);
+}
+
+Parsed<std::string> parse_vector_group(std::string_view text) {
+  constexpr const char* kBad =
+      "not a vector group: write HV letters (D, Y, YN, Z, ZN) then LV letters with a clock "
+      "number 0-11, e.g. Dyn11 or YNd1";
+  std::string u;
+  for (char c : trim(text)) {
+    if (c != ' ') u += upper(c);
+  }
+  std::string out;
+  std::size_t i = 0;
+  const auto take_letters = [&](bool high_voltage) -> bool {
+    if (i >= u.size()) return false;
+    const char c = u[i];
+    const std::string_view allowed = high_voltage ? "DYZI" : "DYZAI";
+    if (allowed.find(c) == std::string_view::npos) return false;
+    out += high_voltage ? c : lower(c);
+    ++i;
+    if ((c == 'Y' || c == 'Z') && i < u.size() && u[i] == 'N') {
+      out += high_voltage ? 'N' : 'n';
+      ++i;
+    }
+    return true;
+  };
+  if (!take_letters(true)) return failure<std::string>(kBad);
+  int groups = 0;
+  while (i < u.size()) {
+    if (!take_letters(false)) return failure<std::string>(kBad);
+    const std::size_t start = i;
+    int clock = 0;
+    while (i < u.size() && is_digit(u[i]) && i - start < 2) clock = clock * 10 + (u[i++] - '0');
+    if (i == start || clock > 11) return failure<std::string>(kBad);
+    out += std::to_string(clock);
+    ++groups;
+  }
+  if (groups == 0) return failure<std::string>(kBad);
+  return success(out);
+}
+
+Parsed<std::string> parse_breakdown_method(std::string_view text) {
+  std::string s;
+  for (char c : text) {
+    if (is_digit(c) || (lower(c) >= 'a' && lower(c) <= 'z') || c == '.') s += lower(c);
+  }
+  if (const auto at = s.find("d1816"); at != std::string::npos) {
+    const std::string_view gap = std::string_view(s).substr(at + 5);
+    const auto has = [&](std::string_view g) { return gap.find(g) != std::string_view::npos; };
+    if (has("2mm") || has("2.0mm") || has("0.08in")) return success<std::string>("ASTM D1816 2 mm");
+    if (has("1mm") || has("1.0mm") || has("0.04in")) return success<std::string>("ASTM D1816 1 mm");
+    return failure<std::string>(
+        "ASTM D1816 needs its gap: write ASTM D1816 1 mm or ASTM D1816 2 mm");
+  }
+  if (s.find("d877") != std::string::npos) return success<std::string>("ASTM D877");
+  if (s.find("60156") != std::string::npos) return success<std::string>("IEC 60156");
+  return failure<std::string>(
+      "unknown breakdown test method: use ASTM D1816 1 mm, ASTM D1816 2 mm, ASTM D877 or "
+      "IEC 60156");
+}
+
+}  // namespace ferrum::ingest
