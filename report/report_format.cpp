@@ -1,0 +1,113 @@
+#include "report/report_format.h"
+
+#include <cmath>
+#include <cstdio>
+#include <map>
+
+namespace ferrum::report {
+
+std::string fmt_number(std::optional<double> v, int decimals, const std::string& unit) {
+  if (!v || !std::isfinite(*v)) return kNoValue;
+  char buf[64];
+  double x = *v;
+  if (std::fabs(x) < 0.5 * std::pow(10.0, -decimals)) x = 0;  // no "-0.0"
+  std::snprintf(buf, sizeof buf, "%.*f", decimals, x);
+  return unit.empty() ? std::string(buf) : std::string(buf) + " " + unit;
+}
+
+std::string fmt_health_index(std::optional<double> hi) { return fmt_number(hi, 0); }
+
+std::string fmt_years_range(std::optional<double> years, std::optional<double> low,
+                            std::optional<double> high) {
+  if (!years) return kNoValue;
+  std::string s = fmt_number(years, 1) + " years";
+  if (low && high) s += " (range " + fmt_number(low, 1) + "–" + fmt_number(high, 1) + ")";
+  return s;
+}
+
+std::string fmt_measure(std::optional<double> v, const std::string& unit) {
+  int decimals = 1;
+  if (unit == "mg/kg" || unit == "kV" || unit == "mN/m" || unit == "ppm" || unit == "µg/L") decimals = 0;
+  if (unit == "mg KOH/g" || unit == "%") decimals = 2;
+  return fmt_number(v, decimals, unit);
+}
+
+std::string fmt_ppm(std::optional<double> v) {
+  if (!v || !std::isfinite(*v)) return kNoValue;
+  const double a = std::fabs(*v);
+  int decimals = 0;
+  if (a < 10) decimals = 1;
+  if (a < 1) decimals = 2;
+  if (a >= 1000) {
+    // Three significant figures on large numbers: 14 830 -> 14800.
+    const double mag = std::pow(10.0, std::floor(std::log10(a)) - 2);
+    return fmt_number(std::round(*v / mag) * mag, 0);
+  }
+  return fmt_number(v, decimals);
+}
+
+std::string fmt_day(std::optional<analytics::Day> d) {
+  return d ? analytics::format_day(*d) : std::string(kNoValue);
+}
+
+std::string fmt_timestamp(analytics::Timestamp t) {
+  const analytics::Day d = analytics::day_of(t);
+  const long secs = static_cast<long>(t - analytics::start_of(d));
+  char buf[32];
+  std::snprintf(buf, sizeof buf, " %02ld:%02ld UTC", secs / 3600, (secs % 3600) / 60);
+  return analytics::format_day(d) + buf;
+}
+
+namespace {
+std::string lookup(const std::map<std::string, std::string>& names, const std::string& key) {
+  const auto it = names.find(key);
+  return it == names.end() ? key : it->second;
+}
+}  // namespace
+
+std::string factor_title(const std::string& key) {
+  static const std::map<std::string, std::string> names = {
+      {"dga", "Dissolved gases"}, {"oil_quality", "Oil quality"}, {"paper", "Paper (furans)"},
+      {"thermal", "Loading and heat"}, {"infrared", "Infrared"}, {"inspection", "Inspection"},
+      {"age", "Age"}};
+  return lookup(names, key);
+}
+
+std::string oil_test_title(const std::string& key) {
+  static const std::map<std::string, std::string> names = {
+      {"moisture", "Water content"}, {"breakdown", "Dielectric breakdown"},
+      {"acidity", "Acidity (neutralisation no.)"}, {"ift", "Interfacial tension"},
+      {"pf25", "Power factor at 25 °C"}, {"pf100", "Power factor at 100 °C"},
+      {"color", "Colour (ASTM D1500)"}};
+  return lookup(names, key);
+}
+
+std::string gas_label(const std::string& gas) {
+  // Unicode subscripts print with the embedded DejaVu font.
+  static const std::map<std::string, std::string> names = {
+      {"H2", "H₂"}, {"CH4", "CH₄"}, {"C2H6", "C₂H₆"}, {"C2H4", "C₂H₄"},
+      {"C2H2", "C₂H₂"}, {"CO", "CO"}, {"CO2", "CO₂"}, {"O2", "O₂"}, {"N2", "N₂"}};
+  return lookup(names, gas);
+}
+
+std::string rating_title(analytics::Rating r) {
+  switch (r) {
+    case analytics::Rating::good: return "good";
+    case analytics::Rating::fair: return "fair";
+    case analytics::Rating::poor: return "poor";
+    case analytics::Rating::very_poor: return "very poor";
+    case analytics::Rating::unsafe: return "UNSAFE";
+  }
+  return "?";
+}
+
+std::string priority_title(int priority) {
+  switch (priority) {
+    case 1: return "P1 urgent";
+    case 2: return "P2 soon";
+    case 3: return "P3 planned";
+    default: return "P" + std::to_string(priority) + " routine";
+  }
+}
+
+}  // namespace ferrum::report

@@ -1,0 +1,39 @@
+// How numbers, dates and names appear in every ferrum PDF, so that units and
+// precision stay consistent between the unit, fleet and alert documents.
+#pragma once
+
+#include <optional>
+#include <string>
+
+#include "analytics/assessment.h"
+
+namespace ferrum::report {
+
+// Printed where a value is absent.
+inline constexpr const char* kNoValue = "—";
+
+// Fixed decimals, then " unit" when a unit is given; kNoValue when absent.
+std::string fmt_number(std::optional<double> v, int decimals, const std::string& unit = "");
+// Health index as printed everywhere: whole number ("62"), kNoValue when absent.
+std::string fmt_health_index(std::optional<double> hi);
+// "12.5 years (9.0–16.0)"; kNoValue when absent.
+std::string fmt_years_range(std::optional<double> years, std::optional<double> low,
+                            std::optional<double> high);
+// A laboratory value with the precision its unit is reported in
+// (mg/kg, kV, mN/m whole; mg KOH/g and % two decimals; others one).
+std::string fmt_measure(std::optional<double> v, const std::string& unit);
+// Significant-figure formatting for values of any size (gas ppm): 3 significant
+// figures, at most 1 decimal ("0.5", "12", "1480").
+std::string fmt_ppm(std::optional<double> v);
+std::string fmt_day(std::optional<analytics::Day> d);
+// "2025-06-01 14:00 UTC".
+std::string fmt_timestamp(analytics::Timestamp t);
+
+// Readable names for document keys.
+std::string factor_title(const std::string& key);     // "dga" -> "Dissolved gases"
+std::string oil_test_title(const std::string& key);   // "ift" -> "Interfacial tension"
+std::string gas_label(const std::string& gas);        // "C2H2" -> "C₂H₂"
+std::string rating_title(analytics::Rating r);        // very_poor -> "very poor"
+std::string priority_title(int priority);             // 1 -> "P1 urgent"
+
+}  // namespace ferrum::report

@@ -1,0 +1,207 @@
+#include "report/unit_report.h"
+
+#include <algorithm>
+
+#include "report/assessment_changes.h"
+#include "report/health_ruler.h"
+#include "report/pdf_document.h"
+#include "report/report_format.h"
+#include "report/safety_block.h"
+#include "report/unit_report_sections.h"
+
+namespace ferrum::report {
+namespace {
+using analytics::UnitAssessment;
+
+std::string unit_title(const UnitAssessment& a) {
+  std::string t = a.unit.unit_id.empty() ? std::string("unnamed unit") : a.unit.unit_id;
+  if (!a.unit.site.empty()) t += " · " + a.unit.site;
+  return t;
+}
+
+void title_block(PageFlow& flow, const UnitAssessment& a, const ReportOptions& options) {
+  HPDF_Page page = flow.page();
+  const double top = flow.y();
+  std::string kicker = "Transformer condition report";
+  if (!options.utility_name.empty()) kicker = options.utility_name + " · " + kicker;
+  draw_text(page, flow.doc().font(FontFace::regular), 8, flow.x(), top - 8, kicker, palette::accent);
+  draw_text(page, flow.doc().font(FontFace::regular), 8, flow.x() + flow.width(), top - 8,
+            "assessment as of " + fmt_day(a.as_of), palette::muted, Align::right);
+  flow.space(12);
+  flow.paragraph(unit_title(a), 17, FontFace::bold);
+  flow.space(2);
+}
+
+// Prominent box at the top of page 1 for conditions that bear on safety.
+void safety_warning(PageFlow& flow, const UnitAssessment& a) {
+  std::vector<std::string> lines;
+  if (a.active_arcing)
+    lines.push_back("Active-arcing gas signature in the oil (" + (a.dga.duval_reading.empty() ? std::string("see gases")
+                    : a.dga.duval_reading) + "). Do not energise or re-energise this unit until an engineer has evaluated it.");
+  if (a.unsafe_inspection) {
+    std::string items;
+    for (const auto& f : a.inspection)
+      if (f.rating == analytics::Rating::unsafe) items += (items.empty() ? "" : ", ") + f.item;
+    lines.push_back("An inspection item is rated UNSAFE" + (items.empty() ? std::string() : " (" + items + ")") +
+                    ". Keep clear and have it evaluated by qualified personnel before further work near the unit.");
+  }
+  if (lines.empty()) return;
+  const double pad = 7, w = flow.width() - 2 * pad - 6;
+  double h = 2 * pad + 11;
+  for (const auto& l : lines) h += flow.text_height(l, w, 8.6, FontFace::bold) + 2;
+  const double top = flow.take(h);
+  HPDF_Page page = flow.page();
+  fill_rect(page, flow.x(), top - h, flow.width(), h, palette::accent_light);
+  stroke_rect(page, flow.x(), top - h, flow.width(), h, palette::ink, 2);
+  fill_rect(page, flow.x(), top - h, 6, h, palette::ink);
+  draw_text(page, flow.doc().font(FontFace::bold), 9.5, flow.x() + pad + 6, top - pad - 9,
+            "WARNING — SAFETY-RELEVANT FINDING", palette::ink);
+  double y = top - pad - 13;
+  for (const auto& l : lines) y = flow.draw_wrapped(l, flow.x() + pad + 6, y, w, 8.6, FontFace::bold) - 2;
+  flow.space(8);
+}
+
+std::vector<std::pair<std::string, std::string>> identity(const UnitAssessment& a) {
+  const auto& u = a.unit;
+  const bool known_year = u.year_built > 0;
+  const int as_of_year = analytics::civil_from_days(a.as_of).year;
+  std::string age = known_year ? std::to_string(as_of_year - u.year_built) + " years (built " +
+                                     std::to_string(u.year_built) + ")"
+                               : std::string(kNoValue);
+  auto text = [](const std::string& s) { return s.empty() ? std::string(kNoValue) : s; };
+  return {{"Site", text(u.site)},
+          {"Unit", text(u.unit_id) + (u.serial.empty() ? "" : " (serial " + u.serial + ")")},
+          {"Rating", u.rated_mva > 0 ? fmt_number(u.rated_mva, u.rated_mva < 10 ? 1 : 0, "MVA") : kNoValue},
+          {"Voltages", u.hv_kv > 0 ? fmt_number(u.hv_kv, u.hv_kv < 10 ? 1 : 0) + " / " +
+                                         fmt_number(u.lv_kv, u.lv_kv < 10 ? 1 : 0) + " kV"
+                                   : kNoValue},
+          {"Cooling", text(u.cooling)},
+          {"Vector group", text(u.vector_group)},
+          {"Age", age},
+          {"Paper / oil", std::string(u.paper == analytics::PaperType::kraft ? "kraft" : "thermally upgraded") +
+                              " / " + (u.oil == analytics::OilType::mineral ? "mineral oil" : "ester")}};
+}
+
+void health_block(PageFlow& flow, const UnitAssessment& a, const UnitAssessment* previous) {
+  flow.subsection("Health index", health_ruler_height() + 10);
+  const double ruler_w = flow.width() * 0.55;
+  const double h = health_ruler_height();
+  const double top = flow.take(h + 4);
+  draw_health_ruler(flow.page(), flow.doc(), Box{flow.x(), top - h, ruler_w, h}, a.health_index,
+                    previous ? previous->health_index : std::nullopt);
+  // Plain words to the right of the ruler.
+  const double tx = flow.x() + ruler_w + 18, tw = flow.width() - ruler_w - 18;
+  double y = top;
+  const std::string headline = a.health_index ? "Health index " + fmt_health_index(a.health_index) + " of 100" +
+                                                    (a.band.empty() ? "" : ": " + a.band)
+                                              : "Health index: not computed";
+  y = flow.draw_wrapped(headline, tx, y, tw, 10, FontFace::bold);
+  if (!a.band_expected_life.empty()) y = flow.draw_wrapped("Expected life in this band: " + a.band_expected_life, tx, y, tw, 7.8, FontFace::regular);
+  if (!a.confidence.empty()) y = flow.draw_wrapped("Basis: " + a.confidence, tx, y, tw, 7.8, FontFace::regular, palette::muted);
+  if (previous) flow.draw_wrapped("Hollow marker: previous report (" + fmt_day(previous->as_of) + ")", tx, y, tw, 7, FontFace::oblique, palette::muted);
+}
+
+void remaining_life_line(PageFlow& flow, const UnitAssessment& a) {
+  const auto& rl = a.remaining_life;
+  std::string text = "Remaining life: ";
+  if (rl.years) {
+    text += fmt_years_range(rl.years, rl.low_years, rl.high_years);
+    if (!rl.limiting_factor.empty()) text += ", limited by " + rl.limiting_factor;
+    text += ".";
+  } else {
+    text += "not estimated (not enough data).";
+  }
+  flow.paragraph(text, 9.2, FontFace::bold);
+}
+
+void actions_table(PageFlow& flow, const UnitAssessment& a) {
+  flow.subsection("What to do: prioritized actions");
+  if (a.actions.empty()) {
+    no_data_note(flow, "No actions: continue routine maintenance and sampling.");
+    return;
+  }
+  std::vector<analytics::Action> sorted = a.actions;
+  std::stable_sort(sorted.begin(), sorted.end(), [](const auto& x, const auto& y) {
+    return x.priority != y.priority ? x.priority < y.priority : x.due < y.due;
+  });
+  Table t;
+  t.columns = {{"Priority", 0.95}, {"Due", 1.15}, {"Action", 3.6}, {"Why", 2.8}};
+  for (const auto& act : sorted) {
+    t.rows.push_back({priority_title(act.priority), fmt_day(act.due), act.text, act.reason});
+    t.emphasis.push_back(act.priority == 1);
+  }
+  flow.table(t);
+}
+
+void freshness_table(PageFlow& flow, const UnitAssessment& a) {
+  flow.subsection("How fresh the data are");
+  std::vector<std::pair<std::string, std::string>> items;
+  for (const auto& f : a.freshness)
+    items.push_back({f.kind + " data", f.latest ? fmt_day(f.latest) + " (" + fmt_number(f.age_years, 1, "years old") + ")"
+                                                : std::string("none on record")});
+  if (items.empty())
+    no_data_note(flow, "No dated records of any kind.");
+  else
+    flow.key_values(items, 4);
+  if (!a.missing.empty()) flow.paragraph("Missing: " + [&] {
+    std::string s;
+    for (const auto& m : a.missing) s += (s.empty() ? "" : "; ") + m;
+    return s;
+  }(), type::body, FontFace::regular, palette::ink);
+}
+
+}  // namespace
+
+void no_data_note(PageFlow& flow, const std::string& what) {
+  flow.paragraph(what, type::body, FontFace::oblique, palette::muted);
+}
+
+void summary_section(PageFlow& flow, const UnitAssessment& a, const UnitAssessment* previous,
+                     const ReportOptions& options) {
+  title_block(flow, a, options);
+  safety_warning(flow, a);
+  // The title block already heads page 1: the summary gets a slim heading.
+  flow.doc().add_bookmark("Summary", flow.page(), flow.y() + 30);
+  draw_text(flow.page(), flow.doc().font(FontFace::bold), 9, flow.x(), flow.y() - 9, "Summary", palette::accent);
+  draw_line(flow.page(), flow.x(), flow.y() - 13, flow.x() + flow.width(), flow.y() - 13, palette::rule, 0.5);
+  flow.space(19);
+  flow.key_values(identity(a), 4);
+  health_block(flow, a, previous);
+  remaining_life_line(flow, a);
+  actions_table(flow, a);
+  freshness_table(flow, a);
+  flow.subsection("Since the previous report", 20);
+  flow.bullets(describe_changes(a, previous), type::small);
+}
+
+void render_unit_report(const UnitAssessment& current, const UnitAssessment* previous,
+                        const std::vector<SourceFile>& files, const ReportOptions& options,
+                        const std::string& path) {
+  const std::string title = "Transformer condition report: " + unit_title(current);
+  PdfDocument doc(options, title, "Condition assessment as of " + fmt_day(current.as_of));
+  PageFlow flow(doc, title + " · as of " + fmt_day(current.as_of));
+
+  // Page 1 carries the safety cautions at its foot, whatever else it holds.
+  const double safety_h = safety_block_height(flow);
+  draw_safety_block(flow, flow.bottom() + safety_h);
+  flow.reserve_bottom(safety_h + 10);
+  summary_section(flow, current, previous, options);
+
+  // Detail starts on a fresh page unless the summary already ran over.
+  if (doc.pages().size() == 1) flow.new_page();
+  gases_section(flow, current);
+  oil_paper_section(flow, current);
+  thermal_section(flow, current);
+  findings_section(flow, current);
+  health_index_section(flow, current);
+  sources_section(flow, current, files, options);
+
+  // The block carries its own SAFETY heading; only a bookmark is added here.
+  flow.ensure(safety_h + 12);
+  doc.add_bookmark("SAFETY", flow.page(), flow.y());
+  add_safety_block(flow);
+  doc.draw_footers("ferrum · " + unit_title(current) + " · as of " + fmt_day(current.as_of));
+  doc.save(path);
+}
+
+}  // namespace ferrum::report

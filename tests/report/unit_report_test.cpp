@@ -1,0 +1,172 @@
+#include "report/unit_report.h"
+
+#include <gtest/gtest.h>
+
+#include <chrono>
+
+#include "report/report_format.h"
+#include "report/safety_block.h"
+#include "tests/report/pdf_tools.h"
+#include "tests/report/report_fixtures.h"
+
+namespace ferrum::report {
+namespace {
+using namespace testing;
+
+ReportOptions fixed_options() {
+  ReportOptions o;
+  o.utility_name = "Riverside Distribution";
+  o.utc_offset_note = "times without an offset were taken as UTC+01:00";
+  o.creation_date = "2026-12-01T10:00:00Z";
+  return o;
+}
+
+class UnitReportTest : public ::testing::Test {
+ protected:
+  void SetUp() override {
+    if (!have_tool("pdftotext") || !have_tool("qpdf")) GTEST_SKIP() << "poppler-utils / qpdf not installed";
+  }
+};
+
+TEST_F(UnitReportTest, FilledUnitShowsEverySectionActionAndKeyNumber) {
+  const auto unit = fixtures::filled_unit();
+  const auto prev = fixtures::previous_of_filled();
+  const std::string path = temp_path("filled.pdf");
+  render_unit_report(unit, &prev, fixtures::source_files(), fixed_options(), path);
+  ASSERT_TRUE(qpdf_check(path));
+  const std::string text = squash(pdf_raw_text(path));
+  for (const char* heading : {"Summary", "Dissolved gases", "Oil quality and paper", "Loading and heat",
+                              "Infrared and inspection", "Health index explained", "Sources, methods and assumptions"})
+    EXPECT_NE(text.find(heading), std::string::npos) << heading;
+  for (const auto& action : unit.actions) EXPECT_NE(text.find(squash(action.text)), std::string::npos) << action.text;
+  EXPECT_NE(text.find("Health index 58 of 100: fair"), std::string::npos);  // 57.6 printed as a whole number
+  EXPECT_NE(text.find("11.5 years (range 7.0–16.0), limited by paper"), std::string::npos);
+  EXPECT_NE(text.find("126.4 °C"), std::string::npos);       // peak hot spot
+  EXPECT_NE(text.find("19 mg/kg"), std::string::npos);       // moisture, whole mg/kg
+  EXPECT_NE(text.find("0.21 mg KOH/g"), std::string::npos);  // acidity keeps two decimals
+  EXPECT_NE(text.find("T-204"), std::string::npos);
+  EXPECT_NE(text.find("YNd11"), std::string::npos);
+  EXPECT_NE(text.find("northline_dga_2026-10-20_batch0412.csv"), std::string::npos);
+  EXPECT_NE(text.find("UTC+01:00"), std::string::npos);
+  EXPECT_NE(text.find("C₂H₂"), std::string::npos);            // subscripts survive extraction
+  EXPECT_NE(text.find("µL/L"), std::string::npos);
+  EXPECT_NE(text.find("Health index worse by 5 points"), std::string::npos);  // 63 -> 58
+}
+
+TEST_F(UnitReportTest, SafetyBlockOnFirstAndLastPage) {
+  const std::string path = temp_path("safety.pdf");
+  render_unit_report(fixtures::filled_unit(), nullptr, {}, fixed_options(), path);
+  const int pages = pdf_pages(path);
+  ASSERT_GT(pages, 2);
+  auto page_text = [&](int n) {
+    return squash(run("pdftotext -f " + std::to_string(n) + " -l " + std::to_string(n) + " '" + path + "' - 2>/dev/null"));
+  };
+  for (int p : {1, pages}) {
+    const std::string t = page_text(p);
+    EXPECT_NE(t.find("SAFETY"), std::string::npos) << "page " << p;
+    EXPECT_NE(t.find("NFPA 70E"), std::string::npos) << "page " << p;
+    EXPECT_NE(t.find("PCB"), std::string::npos) << "page " << p;
+    EXPECT_NE(t.find("confirmed by qualified personnel"), std::string::npos) << "page " << p;
+    EXPECT_NE(t.find("page " + std::to_string(p) + " of " + std::to_string(pages)), std::string::npos);
+  }
+  // The arcing fixture raises the warning at the top of page 1.
+  EXPECT_NE(page_text(1).find("WARNING"), std::string::npos);
+}
+
+TEST_F(UnitReportTest, NoWarningBoxWithoutUnsafeFinding) {
+  auto unit = fixtures::filled_unit();
+  unit.active_arcing = false;
+  unit.dga.active_arcing = false;
+  const std::string path = temp_path("calm.pdf");
+  render_unit_report(unit, nullptr, {}, fixed_options(), path);
+  EXPECT_EQ(pdf_raw_text(path).find("WARNING"), std::string::npos);
+}
+
+TEST_F(UnitReportTest, UnsafeInspectionIsNamedInTheWarning) {
+  auto unit = fixtures::filled_unit();
+  unit.active_arcing = false;
+  unit.unsafe_inspection = true;
+  unit.inspection[1].rating = analytics::Rating::unsafe;
+  const std::string path = temp_path("unsafe.pdf");
+  render_unit_report(unit, nullptr, {}, fixed_options(), path);
+  const std::string first = squash(run("pdftotext -l 1 '" + path + "' - 2>/dev/null"));
+  EXPECT_NE(first.find("WARNING"), std::string::npos);
+  EXPECT_NE(first.find("rated UNSAFE (bushings)"), std::string::npos);
+}
+
+TEST_F(UnitReportTest, UnitWithNoDataRendersAndSaysWhatIsMissing) {
+  const std::string path = temp_path("empty.pdf");
+  render_unit_report(fixtures::empty_unit(), nullptr, {}, fixed_options(), path);
+  ASSERT_TRUE(qpdf_check(path));
+  const std::string text = squash(pdf_raw_text(path));
+  EXPECT_NE(text.find("Health index: not computed"), std::string::npos);
+  EXPECT_NE(text.find("No dissolved-gas analysis on record"), std::string::npos);
+  EXPECT_NE(text.find("No load data on record"), std::string::npos);
+  EXPECT_NE(text.find("oil-lab results (no sample on record)"), std::string::npos);
+  EXPECT_NE(text.find("SAFETY"), std::string::npos);
+}
+
+TEST_F(UnitReportTest, SameInputGivesSameBytes) {
+  const auto unit = fixtures::filled_unit();
+  const std::string a = temp_path("det-a.pdf"), b = temp_path("det-b.pdf");
+  render_unit_report(unit, nullptr, fixtures::source_files(), fixed_options(), a);
+  render_unit_report(unit, nullptr, fixtures::source_files(), fixed_options(), b);
+  EXPECT_EQ(file_bytes(a), file_bytes(b));
+  // Only the creation date option changes the bytes.
+  auto other = fixed_options();
+  other.creation_date = "2027-01-02T03:04:05Z";
+  render_unit_report(unit, nullptr, fixtures::source_files(), other, b);
+  EXPECT_NE(file_bytes(a), file_bytes(b));
+}
+
+TEST_F(UnitReportTest, MetadataAndBookmarks) {
+  const std::string path = temp_path("meta.pdf");
+  render_unit_report(fixtures::filled_unit(), nullptr, {}, fixed_options(), path);
+  const std::string info = run("pdfinfo '" + path + "' 2>/dev/null");
+  EXPECT_NE(info.find("T-204"), std::string::npos);
+  EXPECT_NE(info.find("Author:"), std::string::npos);
+  EXPECT_NE(info.find("ferrum"), std::string::npos);
+  EXPECT_NE(info.find("2026"), std::string::npos);  // creation date
+  const std::string fonts = run("pdffonts '" + path + "' 2>/dev/null");
+  EXPECT_NE(fonts.find("DejaVuSans"), std::string::npos);
+  EXPECT_EQ(fonts.find(" no  "), std::string::npos) << fonts;  // every font embedded
+  const std::string qpdf = run("qpdf --json --json-key=outlines '" + path + "' 2>/dev/null");
+  for (const char* b : {"Summary", "Dissolved gases", "Loading and heat", "SAFETY"})
+    EXPECT_NE(qpdf.find(b), std::string::npos) << b;
+}
+
+TEST_F(UnitReportTest, LetterPaperAndNoTempFileLeft) {
+  auto o = fixed_options();
+  o.paper = ReportOptions::Paper::letter;
+  const std::string path = temp_path("letter.pdf");
+  render_unit_report(fixtures::filled_unit(), nullptr, {}, o, path);
+  EXPECT_NE(run("pdfinfo '" + path + "' 2>/dev/null").find("612 x 792"), std::string::npos);
+  EXPECT_FALSE(std::ifstream(path + ".tmp").good());
+}
+
+TEST(UnitReportErrors, BadPathAndBadDateThrowRenderError) {
+  ReportOptions o;
+  o.creation_date = "yesterday";
+  EXPECT_THROW(render_unit_report(fixtures::empty_unit(), nullptr, {}, o, temp_path("x.pdf")), RenderError);
+  o.creation_date = "2026-12-01T10:00:00Z";
+  try {
+    render_unit_report(fixtures::empty_unit(), nullptr, {}, o, "/nonexistent-dir/x.pdf");
+    FAIL() << "expected RenderError";
+  } catch (const RenderError& e) {
+    EXPECT_NE(std::string(e.what()).find("libharu error 0x"), std::string::npos) << e.what();
+  }
+}
+
+TEST(UnitReportSpeed, FilledReportRendersQuickly) {
+  const auto unit = fixtures::filled_unit();
+  ReportOptions o;
+  o.creation_date = "2026-12-01T10:00:00Z";
+  const auto t0 = std::chrono::steady_clock::now();
+  render_unit_report(unit, nullptr, fixtures::source_files(), o, temp_path("speed.pdf"));
+  const auto ms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
+  std::printf("unit report rendered in %.1f ms\n", ms);
+  EXPECT_LT(ms, 500);  // generous for Debug/sanitizer builds; Release target is < 50 ms
+}
+
+}  // namespace
+}  // namespace ferrum::report
