@@ -1,0 +1,109 @@
+#include "analytics/infrared_severity.h"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+#include <map>
+
+namespace ferrum::analytics {
+namespace {
+
+constexpr const char* kSource =
+    "ANSI/NETA MTS thermographic ΔT criteria (priorities 1-4); load correction exponent per "
+    "Infraspection Institute practice";
+
+const char* neta_text(int priority) {
+  switch (priority) {
+    case 1: return "NETA priority 1: major discrepancy, repair immediately";
+    case 2: return "NETA priority 2: monitor until corrective measures can be taken";
+    case 3: return "NETA priority 3: probable deficiency, repair as time permits";
+    case 4: return "NETA priority 4: possible deficiency, investigate";
+  }
+  return "no deficiency (rise below 1 °C)";
+}
+
+struct Reading {
+  std::optional<double> measured, corrected;
+};
+
+Reading reading(double spot, const std::optional<double>& base, const std::optional<double>& load_pct,
+                double n) {
+  Reading r;
+  if (!base) return r;
+  r.measured = spot - *base;
+  if (load_pct && *load_pct > 0) r.corrected = rise_at_rated_load(*r.measured, *load_pct, n);
+  return r;
+}
+
+// The rise that is classified: corrected when the load is known.
+std::optional<double> classified(const Reading& r) { return r.corrected ? r.corrected : r.measured; }
+
+}  // namespace
+
+int neta_priority_over_reference(double rise) {
+  if (!(rise >= 1)) return 0;
+  if (rise <= 3) return 4;
+  if (rise <= 15) return 3;
+  return 1;
+}
+
+int neta_priority_over_ambient(double rise) {
+  if (!(rise >= 1)) return 0;
+  if (rise <= 10) return 4;
+  if (rise <= 20) return 3;
+  if (rise <= 40) return 2;
+  return 1;
+}
+
+double rise_at_rated_load(double rise_k, double load_pct, double exponent) {
+  return rise_k * std::pow(100.0 / load_pct, exponent);
+}
+
+InfraredFinding assess_infrared_scan(const InfraredScan& scan, const InfraredOptions& options) {
+  InfraredFinding f;
+  f.date = scan.date;
+  f.component = scan.component;
+  f.source = kSource;
+  const double n = std::clamp(options.load_exponent, 1.6, 2.0);
+  const Reading ref = reading(scan.spot_c, scan.reference_c, scan.load_pct, n);
+  const Reading amb = reading(scan.spot_c, scan.ambient_c, scan.load_pct, n);
+  f.rise_over_reference_k = ref.measured;
+  f.rise_over_ambient_k = amb.measured;
+  f.corrected_rise_k = ref.corrected ? ref.corrected : amb.corrected;
+  f.low_load = scan.load_pct && *scan.load_pct < options.low_load_pct;
+  if (!ref.measured && !amb.measured) {
+    f.severity_text = "not classified: neither a reference component nor ambient temperature recorded";
+    return f;
+  }
+  const int p_ref = classified(ref) ? neta_priority_over_reference(*classified(ref)) : 0;
+  const int p_amb = classified(amb) ? neta_priority_over_ambient(*classified(amb)) : 0;
+  const int severity = std::max(severity_from_neta_priority(p_ref), severity_from_neta_priority(p_amb));
+  std::string text = severity == 0 ? neta_text(0) : neta_text(5 - severity);
+  if (severity > 0) f.severity = severity;
+  if (!scan.load_pct) text += "; load not recorded, rise not corrected";
+  if (f.low_load) {
+    char buf[96];
+    std::snprintf(buf, sizeof buf, "; scanned at %.0f %% load, correction to rated load unreliable",
+                  *scan.load_pct);
+    text += buf;
+  }
+  f.severity_text = text;
+  return f;
+}
+
+std::vector<InfraredFinding> assess_infrared_survey(std::span<const InfraredScan> scans, Day as_of,
+                                                    const InfraredOptions& options) {
+  std::map<std::string, const InfraredScan*> latest;
+  for (const auto& s : scans) {
+    if (s.date > as_of) continue;
+    auto& slot = latest[s.component];
+    if (!slot || s.date >= slot->date) slot = &s;
+  }
+  std::vector<InfraredFinding> out;
+  for (const auto& [component, scan] : latest) out.push_back(assess_infrared_scan(*scan, options));
+  std::stable_sort(out.begin(), out.end(),
+                   [](const auto& a, const auto& b) { return a.severity.value_or(0) > b.severity.value_or(0); });
+  return out;
+}
+
+}  // namespace ferrum::analytics

@@ -1,0 +1,58 @@
+// Infrared survey findings: temperature rise of a component over a similar
+// component and over ambient, corrected to rated load, and classified on the
+// four-step NETA ΔT scale.
+//
+// Sources:
+// * ANSI/NETA MTS (Standard for Maintenance Testing Specifications),
+//   thermographic survey table of ΔT criteria (edition not verified; the
+//   table as reproduced on public pages, domain.md E, tag S5):
+//     priority 4: 1–3 °C over similar / 1–10 °C over ambient   possible deficiency
+//     priority 3: 4–15 °C / 11–20 °C                           probable deficiency
+//     priority 2: — / 21–40 °C                                 monitor until corrected
+//     priority 1: >15 °C / >40 °C                              major discrepancy
+//   The table's bands are whole degrees; for measured values ferrum reads
+//   them as "up to 3, above 3 up to 15, above 15" (and 10/20/40 for ambient),
+//   with rises below 1 °C giving no finding.
+// * Load correction ΔT_corr = ΔT·(I_rated/I_meas)^n, n 1.6..2.0, default 2
+//   (Infraspection Institute practice; domain.md E, tag S6). Load in % of
+//   rated power stands for % of rated current.
+// * Scans below about 40 % load are unreliable for correction (common
+//   practice, from memory).
+//
+// ferrum's JSON severity runs the other way: severity = 5 − NETA priority
+// (1 least .. 4 most severe); a scan's severity is the higher of its two
+// readings.
+#pragma once
+
+#include <optional>
+#include <span>
+#include <vector>
+
+#include "analytics/assessment.h"
+#include "analytics/unit_data.h"
+
+namespace ferrum::analytics {
+
+struct InfraredOptions {
+  double load_exponent = 2.0;  // n in the load correction; accepted range 1.6..2.0, clamped into it
+  double low_load_pct = 40;    // scans below this load (% of rated) are flagged unreliable
+};
+
+// NETA priority 1..4 (1 most severe), or 0 for no finding (rise below 1 °C).
+int neta_priority_over_reference(double rise_k);
+int neta_priority_over_ambient(double rise_k);
+// 1 least .. 4 most severe; 0 stays 0.
+inline int severity_from_neta_priority(int priority) { return priority == 0 ? 0 : 5 - priority; }
+
+// Rise corrected to rated load. REQUIRES: load_pct > 0.
+double rise_at_rated_load(double rise_k, double load_pct, double exponent);
+
+// One scan. Without any rise (no reference and no ambient) severity is null
+// and severity_text says why.
+InfraredFinding assess_infrared_scan(const InfraredScan& scan, const InfraredOptions& options);
+
+// The latest scan of each component on or before as_of, most severe first.
+std::vector<InfraredFinding> assess_infrared_survey(std::span<const InfraredScan> scans, Day as_of,
+                                                    const InfraredOptions& options);
+
+}  // namespace ferrum::analytics

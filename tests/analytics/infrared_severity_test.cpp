@@ -1,0 +1,117 @@
+#include "analytics/infrared_severity.h"
+
+#include <gtest/gtest.h>
+
+namespace ferrum::analytics {
+namespace {
+
+// ANSI/NETA MTS ΔT table (domain.md E, verified S5): every band on both sides.
+TEST(InfraredSeverity, NetaOverReferenceBands) {
+  EXPECT_EQ(neta_priority_over_reference(0.9), 0);
+  EXPECT_EQ(neta_priority_over_reference(1.0), 4);
+  EXPECT_EQ(neta_priority_over_reference(3.0), 4);
+  EXPECT_EQ(neta_priority_over_reference(3.1), 3);
+  EXPECT_EQ(neta_priority_over_reference(15.0), 3);
+  EXPECT_EQ(neta_priority_over_reference(15.1), 1);  // the table has no priority 2 over reference
+  EXPECT_EQ(neta_priority_over_reference(-5), 0);
+}
+
+TEST(InfraredSeverity, NetaOverAmbientBands) {
+  EXPECT_EQ(neta_priority_over_ambient(0.9), 0);
+  EXPECT_EQ(neta_priority_over_ambient(1.0), 4);
+  EXPECT_EQ(neta_priority_over_ambient(10.0), 4);
+  EXPECT_EQ(neta_priority_over_ambient(10.1), 3);
+  EXPECT_EQ(neta_priority_over_ambient(20.0), 3);
+  EXPECT_EQ(neta_priority_over_ambient(20.1), 2);
+  EXPECT_EQ(neta_priority_over_ambient(40.0), 2);
+  EXPECT_EQ(neta_priority_over_ambient(40.1), 1);
+}
+
+// NETA priority 4 -> severity 1, priority 1 -> severity 4 (domain.md numbering note).
+TEST(InfraredSeverity, SeverityRunsOppositeToPriority) {
+  EXPECT_EQ(severity_from_neta_priority(4), 1);
+  EXPECT_EQ(severity_from_neta_priority(1), 4);
+  EXPECT_EQ(severity_from_neta_priority(0), 0);
+}
+
+// domain.md E (computed from the S6 formula): 10 K at 50 % load -> 40 K with
+// n = 2, 30.3 K with n = 1.6.
+TEST(InfraredSeverity, LoadCorrectionWorkedValue) {
+  EXPECT_DOUBLE_EQ(rise_at_rated_load(10, 50, 2.0), 40.0);
+  EXPECT_NEAR(rise_at_rated_load(10, 50, 1.6), 30.3, 0.05);
+}
+
+TEST(InfraredSeverity, ScanSeverityIsHigherOfTheTwoCorrectedReadings) {
+  InfraredScan s;
+  s.component = "HV bushing H1 connector";
+  s.spot_c = 45;
+  s.reference_c = 35;  // 10 K -> 40 K corrected at 50 %: > 15 -> NETA 1
+  s.ambient_c = 30;    // 15 K -> 60 K corrected: > 40 -> NETA 1
+  s.load_pct = 50;
+  auto f = assess_infrared_scan(s, {});
+  EXPECT_EQ(*f.rise_over_reference_k, 10);
+  EXPECT_EQ(*f.corrected_rise_k, 40);
+  EXPECT_EQ(*f.severity, 4);
+  EXPECT_FALSE(f.low_load);
+  // At rated load the same rises give NETA 3 over reference and NETA 3 over ambient.
+  s.load_pct = 100;
+  f = assess_infrared_scan(s, {});
+  EXPECT_EQ(*f.severity, 2);
+  // Only the ambient reading available: 15 K -> NETA 3 -> severity 2.
+  s.reference_c.reset();
+  f = assess_infrared_scan(s, {});
+  EXPECT_EQ(*f.severity, 2);
+}
+
+TEST(InfraredSeverity, LowLoadScanFlagged) {
+  InfraredScan s;
+  s.spot_c = 32;
+  s.reference_c = 30;
+  s.load_pct = 39.9;
+  InfraredOptions o;
+  auto f = assess_infrared_scan(s, o);
+  EXPECT_TRUE(f.low_load);
+  EXPECT_NE(f.severity_text.find("unreliable"), std::string::npos);
+  s.load_pct = 40;
+  EXPECT_FALSE(assess_infrared_scan(s, o).low_load);
+}
+
+TEST(InfraredSeverity, ExponentClampedToPublishedRange) {
+  InfraredScan s;
+  s.spot_c = 40;
+  s.reference_c = 30;
+  s.load_pct = 50;
+  InfraredOptions o;
+  o.load_exponent = 3.0;  // outside 1.6..2.0
+  EXPECT_DOUBLE_EQ(*assess_infrared_scan(s, o).corrected_rise_k, 40.0);
+}
+
+TEST(InfraredSeverity, NothingToCompareWith) {
+  InfraredScan s;
+  s.spot_c = 80;
+  const auto f = assess_infrared_scan(s, {});
+  EXPECT_FALSE(f.severity);
+  EXPECT_NE(f.severity_text.find("not classified"), std::string::npos);
+}
+
+InfraredScan scan(Day date, const char* component, double spot, double reference) {
+  InfraredScan s;
+  s.date = date;
+  s.component = component;
+  s.spot_c = spot;
+  s.reference_c = reference;
+  return s;
+}
+
+TEST(InfraredSeverity, SurveyKeepsLatestPerComponentUpToAsOf) {
+  const std::vector<InfraredScan> v = {scan(100, "A", 60, 30), scan(200, "A", 31, 30),
+                                       scan(300, "A", 90, 30),  // after as_of
+                                       scan(150, "B", 50, 30)};
+  const auto f = assess_infrared_survey(v, 250, {});
+  ASSERT_EQ(f.size(), 2u);
+  EXPECT_EQ(f[0].component, "B");  // 20 K over reference: most severe first
+  EXPECT_EQ(f[1].date, 200);
+}
+
+}  // namespace
+}  // namespace ferrum::analytics
