@@ -151,6 +151,10 @@ RawFactor score_thermal(const HealthIndexOptions& o, const UnitAssessment& a) {
   }
   int hif = rating_from_cuts(*t.equivalent_ageing_factor, o.ageing_factor_cuts);
   f.detail = "equivalent ageing factor " + fmt(*t.equivalent_ageing_factor, 3);
+  if (t.hours_above_normal_cyclic.value_or(0) > 0) {
+    hif = std::min(hif, 3);
+    f.detail += ", " + fmt(*t.hours_above_normal_cyclic, 1) + " h above the normal cyclic limit";
+  }
   if (t.hours_above_long_emergency.value_or(0) > 0) {
     hif = std::min(hif, 2);
     f.detail += ", " + fmt(*t.hours_above_long_emergency, 1) + " h above the long-time emergency limit";

@@ -139,8 +139,9 @@ struct HealthIndexOptions {
   // in domain.md): equivalent ageing factor F_EQA over the load record.
   // A < 0.5, B < 1.0 (below normal ageing), C < 2.0, D < 4.0, E above.
   RatingCuts ageing_factor_cuts{0.5, 1.0, 2.0, 4.0};
-  // Any hour above the long-time emergency hot-spot limit caps the rating at C,
-  // any hour above the short-time emergency limit at D (ferrum's own rule).
+  // Any hour above the normal cyclic hot-spot limit caps the rating at B, above
+  // the long-time emergency limit at C, above the short-time emergency limit
+  // at D (ferrum's own rule).
 
   // Infrared (ferrum's own mapping): worst severity (1 least .. 4 most severe)
   // within the window before the latest survey. None -> A, 1 -> B, 2 -> C,

@@ -291,7 +291,7 @@ TEST(HealthIndex, MonotoneInEveryInput) {
     a.inspection[0].rating = static_cast<fa::Rating>(1 + pick(5));
     a.unit.year_built = 1950 + pick(70);
     auto worse = a;
-    switch (pick(9)) {
+    switch (pick(12)) {
       case 0: *worse.dga.gases[pick(7)].ppm *= uni(1, 3); break;
       case 1: *worse.oil.checks[0].value += uni(0, 20); break;
       case 2: *worse.oil.checks[1].value -= uni(0, 20); break;
@@ -301,11 +301,31 @@ TEST(HealthIndex, MonotoneInEveryInput) {
       case 6: worse.infrared[0].severity = std::min(4, worse.infrared[0].severity.value_or(0) + 1); break;
       case 7: worse.unit.year_built -= 1 + pick(20); break;
       case 8: worse.dga.c57104_2008_condition = 4; break;
+      case 9: worse.dga.c57104_2019_status = 3; break;
+      case 10:
+        worse.inspection[0].rating =
+            static_cast<fa::Rating>(std::min(5, static_cast<int>(worse.inspection[0].rating) + 1));
+        break;
+      case 11: worse.thermal.hours_above_long_emergency = uni(0.1, 10); break;
     }
     fa::score_health(o, a);
     fa::score_health(o, worse);
     ASSERT_LE(*worse.health_index, *a.health_index + 1e-9) << "case " << i;
   }
+}
+
+// Thermal history (ferrum's own scale): hours above the hot-spot limits cap
+// the F_EQA rating at B / C / D; F_EQA 0.3 alone is A.
+TEST(HealthIndex, ThermalLimitHoursCapRating) {
+  auto a = worked_unit();
+  a.thermal.hours_above_normal_cyclic = 2;
+  fa::score_health(fa::HealthIndexOptions{}, a);
+  EXPECT_EQ(*factor(a, "thermal").score, 3);
+  auto b = worked_unit();
+  b.thermal.hours_above_normal_cyclic = 0;
+  b.thermal.hours_above_short_emergency = 0.5;
+  fa::score_health(fa::HealthIndexOptions{}, b);
+  EXPECT_EQ(*factor(b, "thermal").score, 1);
 }
 
 TEST(HealthIndex, FreshnessOnePerKind) {
