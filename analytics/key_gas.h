@@ -1,0 +1,42 @@
+// Key-gas reading: the dominant combustible gas points to the likely fault.
+// Source: IEEE C57.104-2008 key-gas method (typical relative proportions of
+// the combustible gases; from memory, medium confidence, domain.md A.7):
+//   overheated oil        C2H4 dominant (about 63 %, with C2H6 about 20 %)
+//   overheated cellulose  CO dominant (about 92 %)
+//   partial discharge     H2 dominant (about 85 %, CH4 about 13 %)
+//   arcing                H2 (about 60 %) with large C2H2 (about 30 %)
+// Inputs: H2, CH4, C2H6, C2H4, C2H2, CO in µL/L. Output: each gas as % of
+// their sum, the key gas and the reading in plain words.
+// Validity: a secondary cue only (C57.104-2019 reports frequent
+// misidentification); applied only when a fault is indicated.
+#pragma once
+
+#include <array>
+#include <optional>
+#include <string>
+
+#include "analytics/dga_fault_evidence.h"
+#include "analytics/unit_data.h"
+
+namespace ferrum::analytics {
+
+struct KeyGasOptions {
+  // H2-dominant patterns: C2H2 share (%) at or above which arcing is read
+  // instead of partial discharge; midway between the corona (≈0 %) and
+  // arcing (≈30 %) proportions. Default 15 %.
+  double arcing_c2h2_share_pct = 15.0;
+};
+
+struct KeyGasResult {
+  bool applicable = false;
+  std::array<double, 6> share_pct{};  // H2, CH4, C2H6, C2H4, C2H2, CO (% of their sum)
+  std::string key_gas;                // "C2H4", ...
+  std::string reading;                // plain words, or why no reading
+  std::string method = "Key-gas method (dominant combustible gas)";
+  std::string source = "IEEE C57.104-2008 key gases (proportions from memory)";
+};
+
+KeyGasResult key_gas_reading(const OilSample& sample, const TypicalGasLevels& typical, bool gases_rising,
+                             const KeyGasOptions& options = {});
+
+}  // namespace ferrum::analytics
