@@ -75,6 +75,12 @@ Parsed<int> parse_offset(std::string_view s) {
 
 }  // namespace
 
+std::string format_number(double v) {
+  char buf[32];
+  const auto [end, ec] = std::to_chars(buf, buf + sizeof buf, v, std::chars_format::general, 6);
+  return ec == std::errc() ? std::string(buf, end) : std::string("?");
+}
+
 std::string_view trim(std::string_view text) {
   while (!text.empty() && (text.front() == ' ' || text.front() == '\t')) text.remove_prefix(1);
   while (!text.empty() && (text.back() == ' ' || text.back() == '\t')) text.remove_suffix(1);

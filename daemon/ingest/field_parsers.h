@@ -37,6 +37,9 @@ struct Parsed {
   bool ok() const { return error == nullptr; }
 };
 
+// A number as shown in messages: up to 6 significant digits, no trailing zeros.
+std::string format_number(double v);
+
 // Removes spaces and tabs at both ends.
 std::string_view trim(std::string_view text);
 
