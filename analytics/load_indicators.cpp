@@ -35,7 +35,8 @@ LoadIndicators load_indicators(std::span<const ThermalPoint> points, const Loadi
     peak_hs = std::max(peak_hs, p.hot_spot_c);
     peak_to = std::max(peak_to, p.top_oil_c);
     r.period_h += p.step_h;
-    r.loss_of_life_h += p.ageing_rate * p.step_h;
+    r.loss_of_life_h += p.ageing_h;
+    r.bridged_h += p.bridged_h;
     if (p.load_pu > limits.nameplate_pu) r.hours_above_nameplate += p.step_h;
     add_temperature_hours(r, p, limits);
     if (std::isfinite(p.measured_top_oil_c)) {

@@ -36,7 +36,8 @@ struct LoadIndicators {
   double hours_above_normal_cyclic = 0;
   double hours_above_long_emergency = 0;
   double hours_above_short_emergency = 0;
-  double loss_of_life_h = 0;  // Σ ageing_rate·step_h (end-of-step rate)
+  double loss_of_life_h = 0;  // Σ ageing_h, equivalent hours at the reference temperature
+  double bridged_h = 0;       // Σ bridged_h
   // Mean of measured minus model top oil over points with a measurement.
   std::optional<double> top_oil_discrepancy_k;
   std::size_t top_oil_measurements = 0;

@@ -131,7 +131,7 @@ SimulationStats simulate_thermal(const ThermalModel& model, std::span<const Load
     bool from_profile = false;
     const double amb = ambient_for(p, gaps, from_profile);
     st.ambient_from_profile += from_profile;
-    double step_h = 0;
+    double step_h = 0, bridged_h = 0, aged_h = 0;
     if (!started || p.t - last_t > gaps.max_bridge_s) {
       if (started) {
         st.unbridged_h += (p.t - last_t) / 3600.0;
@@ -143,17 +143,19 @@ SimulationStats simulate_thermal(const ThermalModel& model, std::span<const Load
       Timestamp dt = p.t - last_t;
       if (dt >= gap_from) {
         const Timestamp missing = dt - expected;
-        st.bridged_h += missing / 3600.0;
-        st.loss_of_life_h += model_state.advance(last_k, last_amb, static_cast<double>(missing));
+        bridged_h = missing / 3600.0;
+        aged_h += model_state.advance(last_k, last_amb, static_cast<double>(missing));
         dt = expected;
       }
-      st.loss_of_life_h += model_state.advance(p.load_pu, amb, static_cast<double>(dt));
+      aged_h += model_state.advance(p.load_pu, amb, static_cast<double>(dt));
       step_h = (p.t - last_t) / 3600.0;
-      st.covered_h += step_h;
     }
+    st.covered_h += step_h;
+    st.bridged_h += bridged_h;
+    st.loss_of_life_h += aged_h;
     const double hs = model_state.hot_spot();
-    out[st.written++] = ThermalPoint{p.t, p.load_pu, amb, model_state.top_oil(), hs,
-                                     ageing_rate(model.paper, hs), p.top_oil_c, step_h, from_profile};
+    out[st.written++] = ThermalPoint{p.t, p.load_pu, amb, model_state.top_oil(), hs, ageing_rate(model.paper, hs),
+                                     p.top_oil_c, step_h, bridged_h, aged_h, from_profile};
     last_t = p.t;
     last_k = p.load_pu;
     last_amb = amb;

@@ -48,6 +48,8 @@ struct ThermalPoint {
   double ageing_rate = 0;    // V or F_AA at this point, by paper type
   double measured_top_oil_c = std::numeric_limits<double>::quiet_NaN();  // NaN when none
   double step_h = 0;         // time this point stands for (0 at a start or restart)
+  double bridged_h = 0;      // part of step_h simulated without data (a gap)
+  double ageing_h = 0;       // equivalent hours consumed over step_h (∫V dt)
   bool ambient_from_profile = false;
 };
 

@@ -15,6 +15,7 @@ ThermalPoint pt(Timestamp t, double k, double hs, double step_h = 1) {
   p.top_oil_c = hs - 20;
   p.step_h = step_h;
   p.ageing_rate = 1;
+  p.ageing_h = step_h;
   return p;
 }
 
@@ -32,6 +33,7 @@ TEST(LoadIndicators, HoursAboveEachLimitBothSides) {
   EXPECT_DOUBLE_EQ(*r.peak_load_pu, 1.6);
   EXPECT_DOUBLE_EQ(*r.peak_hot_spot_c, 160.1);
   EXPECT_DOUBLE_EQ(r.period_h, 6.5);
+  EXPECT_DOUBLE_EQ(r.loss_of_life_h, 6.5);
   EXPECT_FALSE(r.top_oil_discrepancy_k);
 }
 

@@ -84,6 +84,8 @@ TEST(ThermalSimulation, ShortGapBridgedAtLastLoad) {
   const auto r = simulate(load);
   EXPECT_EQ(r.stats.expected_interval_s, kHour);
   EXPECT_NEAR(r.stats.bridged_h, 2, 1e-9);
+  EXPECT_NEAR(r.points[4].bridged_h, 2, 1e-9);  // the point after the hole carries it
+  EXPECT_NEAR(r.points[4].ageing_h, 3, 1e-6);   // V = 1 over the 3 h step
   EXPECT_NEAR(r.stats.covered_h, 9, 1e-9);
   EXPECT_EQ(r.stats.restarts, 0u);
   EXPECT_NEAR(r.points.back().hot_spot_c, 98.0, 1e-6);

@@ -1,0 +1,58 @@
+// Thermal, infrared and inspection part of a unit's assessment: runs the
+// chosen hot-spot model over the load history, summarises loading and
+// insulation ageing over the last `summary_days` before as_of, classifies the
+// latest infrared survey, reviews inspections, and writes the findings,
+// methods, assumptions, missing data and actions into the assessment.
+//
+// Methods and sources: iec60076_7_difference.h, ieee_c57_91_clause7.h,
+// ageing_rate.h, load_indicators.h, infrared_severity.h,
+// inspection_findings.h. Pure: no I/O, no clock.
+#pragma once
+
+#include <array>
+#include <span>
+#include <vector>
+
+#include "analytics/assessment.h"
+#include "analytics/infrared_severity.h"
+#include "analytics/inspection_findings.h"
+#include "analytics/load_indicators.h"
+#include "analytics/thermal_simulation.h"
+#include "analytics/unit_data.h"
+
+namespace ferrum::analytics {
+
+struct ThermalOptions {
+  ThermalMethod method = ThermalMethod::iec60076_7;  // per site or unit
+  GapOptions gaps;               // expected interval, longest bridged gap, monthly ambient profile
+  LoadingLimits limits;          // IEC 60076-7 hot-spot limits 120/140/160 °C, nameplate 1.0 p.u.
+  InfraredOptions infrared;      // load-correction exponent 2 (1.6..2.0), low load below 40 %
+  InspectionOptions inspection;  // interval 365 days
+  int summary_days = 365;        // window before as_of summarised in the assessment
+  double discrepancy_threshold_k = 5;  // mean measured-minus-model top oil above this: cooling problem
+  double normal_life_h = 180000; // IEEE C57.91-2011 Table 1 (from memory), for % loss of life
+  double min_growth_span_days = 365;   // shortest history for a load-growth trend
+  std::size_t chart_points = 400;      // most points per reduced chart series
+  // Days until an infrared repair is due, by severity 1..4 (NETA priority 4..1).
+  std::array<int, 4> infrared_due_days = {365, 180, 30, 7};
+  int cooling_check_due_days = 30;
+  int overdue_inspection_due_days = 30;
+  int worse_item_due_days = 90;
+};
+
+// Fills out.thermal, out.infrared, out.inspection, out.unsafe_inspection and
+// appends to out.methods, out.assumptions, out.missing and out.actions
+// (unsafe-item actions are inserted at the front).
+void assess_thermal(const UnitData& data, Day as_of, const ThermalOptions& options, UnitAssessment& out);
+
+// The full computed series for `ferrum thermal --csv`: one point per accepted
+// load point (duplicates, backward jumps and invalid loads are left out).
+std::vector<ThermalPoint> thermal_series(const UnitInfo& unit, std::span<const LoadPoint> load,
+                                         const ThermalOptions& options);
+
+// Chart reduction: the maximum of each bucket of whole days, with as many
+// days per bucket as keep the result at or below max_points.
+std::vector<SeriesPoint> reduce_to_bucket_maxima(std::span<const ThermalPoint> points, std::size_t max_points,
+                                                 double ThermalPoint::*field);
+
+}  // namespace ferrum::analytics

@@ -1,0 +1,147 @@
+// assess_thermal end to end on synthetic unit data. Temperatures are checked
+// against the IEC 60076-7 closed-form steady state (computed); the action
+// rules are ferrum's own (thermal_assessment.h).
+#include "analytics/thermal_assessment.h"
+
+#include <gtest/gtest.h>
+
+#include <algorithm>
+
+#include "analytics/iec60076_7_difference.h"
+
+namespace ferrum::analytics {
+namespace {
+
+const Day kAsOf = days_from_civil(2024, 6, 30);
+
+UnitData unit_with_hourly_load(double k, int days, double ambient = 20) {
+  UnitData d;
+  d.info.unit_id = "T7";
+  d.info.cooling = "ONAF";
+  d.info.rated_mva = 40;
+  const Timestamp end = start_of(kAsOf + 1);
+  for (Timestamp t = end - days * 86400LL; t < end; t += 3600) d.load.push_back({t, k, ambient});
+  return d;
+}
+
+bool has_action(const UnitAssessment& a, const std::string& text, int priority) {
+  return std::any_of(a.actions.begin(), a.actions.end(), [&](const Action& x) {
+    return x.text.find(text) != std::string::npos && x.priority == priority;
+  });
+}
+
+TEST(ThermalAssessment, NoDataReportsWhatIsMissing) {
+  UnitData d;
+  UnitAssessment a;
+  assess_thermal(d, kAsOf, {}, a);
+  EXPECT_EQ(a.missing, (std::vector<std::string>{"load series", "infrared survey", "inspection"}));
+  EXPECT_TRUE(a.actions.empty());
+  EXPECT_FALSE(a.thermal.peak_hot_spot_c);
+}
+
+// K = 1.2 on ONAF at 20 °C: steady hot spot 120.1 °C, just above the 120 °C
+// normal cyclic limit (IEC 60076-7 Table 4/5, computed), for the whole year.
+TEST(ThermalAssessment, YearAtOverloadSummarisedOverWindow) {
+  const auto d = unit_with_hourly_load(1.2, 400);
+  UnitAssessment a;
+  assess_thermal(d, kAsOf, {}, a);
+  const auto& th = a.thermal;
+  const double hs = iec_steady_state(iec_recommended_parameters(IecCoolingClass::onaf), 1.2, 20).hot_spot_c();
+  ASSERT_TRUE(th.peak_hot_spot_c);
+  EXPECT_NEAR(*th.peak_hot_spot_c, hs, 1e-6);
+  EXPECT_NEAR(th.covered_hours, 365 * 24, 1e-6);
+  EXPECT_EQ(th.bridged_hours, 0);
+  EXPECT_NEAR(*th.hours_above_normal_cyclic, 365 * 24, 1e-6);
+  EXPECT_EQ(*th.hours_above_long_emergency, 0);
+  EXPECT_NEAR(*th.hours_above_nameplate, 365 * 24, 1e-6);
+  EXPECT_NEAR(*th.equivalent_ageing_factor, std::exp2((hs - 98) / 6), 1e-6);  // IEC eq. 2, kraft
+  EXPECT_LE(th.hot_spot_series.size(), 400u);
+  EXPECT_GE(th.hot_spot_series.size(), 300u);
+  EXPECT_EQ(th.method, "IEC 60076-7 difference equations");
+  EXPECT_FALSE(th.parameter_sources.empty());
+  EXPECT_TRUE(has_action(a, "Reduce the load", 3));
+  ASSERT_TRUE(th.load_growth_pct_per_year);  // 400 days of history >= 365
+  EXPECT_NEAR(*th.load_growth_pct_per_year, 0, 1e-9);
+}
+
+TEST(ThermalAssessment, HotterThanModelAsksForCoolingCheck) {
+  auto d = unit_with_hourly_load(0.8, 30);
+  const double top = iec_steady_state(iec_recommended_parameters(IecCoolingClass::onaf), 0.8, 20).top_oil_c;
+  for (auto& p : d.load) p.top_oil_c = top + 5.5;
+  UnitAssessment a;
+  assess_thermal(d, kAsOf, {}, a);
+  ASSERT_TRUE(a.thermal.top_oil_discrepancy_k);
+  EXPECT_NEAR(*a.thermal.top_oil_discrepancy_k, 5.5, 1e-6);
+  EXPECT_TRUE(has_action(a, "Check the cooling", 2));
+  // Just below the threshold: no action.
+  for (auto& p : d.load) p.top_oil_c = top + 4.9;
+  UnitAssessment b;
+  assess_thermal(d, kAsOf, {}, b);
+  EXPECT_FALSE(has_action(b, "Check the cooling", 2));
+}
+
+TEST(ThermalAssessment, MissingAmbientFlaggedAsAssumption) {
+  auto d = unit_with_hourly_load(0.8, 10, std::numeric_limits<double>::quiet_NaN());
+  UnitAssessment a;
+  assess_thermal(d, kAsOf, {}, a);
+  EXPECT_TRUE(a.thermal.ambient_from_profile);
+  EXPECT_TRUE(std::any_of(a.assumptions.begin(), a.assumptions.end(),
+                          [](auto& s) { return s.find("no published source") != std::string::npos; }));
+}
+
+TEST(ThermalAssessment, InfraredAndUnsafeInspectionActions) {
+  UnitData d;
+  InfraredScan s;
+  s.date = kAsOf - 10;
+  s.component = "LV bushing X2 connector";
+  s.spot_c = 70;
+  s.reference_c = 40;  // 30 K over reference: NETA priority 1 -> severity 4
+  s.load_pct = 80;
+  d.infrared.push_back(s);
+  InspectionRecord fans;
+  fans.date = kAsOf - 400;
+  fans.item = "fans";
+  InspectionRecord oil;
+  oil.date = kAsOf - 5;
+  oil.item = "oil_level";
+  oil.rating = Rating::unsafe;
+  d.inspections = {fans, oil};
+  UnitAssessment a;
+  a.actions.push_back({3, kAsOf, "earlier action", "from another module"});
+  assess_thermal(d, kAsOf, {}, a);
+  ASSERT_EQ(a.infrared.size(), 1u);
+  EXPECT_EQ(*a.infrared[0].severity, 4);
+  EXPECT_TRUE(a.unsafe_inspection);
+  ASSERT_FALSE(a.actions.empty());
+  EXPECT_EQ(a.actions.front().priority, 1);  // unsafe item carried to the top
+  EXPECT_EQ(a.actions.front().due, kAsOf);
+  EXPECT_TRUE(has_action(a, "Retighten or repair the LV bushing X2 connector immediately", 1));
+  EXPECT_TRUE(has_action(a, "Inspect fans", 3));  // overdue
+  EXPECT_EQ(a.missing, std::vector<std::string>{"load series"});
+}
+
+TEST(ThermalAssessment, ThermalSeriesMethodSelectable) {
+  const auto d = unit_with_hourly_load(1.0, 2);
+  ThermalOptions o;
+  o.method = ThermalMethod::ieee_c57_91;
+  const auto v = thermal_series(d.info, d.load, o);
+  ASSERT_EQ(v.size(), d.load.size());
+  EXPECT_NEAR(v.back().hot_spot_c, 98.0, 1e-6);  // rated: θa + Δθor + Δθhr (Table 5 ONAF)
+}
+
+TEST(ThermalAssessment, ReductionKeepsBucketMaxima) {
+  std::vector<ThermalPoint> v;
+  for (int h = 0; h < 48; ++h) {
+    ThermalPoint p;
+    p.t = h * 3600;
+    p.hot_spot_c = h == 30 ? 150 : 80;
+    v.push_back(p);
+  }
+  const auto r = reduce_to_bucket_maxima(v, 400, &ThermalPoint::hot_spot_c);
+  ASSERT_EQ(r.size(), 2u);
+  EXPECT_EQ(r[1].value, 150);
+  EXPECT_EQ(reduce_to_bucket_maxima(v, 1, &ThermalPoint::hot_spot_c).size(), 1u);
+}
+
+}  // namespace
+}  // namespace ferrum::analytics
