@@ -1,0 +1,116 @@
+#include "analytics/dga_c57104_2019.h"
+
+#include <gtest/gtest.h>
+
+#include <string>
+
+#include "analytics/dga_gases.h"
+#include "dga_test_sample.h"
+
+namespace ferrum::analytics {
+namespace {
+using testing::gas_sample;
+
+// All table values used here are the embedded placeholders of
+// analytics/data/ieee_c57104_2019_tables.csv: IEEE C57.104-2019 Tables 1-4 FROM MEMORY
+// (domain.md A.3, low confidence). The tests check the logic, not the standard's numbers.
+
+OilSample sealed(Day d, testing::Gases g) {
+  OilSample s = gas_sample(d, g);
+  s.o2 = LabValue::measured(1000);
+  s.n2 = LabValue::measured(50000);  // O2/N2 = 0.02 <= 0.2
+  return s;
+}
+
+TEST(C57104_2019Tables, EmbeddedTextParses) {
+  auto r = parse_c57104_2019_tables(default_c57104_2019_tables_text());
+  ASSERT_TRUE(r.tables) << r.error_line << ": " << r.error;
+  // Table 1, unknown age, O2/N2 <= 0.2 / > 0.2 placeholders of domain.md A.3 (from memory):
+  // H2 80/40, CH4 90/20, C2H6 90/15, C2H4 50/50, C2H2 1/2, CO 900/500, CO2 9000/5000.
+  const auto& low = r.tables->table1[0][0];
+  const auto& high = r.tables->table1[1][0];
+  const double expect_low[] = {80, 90, 90, 50, 1, 900, 9000};
+  const double expect_high[] = {40, 20, 15, 50, 2, 500, 5000};
+  for (std::size_t g = 0; g < 7; ++g) {
+    EXPECT_EQ(*low[g], expect_low[g]) << gas_name(kAllGases[g]);
+    EXPECT_EQ(*high[g], expect_high[g]) << gas_name(kAllGases[g]);
+  }
+  EXPECT_FALSE(r.tables->table3[0][gas_index(Gas::c2h2)]);  // "any" increase
+  EXPECT_NE(default_c57104_2019_tables_text().find("FROM MEMORY"), std::string_view::npos);
+}
+
+TEST(C57104_2019Tables, ParseErrorsNameTheLine) {
+  std::string text(default_c57104_2019_tables_text());
+  std::string bad = text;
+  bad.replace(bad.find("1,low,unknown,80"), 16, "1,low,unknown,xx");
+  auto r = parse_c57104_2019_tables(bad);
+  EXPECT_FALSE(r.tables);
+  // The row is the first data line after the comment block and header.
+  int expected_line = 1;
+  for (std::size_t i = 0; i < text.find("1,low,unknown,80"); ++i) expected_line += text[i] == '\n';
+  EXPECT_EQ(r.error_line, expected_line);
+  EXPECT_NE(r.error.find("H2"), std::string::npos);
+
+  auto missing = parse_c57104_2019_tables("table,o2n2,age,H2,CH4,C2H6,C2H4,C2H2,CO,CO2\n1,low,unknown,1,1,1,1,1,1,1\n");
+  EXPECT_FALSE(missing.tables);
+  EXPECT_NE(missing.error.find("missing row"), std::string::npos);
+  EXPECT_EQ(parse_c57104_2019_tables("# only\nfoo,bar\n").error_line, 2);
+  EXPECT_FALSE(parse_c57104_2019_tables("").tables);
+  std::string dup = text + "1,low,unknown,80,90,90,50,1,900,9000\n";
+  EXPECT_NE(parse_c57104_2019_tables(dup).error.find("duplicate"), std::string::npos);
+}
+
+TEST(C57104_2019Status, AgeGroupBoundaries) {
+  EXPECT_EQ(c57104_2019_age_group(std::nullopt), AgeGroup::unknown);
+  EXPECT_EQ(c57104_2019_age_group(9), AgeGroup::y1_9);
+  EXPECT_EQ(c57104_2019_age_group(10), AgeGroup::y10_30);
+  EXPECT_EQ(c57104_2019_age_group(30), AgeGroup::y10_30);
+  EXPECT_EQ(c57104_2019_age_group(31), AgeGroup::over30);
+}
+
+TEST(C57104_2019Status, SingleSampleLevelsBothSidesOfTables1And2) {
+  const auto& t = default_c57104_2019_tables();
+  // Unknown age, O2/N2 <= 0.2: H2 Table 1 = 80, Table 2 = 200 (placeholders).
+  EXPECT_EQ(c57104_2019_status({sealed(0, {.h2 = 80})}, std::nullopt, t).status, 1);
+  EXPECT_EQ(c57104_2019_status({sealed(0, {.h2 = 80.1})}, std::nullopt, t).status, 2);
+  EXPECT_EQ(c57104_2019_status({sealed(0, {.h2 = 200})}, std::nullopt, t).status, 2);
+  auto three = c57104_2019_status({sealed(0, {.h2 = 200.1})}, std::nullopt, t);
+  EXPECT_EQ(three.status, 3);
+  EXPECT_NE(three.reason.find("Table 2"), std::string::npos);
+  EXPECT_EQ(three.o2n2_group, "<= 0.2");
+}
+
+TEST(C57104_2019Status, ChangeBetweenSamplesRaisesStatus) {
+  const auto& t = default_c57104_2019_tables();
+  // Table 3, O2/N2 <= 0.2: H2 change 40 ppm (placeholder).
+  EXPECT_EQ(c57104_2019_status({sealed(0, {.h2 = 10}), sealed(90, {.h2 = 50})}, std::nullopt, t).status, 1);
+  EXPECT_EQ(c57104_2019_status({sealed(0, {.h2 = 10}), sealed(90, {.h2 = 50.1})}, std::nullopt, t).status, 2);
+  // Above Table 1 and changing: Status 3.
+  EXPECT_EQ(c57104_2019_status({sealed(0, {.h2 = 40}), sealed(90, {.h2 = 100})}, std::nullopt, t).status, 3);
+  // Acetylene: any increase is significant.
+  auto arc = c57104_2019_status({sealed(0, {.c2h2 = -0.5}), sealed(90, {.c2h2 = 0.6})}, std::nullopt, t);
+  EXPECT_EQ(arc.status, 2);
+  EXPECT_NE(arc.reason.find("C2H2"), std::string::npos);
+}
+
+TEST(C57104_2019Status, RegressionRateUsesTable4) {
+  const auto& t = default_c57104_2019_tables();
+  // CH4 rising 0.05 ppm/day = 18.3 ppm/year > Table 4 (10 ppm/year placeholder); small steps.
+  std::vector<OilSample> v;
+  for (int i = 0; i < 5; ++i) v.push_back(sealed(i * 60, {.ch4 = 10 + 3.0 * i}));
+  auto r = c57104_2019_status(v, std::nullopt, t);
+  EXPECT_EQ(r.status, 2);
+  EXPECT_NE(r.reason.find("ppm/year"), std::string::npos);
+}
+
+TEST(C57104_2019Status, UnknownO2N2UsesStricterRowAndNoGasIsNotApplicable) {
+  const auto& t = default_c57104_2019_tables();
+  // H2 50: above the > 0.2 row (40) though below the <= 0.2 row (80).
+  auto r = c57104_2019_status({gas_sample(0, {.h2 = 50})}, std::nullopt, t);
+  EXPECT_EQ(r.status, 2);
+  EXPECT_NE(r.o2n2_group.find("unknown"), std::string::npos);
+  EXPECT_FALSE(c57104_2019_status({OilSample{}}, 20, t).applicable);
+}
+
+}  // namespace
+}  // namespace ferrum::analytics
