@@ -78,11 +78,8 @@ PdfDocument::PdfDocument(const ReportOptions& options, const std::string& title,
     // Each TTF is parsed once per document; pages share the font objects.
     const char* regular = HPDF_LoadTTFontFromFile(doc_, font_path("DejaVuSans.ttf").c_str(), HPDF_TRUE);
     const char* bold = HPDF_LoadTTFontFromFile(doc_, font_path("DejaVuSans-Bold.ttf").c_str(), HPDF_TRUE);
-    const char* oblique =
-        HPDF_LoadTTFontFromFile(doc_, font_path("DejaVuSans-Oblique.ttf").c_str(), HPDF_TRUE);
     regular_ = HPDF_GetFont(doc_, regular, "UTF-8");
     bold_ = HPDF_GetFont(doc_, bold, "UTF-8");
-    oblique_ = HPDF_GetFont(doc_, oblique, "UTF-8");
     HPDF_SetInfoAttr(doc_, HPDF_INFO_TITLE, title.c_str());
     HPDF_SetInfoAttr(doc_, HPDF_INFO_SUBJECT, subject.c_str());
     HPDF_SetInfoAttr(doc_, HPDF_INFO_AUTHOR, options.author.c_str());
@@ -112,12 +109,7 @@ HPDF_Page PdfDocument::add_page() {
 }
 
 HPDF_Font PdfDocument::font(FontFace face) const {
-  switch (face) {
-    case FontFace::bold: return bold_;
-    case FontFace::oblique: return oblique_;
-    case FontFace::regular: break;
-  }
-  return regular_;
+  return face == FontFace::bold ? bold_ : regular_;
 }
 
 void PdfDocument::add_bookmark(const std::string& title, HPDF_Page page, double y) {

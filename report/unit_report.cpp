@@ -7,6 +7,7 @@
 #include "report/pdf_document.h"
 #include "report/report_format.h"
 #include "report/safety_block.h"
+#include "report/title_block.h"
 #include "report/unit_report_sections.h"
 
 namespace ferrum::report {
@@ -17,19 +18,6 @@ std::string unit_title(const UnitAssessment& a) {
   std::string t = a.unit.unit_id.empty() ? std::string("unnamed unit") : a.unit.unit_id;
   if (!a.unit.site.empty()) t += " · " + a.unit.site;
   return t;
-}
-
-void title_block(PageFlow& flow, const UnitAssessment& a, const ReportOptions& options) {
-  HPDF_Page page = flow.page();
-  const double top = flow.y();
-  std::string kicker = "Transformer condition report";
-  if (!options.utility_name.empty()) kicker = options.utility_name + " · " + kicker;
-  draw_text(page, flow.doc().font(FontFace::regular), 8, flow.x(), top - 8, kicker, palette::accent);
-  draw_text(page, flow.doc().font(FontFace::regular), 8, flow.x() + flow.width(), top - 8,
-            "assessment as of " + fmt_day(a.as_of), palette::muted, Align::right);
-  flow.space(12);
-  flow.paragraph(unit_title(a), 17, FontFace::bold);
-  flow.space(2);
 }
 
 // Prominent box at the top of page 1 for conditions that bear on safety.
@@ -98,7 +86,7 @@ void health_block(PageFlow& flow, const UnitAssessment& a, const UnitAssessment*
   y = flow.draw_wrapped(headline, tx, y, tw, 10, FontFace::bold);
   if (!a.band_expected_life.empty()) y = flow.draw_wrapped("Expected life in this band: " + a.band_expected_life, tx, y, tw, 7.8, FontFace::regular);
   if (!a.confidence.empty()) y = flow.draw_wrapped("Basis: " + a.confidence, tx, y, tw, 7.8, FontFace::regular, palette::muted);
-  if (previous) flow.draw_wrapped("Hollow marker: previous report (" + fmt_day(previous->as_of) + ")", tx, y, tw, 7, FontFace::oblique, palette::muted);
+  if (previous) flow.draw_wrapped("Hollow marker: previous report (" + fmt_day(previous->as_of) + ")", tx, y, tw, 7, FontFace::regular, palette::muted);
 }
 
 void remaining_life_line(PageFlow& flow, const UnitAssessment& a) {
@@ -153,12 +141,13 @@ void freshness_table(PageFlow& flow, const UnitAssessment& a) {
 }  // namespace
 
 void no_data_note(PageFlow& flow, const std::string& what) {
-  flow.paragraph(what, type::body, FontFace::oblique, palette::muted);
+  flow.paragraph(what, type::body, FontFace::regular, palette::muted);
 }
 
 void summary_section(PageFlow& flow, const UnitAssessment& a, const UnitAssessment* previous,
                      const ReportOptions& options) {
-  title_block(flow, a, options);
+  draw_title_block(flow, options, "Transformer condition report", unit_title(a),
+                   "assessment as of " + fmt_day(a.as_of));
   safety_warning(flow, a);
   // The title block already heads page 1: the summary gets a slim heading.
   flow.doc().add_bookmark("Summary", flow.page(), flow.y() + 30);

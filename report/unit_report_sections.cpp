@@ -113,7 +113,7 @@ void duval_block(PageFlow& flow, const UnitAssessment& a) {
   double y = top - 4;
   y = flow.draw_wrapped("Plotted samples (latest filled)", tx, y, tw, 8, FontFace::bold);
   if (a.dga.duval_history.empty())
-    y = flow.draw_wrapped("No sample with enough CH₄, C₂H₄ and C₂H₂ to plot.", tx, y, tw, 7.6, FontFace::oblique, palette::muted);
+    y = flow.draw_wrapped("No sample with enough CH₄, C₂H₄ and C₂H₂ to plot.", tx, y, tw, 7.6, FontFace::regular, palette::muted);
   const size_t n = a.dga.duval_history.size();
   for (size_t i = n > 8 ? n - 8 : 0; i < n; ++i) {
     const auto& p = a.dga.duval_history[i];
@@ -121,7 +121,7 @@ void duval_block(PageFlow& flow, const UnitAssessment& a) {
                              fmt_number(p.pct_c2h4, 1) + " / " + fmt_number(p.pct_c2h2, 1) + " %   " + p.zone;
     y = flow.draw_wrapped(line, tx, y, tw, 7.4, FontFace::regular);
   }
-  y = flow.draw_wrapped("Shares: CH₄ / C₂H₄ / C₂H₂ in % of their sum.", tx, y - 3, tw, 6.8, FontFace::oblique, palette::muted);
+  y = flow.draw_wrapped("Shares: CH₄ / C₂H₄ / C₂H₂ in % of their sum.", tx, y - 3, tw, 6.8, FontFace::regular, palette::muted);
   y -= 4;
   y = flow.draw_wrapped("Zones", tx, y, tw, 8, FontFace::bold);
   static const char* legend[] = {"PD partial discharge", "T1 thermal fault below 300 °C",
@@ -130,7 +130,7 @@ void duval_block(PageFlow& flow, const UnitAssessment& a) {
                                  "DT mixed electrical and thermal"};
   for (const char* l : legend) y = flow.draw_wrapped(l, tx, y, tw, 7.2, FontFace::regular);
   flow.draw_wrapped("Zone vertices: Akbari et al., Software implementation of the Duval Triangle, Table II.",
-                    tx, y - 3, tw, 6.6, FontFace::oblique, palette::muted);
+                    tx, y - 3, tw, 6.6, FontFace::regular, palette::muted);
   flow.space(4);
 }
 
@@ -227,7 +227,7 @@ void oil_paper_section(PageFlow& flow, const UnitAssessment& a) {
                    {"Paper life used", fmt_number(p.life_used_pct, 0, "%")}},
                   4);
   if (!p.trustworthy || !p.note.empty())
-    flow.paragraph((p.trustworthy ? "" : "Use with care: ") + p.note, type::body, FontFace::oblique, palette::ink);
+    flow.paragraph((p.trustworthy ? "" : "Use with care: ") + p.note, type::body, FontFace::regular, palette::ink);
 }
 
 void thermal_section(PageFlow& flow, const UnitAssessment& a) {
@@ -352,7 +352,7 @@ void sources_section(PageFlow& flow, const UnitAssessment& a, const std::vector<
       t.rows.push_back({f.party, f.file_name, f.kind, f.imported_at, std::to_string(f.rows)});
     flow.table(t);
   }
-  if (!options.utc_offset_note.empty()) flow.paragraph("Time zone: " + options.utc_offset_note + ".", type::body, FontFace::oblique);
+  if (!options.utc_offset_note.empty()) flow.paragraph("Time zone: " + options.utc_offset_note + ".", type::body, FontFace::regular);
   flow.subsection("Methods and their published sources");
   if (a.methods.empty()) no_data_note(flow, "No method could be applied.");
   else flow.bullets(a.methods, type::small + 0.3);

@@ -1,0 +1,157 @@
+#include "report/fleet_report.h"
+
+#include <algorithm>
+#include <cctype>
+#include <map>
+
+#include "report/health_ruler.h"
+#include "report/pdf_chart.h"
+#include "report/pdf_document.h"
+#include "report/report_format.h"
+#include "report/safety_block.h"
+#include "report/title_block.h"
+
+namespace ferrum::report {
+namespace {
+using analytics::FleetRanking;
+using analytics::RankedUnit;
+using analytics::UnitAssessment;
+
+std::string lower(std::string s) {
+  for (char& c : s) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+  return s;
+}
+
+std::string rank_text(const RankedUnit& u) {
+  if (u.insufficient_data) return kNoValue;
+  return std::to_string(u.rank) + (u.tied ? "=" : "");
+}
+
+void ranking_table(PageFlow& flow, const FleetRanking& ranking) {
+  flow.section("Ranking by risk");
+  if (ranking.units.empty()) {
+    flow.paragraph("No units in the ranking.", type::body, FontFace::regular, palette::muted);
+    return;
+  }
+  flow.paragraph("Highest risk first; equal risks share a rank (marked =). Risk combines the yearly probability "
+                 "of failure from the health index with the unit's consequence rating.", type::small,
+                 FontFace::regular, palette::muted);
+  Table t;
+  t.font_size = 7.2;
+  t.columns = {{"Rank", 0.5},  {"Unit", 0.8}, {"Site", 1.4},  {"MVA", 0.55, Align::right}, {"HI", 0.45, Align::right},
+               {"Band", 0.8},  {"Life, years", 0.65, Align::right}, {"Limited by", 0.8}, {"Risk", 0.6, Align::right},
+               {"Action", 1.1}, {"Year", 0.5, Align::right}};
+  for (const auto& u : ranking.units) {
+    std::string action = u.recommended_action;
+    if (u.insufficient_data) action = "insufficient data" + (u.note.empty() ? "" : ": " + u.note);
+    t.rows.push_back({rank_text(u), u.unit_id, u.site, fmt_number(u.rated_mva, 0), fmt_health_index(u.health_index),
+                      u.band.empty() ? kNoValue : u.band, fmt_number(u.remaining_life_years, 1),
+                      u.limiting_factor.empty() ? kNoValue : u.limiting_factor, fmt_number(u.risk, 3), action,
+                      u.action_year ? std::to_string(*u.action_year) : kNoValue});
+    t.emphasis.push_back(u.recommended_action == "replace");
+  }
+  flow.table(t);
+}
+
+BarChart band_chart(const FleetRanking& ranking) {
+  BarChart c;
+  std::map<std::string, int> counts;
+  for (const auto& u : ranking.units) counts[u.health_index ? lower(u.band) : "no index"]++;
+  for (const auto& b : health_index_bands()) {
+    c.categories.push_back(b.name);
+    c.values.push_back(counts[b.name]);
+    counts.erase(b.name);
+  }
+  for (const auto& [name, n] : counts) {  // bands the ruler does not know, then "no index"
+    c.categories.push_back(name);
+    c.values.push_back(n);
+  }
+  for (double v : c.values) c.bar_labels.push_back(fmt_number(v, 0));
+  c.y_label = "Units per condition band";
+  c.color = Color::gray(0.55f);
+  return c;
+}
+
+BarChart mva_chart(const FleetRanking& ranking) {
+  BarChart c;
+  for (const auto& y : ranking.mva_due_by_year) {
+    c.categories.push_back(std::to_string(y.year));
+    c.values.push_back(y.mva);
+    c.bar_labels.push_back(y.mva > 0 ? fmt_number(y.mva, 0) : "");
+  }
+  c.y_label = "Rated MVA due for replacement, per year";
+  return c;
+}
+
+void charts(PageFlow& flow, const FleetRanking& ranking) {
+  flow.section("Condition bands and replacement outlook", 170);
+  const double h = 150, gap = 20;
+  const double w = (flow.width() - gap) / 2;
+  const double top = flow.take(h);
+  draw_bar_chart(flow.page(), flow.doc(), Box{flow.x(), top - h, w * 0.85, h}, band_chart(ranking));
+  if (ranking.mva_due_by_year.empty())
+    draw_text(flow.page(), flow.doc().font(FontFace::regular), type::body, flow.x() + w + gap, top - 20,
+              "No replacement due in the next ten years.", palette::muted);
+  else
+    draw_bar_chart(flow.page(), flow.doc(), Box{flow.x() + w + gap, top - h, w, h}, mva_chart(ranking));
+  flow.space(8);
+}
+
+void alerts(PageFlow& flow, const std::vector<std::string>& open_alerts) {
+  flow.section("Units with open alerts", 30);
+  if (open_alerts.empty())
+    flow.paragraph("No open alerts.", type::body, FontFace::regular, palette::muted);
+  else
+    flow.bullets(open_alerts);
+}
+
+void coverage(PageFlow& flow, const std::vector<UnitAssessment>& units) {
+  flow.section("Data coverage", 40);
+  Table t;
+  t.font_size = 7.4;
+  t.columns = {{"Unit", 0.8}, {"Site", 1.3}, {"Stale or absent data", 2.4}, {"Missing", 2.6}};
+  for (const auto& u : units) {
+    std::string stale;
+    for (const auto& f : u.freshness) {
+      std::string item;
+      if (!f.latest) item = f.kind + ": none";
+      else if (f.age_years && *f.age_years > kStaleDataYears) item = f.kind + ": " + fmt_number(f.age_years, 1, "years old");
+      if (!item.empty()) stale += (stale.empty() ? "" : "; ") + item;
+    }
+    std::string missing;
+    for (const auto& m : u.missing) missing += (missing.empty() ? "" : "; ") + m;
+    if (stale.empty() && missing.empty()) continue;
+    t.rows.push_back({u.unit.unit_id, u.unit.site, stale.empty() ? kNoValue : stale, missing.empty() ? kNoValue : missing});
+  }
+  if (t.rows.empty()) {
+    flow.paragraph("Every unit has current data of every kind (none older than " + fmt_number(kStaleDataYears, 0) +
+                   " year).", type::body, FontFace::regular, palette::muted);
+    return;
+  }
+  flow.paragraph("Units with data older than " + fmt_number(kStaleDataYears, 0) + " year, or none at all:", type::small,
+                 FontFace::regular, palette::muted);
+  flow.table(t);
+}
+
+}  // namespace
+
+void render_fleet_report(const FleetRanking& ranking, const std::vector<UnitAssessment>& units,
+                         const std::vector<std::string>& open_alerts, const ReportOptions& options,
+                         const std::string& path) {
+  const std::string title = "Fleet condition ranking";
+  PdfDocument doc(options, title + " as of " + fmt_day(ranking.as_of), "Fleet ranking by risk");
+  PageFlow flow(doc, title + " · as of " + fmt_day(ranking.as_of));
+  draw_title_block(flow, options, "Fleet report", title,
+                   "as of " + fmt_day(ranking.as_of) + " · " + std::to_string(ranking.units.size()) + " units");
+  ranking_table(flow, ranking);
+  charts(flow, ranking);
+  alerts(flow, open_alerts);
+  coverage(flow, units);
+  flow.ensure(safety_block_height(flow) + 12);
+  doc.add_bookmark("SAFETY", flow.page(), flow.y());
+  add_safety_block(flow);
+  doc.draw_footers("ferrum · fleet ranking · as of " + fmt_day(ranking.as_of));
+  doc.save(path);
+}
+
+}  // namespace ferrum::report

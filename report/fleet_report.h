@@ -1,0 +1,39 @@
+// Fleet documents: the ranking report (PDF), the ranking as CSV, and the
+// weekly bundle index page. Like the unit report they lay out what the
+// analytics produced (analytics::FleetRanking) and compute nothing.
+#pragma once
+
+#include <string>
+#include <utility>
+#include <vector>
+
+#include "analytics/assessment.h"
+#include "report/render_error.h"
+#include "report/report_options.h"
+
+namespace ferrum::report {
+
+// Data older than this is listed as stale in the coverage table (display
+// choice, one year, matching the usual annual oil and infrared rounds).
+inline constexpr double kStaleDataYears = 1.0;
+
+// Ranking table (risk order), distribution of units over bands, rated MVA
+// due per year (ten years), open alerts (one line each) and data coverage
+// from each unit's missing/freshness lists; safety cautions at the end.
+// Written atomically; throws RenderError.
+void render_fleet_report(const analytics::FleetRanking& ranking, const std::vector<analytics::UnitAssessment>& units,
+                         const std::vector<std::string>& open_alerts, const ReportOptions& options,
+                         const std::string& path);
+
+// The ranking as CSV (RFC 4180 quoting, "\n" line ends, header row first).
+// Absent values are empty fields. Pure.
+std::string fleet_ranking_csv(const analytics::FleetRanking& ranking);
+
+// One page (more if needed) listing the week's unit reports with unit, site,
+// health index, band and file name, in ranking order. `unit_report_files`
+// holds (unit_id, file name). Written atomically; throws RenderError.
+void render_weekly_index(const std::string& week_label, const analytics::FleetRanking& ranking,
+                         const std::vector<std::pair<std::string, std::string>>& unit_report_files,
+                         const ReportOptions& options, const std::string& path);
+
+}  // namespace ferrum::report

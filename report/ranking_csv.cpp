@@ -1,0 +1,55 @@
+// fleet_ranking_csv: the ranking as a CSV file for spreadsheets.
+#include <cstdio>
+#include <optional>
+
+#include "report/fleet_report.h"
+
+namespace ferrum::report {
+namespace {
+
+std::string quote(const std::string& field) {
+  if (field.find_first_of(",\"\r\n") == std::string::npos) return field;
+  std::string out = "\"";
+  for (char c : field) {
+    if (c == '"') out += '"';
+    out += c;
+  }
+  return out + "\"";
+}
+
+// Six significant figures: exact for every value the ranking carries, and
+// locale-independent ("%g" ignores the locale's grouping here).
+std::string number(std::optional<double> v) {
+  if (!v) return "";
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.6g", *v);
+  return buf;
+}
+
+std::string integer(std::optional<int> v) { return v ? std::to_string(*v) : std::string(); }
+
+}  // namespace
+
+std::string fleet_ranking_csv(const analytics::FleetRanking& ranking) {
+  std::string csv =
+      "rank,tied,unit_id,site,rated_mva,health_index,band,remaining_life_years,limiting_factor,"
+      "probability_of_failure,consequence,risk,recommended_action,action_year,insufficient_data,note\n";
+  for (const auto& u : ranking.units) {
+    const std::string fields[] = {u.insufficient_data ? "" : std::to_string(u.rank), u.tied ? "yes" : "no",
+                                  quote(u.unit_id), quote(u.site), number(u.rated_mva), number(u.health_index),
+                                  quote(u.band), number(u.remaining_life_years), quote(u.limiting_factor),
+                                  number(u.probability_of_failure), number(u.consequence), number(u.risk),
+                                  quote(u.recommended_action), integer(u.action_year),
+                                  u.insufficient_data ? "yes" : "no", quote(u.note)};
+    bool first = true;
+    for (const auto& f : fields) {
+      if (!first) csv += ',';
+      csv += f;
+      first = false;
+    }
+    csv += '\n';
+  }
+  return csv;
+}
+
+}  // namespace ferrum::report

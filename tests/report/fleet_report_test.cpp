@@ -1,0 +1,112 @@
+#include "report/fleet_report.h"
+
+#include <gtest/gtest.h>
+
+#include <algorithm>
+
+#include "report/alert_report.h"
+#include "tests/report/pdf_tools.h"
+#include "tests/report/report_fixtures.h"
+
+namespace ferrum::report {
+namespace {
+using namespace testing;
+
+ReportOptions fixed_options() {
+  ReportOptions o;
+  o.utility_name = "Riverside Distribution";
+  o.creation_date = "2026-12-01T10:00:00Z";
+  return o;
+}
+
+class FleetReportTest : public ::testing::Test {
+ protected:
+  void SetUp() override {
+    if (!have_tool("pdftotext") || !have_tool("qpdf")) GTEST_SKIP() << "poppler-utils / qpdf not installed";
+  }
+};
+
+TEST_F(FleetReportTest, RankingChartsAlertsAndCoverage) {
+  const auto ranking = fixtures::small_ranking();
+  const std::vector<analytics::UnitAssessment> units = {fixtures::filled_unit(), fixtures::empty_unit()};
+  const std::string path = temp_path("fleet.pdf");
+  render_fleet_report(ranking, units, {"T-204: acetylene rising (raised 2026-11-30 06:10 UTC)"}, fixed_options(), path);
+  ASSERT_TRUE(qpdf_check(path));
+  const std::string text = squash(pdf_raw_text(path));
+  for (const char* s : {"Ranking by risk", "Condition bands and replacement outlook", "Units with open alerts",
+                        "Data coverage", "SAFETY", "T-204", "T-117", "T-031", "T-990", "Kelder Road 132 kV",
+                        "acetylene rising", "Rated MVA due for replacement", "2030", "refurbish",
+                        "insufficient data: no oil, load or inspection data"})
+    EXPECT_NE(text.find(s), std::string::npos) << s;
+  // Ranking order is kept: T-204 (rank 1) is listed before T-117 (rank 2) and T-031 (rank 3).
+  EXPECT_LT(text.find("T-204"), text.find("T-117"));
+  EXPECT_LT(text.find("T-117"), text.find("T-031"));
+  // The tied units carry the "=" mark.
+  EXPECT_NE(text.find("4="), std::string::npos);
+  // Coverage lists the empty unit's missing data.
+  EXPECT_NE(text.find("oil: none"), std::string::npos);
+}
+
+TEST_F(FleetReportTest, EmptyFleetStillRenders) {
+  const std::string path = temp_path("fleet-empty.pdf");
+  render_fleet_report({}, {}, {}, fixed_options(), path);
+  ASSERT_TRUE(qpdf_check(path));
+  const std::string text = squash(pdf_raw_text(path));
+  EXPECT_NE(text.find("No units in the ranking."), std::string::npos);
+  EXPECT_NE(text.find("No open alerts."), std::string::npos);
+}
+
+TEST_F(FleetReportTest, WeeklyIndexListsReportsInRankingOrder) {
+  const std::string path = temp_path("weekly.pdf");
+  render_weekly_index("2026-W49", fixtures::small_ranking(),
+                      {{"T-031", "T-031_2026-11-30.pdf"}, {"T-204", "T-204_2026-11-30.pdf"}, {"T-777", "T-777_2026-11-30.pdf"}},
+                      fixed_options(), path);
+  ASSERT_TRUE(qpdf_check(path));
+  const std::string text = squash(pdf_raw_text(path));
+  EXPECT_NE(text.find("2026-W49"), std::string::npos);
+  EXPECT_LT(text.find("T-204_2026-11-30.pdf"), text.find("T-031_2026-11-30.pdf"));
+  EXPECT_LT(text.find("T-031_2026-11-30.pdf"), text.find("T-777_2026-11-30.pdf"));  // unknown unit last
+  EXPECT_NE(text.find("T-031 Harbour West 81 good T-031_2026-11-30.pdf"), std::string::npos) << text;
+  EXPECT_NE(text.find("T-777 — — — T-777_2026-11-30.pdf"), std::string::npos) << text;
+  EXPECT_NE(text.find("SAFETY"), std::string::npos);
+}
+
+TEST_F(FleetReportTest, AlertIsOnePageWithSafetyBlock) {
+  AlertInfo alert{"T-204", "Kelder Road 132 kV", "acetylene rising", "2026-11-30 06:10 UTC",
+                  "C₂H₂ rose from 6.7 to 9.5 µL/L between the last two samples (IEEE C57.104-2019 status 2 → 3).",
+                  "Resample oil for DGA within 48 hours; do not re-energise after any trip until an engineer has evaluated the unit."};
+  const std::string path = temp_path("alert.pdf");
+  render_alert(alert, fixed_options(), path);
+  ASSERT_TRUE(qpdf_check(path));
+  EXPECT_EQ(pdf_pages(path), 1);
+  const std::string text = squash(pdf_raw_text(path));
+  for (const char* s : {"What happened", "What to do first", "SAFETY", "T-204", "2026-11-30 06:10 UTC", "C₂H₂ rose",
+                        "Resample oil for DGA within 48 hours", "NFPA 70E"})
+    EXPECT_NE(text.find(s), std::string::npos) << s;
+}
+
+TEST(RankingCsv, HeaderRowsQuotingAndEmptyFields) {
+  auto ranking = fixtures::small_ranking();
+  ranking.units[1].site = "Northgate, \"old\" yard";
+  const std::string csv = fleet_ranking_csv(ranking);
+  const std::string header =
+      "rank,tied,unit_id,site,rated_mva,health_index,band,remaining_life_years,limiting_factor,"
+      "probability_of_failure,consequence,risk,recommended_action,action_year,insufficient_data,note\n";
+  ASSERT_EQ(csv.substr(0, header.size()), header);
+  EXPECT_NE(csv.find("1,no,T-204,Kelder Road 132 kV,45,57.6,fair,11.5,paper,0.021,4,0.084,refurbish,2028,no,\n"),
+            std::string::npos) << csv;
+  EXPECT_NE(csv.find("\"Northgate, \"\"old\"\" yard\""), std::string::npos);
+  EXPECT_NE(csv.find("4,yes,T-032"), std::string::npos);
+  // Insufficient data: no rank, empty fields for absent values, the note quoted (it holds commas).
+  EXPECT_NE(csv.find("\n,no,T-990,Marsh Lane,0,,,,,,3,,,,yes,\"no oil, load or inspection data\"\n"), std::string::npos)
+      << csv;
+  EXPECT_EQ(std::count(csv.begin(), csv.end(), '\n'), 7);  // header + 6 units
+}
+
+TEST(RankingCsv, EmptyRankingIsHeaderOnly) {
+  const std::string csv = fleet_ranking_csv({});
+  EXPECT_EQ(std::count(csv.begin(), csv.end(), '\n'), 1);
+}
+
+}  // namespace
+}  // namespace ferrum::report
