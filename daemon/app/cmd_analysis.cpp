@@ -1,0 +1,179 @@
+// assess, rank, dga, thermal: the analytics on the command line.
+#include <Poco/JSON/Array.h>
+
+#include <cmath>
+#include <iomanip>
+#include <iostream>
+
+#include "analytics/oil_assessment.h"
+#include "analytics/thermal_assessment.h"
+#include "daemon/app/commands_impl.h"
+#include "daemon/app/site_context.h"
+#include "daemon/assess/assessment_json.h"
+#include "daemon/assess/assessment_service.h"
+#include "daemon/ingest/field_parsers.h"
+#include "report/fleet_report.h"
+
+namespace ferrum::app {
+namespace {
+
+std::string fmt(const std::optional<double>& v, int decimals, const std::string& unit = "") {
+  if (!v) return "-";
+  std::ostringstream o;
+  o << std::fixed << std::setprecision(decimals) << *v << unit;
+  return o.str();
+}
+
+void print_assessment_text(const analytics::UnitAssessment& a) {
+  std::cout << a.unit.unit_id << " (" << a.unit.site << ")  as of " << analytics::format_day(a.as_of) << "\n"
+            << "  health index " << fmt(a.health_index, 0) << "  " << (a.band.empty() ? "-" : a.band) << "  ("
+            << a.confidence << ")\n"
+            << "  remaining life " << fmt(a.remaining_life.years, 0, " years") << " ("
+            << fmt(a.remaining_life.low_years, 0) << "-" << fmt(a.remaining_life.high_years, 0) << "), limited by "
+            << (a.remaining_life.limiting_factor.empty() ? "-" : a.remaining_life.limiting_factor) << "\n";
+  if (a.dga.sample_date)
+    std::cout << "  gases " << analytics::format_day(*a.dga.sample_date) << ": TDCG " << fmt(a.dga.tdcg_ppm, 0)
+              << " ppm, C57.104-2008 condition " << (a.dga.c57104_2008_condition ? std::to_string(*a.dga.c57104_2008_condition) : "-")
+              << ", 2019 status " << (a.dga.c57104_2019_status ? std::to_string(*a.dga.c57104_2019_status) : "-")
+              << ", Duval " << a.dga.duval_triangle_1.value_or("-") << ", IEC 60599 "
+              << a.dga.iec60599_ratio_fault.value_or("-") << "\n";
+  for (const auto& act : a.actions)
+    std::cout << "  [" << act.priority << "] by " << analytics::format_day(act.due) << ": " << act.text << "\n";
+  for (const auto& m : a.missing) std::cout << "  missing: " << m << "\n";
+}
+
+}  // namespace
+
+int cmd_assess(const Invocation& inv) {
+  auto site = open_site(inv, Access::read);
+  const analytics::Day as_of = today(inv, site->config);
+  const auto options = assess::options_from_config(site->config, &site->root);
+  std::vector<std::string> ids = inv.args;
+  if (ids.empty())
+    for (const auto& u : site->store->units()) ids.push_back(u.unit_id);
+  Poco::JSON::Array::Ptr all = new Poco::JSON::Array;
+  for (const auto& id : ids) {
+    if (!site->store->find_unit(id)) throw std::runtime_error("unit " + id + " is not in the register");
+    const auto a = assess::assess_unit(*site->store, id, as_of, options);
+    if (inv.has("json")) all->add(assess::to_json(a));
+    else print_assessment_text(a);
+  }
+  if (inv.has("json")) std::cout << assess::stringify(all) << "\n";
+  return kOk;
+}
+
+int cmd_rank(const Invocation& inv) {
+  if (inv.has("json") && inv.has("csv")) throw UsageError("--json or --csv, not both");
+  auto site = open_site(inv, Access::read);
+  const analytics::Day as_of = today(inv, site->config);
+  const auto units = assess::assess_fleet(*site->store, as_of, assess::options_from_config(site->config, &site->root));
+  const auto ranking = analytics::rank_fleet(units, as_of, assess::ranking_options_from_config(site->config));
+  if (inv.has("json")) {
+    std::cout << assess::stringify(assess::to_json(ranking)) << "\n";
+    return kOk;
+  }
+  if (inv.has("csv")) {
+    std::cout << report::fleet_ranking_csv(ranking);
+    return kOk;
+  }
+  std::cout << std::left << std::setw(6) << "rank" << std::setw(12) << "unit" << std::setw(16) << "site" << std::setw(7)
+            << "HI" << std::setw(15) << "band" << std::setw(10) << "life" << std::setw(11) << "limit" << std::setw(9)
+            << "risk" << "action\n";
+  for (const auto& u : ranking.units) {
+    std::cout << std::left << std::setw(6)
+              << (u.insufficient_data ? std::string("-") : std::to_string(u.rank) + (u.tied ? "=" : ""))
+              << std::setw(12) << u.unit_id << std::setw(16) << u.site << std::setw(7) << fmt(u.health_index, 0)
+              << std::setw(15) << (u.band.empty() ? "-" : u.band) << std::setw(10)
+              << fmt(u.remaining_life_years, 0, " y") << std::setw(11)
+              << (u.limiting_factor.empty() ? "-" : u.limiting_factor) << std::setw(9) << fmt(u.risk, 2)
+              << u.recommended_action << (u.action_year ? " " + std::to_string(*u.action_year) : "")
+              << (u.note.empty() ? "" : "  (" + u.note + ")") << "\n";
+  }
+  std::cout << "\nrated MVA due per year:";
+  for (const auto& y : ranking.mva_due_by_year) std::cout << "  " << y.year << ": " << fmt(y.mva, 0);
+  std::cout << "\n";
+  return kOk;
+}
+
+int cmd_dga(const Invocation& inv) {
+  analytics::OilSample s;
+  struct GasOpt {
+    const char* name;
+    analytics::LabValue analytics::OilSample::*member;
+  };
+  const GasOpt gases[] = {{"h2", &analytics::OilSample::h2},     {"ch4", &analytics::OilSample::ch4},
+                          {"c2h6", &analytics::OilSample::c2h6}, {"c2h4", &analytics::OilSample::c2h4},
+                          {"c2h2", &analytics::OilSample::c2h2}, {"co", &analytics::OilSample::co},
+                          {"co2", &analytics::OilSample::co2},   {"o2", &analytics::OilSample::o2},
+                          {"n2", &analytics::OilSample::n2}};
+  int given = 0;
+  for (const auto& g : gases) {
+    if (!inv.has(g.name)) continue;
+    const auto v = ingest::parse_lab_value(inv.get(g.name), false);
+    if (!v.ok()) throw UsageError("--" + std::string(g.name) + ": '" + inv.get(g.name) + "': " + v.error);
+    if (v.value.is_measured() && v.value.value < 0) throw UsageError("--" + std::string(g.name) + " cannot be negative");
+    s.*(g.member) = v.value;
+    ++given;
+  }
+  if (given == 0) throw UsageError("give at least one gas, e.g. --h2 120 --ch4 50 --c2h2 2");
+  analytics::UnitInfo unit;
+  unit.unit_id = "(command line)";
+  unit.hv_kv = inv.has("hv-kv") ? std::stod(inv.get("hv-kv")) : 132;
+  const analytics::Day today_day = today(inv, config::SiteConfig{});
+  s.date = today_day;
+  if (inv.has("age")) unit.year_built = analytics::civil_from_days(today_day).year - std::stoi(inv.get("age"));
+  const auto d = analytics::interpret_dga_sample(s, unit, today_day, analytics::OilOptions{});
+  if (inv.has("json")) {
+    std::cout << assess::stringify(assess::to_json(d)) << "\n";
+    return kOk;
+  }
+  std::cout << "TDCG                     " << fmt(d.tdcg_ppm, 0, " ppm") << "\n"
+            << "IEEE C57.104-2008        condition "
+            << (d.c57104_2008_condition ? std::to_string(*d.c57104_2008_condition) : "-") << "\n"
+            << "IEEE C57.104-2019        status " << (d.c57104_2019_status ? std::to_string(*d.c57104_2019_status) : "-")
+            << (d.c57104_2019_reason.empty() ? "" : "  (" + d.c57104_2019_reason + ")") << "\n"
+            << "Duval triangle 1         " << d.duval_triangle_1.value_or("-") << "  " << d.duval_reading << "\n"
+            << "IEC 60599 ratios         " << d.iec60599_ratio_fault.value_or("-") << "  " << d.iec60599_reading << "\n"
+            << "key gas                  " << d.key_gas << "\n"
+            << "CO2/CO                   " << fmt(d.co2_co_ratio, 1) << "  " << d.co2_co_reading << "\n";
+  if (!d.c57104_2008_interval.empty())
+    std::cout << "sampling (C57.104-2008)  " << d.c57104_2008_interval << "; " << d.c57104_2008_action << "\n";
+  std::cout << "\nDecision support only: a qualified engineer decides. Do not re-energise a unit with signs of\n"
+               "active arcing before an engineer has evaluated it.\n";
+  return kOk;
+}
+
+int cmd_thermal(const Invocation& inv) {
+  if (inv.args.size() != 1) throw UsageError("name exactly one unit");
+  auto site = open_site(inv, Access::read);
+  const auto unit = site->store->find_unit(inv.args[0]);
+  if (!unit) throw std::runtime_error("unit " + inv.args[0] + " is not in the register");
+  auto parse_day = [&](const std::string& opt, analytics::Timestamp fallback) -> analytics::Timestamp {
+    if (!inv.has(opt)) return fallback;
+    const auto d = ingest::parse_date(inv.get(opt));
+    if (!d.ok()) throw UsageError("--" + opt + ": '" + inv.get(opt) + "': " + d.error);
+    return analytics::start_of(d.value) - site->config.utc_offset_minutes * 60LL;
+  };
+  const analytics::Timestamp from = parse_day("from", INT64_MIN / 2);
+  const analytics::Timestamp to = inv.has("to") ? parse_day("to", 0) + 86400 - 1 : INT64_MAX / 2;
+  const auto load = site->store->load_points(unit->unit_id, from, to);
+  const auto options = assess::options_from_config(site->config, &site->root);
+  const auto series = analytics::thermal_series(*unit, load, options.thermal);
+  const char sep = inv.has("csv") ? ',' : '\t';
+  std::cout << "time_utc" << sep << "load_pu" << sep << "ambient_c" << sep << "top_oil_c" << sep << "hot_spot_c" << sep
+            << "ageing_rate" << sep << "measured_top_oil_c\n";
+  std::cout << std::fixed;
+  for (const auto& p : series) {
+    const auto c = analytics::civil_from_days(analytics::day_of(p.t));
+    const long long sod = p.t - analytics::start_of(analytics::day_of(p.t));
+    char ts[32];
+    std::snprintf(ts, sizeof ts, "%04d-%02d-%02dT%02lld:%02lldZ", c.year, c.month, c.day, sod / 3600, (sod / 60) % 60);
+    std::cout << ts << sep << std::setprecision(3) << p.load_pu << sep << std::setprecision(1) << p.ambient_c << sep
+              << p.top_oil_c << sep << p.hot_spot_c << sep << std::setprecision(4) << p.ageing_rate << sep;
+    if (!std::isnan(p.measured_top_oil_c)) std::cout << std::setprecision(1) << p.measured_top_oil_c;
+    std::cout << "\n";
+  }
+  return kOk;
+}
+
+}  // namespace ferrum::app

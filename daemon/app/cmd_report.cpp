@@ -1,0 +1,32 @@
+#include <iostream>
+
+#include "daemon/app/commands_impl.h"
+#include "daemon/app/site_context.h"
+#include "daemon/reporting/report_writer.h"
+
+namespace fs = std::filesystem;
+
+namespace ferrum::app {
+
+int cmd_report(const Invocation& inv) {
+  const int modes = (inv.has("fleet") ? 1 : 0) + (inv.has("weekly") ? 1 : 0) + (inv.args.empty() ? 0 : 1);
+  if (modes != 1) throw UsageError("name units, or give --fleet, or --weekly (one of them)");
+  if (inv.has("weekly") && inv.has("out")) throw UsageError("--weekly always writes into ROOT/reports/YYYY-Www/");
+  auto site = open_site(inv, Access::read);
+  const analytics::Day as_of = today(inv, site->config);
+  reporting::ReportWriter writer(site->root, site->config, *site->store);
+  const fs::path out = inv.has("out") ? fs::absolute(inv.get("out")) : site->root.reports();
+  if (inv.has("weekly")) {
+    std::cout << writer.weekly_bundle(as_of).string() << "\n";
+    return kOk;
+  }
+  if (inv.has("fleet")) {
+    const auto f = writer.fleet_report(as_of, out);
+    std::cout << f.pdf.string() << "\n" << f.csv.string() << "\n";
+    return kOk;
+  }
+  for (const auto& unit : inv.args) std::cout << writer.unit_report(unit, as_of, out).string() << "\n";
+  return kOk;
+}
+
+}  // namespace ferrum::app

@@ -1,0 +1,66 @@
+#include <Poco/JSON/Array.h>
+#include <Poco/JSON/Object.h>
+#include <Poco/JSON/Parser.h>
+
+#include <fstream>
+#include <iostream>
+#include <sstream>
+
+#include "daemon/app/commands_impl.h"
+#include "daemon/site/site_root.h"
+
+namespace ferrum::app {
+
+int cmd_status(const Invocation& inv) {
+  const site::SiteRoot root = site::resolve_root(inv.get("root"));
+  if (!std::filesystem::exists(root.config())) throw std::runtime_error("no ferrum.ini in " + root.root.string());
+  const long pid = site::RootLock::holder_pid(root);
+  std::ifstream in(root.status_file());
+  Poco::JSON::Object::Ptr st;
+  if (in) {
+    std::stringstream text;
+    text << in.rdbuf();
+    try {
+      st = Poco::JSON::Parser().parse(text.str()).extract<Poco::JSON::Object::Ptr>();
+    } catch (const std::exception&) {
+    }
+  }
+  if (inv.has("json")) {
+    Poco::JSON::Object::Ptr o = st ? st : Poco::JSON::Object::Ptr(new Poco::JSON::Object);
+    o->set("running", pid != 0);
+    o->stringify(std::cout, 2);
+    std::cout << "\n";
+    return pid ? kOk : kNotRunning;
+  }
+  auto get = [&](const char* k) { return st && st->has(k) ? st->get(k).toString() : std::string(); };
+  if (pid) {
+    std::cout << "ferrum is running on " << root.root.string() << " (pid " << pid << ", since " << get("started_at")
+              << ")\n";
+  } else {
+    std::cout << "ferrum is NOT running on " << root.root.string();
+    if (!get("stopped_at").empty()) std::cout << " (stopped " << get("stopped_at") << ")";
+    std::cout << "\n";
+  }
+  if (st) {
+    std::cout << "  last import:    "
+              << (get("last_import").empty() ? "none since start"
+                                             : get("last_import_party") + "/" + get("last_import") + " at " +
+                                                   get("last_import_at"))
+              << "\n  files waiting:  " << get("files_waiting") << "\n  last weekly:    "
+              << (get("last_weekly_bundle").empty() ? "none yet" : get("last_weekly_bundle") + " (" + get("last_weekly_run") + ")")
+              << "\n  next weekly:    " << get("next_weekly_run") << "\n";
+    if (auto rej = st->getArray("recent_rejections"); rej && rej->size()) {
+      std::cout << "  recent rejections:\n";
+      for (std::size_t i = 0; i < rej->size(); ++i) std::cout << "    " << rej->get(static_cast<unsigned>(i)).toString() << "\n";
+    }
+    if (auto al = st->getArray("open_alerts"); al && al->size()) {
+      std::cout << "  open alerts:\n";
+      for (std::size_t i = 0; i < al->size(); ++i) std::cout << "    " << al->get(static_cast<unsigned>(i)).toString() << "\n";
+    } else {
+      std::cout << "  open alerts:    none\n";
+    }
+  }
+  return pid ? kOk : kNotRunning;
+}
+
+}  // namespace ferrum::app

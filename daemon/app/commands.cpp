@@ -1,0 +1,110 @@
+// The table of commands and the dispatch. Each command's body lives in a
+// cmd_*.cpp file of its own.
+#include <spdlog/spdlog.h>
+
+#include <iostream>
+
+#include "daemon/app/command_line.h"
+#include "daemon/app/commands_impl.h"
+#include "daemon/app/logging.h"
+#include "daemon/config/site_config.h"
+#include "schema/store.h"
+
+namespace ferrum::app {
+
+const std::vector<CommandInfo>& commands() {
+  static const std::vector<CommandInfo> all = {
+      {"init", "ferrum init --root DIR", "create a site root with a commented default ferrum.ini",
+       "Creates ROOT/drop/PARTY/ for each configured party, archive/, quarantine/, reports/, log/,\n"
+       "the database ferrum.db, and ferrum.ini with one party, 'planning', allowed every file kind and\n"
+       "every site. An existing ferrum.ini is left untouched.",
+       {"root"}},
+      {"ingest", "ferrum ingest --root DIR [FILE...]", "process the dropped files once and exit",
+       "Takes every file waiting in drop/PARTY/ (or the FILEs named, which must be inside a party\n"
+       "folder), imports it whole or rejects it whole, moves it to archive/ or quarantine/ and writes\n"
+       "its receipt into drop/PARTY/receipts/. Exit status 0 when every file was accepted, 4 when\n"
+       "some were rejected, 1 on failure.",
+       {"root"}},
+      {"check", "ferrum check [--root DIR] [--party NAME] FILE...",
+       "validate files without importing them and print their receipts",
+       "For contractors before they drop a file. With a site root, unit ids are checked against\n"
+       "its register and --party applies that party's permissions; without one (no ferrum.ini in\n"
+       "the root), only the file itself is checked. Nothing is stored or moved. Exit status 0 when\n"
+       "every file would be accepted, 4 otherwise.",
+       {"root", "party", "json"}},
+      {"report", "ferrum report --root DIR (UNIT... | --fleet | --weekly) [--out DIR]",
+       "write PDF reports",
+       "UNIT...: one PDF per unit (file name ferrum-UNIT-DATE.pdf). --fleet: the fleet report\n"
+       "(PDF and CSV). --weekly: every unit report and the fleet report into reports/YYYY-Www/ with\n"
+       "an index page, leaving earlier weeks untouched. Default folder: ROOT/reports/.",
+       {"root", "out", "fleet", "weekly", "as-of"}},
+      {"serve", "ferrum serve --root DIR [--daemon --pidfile FILE]",
+       "watch the drop folders, ingest, alert and report until stopped",
+       "Runs in the foreground (or as a daemon with --daemon). Watches every party folder, takes\n"
+       "complete files, re-renders the reports of the units they change, raises alerts, produces the\n"
+       "weekly bundle on schedule, and exits 0 on SIGTERM or SIGINT. SIGHUP reloads ferrum.ini.",
+       {"root", "daemon", "pidfile", "umask", "once"}},
+      {"status", "ferrum status --root DIR", "tell whether the daemon runs and what it did last",
+       "Prints the daemon's pid and uptime, the last import, files waiting, recent rejections, the\n"
+       "last and next weekly bundle and open alerts. Exit status 0 running, 3 not running.",
+       {"root", "json"}},
+      {"assess", "ferrum assess --root DIR [UNIT...] [--json]", "print the assessment of units",
+       "One assessment document per unit (all units when none is named): health index, factors,\n"
+       "remaining life, gases, oil, paper, thermal, infrared, inspection, actions, missing data.\n"
+       "--json prints a JSON array (schema in README.md).",
+       {"root", "json", "as-of"}},
+      {"rank", "ferrum rank --root DIR [--json | --csv]", "rank the fleet by risk",
+       "Every unit with rank, site, health index, band, remaining life and limiting factor, risk,\n"
+       "recommended action and year, and the rated MVA due per year for ten years.",
+       {"root", "json", "csv", "as-of"}},
+      {"dga", "ferrum dga --h2 PPM --ch4 PPM ... [--json]", "interpret one gas sample typed on the command line",
+       "No database needed. Gases in µL/L (ppm): --h2 --ch4 --c2h6 --c2h4 --c2h2 --co --co2 --o2 --n2.\n"
+       "A value written <N or ND means below the detection limit. --age YEARS selects the IEEE\n"
+       "C57.104-2019 age row.",
+       {"h2", "ch4", "c2h6", "c2h4", "c2h2", "co", "co2", "o2", "n2", "age", "hv-kv", "json"}},
+      {"thermal", "ferrum thermal --root DIR UNIT [--from DATE --to DATE] [--csv]",
+       "print or export the computed hot-spot series of a unit",
+       "Runs the unit's thermal model over its load series and prints one row per step: time,\n"
+       "load (per unit), ambient, top-oil and hot-spot temperature (°C), relative ageing rate, and\n"
+       "the measured top-oil temperature where one was delivered.",
+       {"root", "from", "to", "csv"}},
+  };
+  return all;
+}
+
+const CommandInfo* find_command(const std::string& name) {
+  for (const auto& c : commands())
+    if (name == c.name) return &c;
+  return nullptr;
+}
+
+int run_command(const Invocation& inv) {
+  init_stderr_logging("warn");
+  try {
+    if (inv.command == "init") return cmd_init(inv);
+    if (inv.command == "ingest") return cmd_ingest(inv);
+    if (inv.command == "check") return cmd_check(inv);
+    if (inv.command == "report") return cmd_report(inv);
+    if (inv.command == "serve") return cmd_serve(inv);
+    if (inv.command == "status") return cmd_status(inv);
+    if (inv.command == "assess") return cmd_assess(inv);
+    if (inv.command == "rank") return cmd_rank(inv);
+    if (inv.command == "dga") return cmd_dga(inv);
+    if (inv.command == "thermal") return cmd_thermal(inv);
+  } catch (const UsageError& e) {
+    std::cerr << "ferrum " << inv.command << ": " << e.what() << "\n";
+    return kUsage;
+  } catch (const config::ConfigError& e) {
+    std::cerr << "ferrum " << inv.command << ": configuration: " << e.what() << "\n";
+    return kFailed;
+  } catch (const store::IncompatibleStore& e) {
+    std::cerr << "ferrum " << inv.command << ": " << e.what() << "\n";
+    return kFailed;
+  } catch (const std::exception& e) {
+    std::cerr << "ferrum " << inv.command << ": " << e.what() << "\n";
+    return kFailed;
+  }
+  return kUsage;
+}
+
+}  // namespace ferrum::app

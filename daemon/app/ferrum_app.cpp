@@ -1,0 +1,124 @@
+#include "daemon/app/ferrum_app.h"
+
+#include <Poco/Util/HelpFormatter.h>
+#include <Poco/Util/Option.h>
+#include <Poco/Util/OptionSet.h>
+
+#include <algorithm>
+#include <iostream>
+
+namespace ferrum::app {
+
+using Poco::Util::Option;
+
+namespace {
+
+struct OptionDef {
+  const char* name;
+  const char* argument;  // nullptr for a flag
+  const char* help;
+};
+
+// Every option of every command. Which command takes which is in commands().
+const OptionDef kOptions[] = {
+    {"root", "DIR", "site root (default: $FERRUM_ROOT, else the current folder)"},
+    {"out", "DIR", "output folder (default: ROOT/reports)"},
+    {"json", nullptr, "print JSON"},
+    {"csv", nullptr, "print CSV"},
+    {"fleet", nullptr, "the fleet report"},
+    {"weekly", nullptr, "the weekly bundle: all unit reports and the fleet report in reports/YYYY-Www/"},
+    {"from", "DATE", "first day (YYYY-MM-DD)"},
+    {"to", "DATE", "last day (YYYY-MM-DD)"},
+    {"as-of", "DATE", "assess as of this day instead of today (YYYY-MM-DD)"},
+    {"party", "NAME", "check the file as if dropped by this party"},
+    {"h2", "PPM", "hydrogen, µL/L"},
+    {"ch4", "PPM", "methane, µL/L"},
+    {"c2h6", "PPM", "ethane, µL/L"},
+    {"c2h4", "PPM", "ethylene, µL/L"},
+    {"c2h2", "PPM", "acetylene, µL/L"},
+    {"co", "PPM", "carbon monoxide, µL/L"},
+    {"co2", "PPM", "carbon dioxide, µL/L"},
+    {"o2", "PPM", "oxygen, µL/L"},
+    {"n2", "PPM", "nitrogen, µL/L"},
+    {"age", "YEARS", "age of the unit in years (IEEE C57.104-2019 tables; default: unknown)"},
+    {"hv-kv", "KV", "HV voltage in kV (default 132)"},
+    {"once", nullptr, "serve: process what is waiting, render, and exit (for scripts)"},
+};
+
+bool command_accepts(const CommandInfo& c, const std::string& option) {
+  return std::find(c.options.begin(), c.options.end(), option) != c.options.end();
+}
+
+}  // namespace
+
+FerrumApp::FerrumApp() { setUnixOptions(true); }
+
+void FerrumApp::defineOptions(Poco::Util::OptionSet& options) {
+  ServerApplication::defineOptions(options);  // --daemon, --pidfile, --umask
+  options.addOption(Option("help", "h", "show help").required(false).repeatable(false));
+  options.addOption(Option("version", "", "show the version").required(false).repeatable(false));
+  for (const auto& o : kOptions) {
+    Option opt(o.name, "", o.help);
+    opt.required(false).repeatable(false);
+    if (o.argument) opt.argument(o.argument);
+    options.addOption(opt);
+  }
+}
+
+void FerrumApp::handleOption(const std::string& name, const std::string& value) {
+  ServerApplication::handleOption(name, value);
+  if (name == "help") help_ = true;
+  else if (name == "version") version_ = true;
+  else inv_.options[name] = value;
+}
+
+void FerrumApp::print_help() const {
+  std::cout << "ferrum " << FERRUM_VERSION
+            << " - condition assessment of power transformers from dropped inspection, oil-lab,\n"
+               "infrared and load files.\n\n"
+               "usage: ferrum COMMAND [options] [arguments]\n\ncommands:\n";
+  for (const auto& c : commands()) std::cout << "  " << c.name << std::string(10 - std::string(c.name).size(), ' ') << c.summary << "\n";
+  std::cout << "\n'ferrum COMMAND --help' tells more about one command. Every command that works on a\n"
+               "site takes --root DIR (default: $FERRUM_ROOT, else the current folder).\n"
+               "ferrum advises; a qualified engineer decides. Local codes and licensed practice govern.\n";
+}
+
+int FerrumApp::main(const std::vector<std::string>& args) {
+  if (version_) {
+    std::cout << "ferrum " << FERRUM_VERSION << "\n";
+    return kOk;
+  }
+  if (args.empty()) {
+    print_help();
+    return help_ ? kOk : kUsage;
+  }
+  inv_.command = args[0];
+  inv_.args.assign(args.begin() + 1, args.end());
+  const CommandInfo* c = find_command(inv_.command);
+  if (!c) {
+    std::cerr << "ferrum: unknown command '" << inv_.command << "'; see ferrum --help\n";
+    return kUsage;
+  }
+  if (help_) {
+    std::cout << "usage: " << c->synopsis << "\n\n" << c->summary << "\n\n" << c->details << "\n";
+    if (!c->options.empty()) {
+      std::cout << "\noptions:\n";
+      for (const auto& name : c->options)
+        for (const auto& o : kOptions)
+          if (name == o.name)
+            std::cout << "  --" << o.name << (o.argument ? std::string(" ") + o.argument : std::string()) << "\n      "
+                      << o.help << "\n";
+    }
+    return kOk;
+  }
+  for (const auto& [name, value] : inv_.options) {
+    if (!command_accepts(*c, name)) {
+      std::cerr << "ferrum " << c->name << ": option --" << name << " does not apply; see ferrum " << c->name
+                << " --help\n";
+      return kUsage;
+    }
+  }
+  return run_command(inv_);
+}
+
+}  // namespace ferrum::app

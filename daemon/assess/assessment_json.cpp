@@ -1,0 +1,321 @@
+#include "daemon/assess/assessment_json.h"
+
+#include <Poco/JSON/Stringifier.h>
+
+#include <cmath>
+#include <sstream>
+
+namespace ferrum::assess {
+namespace {
+
+using Poco::JSON::Array;
+using Poco::JSON::Object;
+using Poco::Dynamic::Var;
+
+// Rounds to a sensible number of digits so that the JSON does not carry
+// floating-point noise (0.30000000000000004).
+double tidy(double v) {
+  if (!std::isfinite(v)) return v;
+  const double scale = 1e6;
+  return std::round(v * scale) / scale;
+}
+
+Var opt(const std::optional<double>& v) {
+  if (!v || !std::isfinite(*v)) return Var();
+  return tidy(*v);
+}
+Var opt(const std::optional<int>& v) { return v ? Var(*v) : Var(); }
+Var opt(const std::optional<std::string>& v) { return v ? Var(*v) : Var(); }
+Var opt_day(const std::optional<analytics::Day>& d) { return d ? Var(analytics::format_day(*d)) : Var(); }
+Var text_or_null(const std::string& s) { return s.empty() ? Var() : Var(s); }
+
+std::string format_ts(analytics::Timestamp t) {
+  const analytics::CivilDate c = analytics::civil_from_days(analytics::day_of(t));
+  const long long sod = t - analytics::start_of(analytics::day_of(t));
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%04d-%02d-%02dT%02lld:%02lld:%02lldZ", c.year, c.month, c.day, sod / 3600,
+                (sod / 60) % 60, sod % 60);
+  return buf;
+}
+Var opt_ts(const std::optional<analytics::Timestamp>& t) { return t ? Var(format_ts(*t)) : Var(); }
+
+Array::Ptr strings(const std::vector<std::string>& v) {
+  Array::Ptr a = new Array;
+  for (const auto& s : v) a->add(s);
+  return a;
+}
+
+Object::Ptr unit_json(const analytics::UnitInfo& u) {
+  Object::Ptr o = new Object;
+  o->set("unit_id", u.unit_id);
+  o->set("site", u.site);
+  o->set("serial", text_or_null(u.serial));
+  o->set("rated_mva", tidy(u.rated_mva));
+  o->set("hv_kv", tidy(u.hv_kv));
+  o->set("lv_kv", tidy(u.lv_kv));
+  o->set("cooling", u.cooling);
+  o->set("year_built", u.year_built);
+  o->set("phases", u.phases);
+  o->set("vector_group", text_or_null(u.vector_group));
+  o->set("oil_type", std::string(analytics::to_string(u.oil)));
+  o->set("paper", std::string(analytics::to_string(u.paper)));
+  o->set("criticality", u.criticality);
+  o->set("customers_served", opt(u.customers_served));
+  return o;
+}
+
+Object::Ptr remaining_life_json(const analytics::RemainingLife& r) {
+  Object::Ptr o = new Object;
+  o->set("years", opt(r.years));
+  o->set("low_years", opt(r.low_years));
+  o->set("high_years", opt(r.high_years));
+  o->set("limiting_factor", text_or_null(r.limiting_factor));
+  Array::Ptr est = new Array;
+  for (const auto& e : r.estimates) {
+    Object::Ptr x = new Object;
+    x->set("basis", e.basis);
+    x->set("years", opt(e.years));
+    x->set("low_years", opt(e.low_years));
+    x->set("high_years", opt(e.high_years));
+    x->set("method", e.method);
+    est->add(x);
+  }
+  o->set("estimates", est);
+  return o;
+}
+
+Object::Ptr oil_json(const analytics::OilSummary& s) {
+  Object::Ptr o = new Object;
+  o->set("sample_date", opt_day(s.sample_date));
+  Array::Ptr checks = new Array;
+  for (const auto& c : s.checks) {
+    Object::Ptr x = new Object;
+    x->set("test", c.test);
+    x->set("value", opt(c.value));
+    x->set("limit", opt(c.limit));
+    x->set("limit_kind", text_or_null(c.limit_kind));
+    x->set("unit", text_or_null(c.unit));
+    x->set("within_limit", c.within_limit ? Var(*c.within_limit) : Var());
+    x->set("source", c.source);
+    checks->add(x);
+  }
+  o->set("checks", checks);
+  o->set("relative_saturation_pct", opt(s.relative_saturation_pct));
+  o->set("water_solubility_ppm", opt(s.water_solubility_ppm));
+  o->set("paper_moisture_pct", opt(s.paper_moisture_pct));
+  o->set("moisture_method", text_or_null(s.moisture_method));
+  o->set("oil_class", text_or_null(s.oil_class));
+  o->set("notes", strings(s.notes));
+  return o;
+}
+
+Object::Ptr paper_json(const analytics::PaperSummary& p) {
+  Object::Ptr o = new Object;
+  o->set("sample_date", opt_day(p.sample_date));
+  o->set("furan_2fal_ppb", opt(p.furan_2fal_ppb));
+  o->set("dp_estimate", opt(p.dp_estimate));
+  o->set("dp_method", text_or_null(p.dp_method));
+  o->set("dp_alternative", opt(p.dp_alternative));
+  o->set("dp_alternative_method", text_or_null(p.dp_alternative_method));
+  o->set("life_used_pct", opt(p.life_used_pct));
+  o->set("trustworthy", p.trustworthy);
+  o->set("note", text_or_null(p.note));
+  return o;
+}
+
+Object::Ptr thermal_json(const analytics::ThermalSummary& t) {
+  Object::Ptr o = new Object;
+  o->set("from", opt_ts(t.from));
+  o->set("to", opt_ts(t.to));
+  o->set("method", text_or_null(t.method));
+  o->set("peak_hot_spot_c", opt(t.peak_hot_spot_c));
+  o->set("peak_top_oil_c", opt(t.peak_top_oil_c));
+  o->set("equivalent_ageing_factor", opt(t.equivalent_ageing_factor));
+  o->set("loss_of_life_hours", opt(t.loss_of_life_hours));
+  o->set("loss_of_life_pct", opt(t.loss_of_life_pct));
+  o->set("hours_above_nameplate", opt(t.hours_above_nameplate));
+  o->set("peak_load_pu", opt(t.peak_load_pu));
+  o->set("p99_load_pu", opt(t.p99_load_pu));
+  o->set("hours_above_normal_cyclic", opt(t.hours_above_normal_cyclic));
+  o->set("hours_above_long_emergency", opt(t.hours_above_long_emergency));
+  o->set("hours_above_short_emergency", opt(t.hours_above_short_emergency));
+  o->set("load_growth_pct_per_year", opt(t.load_growth_pct_per_year));
+  o->set("top_oil_discrepancy_k", opt(t.top_oil_discrepancy_k));
+  o->set("covered_hours", tidy(t.covered_hours));
+  o->set("bridged_hours", tidy(t.bridged_hours));
+  o->set("ambient_from_profile", t.ambient_from_profile);
+  o->set("parameter_sources", strings(t.parameter_sources));
+  o->set("notes", strings(t.notes));
+  return o;
+}
+
+}  // namespace
+
+Object::Ptr to_json(const analytics::DgaSummary& d) {
+  Object::Ptr o = new Object;
+  o->set("sample_date", opt_day(d.sample_date));
+  o->set("tdcg_ppm", opt(d.tdcg_ppm));
+  o->set("c57104_2008_condition", opt(d.c57104_2008_condition));
+  o->set("c57104_2019_status", opt(d.c57104_2019_status));
+  o->set("duval_triangle_1", opt(d.duval_triangle_1));
+  o->set("duval_pentagon_1", opt(d.duval_pentagon_1));
+  o->set("iec60599_ratio_fault", opt(d.iec60599_ratio_fault));
+  o->set("co2_co_ratio", opt(d.co2_co_ratio));
+  o->set("tdcg_rate_ppm_per_day", opt(d.tdcg_rate_ppm_per_day));
+  o->set("c57104_2008_interval", text_or_null(d.c57104_2008_interval));
+  o->set("c57104_2008_action", text_or_null(d.c57104_2008_action));
+  o->set("c57104_2019_reason", text_or_null(d.c57104_2019_reason));
+  o->set("key_gas", text_or_null(d.key_gas));
+  o->set("co2_co_reading", text_or_null(d.co2_co_reading));
+  o->set("iec60599_reading", text_or_null(d.iec60599_reading));
+  o->set("duval_reading", text_or_null(d.duval_reading));
+  o->set("active_arcing", d.active_arcing);
+  Array::Ptr gases = new Array;
+  for (const auto& g : d.gases) {
+    Object::Ptr x = new Object;
+    x->set("gas", g.gas);
+    x->set("ppm", opt(g.ppm));
+    x->set("below_limit", g.below_limit);
+    x->set("c57104_2008_condition", opt(g.c57104_2008_condition));
+    x->set("rate_ppm_per_year", opt(g.rate_ppm_per_year));
+    gases->add(x);
+  }
+  o->set("gases", gases);
+  Array::Ptr duval = new Array;
+  for (const auto& p : d.duval_history) {
+    Object::Ptr x = new Object;
+    x->set("date", analytics::format_day(p.date));
+    x->set("pct_ch4", tidy(p.pct_ch4));
+    x->set("pct_c2h4", tidy(p.pct_c2h4));
+    x->set("pct_c2h2", tidy(p.pct_c2h2));
+    x->set("zone", p.zone);
+    duval->add(x);
+  }
+  o->set("duval_history", duval);
+  return o;
+}
+
+Object::Ptr to_json(const analytics::UnitAssessment& a) {
+  Object::Ptr o = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+  o->set("unit_id", a.unit.unit_id);
+  o->set("as_of", analytics::format_day(a.as_of));
+  o->set("unit", unit_json(a.unit));
+  o->set("health_index", opt(a.health_index));
+  o->set("band", text_or_null(a.band));
+  o->set("band_expected_life", text_or_null(a.band_expected_life));
+  o->set("confidence", text_or_null(a.confidence));
+  Array::Ptr factors = new Array;
+  for (const auto& f : a.factors) {
+    Object::Ptr x = new Object;
+    x->set("name", f.name);
+    x->set("score", opt(f.score));
+    x->set("weight", tidy(f.weight));
+    x->set("contribution", tidy(f.contribution));
+    x->set("source", f.source);
+    x->set("detail", text_or_null(f.detail));
+    factors->add(x);
+  }
+  o->set("factors", factors);
+  o->set("remaining_life", remaining_life_json(a.remaining_life));
+  o->set("dga", to_json(a.dga));
+  o->set("oil", oil_json(a.oil));
+  o->set("paper", paper_json(a.paper));
+  o->set("thermal", thermal_json(a.thermal));
+  Array::Ptr ir = new Array;
+  for (const auto& f : a.infrared) {
+    Object::Ptr x = new Object;
+    x->set("date", analytics::format_day(f.date));
+    x->set("component", f.component);
+    x->set("rise_over_reference_k", opt(f.rise_over_reference_k));
+    x->set("rise_over_ambient_k", opt(f.rise_over_ambient_k));
+    x->set("corrected_rise_k", opt(f.corrected_rise_k));
+    x->set("severity", opt(f.severity));
+    x->set("severity_text", text_or_null(f.severity_text));
+    x->set("low_load", f.low_load);
+    x->set("source", text_or_null(f.source));
+    ir->add(x);
+  }
+  o->set("infrared", ir);
+  Array::Ptr insp = new Array;
+  for (const auto& f : a.inspection) {
+    Object::Ptr x = new Object;
+    x->set("item", f.item);
+    x->set("rating", std::string(analytics::to_string(f.rating)));
+    x->set("date", analytics::format_day(f.date));
+    x->set("previous", f.previous ? Var(std::string(analytics::to_string(*f.previous))) : Var());
+    x->set("worse", f.worse);
+    x->set("note", text_or_null(f.note));
+    insp->add(x);
+  }
+  o->set("inspection", insp);
+  Array::Ptr actions = new Array;
+  for (const auto& act : a.actions) {
+    Object::Ptr x = new Object;
+    x->set("priority", act.priority);
+    x->set("due", analytics::format_day(act.due));
+    x->set("text", act.text);
+    x->set("reason", act.reason);
+    actions->add(x);
+  }
+  o->set("actions", actions);
+  o->set("missing", strings(a.missing));
+  Array::Ptr fresh = new Array;
+  for (const auto& f : a.freshness) {
+    Object::Ptr x = new Object;
+    x->set("kind", f.kind);
+    x->set("latest", opt_day(f.latest));
+    x->set("age_years", opt(f.age_years));
+    fresh->add(x);
+  }
+  o->set("freshness", fresh);
+  o->set("methods", strings(a.methods));
+  o->set("assumptions", strings(a.assumptions));
+  o->set("unsafe_inspection", a.unsafe_inspection);
+  o->set("active_arcing", a.active_arcing);
+  return o;
+}
+
+Object::Ptr to_json(const analytics::FleetRanking& r) {
+  Object::Ptr o = new Object;
+  o->set("as_of", analytics::format_day(r.as_of));
+  Array::Ptr units = new Array;
+  for (const auto& u : r.units) {
+    Object::Ptr x = new Object;
+    x->set("rank", u.insufficient_data ? Var() : Var(u.rank));
+    x->set("tied", u.tied);
+    x->set("unit_id", u.unit_id);
+    x->set("site", u.site);
+    x->set("rated_mva", tidy(u.rated_mva));
+    x->set("health_index", opt(u.health_index));
+    x->set("band", text_or_null(u.band));
+    x->set("remaining_life_years", opt(u.remaining_life_years));
+    x->set("limiting_factor", text_or_null(u.limiting_factor));
+    x->set("probability_of_failure", opt(u.probability_of_failure));
+    x->set("consequence", tidy(u.consequence));
+    x->set("risk", opt(u.risk));
+    x->set("recommended_action", u.recommended_action);
+    x->set("action_year", opt(u.action_year));
+    x->set("insufficient_data", u.insufficient_data);
+    x->set("note", text_or_null(u.note));
+    units->add(x);
+  }
+  o->set("units", units);
+  Array::Ptr due = new Array;
+  for (const auto& y : r.mva_due_by_year) {
+    Object::Ptr x = new Object;
+    x->set("year", y.year);
+    x->set("mva", tidy(y.mva));
+    x->set("units", y.units);
+    due->add(x);
+  }
+  o->set("mva_due_by_year", due);
+  return o;
+}
+
+std::string stringify(const Var& v) {
+  std::ostringstream out;
+  Poco::JSON::Stringifier::stringify(v, out, 2);
+  return out.str();
+}
+
+}  // namespace ferrum::assess

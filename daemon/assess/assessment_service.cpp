@@ -1,0 +1,53 @@
+#include "daemon/assess/assessment_service.h"
+
+#include <fstream>
+#include <sstream>
+
+#include "daemon/reporting/report_writer.h"
+
+namespace ferrum::assess {
+
+analytics::AssessmentOptions options_from_config(const config::SiteConfig& config, const site::SiteRoot* root) {
+  analytics::AssessmentOptions o;
+  o.thermal.method = config.thermal_method == "ieee_c57_91" ? analytics::ThermalMethod::ieee_c57_91
+                                                            : analytics::ThermalMethod::iec60076_7;
+  o.thermal.inspection_interval_days = config.inspection_interval_days;
+  auto& h = o.health;
+  for (const auto& [factor, w] : config.health_weights) {
+    if (factor == "dga") h.weight_dga = w;
+    else if (factor == "oil_quality") h.weight_oil_quality = w;
+    else if (factor == "paper") h.weight_paper = w;
+    else if (factor == "thermal") h.weight_thermal = w;
+    else if (factor == "infrared") h.weight_infrared = w;
+    else if (factor == "inspection") h.weight_inspection = w;
+    else if (factor == "age") h.weight_age = w;
+  }
+  if (!config.health_weights.empty()) h.source += "; weights overridden in ferrum.ini [health]";
+  if (root) {
+    const auto tables = root->tables() / "ieee_c57104_2019_tables.csv";
+    if (std::filesystem::exists(tables)) {
+      std::ifstream in(tables);
+      std::ostringstream text;
+      text << in.rdbuf();
+      o.oil.tables_2019 = analytics::parse_c57104_2019_tables(text.str()).value();
+    }
+  }
+  return o;
+}
+
+analytics::UnitAssessment assess_unit(store::Store& store, const std::string& unit_id, analytics::Day as_of,
+                                      const analytics::AssessmentOptions& options) {
+  const analytics::UnitData data = reporting::data_as_of(store.unit_data(unit_id), as_of);
+  return analytics::assess_unit(data, as_of, options);
+}
+
+std::vector<analytics::UnitAssessment> assess_fleet(store::Store& store, analytics::Day as_of,
+                                                    const analytics::AssessmentOptions& options) {
+  std::vector<analytics::UnitAssessment> out;
+  for (const auto& u : store.units()) out.push_back(assess_unit(store, u.unit_id, as_of, options));
+  return out;
+}
+
+analytics::RankingOptions ranking_options_from_config(const config::SiteConfig&) { return {}; }
+
+}  // namespace ferrum::assess

@@ -1,0 +1,80 @@
+// The site configuration, ROOT/ferrum.ini.
+//
+// Every key is declared once in a table (site_config.cpp: kKeys) with its
+// type, default, bounds, whether SIGHUP may change it, and a comment; that
+// one table drives loading, validation and the commented default file that
+// `ferrum init` writes. Parties are sections of their own: [party.NAME].
+#pragma once
+
+#include <map>
+#include <optional>
+#include <set>
+#include <stdexcept>
+#include <string>
+#include <vector>
+
+namespace ferrum::config {
+
+// A configuration that cannot be used; the message names the key and why.
+class ConfigError : public std::runtime_error {
+ public:
+  using std::runtime_error::runtime_error;
+};
+
+struct Party {
+  std::string name;                 // folder name under drop/
+  std::set<std::string> kinds;      // file kinds it may deliver
+  std::set<std::string> sites;      // sites it serves; contains "*" for all
+  bool may_deliver(const std::string& kind) const { return kinds.count(kind) > 0; }
+  bool serves(const std::string& site) const { return sites.count("*") > 0 || sites.count(site) > 0; }
+};
+
+struct SiteConfig {
+  // [site]
+  std::string utility_name = "Unnamed utility";
+  int utc_offset_minutes = 0;        // applied to times written without an offset
+  std::string utc_offset_text = "+00:00";
+  std::string paper = "a4";          // a4 or letter
+  // [ingest]
+  int settle_seconds = 5;
+  int rescan_seconds = 30;
+  long long max_file_bytes = 2048LL * 1024 * 1024;
+  std::vector<std::string> extra_inspection_items;
+  // [schedule]
+  int weekly_weekday = 0;            // 0 = Monday
+  int weekly_minute_of_day = 6 * 60;
+  int debounce_seconds = 10;
+  // [analysis]
+  std::string thermal_method = "iec60076_7";
+  int inspection_interval_days = 365;
+  std::map<std::string, double> health_weights;  // factor name -> weight override
+  // [log]
+  std::string log_level = "info";
+  int log_file_mb = 10;
+  int log_files = 5;
+  // [party.*]
+  std::map<std::string, Party> parties;
+
+  const Party* party(const std::string& name) const {
+    auto it = parties.find(name);
+    return it == parties.end() ? nullptr : &it->second;
+  }
+};
+
+// The five file kinds, by the names used in the configuration and receipts.
+const std::vector<std::string>& file_kind_names();
+
+// Reads and validates an ini file. Throws ConfigError naming the line or key.
+SiteConfig load_site_config(const std::string& path);
+
+// The commented default ferrum.ini that `ferrum init` writes.
+std::string default_site_config_text();
+
+// Human-readable list of the differences between two configurations
+// (for the SIGHUP log line). Empty when equal.
+std::vector<std::string> describe_changes(const SiteConfig& before, const SiteConfig& after);
+
+// Parses "+01:00", "-05:30", "Z", "UTC" into minutes. Throws ConfigError.
+int parse_utc_offset(const std::string& text);
+
+}  // namespace ferrum::config

@@ -1,0 +1,173 @@
+#include "daemon/pipeline/import_bridge.h"
+
+#include <map>
+#include <memory>
+
+#include "daemon/ingest/csv_reader.h"
+#include "daemon/ingest/file_kinds.h"
+#include "daemon/ingest/row_parsers.h"
+
+namespace ferrum::ingest {
+namespace {
+
+// Register entries looked up once per unit and kept for the whole file (the
+// row parsers hold pointers into this cache).
+class UnitCache {
+ public:
+  UnitCache(store::Store& store, bool must_exist) : store_(store), must_exist_(must_exist) {}
+  const analytics::UnitInfo* find(std::string_view id) {
+    auto it = cache_.find(std::string(id));
+    if (it == cache_.end()) {
+      auto u = store_.find_unit(id);
+      it = cache_.emplace(std::string(id), u ? std::make_unique<analytics::UnitInfo>(*u) : nullptr).first;
+    }
+    return it->second.get();
+  }
+  bool must_exist() const { return must_exist_; }
+
+ private:
+  store::Store& store_;
+  bool must_exist_;
+  std::map<std::string, std::unique_ptr<analytics::UnitInfo>> cache_;
+};
+
+// Checks a row's unit against the party's sites; logs a whole-row problem.
+bool site_allowed(const ImportSettings& s, const std::string& unit_id, const std::string& site, std::int64_t line,
+                  ProblemLog& problems) {
+  if (!s.party || s.party->serves(site)) return true;
+  problems.add(line, "", 0, unit_id,
+               "unit " + unit_id + " is at site '" + site + "', which party '" + s.party->name + "' does not serve");
+  return false;
+}
+
+template <class Parser, class Row, class Store>
+void run_rows(CsvReader& reader, Parser& parser, ImportResult& r, Store&& store_row) {
+  Row row;
+  for (;;) {
+    const RecordStatus st = reader.next(r.problems);
+    if (st == RecordStatus::end) break;
+    if (st == RecordStatus::malformed) continue;
+    if (!parser.parse(reader.fields(), reader.record_line(), row)) continue;
+    // Once a file has a problem nothing of it will be kept: stop writing,
+    // go on validating to report more problems.
+    if (!r.problems.empty()) {
+      ++r.rows;
+      continue;
+    }
+    if (store_row(row)) ++r.rows;
+  }
+  parser.finish();
+}
+
+}  // namespace
+
+ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Store& store) {
+  ImportResult r;
+  CsvReader reader(in);
+  if (!reader.read_header(r.problems)) return r;
+  const KindDetection kind = detect_kind(reader.header());
+  if (!kind.recognised) {
+    r.problems.add(reader.header_line(), kind.reason_column >= 0 ? reader.header()[kind.reason_column] : "",
+                   kind.reason_column + 1, "", kind.reason);
+    return r;
+  }
+  r.kind = to_string(kind.kind);
+  if (s.party && !s.party->may_deliver(r.kind)) {
+    r.file_reason = "party '" + s.party->name + "' may not deliver " + describe(kind.kind) +
+                    " files (ferrum.ini [party." + s.party->name + "] kinds)";
+    return r;
+  }
+  for (int c : kind.unknown_columns)
+    r.warnings.add(reader.header_line(), reader.header()[c], "unknown column, ignored");
+  if (s.file_id)
+    for (const auto& c : kind.conversions) store.add_conversion(s.file_id, c.column, c.original_unit, c.stored_as);
+
+  UnitCache units(store, s.units_must_exist);
+  ParseOptions po;
+  po.now = s.now;
+  po.site_utc_offset_min = s.config ? s.config->utc_offset_minutes : 0;
+  if (s.units_must_exist) po.lookup_unit = [&units](std::string_view id) { return units.find(id); };
+  if (s.config)
+    for (const auto& item : s.config->extra_inspection_items) po.inspection_items.push_back(item);
+  const bool comma = reader.decimal_comma();
+
+  switch (kind.kind) {
+    case FileKind::units_register: {
+      UnitRowParser p(kind.columns, po, comma, r.problems, r.warnings);
+      run_rows<UnitRowParser, UnitRow>(reader, p, r, [&](const UnitRow& row) {
+        if (!site_allowed(s, row.unit.unit_id, row.unit.site, row.line, r.problems)) return false;
+        if (store.upsert_unit(row.unit, s.file_id, static_cast<int>(row.line))) r.units.insert(row.unit.unit_id);
+        return true;
+      });
+      break;
+    }
+    case FileKind::oil_lab: {
+      OilRowParser p(kind.columns, po, comma, r.problems, r.warnings);
+      run_rows<OilRowParser, OilRow>(reader, p, r, [&](const OilRow& row) {
+        const auto* u = units.find(row.unit_id);
+        if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
+        if (!u) return true;  // `ferrum check` away from a site
+        store.add_oil_sample(row.unit_id, row.sample, s.file_id, static_cast<int>(row.line));
+        r.units.insert(row.unit_id);
+        return true;
+      });
+      break;
+    }
+    case FileKind::infrared: {
+      InfraredRowParser p(kind.columns, po, comma, r.problems, r.warnings);
+      run_rows<InfraredRowParser, InfraredRow>(reader, p, r, [&](const InfraredRow& row) {
+        const auto* u = units.find(row.unit_id);
+        if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
+        if (!u) return true;
+        store.add_infrared(row.unit_id, row.scan, s.file_id, static_cast<int>(row.line));
+        r.units.insert(row.unit_id);
+        return true;
+      });
+      break;
+    }
+    case FileKind::inspection: {
+      InspectionRowParser p(kind.columns, po, comma, r.problems, r.warnings);
+      run_rows<InspectionRowParser, InspectionRow>(reader, p, r, [&](const InspectionRow& row) {
+        const auto* u = units.find(row.unit_id);
+        if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
+        if (!u) return true;
+        store.add_inspection(row.unit_id, row.record, s.file_id, static_cast<int>(row.line));
+        r.units.insert(row.unit_id);
+        if (row.record.rating == analytics::Rating::unsafe)
+          r.unsafe_items.push_back(row.unit_id + ": " + row.record.item + " (" +
+                                   analytics::format_day(row.record.date) + ")" +
+                                   (row.record.note.empty() ? "" : " - " + row.record.note));
+        return true;
+      });
+      break;
+    }
+    case FileKind::load_series: {
+      LoadRowParser p(kind.columns, po, comma, r.problems, r.warnings);
+      std::string last_checked;
+      run_rows<LoadRowParser, LoadRow>(reader, p, r, [&](const LoadRow& row) {
+        const auto* u = units.find(row.unit_id);
+        if (row.unit_id != last_checked) {  // rows come in runs of one unit: check once per run
+          if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
+          last_checked = row.unit_id;
+          r.units.insert(row.unit_id);
+        }
+        if (row.offset_assumed) r.offset_assumed = true;
+        if (!u) return true;
+        if (store.add_load_point(row.unit_id, row.point, s.file_id, static_cast<int>(row.line)) ==
+            store::LoadInsert::duplicate_in_file) {
+          r.problems.add(row.line, reader.column_name(static_cast<std::size_t>(kind.columns["timestamp"].index)),
+                         kind.columns["timestamp"].index + 1, "",
+                         "a second reading for unit " + row.unit_id + " at the same time");
+          return false;
+        }
+        return true;
+      });
+      break;
+    }
+  }
+  if (!r.problems.empty()) r.units.clear();
+  if (r.rows == 0 && r.problems.empty()) r.file_reason = "the file has a header but no data rows";
+  return r;
+}
+
+}  // namespace ferrum::ingest

@@ -1,0 +1,38 @@
+// Joins the pure parsing (csv_reader, file_kinds, row_parsers) to the store:
+// streams one file's rows into the open transaction, checking the party's
+// permissions row by row. Nothing here commits; the pipeline decides.
+#pragma once
+
+#include <istream>
+#include <set>
+#include <string>
+#include <vector>
+
+#include "daemon/config/site_config.h"
+#include "daemon/ingest/problems.h"
+#include "schema/store.h"
+
+namespace ferrum::ingest {
+
+struct ImportSettings {
+  const config::Party* party = nullptr;   // null: permissions not checked (ferrum check without --party)
+  const config::SiteConfig* config = nullptr;
+  std::int64_t now = 0;                    // UTC seconds, for "date in the future"
+  std::int64_t file_id = 0;                // provenance of every row
+  bool units_must_exist = true;            // false: `ferrum check` without a site database
+};
+
+struct ImportResult {
+  std::string kind;              // recognised kind, "" when the header matched none
+  long long rows = 0;            // good rows seen
+  ProblemLog problems{100};
+  WarningLog warnings;
+  std::set<std::string> units;   // units touched
+  std::vector<std::string> unsafe_items;
+  bool offset_assumed = false;   // some times had no UTC offset
+  std::string file_reason;       // whole-file reason (e.g. kind not allowed for the party)
+};
+
+ImportResult import_stream(std::istream& in, const ImportSettings& settings, store::Store& store);
+
+}  // namespace ferrum::ingest

@@ -1,0 +1,418 @@
+#include "daemon/pipeline/pipeline.h"
+
+#include <Poco/SHA2Engine.h>
+#include <fcntl.h>
+#include <spdlog/spdlog.h>
+#include <sys/stat.h>
+#include <unistd.h>
+
+#include <algorithm>
+#include <chrono>
+#include <cstdio>
+#include <fstream>
+#include <map>
+
+#include "analytics/calendar.h"
+#include "daemon/pipeline/import_bridge.h"
+#include "daemon/site/atomic_file.h"
+
+namespace fs = std::filesystem;
+
+namespace ferrum::ingest {
+namespace {
+
+bool ends_with(const std::string& s, const std::string& suffix) {
+  return s.size() >= suffix.size() && s.compare(s.size() - suffix.size(), suffix.size(), suffix) == 0;
+}
+
+std::string iso_utc(std::int64_t t) {
+  const auto c = analytics::civil_from_days(analytics::day_of(t));
+  const long long sod = t - analytics::start_of(analytics::day_of(t));
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%04d-%02d-%02dT%02lld:%02lld:%02lldZ", c.year, c.month, c.day, sod / 3600,
+                (sod / 60) % 60, sod % 60);
+  return buf;
+}
+
+// A file-system name may be at most 255 bytes; long dropped names are cut
+// (keeping the extension) before a hash or ".json" is added.
+std::string fit_name(const std::string& name, std::size_t room) {
+  if (name.size() <= room) return name;
+  const auto dot = name.rfind('.');
+  std::string ext = (dot != std::string::npos && name.size() - dot <= 10) ? name.substr(dot) : "";
+  std::string stem = name.substr(0, room - ext.size());
+  // Never cut inside a UTF-8 sequence.
+  while (!stem.empty() && (static_cast<unsigned char>(stem.back()) & 0xC0) == 0x80) stem.pop_back();
+  if (!stem.empty() && static_cast<unsigned char>(stem.back()) >= 0xC0) stem.pop_back();
+  return stem + ext;
+}
+
+// name.csv + hash -> name.3f9a1c2e.csv
+std::string stored_name(const std::string& name, const std::string& sha) {
+  const std::string tag = sha.empty() ? "unread" : sha.substr(0, 8);
+  const std::string fitted = fit_name(name, 200);
+  const auto dot = fitted.rfind('.');
+  if (dot == std::string::npos || dot == 0) return fitted + "." + tag;
+  return fitted.substr(0, dot) + "." + tag + fitted.substr(dot);
+}
+
+// Moves without overwriting: name, then name.2, name.3, ...
+fs::path move_to_free_name(const fs::path& from, const fs::path& wanted) {
+  fs::create_directories(wanted.parent_path());
+  if (site::move_no_replace(from, wanted)) return wanted;
+  for (int i = 2; i < 10000; ++i) {
+    fs::path alt = wanted;
+    alt += "." + std::to_string(i);
+    if (site::move_no_replace(from, alt)) return alt;
+  }
+  throw std::runtime_error("no free name for " + wanted.string());
+}
+
+}  // namespace
+
+std::int64_t system_clock_now() {
+  return std::chrono::duration_cast<std::chrono::seconds>(std::chrono::system_clock::now().time_since_epoch())
+      .count();
+}
+
+std::string sha256_of_file(const fs::path& path) {
+  const int fd = ::open(path.c_str(), O_RDONLY | O_NOFOLLOW | O_CLOEXEC);
+  if (fd < 0) throw std::runtime_error("cannot open " + path.string());
+  Poco::SHA2Engine engine(Poco::SHA2Engine::SHA_256);
+  std::vector<char> buf(1 << 16);
+  for (;;) {
+    const ssize_t n = ::read(fd, buf.data(), buf.size());
+    if (n < 0) {
+      if (errno == EINTR) continue;
+      ::close(fd);
+      throw std::runtime_error("cannot read " + path.string());
+    }
+    if (n == 0) break;
+    engine.update(buf.data(), static_cast<unsigned>(n));
+  }
+  ::close(fd);
+  return Poco::DigestEngine::digestToHex(engine.digest());
+}
+
+Pipeline::Pipeline(const site::SiteRoot& root, const config::SiteConfig& config, store::Store& store, Clock clock)
+    : root_(root), config_(config), store_(store), clock_(std::move(clock)) {}
+
+bool Pipeline::is_ignored_name(const std::string& name) {
+  return name.empty() || name[0] == '.' || ends_with(name, ".part") || ends_with(name, ".tmp") || name == "receipts";
+}
+
+std::string Pipeline::now_text() const { return iso_utc(clock_()); }
+
+fs::path Pipeline::destination(const std::string& status, const std::string& name, const std::string& sha,
+                               std::int64_t now) const {
+  if (status == "rejected") return root_.quarantine() / stored_name(name, sha);
+  const auto c = analytics::civil_from_days(analytics::day_of(now));
+  char ym[16];
+  std::snprintf(ym, sizeof ym, "%04d/%02d", c.year, c.month);
+  return root_.archive() / ym / stored_name(name, sha);
+}
+
+std::vector<fs::path> Pipeline::waiting_files() const {
+  std::vector<fs::path> out;
+  std::error_code ec;
+  // Stray files directly in drop/ (rejected: "drop into your party's folder").
+  for (const auto& e : fs::directory_iterator(root_.drop(), ec)) {
+    if (!e.is_directory(ec) && !is_ignored_name(e.path().filename().string())) out.push_back(e.path());
+  }
+  for (const auto& e : fs::directory_iterator(root_.drop(), ec)) {
+    if (!e.is_directory(ec) || e.is_symlink(ec)) continue;
+    std::vector<std::pair<fs::file_time_type, fs::path>> files;
+    for (const auto& f : fs::directory_iterator(e.path(), ec)) {
+      const std::string name = f.path().filename().string();
+      if (is_ignored_name(name)) continue;
+      if (f.is_directory(ec) && !f.is_symlink(ec)) continue;
+      std::error_code tec;
+      files.emplace_back(fs::symlink_status(f.path(), tec).type() == fs::file_type::symlink
+                             ? fs::file_time_type::min()
+                             : fs::last_write_time(f.path(), tec),
+                         f.path());
+    }
+    std::sort(files.begin(), files.end());
+    for (auto& [t, p] : files) out.push_back(p);
+  }
+  return out;
+}
+
+std::optional<FileOutcome> Pipeline::process(const fs::path& dropped) {
+  const auto started = std::chrono::steady_clock::now();
+  const std::string name = dropped.filename().string();
+  if (is_ignored_name(name)) return std::nullopt;
+  struct stat st {};
+  if (::lstat(dropped.c_str(), &st) != 0) return std::nullopt;  // gone already
+
+  const fs::path parent = dropped.parent_path();
+  const bool in_drop_root = fs::equivalent(parent, root_.drop());
+  const std::string party = in_drop_root ? std::string() : parent.filename().string();
+  std::optional<FileOutcome> out;
+  if (in_drop_root) {
+    out = refuse(dropped, "", name, "files must be dropped into your party's folder (drop/PARTY/), not into drop/ itself", true);
+  } else if (!fs::equivalent(parent.parent_path(), root_.drop())) {
+    return std::nullopt;  // deeper folders (receipts/) are not drop folders
+  } else if (!config_.party(party)) {
+    out = refuse(dropped, party, name, "'" + party + "' is not a party in ferrum.ini; ask the site to add it", true);
+  } else if (S_ISLNK(st.st_mode)) {
+    out = refuse(dropped, party, name, "symbolic links are refused unread; drop the file itself", true);
+  } else if (S_ISDIR(st.st_mode)) {
+    return std::nullopt;
+  } else if (!S_ISREG(st.st_mode)) {
+    out = refuse(dropped, party, name, "only regular files are accepted (this is a device, FIFO or socket)", true);
+  } else if (st.st_nlink > 1) {
+    out = refuse(dropped, party, name, "hard links are refused unread; drop a copy of the file", true);
+  } else if (static_cast<long long>(st.st_size) > config_.max_file_bytes) {
+    out = refuse(dropped, party, name,
+                 "the file is larger than the site's limit of " + std::to_string(config_.max_file_bytes / (1024 * 1024)) +
+                     " MB (ingest.max_file_mb); split it",
+                 true);
+  } else {
+    // Claim it: whoever renames it first owns it.
+    const fs::path work_dir = root_.work() / party;
+    fs::create_directories(work_dir);
+    fs::path claimed = work_dir / name;
+    if (!site::move_no_replace(dropped, claimed)) {
+      claimed = work_dir / (name + "." + std::to_string(clock_()) + ".claim");
+      if (!site::move_no_replace(dropped, claimed)) return std::nullopt;
+    }
+    out = import_claimed(claimed, party, name, now_text());
+  }
+  out->seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
+  spdlog::info("file {}/{}: {} {} rows={} problems={} in {:.3f}s", party.empty() ? "drop" : party, name,
+               out->receipt.status, out->receipt.kind, out->receipt.rows, out->receipt.problem_count, out->seconds);
+  return out;
+}
+
+FileOutcome Pipeline::refuse(const fs::path& path, const std::string& party, const std::string& name,
+                             const std::string& reason, bool unread) {
+  FileOutcome out;
+  Receipt& r = out.receipt;
+  r.file = name;
+  r.party = party;
+  r.status = "rejected";
+  r.received_at = now_text();
+  r.reason = reason;
+  if (!unread) r.sha256 = sha256_of_file(path);
+  const fs::path dest = destination("rejected", name, r.sha256, clock_());
+  r.stored_as = fs::relative(dest, root_.root).string();
+  store::FileRecord rec{0, r.sha256, party.empty() ? "(none)" : party, name, "", "rejected", 0, 0,
+                        r.received_at, r.stored_as, r.to_json()};
+  store_.add_file(rec);
+  finish(out, path);
+  return out;
+}
+
+FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string& party, const std::string& name,
+                                     const std::string& received_at) {
+  FileOutcome out;
+  Receipt& r = out.receipt;
+  r.file = name;
+  r.party = party;
+  r.received_at = received_at;
+  r.sha256 = sha256_of_file(claimed);
+  const std::int64_t now = clock_();
+
+  if (auto earlier = store_.accepted_file_with_hash(r.sha256)) {
+    r.status = "duplicate";
+    r.kind = earlier->kind;
+    r.duplicate_of_received_at = earlier->received_at;
+    r.duplicate_of_stored_as = earlier->stored_as;
+    r.stored_as = fs::relative(destination("duplicate", name, r.sha256, now), root_.root).string();
+    store_.add_file({0, r.sha256, party, name, r.kind, "duplicate", 0, 0, received_at, r.stored_as, r.to_json()});
+    finish(out, claimed);
+    return out;
+  }
+
+  const config::Party* p = config_.party(party);
+  ImportSettings settings;
+  settings.party = p;
+  settings.config = &config_;
+  settings.now = now;
+  ImportResult result;
+  store_.begin();
+  try {
+    store::FileRecord rec{0, r.sha256, party, name, "", "importing", 0, 0, received_at, "", "{}"};
+    rec.id = store_.add_file(rec);
+    settings.file_id = rec.id;
+    std::ifstream in(claimed, std::ios::binary);
+    if (!in) throw std::runtime_error("cannot open the claimed file " + claimed.string());
+    result = import_stream(in, settings, store_);
+    r.kind = result.kind;
+    r.rows = result.rows;
+    r.problems = result.problems.kept();
+    r.problem_count = result.problems.count();
+    r.warnings = result.warnings.entries();
+    r.reason = result.file_reason;
+    if (result.offset_assumed)
+      r.utc_offset_note = "times without a UTC offset were taken as UTC" + config_.utc_offset_text + " (site.utc_offset)";
+    const bool ok = result.problems.empty() && result.file_reason.empty() && !result.kind.empty();
+    if (ok) {
+      r.status = "accepted";
+      r.units.assign(result.units.begin(), result.units.end());
+      r.stored_as = fs::relative(destination("accepted", name, r.sha256, now), root_.root).string();
+      rec.kind = r.kind;
+      rec.status = "accepted";
+      rec.rows = r.rows;
+      rec.stored_as = r.stored_as;
+      rec.receipt_json = r.to_json();
+      store_.update_file(rec);
+      store_.commit();
+    } else {
+      store_.rollback();
+    }
+  } catch (...) {
+    store_.rollback();
+    throw;  // the file stays in work/ and is retried (disk full, database read-only, ...)
+  }
+  if (r.status != "accepted") {
+    r.status = "rejected";
+    r.units.clear();
+    if (r.reason.empty() && r.problem_count == 0) r.reason = "the file has no usable content";
+    r.stored_as = fs::relative(destination("rejected", name, r.sha256, now), root_.root).string();
+    store_.add_file({0, r.sha256, party, name, r.kind, "rejected", r.rows, r.problem_count, received_at, r.stored_as,
+                     r.to_json()});
+  } else {
+    out.units = r.units;
+    out.unsafe_items = result.unsafe_items;
+  }
+  finish(out, claimed);
+  return out;
+}
+
+void Pipeline::finish(FileOutcome& out, const fs::path& from) {
+  const fs::path wanted = root_.root / out.receipt.stored_as;
+  const fs::path actual = move_to_free_name(from, wanted);
+  if (actual != wanted) {
+    // Another file of the same name and content is already there; the
+    // record says where this one went.
+    out.receipt.stored_as = fs::relative(actual, root_.root).string();
+  }
+  write_receipt(out.receipt);
+}
+
+void Pipeline::write_receipt(const Receipt& r) {
+  if (r.party.empty() || !config_.party(r.party)) {
+    // No party folder to answer in: the receipt goes beside the quarantined file.
+    const fs::path dir = root_.quarantine() / "receipts";
+    fs::create_directories(dir);
+    site::write_file_atomically(dir / (fit_name(r.file, 240) + ".txt"), r.to_text());
+    site::write_file_atomically(dir / (fit_name(r.file, 240) + ".json"), r.to_json());
+    return;
+  }
+  const fs::path dir = root_.drop() / r.party / "receipts";
+  fs::create_directories(dir);
+  site::write_file_atomically(dir / (fit_name(r.file, 240) + ".txt"), r.to_text());
+  site::write_file_atomically(dir / (fit_name(r.file, 240) + ".json"), r.to_json());
+}
+
+std::vector<FileOutcome> Pipeline::recover() {
+  std::vector<FileOutcome> out;
+  std::error_code ec;
+  for (const auto& pdir : fs::directory_iterator(root_.work(), ec)) {
+    if (!pdir.is_directory(ec)) continue;
+    const std::string party = pdir.path().filename().string();
+    for (const auto& f : fs::directory_iterator(pdir.path(), ec)) {
+      std::string name = f.path().filename().string();
+      if (ends_with(name, ".claim")) {  // work/PARTY/NAME.<time>.claim
+        name = name.substr(0, name.size() - 6);
+        name = name.substr(0, name.rfind('.'));
+      }
+      const std::string sha = sha256_of_file(f.path());
+      auto rec = store_.latest_file_with_hash(sha);
+      if (rec && rec->status != "importing" && !rec->stored_as.empty() && !fs::exists(root_.root / rec->stored_as) &&
+          rec->original_name == name) {
+        // Committed before the crash; only the move and receipt were left.
+        FileOutcome o;
+        o.receipt.file = name;
+        o.receipt.party = party;
+        o.receipt.status = rec->status;
+        o.receipt.kind = rec->kind;
+        o.receipt.rows = rec->rows;
+        o.receipt.sha256 = sha;
+        o.receipt.received_at = rec->received_at;
+        o.receipt.stored_as = rec->stored_as;
+        o.receipt.problem_count = rec->problem_count;
+        fs::create_directories((root_.root / rec->stored_as).parent_path());
+        const fs::path actual = move_to_free_name(f.path(), root_.root / rec->stored_as);
+        if (config_.party(party)) {
+          const fs::path dir = root_.drop() / party / "receipts";
+          fs::create_directories(dir);
+          site::write_file_atomically(dir / (fit_name(name, 240) + ".json"), rec->receipt_json);
+          site::write_file_atomically(dir / (fit_name(name, 240) + ".txt"), Receipt::from_json(rec->receipt_json).to_text());
+        }
+        spdlog::warn("recovered {}/{}: finished the move to {} after an interruption", party, name,
+                     fs::relative(actual, root_.root).string());
+        out.push_back(std::move(o));
+        continue;
+      }
+      // Never committed: import it again from the start.
+      spdlog::warn("recovered {}/{}: the import was interrupted; processing it again", party, name);
+      out.push_back(import_claimed(f.path(), party, name, now_text()));
+    }
+  }
+  return out;
+}
+
+Receipt Pipeline::check(const fs::path& file, const std::string& party) {
+  Receipt r;
+  r.file = file.filename().string();
+  r.party = party;
+  r.received_at = now_text();
+  r.status = "rejected";
+  struct stat st {};
+  if (::lstat(file.c_str(), &st) != 0) {
+    r.reason = "no such file";
+    return r;
+  }
+  if (!S_ISREG(st.st_mode)) {
+    r.reason = "not a regular file";
+    return r;
+  }
+  r.sha256 = sha256_of_file(file);
+  if (auto earlier = store_.accepted_file_with_hash(r.sha256)) {
+    r.status = "duplicate";
+    r.kind = earlier->kind;
+    r.duplicate_of_received_at = earlier->received_at;
+    r.duplicate_of_stored_as = earlier->stored_as;
+    return r;
+  }
+  ImportSettings settings;
+  settings.party = party.empty() ? nullptr : config_.party(party);
+  if (!party.empty() && !settings.party) {
+    r.reason = "'" + party + "' is not a party in ferrum.ini";
+    return r;
+  }
+  settings.config = &config_;
+  settings.now = clock_();
+  settings.units_must_exist = units_must_exist_;
+  // The same import as a real drop, in a transaction that is always rolled
+  // back: the answer is exactly the receipt the file would get.
+  ImportResult result;
+  store_.begin();
+  try {
+    settings.file_id = store_.add_file({0, r.sha256, party.empty() ? "(check)" : party, r.file, "", "importing", 0, 0,
+                                        r.received_at, "", "{}"});
+    std::ifstream in(file, std::ios::binary);
+    result = import_stream(in, settings, store_);
+  } catch (...) {
+    store_.rollback();
+    throw;
+  }
+  store_.rollback();
+  r.kind = result.kind;
+  r.rows = result.rows;
+  r.problems = result.problems.kept();
+  r.problem_count = result.problems.count();
+  r.warnings = result.warnings.entries();
+  r.reason = result.file_reason;
+  r.units.assign(result.units.begin(), result.units.end());
+  if (result.offset_assumed)
+    r.utc_offset_note = "times without a UTC offset would be taken as UTC" + config_.utc_offset_text;
+  if (result.problems.empty() && result.file_reason.empty() && !result.kind.empty()) r.status = "accepted";
+  r.stored_as = "(check only: nothing stored)";
+  return r;
+}
+
+}  // namespace ferrum::ingest

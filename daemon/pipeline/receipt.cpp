@@ -1,0 +1,156 @@
+#include "daemon/pipeline/receipt.h"
+
+#include <Poco/JSON/Array.h>
+#include <Poco/JSON/Object.h>
+#include <Poco/JSON/Parser.h>
+#include <Poco/JSON/Stringifier.h>
+
+#include <sstream>
+
+namespace ferrum::ingest {
+
+std::string Receipt::to_json() const {
+  using Poco::JSON::Array;
+  using Poco::JSON::Object;
+  Object::Ptr o = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+  o->set("file", file);
+  o->set("party", party);
+  o->set("sha256", sha256.empty() ? Poco::Dynamic::Var() : Poco::Dynamic::Var(sha256));
+  o->set("status", status);
+  o->set("kind", kind.empty() ? Poco::Dynamic::Var() : Poco::Dynamic::Var(kind));
+  o->set("rows", rows);
+  o->set("received_at", received_at);
+  o->set("stored_as", stored_as);
+  o->set("reason", reason.empty() ? Poco::Dynamic::Var() : Poco::Dynamic::Var(reason));
+  Array::Ptr w = new Array;
+  for (const auto& x : warnings) {
+    Object::Ptr j = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+    j->set("line", x.first_line);
+    j->set("column", x.column);
+    j->set("message", x.message);
+    j->set("count", x.count);
+    w->add(j);
+  }
+  o->set("warnings", w);
+  Array::Ptr p = new Array;
+  for (const auto& x : problems) {
+    Object::Ptr j = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+    j->set("line", x.line);
+    j->set("column", x.column);
+    j->set("column_number", x.column_number);
+    j->set("value", x.value);
+    j->set("reason", x.reason);
+    p->add(j);
+  }
+  o->set("problems", p);
+  o->set("problem_count", problem_count);
+  Array::Ptr u = new Array;
+  for (const auto& x : units) u->add(x);
+  o->set("units", u);
+  if (status == "duplicate") {
+    Object::Ptr d = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+    d->set("received_at", duplicate_of_received_at);
+    d->set("stored_as", duplicate_of_stored_as);
+    o->set("already_imported", d);
+  }
+  if (!utc_offset_note.empty()) o->set("time_note", utc_offset_note);
+  std::ostringstream out;
+  Poco::JSON::Stringifier::stringify(o, out, 2);
+  out << "\n";
+  return out.str();
+}
+
+Receipt Receipt::from_json(const std::string& json) {
+  using Poco::JSON::Array;
+  using Poco::JSON::Object;
+  Receipt r;
+  Poco::JSON::Parser parser;
+  const Object::Ptr o = parser.parse(json).extract<Object::Ptr>();
+  auto str = [&](const Object::Ptr& obj, const char* k) {
+    return obj->has(k) && !obj->isNull(k) ? obj->getValue<std::string>(k) : std::string();
+  };
+  r.file = str(o, "file");
+  r.party = str(o, "party");
+  r.sha256 = str(o, "sha256");
+  r.status = str(o, "status");
+  r.kind = str(o, "kind");
+  r.rows = o->optValue<long long>("rows", 0);
+  r.received_at = str(o, "received_at");
+  r.stored_as = str(o, "stored_as");
+  r.reason = str(o, "reason");
+  r.problem_count = o->optValue<long long>("problem_count", 0);
+  r.utc_offset_note = str(o, "time_note");
+  if (auto a = o->getArray("problems")) {
+    for (std::size_t i = 0; i < a->size(); ++i) {
+      auto p = a->getObject(static_cast<unsigned>(i));
+      r.problems.push_back({p->optValue<std::int64_t>("line", 0), str(p, "column"), p->optValue<int>("column_number", 0),
+                            str(p, "value"), str(p, "reason")});
+    }
+  }
+  if (auto a = o->getArray("warnings")) {
+    for (std::size_t i = 0; i < a->size(); ++i) {
+      auto w = a->getObject(static_cast<unsigned>(i));
+      r.warnings.push_back({str(w, "column"), str(w, "message"), w->optValue<std::int64_t>("line", 0),
+                            w->optValue<std::int64_t>("count", 1)});
+    }
+  }
+  if (auto a = o->getArray("units"))
+    for (std::size_t i = 0; i < a->size(); ++i) r.units.push_back(a->getElement<std::string>(static_cast<unsigned>(i)));
+  if (auto d = o->getObject("already_imported")) {
+    r.duplicate_of_received_at = str(d, "received_at");
+    r.duplicate_of_stored_as = str(d, "stored_as");
+  }
+  return r;
+}
+
+std::string Receipt::to_text() const {
+  std::ostringstream o;
+  o << "ferrum receipt for " << file << "\n\n";
+  if (status == "accepted") {
+    o << "ACCEPTED: " << rows << " row" << (rows == 1 ? "" : "s") << " of " << kind << " imported.\n";
+  } else if (status == "duplicate") {
+    o << "ALREADY IMPORTED: the same content was imported on " << duplicate_of_received_at << " as "
+      << duplicate_of_stored_as << ".\nNothing was changed.\n";
+  } else {
+    o << "REJECTED: nothing from this file was imported.\n";
+    if (!reason.empty()) o << reason << "\n";
+    if (problem_count > 0) {
+      o << problem_count << " problem" << (problem_count == 1 ? "" : "s") << " found";
+      if (problem_count > static_cast<long long>(problems.size())) o << " (the first " << problems.size() << " are listed)";
+      o << ". Correct them and drop the whole file again.\n";
+    }
+  }
+  o << "\n  party:       " << party << "\n  received:    " << received_at << " (UTC)\n";
+  if (!kind.empty()) o << "  kind:        " << kind << "\n";
+  if (!sha256.empty()) o << "  sha256:      " << sha256 << "\n";
+  o << "  stored as:   " << stored_as << "\n";
+  if (!units.empty()) {
+    o << "  units:       ";
+    for (std::size_t i = 0; i < units.size(); ++i) o << (i ? ", " : "") << units[i];
+    o << "\n";
+  }
+  if (!utc_offset_note.empty()) o << "  times:       " << utc_offset_note << "\n";
+  if (!problems.empty()) {
+    o << "\nProblems (line, column: reason [value]):\n";
+    for (const auto& p : problems) {
+      o << "  line " << p.line;
+      if (!p.column.empty()) o << ", column " << p.column << " (" << p.column_number << ")";
+      o << ": " << p.reason;
+      if (!p.value.empty()) o << " [" << p.value << "]";
+      o << "\n";
+    }
+  }
+  if (!warnings.empty()) {
+    o << "\nWarnings (the file was still taken as a whole):\n";
+    for (const auto& w : warnings) {
+      o << "  line " << w.first_line;
+      if (!w.column.empty()) o << ", column " << w.column;
+      o << ": " << w.message;
+      if (w.count > 1) o << " (" << w.count << " times)";
+      o << "\n";
+    }
+  }
+  return o.str();
+}
+
+}  // namespace ferrum::ingest

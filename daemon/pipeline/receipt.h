@@ -1,0 +1,37 @@
+// The receipt a party gets for every file it drops, next to where it dropped
+// it: drop/PARTY/receipts/NAME.txt (for people) and NAME.json (for machines),
+// NAME being the dropped file's full name.
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include "daemon/ingest/problems.h"
+
+namespace ferrum::ingest {
+
+struct Receipt {
+  std::string file;            // name as dropped
+  std::string party;
+  std::string sha256;          // empty when the file was refused unread
+  std::string status;          // "accepted", "rejected", "duplicate"
+  std::string kind;            // file kind, "" when not recognised
+  long long rows = 0;          // rows imported (accepted) or read (rejected)
+  std::string received_at;     // UTC ISO 8601
+  std::string stored_as;       // archive/... or quarantine/..., relative to the site root
+  std::string reason;          // file-level reason (permissions, refused unread, ...)
+  std::vector<Problem> problems;    // first 100
+  long long problem_count = 0;
+  std::vector<Warning> warnings;
+  std::vector<std::string> units;   // units touched (accepted files)
+  std::string duplicate_of_received_at;  // for duplicates: when the same content was imported
+  std::string duplicate_of_stored_as;    // ... and as what
+  std::string utc_offset_note;      // "times without an offset were taken as UTC+01:00"
+
+  std::string to_json() const;
+  std::string to_text() const;
+  // Reads back what to_json() wrote (used to rewrite a receipt after a crash).
+  static Receipt from_json(const std::string& json);
+};
+
+}  // namespace ferrum::ingest

@@ -1,0 +1,179 @@
+#include "daemon/reporting/report_writer.h"
+
+#include <spdlog/spdlog.h>
+
+#include <algorithm>
+#include <chrono>
+#include <cstdio>
+#include <fstream>
+
+#include "daemon/assess/assessment_service.h"
+#include "daemon/site/atomic_file.h"
+#include "report/alert_report.h"
+#include "report/fleet_report.h"
+#include "report/unit_report.h"
+
+namespace fs = std::filesystem;
+
+namespace ferrum::reporting {
+namespace {
+
+std::string iso_now() {
+  const auto now = std::chrono::system_clock::to_time_t(std::chrono::system_clock::now());
+  std::tm tm{};
+  gmtime_r(&now, &tm);
+  char buf[32];
+  std::strftime(buf, sizeof buf, "%Y-%m-%dT%H:%M:%SZ", &tm);
+  return buf;
+}
+
+// File names carry the unit id; anything but letters, digits, '-', '_' and
+// '.' becomes '_', so that no unit id can name a path outside the folder.
+std::string safe_component(const std::string& s) {
+  std::string out;
+  for (char c : s) out += (std::isalnum(static_cast<unsigned char>(c)) || c == '-' || c == '_' || c == '.') ? c : '_';
+  if (out.empty() || out[0] == '.') out.insert(out.begin(), '_');
+  return out.substr(0, 120);
+}
+
+std::string csv_field(const std::string& s) {
+  if (s.find_first_of(",\"\n\r") == std::string::npos) return s;
+  std::string out = "\"";
+  for (char c : s) {
+    if (c == '"') out += '"';
+    out += c;
+  }
+  return out + "\"";
+}
+
+}  // namespace
+
+analytics::UnitData data_as_of(const analytics::UnitData& d, analytics::Day day) {
+  analytics::UnitData out;
+  out.info = d.info;
+  for (const auto& s : d.oil_samples)
+    if (s.date <= day) out.oil_samples.push_back(s);
+  const analytics::Timestamp end = analytics::start_of(day + 1);
+  for (const auto& p : d.load)
+    if (p.t < end) out.load.push_back(p);
+  for (const auto& s : d.infrared)
+    if (s.date <= day) out.infrared.push_back(s);
+  for (const auto& s : d.inspections)
+    if (s.date <= day) out.inspections.push_back(s);
+  return out;
+}
+
+ReportWriter::ReportWriter(const site::SiteRoot& root, const config::SiteConfig& config, store::Store& store)
+    : root_(root), config_(config), store_(store), options_(assess::options_from_config(config, &root)) {}
+
+std::string ReportWriter::week_label(analytics::Day d) {
+  const auto w = analytics::iso_week_of(d);
+  char buf[16];
+  std::snprintf(buf, sizeof buf, "%04d-W%02d", w.year, w.week);
+  return buf;
+}
+
+analytics::UnitAssessment ReportWriter::assess(const std::string& unit_id, analytics::Day as_of) {
+  return assess::assess_unit(store_, unit_id, as_of, options_);
+}
+
+static report::ReportOptions report_options(const config::SiteConfig& c) {
+  report::ReportOptions o;
+  o.paper = c.paper == "letter" ? report::ReportOptions::Paper::letter : report::ReportOptions::Paper::a4;
+  o.utility_name = c.utility_name;
+  o.utc_offset_note = "times delivered without a UTC offset were taken as UTC" + c.utc_offset_text +
+                      " (site.utc_offset in ferrum.ini)";
+  return o;
+}
+
+fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as_of, const fs::path& out_dir) {
+  if (!store_.find_unit(unit_id)) throw std::runtime_error("unit " + unit_id + " is not in the register");
+  const analytics::UnitData data = store_.unit_data(unit_id);
+  const analytics::UnitAssessment current = analytics::assess_unit(data_as_of(data, as_of), as_of, options_);
+  // The previous report's view: the data as it stood then.
+  analytics::Day previous_day = as_of - 7;
+  if (auto last = store_.state("report:" + unit_id)) {
+    const analytics::Day d = std::atoi(last->c_str());
+    if (d < as_of) previous_day = d;
+  }
+  const analytics::UnitAssessment previous =
+      analytics::assess_unit(data_as_of(data, previous_day), previous_day, options_);
+
+  std::vector<report::SourceFile> files;
+  for (const auto& f : store_.files_for_unit(unit_id))
+    files.push_back({f.party, f.original_name, f.kind, f.received_at, f.rows});
+
+  fs::create_directories(out_dir);
+  const fs::path path = out_dir / ("ferrum-" + safe_component(unit_id) + "-" + analytics::format_day(as_of) + ".pdf");
+  report::render_unit_report(current, &previous, files, report_options(config_), path.string());
+  if (previous_day != as_of) store_.set_state("report:" + unit_id, std::to_string(as_of));
+  return path;
+}
+
+ReportWriter::FleetFiles ReportWriter::fleet_report(analytics::Day as_of, const fs::path& out_dir) {
+  const auto units = assess::assess_fleet(store_, as_of, options_);
+  const auto ranking = analytics::rank_fleet(units, as_of, assess::ranking_options_from_config(config_));
+  std::vector<std::string> alerts;
+  for (const auto& a : store_.open_alerts()) alerts.push_back(a.unit_id + ": " + a.text + " (" + a.raised_at + ")");
+  fs::create_directories(out_dir);
+  FleetFiles f;
+  f.pdf = out_dir / ("ferrum-fleet-" + analytics::format_day(as_of) + ".pdf");
+  f.csv = out_dir / ("ferrum-fleet-" + analytics::format_day(as_of) + ".csv");
+  report::render_fleet_report(ranking, units, alerts, report_options(config_), f.pdf.string());
+  site::write_file_atomically(f.csv, report::fleet_ranking_csv(ranking));
+  return f;
+}
+
+fs::path ReportWriter::weekly_bundle(analytics::Day as_of) {
+  const std::string label = week_label(as_of);
+  const fs::path dir = root_.reports() / label;
+  if (fs::exists(dir / "index.pdf")) return dir;  // that week is done: leave it untouched
+  // Build in a scratch folder and rename it into place, so that a week folder
+  // is either complete or absent.
+  const fs::path scratch = root_.reports() / ("." + label + ".building");
+  fs::remove_all(scratch);
+  fs::create_directories(scratch);
+  std::vector<std::pair<std::string, std::string>> unit_files;
+  for (const auto& u : store_.units()) {
+    const fs::path p = unit_report(u.unit_id, as_of, scratch);
+    unit_files.emplace_back(u.unit_id, p.filename().string());
+  }
+  const FleetFiles fleet = fleet_report(as_of, scratch);
+  const auto units = assess::assess_fleet(store_, as_of, options_);
+  const auto ranking = analytics::rank_fleet(units, as_of, assess::ranking_options_from_config(config_));
+  report::render_weekly_index(label, ranking, unit_files, report_options(config_), (scratch / "index.pdf").string());
+  if (fs::exists(dir)) fs::remove_all(dir);  // an incomplete earlier attempt (no index.pdf)
+  fs::rename(scratch, dir);
+  site::sync_directory(root_.reports());
+  return dir;
+}
+
+fs::path ReportWriter::alert(const std::string& unit_id, const std::string& kind, const std::string& text,
+                             const std::string& first_step, const std::string& raised_at) {
+  fs::create_directories(root_.alerts());
+  const auto unit = store_.find_unit(unit_id);
+  report::AlertInfo info{unit_id, unit ? unit->site : "", kind, raised_at, text, first_step};
+  std::string stamp = raised_at;
+  std::replace(stamp.begin(), stamp.end(), ':', '-');
+  const fs::path pdf = root_.alerts() / ("alert-" + safe_component(unit_id) + "-" + safe_component(kind) + "-" +
+                                         safe_component(stamp) + ".pdf");
+  report::render_alert(info, report_options(config_), pdf.string());
+  // alerts.csv is appended, one line per alert (a header when new).
+  const fs::path csv = root_.alerts() / "alerts.csv";
+  const bool fresh = !fs::exists(csv);
+  std::ofstream out(csv, std::ios::app);
+  if (fresh) out << "raised_at,unit_id,site,kind,text,first_step,pdf\n";
+  out << csv_field(raised_at) << "," << csv_field(unit_id) << "," << csv_field(info.site) << "," << csv_field(kind)
+      << "," << csv_field(text) << "," << csv_field(first_step) << "," << csv_field(pdf.filename().string()) << "\n";
+  out.flush();
+  store::Alert a;
+  a.unit_id = unit_id;
+  a.kind = kind;
+  a.raised_at = raised_at.empty() ? iso_now() : raised_at;
+  a.text = text;
+  store_.add_alert(a);
+  spdlog::warn("ALERT {} {}: {}", unit_id, kind, text);
+  return pdf;
+}
+
+}  // namespace ferrum::reporting

@@ -1,0 +1,57 @@
+// Turns assessments into files: unit reports, the fleet report (PDF + CSV),
+// the weekly bundle and alert PDFs. Used by `ferrum report` and the daemon.
+// All files are written atomically (the report library renders to a
+// temporary name and renames).
+#pragma once
+
+#include <filesystem>
+#include <string>
+#include <vector>
+
+#include "analytics/assessment.h"
+#include "analytics/assess_unit.h"
+#include "daemon/config/site_config.h"
+#include "daemon/site/site_root.h"
+#include "schema/store.h"
+
+namespace ferrum::reporting {
+
+class ReportWriter {
+ public:
+  ReportWriter(const site::SiteRoot& root, const config::SiteConfig& config, store::Store& store);
+
+  // One unit's PDF in `out_dir` (ferrum-UNIT-YYYY-MM-DD.pdf). The "what
+  // changed" part compares with the unit's data as it stood at its previous
+  // report (or a week earlier when there was none).
+  std::filesystem::path unit_report(const std::string& unit_id, analytics::Day as_of,
+                                    const std::filesystem::path& out_dir);
+
+  struct FleetFiles {
+    std::filesystem::path pdf, csv;
+  };
+  FleetFiles fleet_report(analytics::Day as_of, const std::filesystem::path& out_dir);
+
+  // reports/YYYY-Www/: every unit report, the fleet report and index.pdf.
+  // An existing week folder is left untouched; returns its path either way.
+  std::filesystem::path weekly_bundle(analytics::Day as_of);
+
+  // reports/alerts/alert-UNIT-TIME.pdf and a line in reports/alerts/alerts.csv.
+  std::filesystem::path alert(const std::string& unit_id, const std::string& kind, const std::string& text,
+                              const std::string& first_step, const std::string& raised_at);
+
+  // Assessment of a unit (also used for alerts).
+  analytics::UnitAssessment assess(const std::string& unit_id, analytics::Day as_of);
+
+  static std::string week_label(analytics::Day d);  // "2026-W49"
+
+ private:
+  site::SiteRoot root_;
+  config::SiteConfig config_;
+  store::Store& store_;
+  analytics::AssessmentOptions options_;
+};
+
+// UnitData as it stood at the end of `day` (later records dropped).
+analytics::UnitData data_as_of(const analytics::UnitData& d, analytics::Day day);
+
+}  // namespace ferrum::reporting

@@ -1,0 +1,85 @@
+#include "daemon/site/atomic_file.h"
+
+#include <fcntl.h>
+#include <stdio.h>
+#include <sys/syscall.h>
+#include <unistd.h>
+
+#include <cerrno>
+#include <system_error>
+
+#ifndef RENAME_NOREPLACE
+#define RENAME_NOREPLACE (1 << 0)
+#endif
+
+namespace ferrum::site {
+namespace {
+
+[[noreturn]] void fail(const std::string& what, const std::filesystem::path& p) {
+  throw std::system_error(errno, std::generic_category(), what + " " + p.string());
+}
+
+}  // namespace
+
+void sync_directory(const std::filesystem::path& dir) {
+  const int fd = ::open(dir.c_str(), O_RDONLY | O_DIRECTORY | O_CLOEXEC);
+  if (fd < 0) return;  // best effort: some file systems refuse directory fds
+  ::fsync(fd);
+  ::close(fd);
+}
+
+void write_file_atomically(const std::filesystem::path& path, std::string_view content) {
+  const std::filesystem::path tmp = path.parent_path() / ("." + path.filename().string() + ".tmp-" + std::to_string(::getpid()));
+  const int fd = ::open(tmp.c_str(), O_WRONLY | O_CREAT | O_TRUNC | O_CLOEXEC, 0644);
+  if (fd < 0) fail("cannot create", tmp);
+  const char* p = content.data();
+  std::size_t left = content.size();
+  while (left > 0) {
+    const ssize_t n = ::write(fd, p, left);
+    if (n < 0) {
+      if (errno == EINTR) continue;
+      const int e = errno;
+      ::close(fd);
+      ::unlink(tmp.c_str());
+      errno = e;
+      fail("cannot write", tmp);
+    }
+    p += n;
+    left -= static_cast<std::size_t>(n);
+  }
+  if (::fsync(fd) != 0 || ::close(fd) != 0) {
+    const int e = errno;
+    ::unlink(tmp.c_str());
+    errno = e;
+    fail("cannot flush", tmp);
+  }
+  if (::rename(tmp.c_str(), path.c_str()) != 0) {
+    const int e = errno;
+    ::unlink(tmp.c_str());
+    errno = e;
+    fail("cannot rename into", path);
+  }
+  sync_directory(path.parent_path());
+}
+
+bool move_no_replace(const std::filesystem::path& from, const std::filesystem::path& to) {
+  if (::syscall(SYS_renameat2, AT_FDCWD, from.c_str(), AT_FDCWD, to.c_str(), RENAME_NOREPLACE) == 0) {
+    sync_directory(to.parent_path());
+    if (to.parent_path() != from.parent_path()) sync_directory(from.parent_path());
+    return true;
+  }
+  if (errno == EEXIST) return false;
+  if (errno == EINVAL || errno == ENOSYS) {
+    // File system without RENAME_NOREPLACE: link + unlink never overwrites either.
+    if (::link(from.c_str(), to.c_str()) != 0) {
+      if (errno == EEXIST) return false;
+      fail("cannot move to", to);
+    }
+    ::unlink(from.c_str());
+    sync_directory(to.parent_path());
+    return true;
+  }
+  fail("cannot move to", to);
+}
+
+}  // namespace ferrum::site

@@ -1,0 +1,23 @@
+// Crash-safe output: every file ferrum writes (receipts, reports, status) is
+// written to a temporary name in the same folder, flushed and fsync'ed,
+// renamed over the final name, and the folder fsync'ed. A reader never sees a
+// half-written file; after a power loss either the old or the new one exists.
+#pragma once
+
+#include <filesystem>
+#include <string_view>
+
+namespace ferrum::site {
+
+// Throws std::system_error on failure (the temporary file is removed).
+void write_file_atomically(const std::filesystem::path& path, std::string_view content);
+
+// fsync of a folder, so that a rename in it survives a power loss.
+void sync_directory(const std::filesystem::path& dir);
+
+// Moves a file without ever overwriting: rename(2) with RENAME_NOREPLACE.
+// Returns false (and leaves both names alone) when `to` exists. Throws
+// std::system_error on other failures.
+bool move_no_replace(const std::filesystem::path& from, const std::filesystem::path& to);
+
+}  // namespace ferrum::site

@@ -1,0 +1,377 @@
+#include "daemon/watch/server.h"
+
+#include <Poco/JSON/Array.h>
+#include <Poco/JSON/Object.h>
+#include <Poco/JSON/Stringifier.h>
+#include <pthread.h>
+#include <signal.h>
+#include <spdlog/spdlog.h>
+#include <unistd.h>
+
+#include <sstream>
+#include <thread>
+
+#include "analytics/calendar.h"
+#include "daemon/app/logging.h"
+#include "daemon/pipeline/pipeline.h"
+#include "daemon/reporting/report_writer.h"
+#include "daemon/site/atomic_file.h"
+#include "daemon/watch/drop_watcher.h"
+
+namespace fs = std::filesystem;
+using namespace std::chrono_literals;
+
+namespace ferrum::watch {
+
+std::atomic<bool> Server::stop_requested{false};
+std::atomic<bool> Server::reload_requested{false};
+
+namespace {
+
+std::int64_t now_utc() { return ingest::system_clock_now(); }
+
+std::string iso(std::int64_t t) {
+  const auto c = analytics::civil_from_days(analytics::day_of(t));
+  const long long sod = t - analytics::start_of(analytics::day_of(t));
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%04d-%02d-%02dT%02lld:%02lld:%02lldZ", c.year, c.month, c.day, sod / 3600,
+                (sod / 60) % 60, sod % 60);
+  return buf;
+}
+
+std::int64_t parse_iso(const std::string& s) {
+  int y = 0, mo = 0, d = 0, h = 0, mi = 0, se = 0;
+  if (std::sscanf(s.c_str(), "%d-%d-%dT%d:%d:%dZ", &y, &mo, &d, &h, &mi, &se) != 6) return 0;
+  return analytics::start_of(analytics::days_from_civil(y, mo, d)) + h * 3600 + mi * 60 + se;
+}
+
+// What the previous assessment of a unit said, to see whether it got worse.
+struct Snapshot {
+  int condition = 0;        // C57.104-2008 condition, 0 = none
+  int status = 0;           // C57.104-2019 status, 0 = none
+  double c2h2 = -1;         // ppm, -1 = none
+  bool arcing = false;
+  double peak_hot_spot = -1;
+  std::string encode() const {
+    std::ostringstream o;
+    o << condition << " " << status << " " << c2h2 << " " << arcing << " " << peak_hot_spot;
+    return o.str();
+  }
+  static Snapshot decode(const std::string& s) {
+    Snapshot x;
+    std::istringstream in(s);
+    in >> x.condition >> x.status >> x.c2h2 >> x.arcing >> x.peak_hot_spot;
+    return x;
+  }
+  static Snapshot of(const analytics::UnitAssessment& a) {
+    Snapshot x;
+    x.condition = a.dga.c57104_2008_condition.value_or(0);
+    x.status = a.dga.c57104_2019_status.value_or(0);
+    for (const auto& g : a.dga.gases)
+      if (g.gas == "C2H2" && g.ppm) x.c2h2 = *g.ppm;
+    x.arcing = a.active_arcing;
+    x.peak_hot_spot = a.thermal.peak_hot_spot_c.value_or(-1);
+    return x;
+  }
+};
+
+}  // namespace
+
+std::int64_t next_weekly_time(std::int64_t after, int weekday, int minute_of_day, int offset_minutes) {
+  // Work in site-local seconds, then convert back.
+  const std::int64_t local = after + offset_minutes * 60LL;
+  analytics::Day day = analytics::day_of(local);
+  for (int i = 0; i < 8; ++i, ++day) {
+    if (analytics::weekday_of(day) != weekday) continue;
+    const std::int64_t t = analytics::start_of(day) + minute_of_day * 60LL - offset_minutes * 60LL;
+    if (t > after) return t;
+  }
+  return after + 7 * 86400;  // not reached
+}
+
+void start_signal_thread() {
+  sigset_t set;
+  sigemptyset(&set);
+  sigaddset(&set, SIGTERM);
+  sigaddset(&set, SIGINT);
+  sigaddset(&set, SIGHUP);
+  sigaddset(&set, SIGQUIT);
+  pthread_sigmask(SIG_BLOCK, &set, nullptr);
+  std::thread([set]() {
+    for (;;) {
+      int sig = 0;
+      if (sigwait(&set, &sig) != 0) continue;
+      if (sig == SIGHUP) {
+        Server::reload_requested = true;
+      } else {
+        if (Server::stop_requested.exchange(true)) _exit(0);  // a second request: leave at once
+      }
+    }
+  }).detach();
+}
+
+struct Server::Impl {
+  site::SiteRoot root;
+  config::SiteConfig config;
+  std::unique_ptr<store::Store> store;
+  ServerOptions options;
+  std::unique_ptr<ingest::Pipeline> pipeline;
+  std::unique_ptr<reporting::ReportWriter> writer;
+  std::unique_ptr<DropWatcher> watcher;
+  std::int64_t started = now_utc();
+  std::map<std::string, std::chrono::steady_clock::time_point> dirty_units;  // unit -> last change
+  std::chrono::steady_clock::time_point next_rescan{};
+  std::chrono::steady_clock::time_point retry_at{};
+  std::chrono::seconds backoff{1};
+  std::vector<fs::path> retry;  // files whose import failed for a reason not theirs
+  std::string last_import, last_import_party, last_import_at;
+  std::vector<std::string> recent_rejections;
+  std::string last_status_text;
+  std::size_t files_processed = 0;
+  std::string stopped_at;
+
+  void rebuild() {
+    pipeline = std::make_unique<ingest::Pipeline>(root, config, *store);
+    writer = std::make_unique<reporting::ReportWriter>(root, config, *store);
+    std::vector<std::string> parties;
+    for (const auto& [name, p] : config.parties) parties.push_back(name);
+    if (!watcher) watcher = std::make_unique<DropWatcher>(root.drop());
+    watcher->watch(parties);
+  }
+
+  void reload() {
+    try {
+      config::SiteConfig fresh = config::load_site_config(root.config().string());
+      const auto changes = config::describe_changes(config, fresh);
+      config = std::move(fresh);
+      app::set_log_level(config.log_level);
+      rebuild();
+      if (changes.empty()) spdlog::info("configuration reloaded: nothing changed");
+      for (const auto& c : changes) spdlog::info("configuration reloaded: {}", c);
+    } catch (const std::exception& e) {
+      spdlog::error("configuration NOT reloaded, keeping the previous one: {}", e.what());
+    }
+  }
+
+  void note_outcome(const ingest::FileOutcome& o) {
+    ++files_processed;
+    last_import = o.receipt.file;
+    last_import_party = o.receipt.party;
+    last_import_at = o.receipt.received_at;
+    if (o.receipt.status == "rejected") {
+      recent_rejections.insert(recent_rejections.begin(),
+                               o.receipt.received_at + " " + o.receipt.party + "/" + o.receipt.file + ": " +
+                                   (o.receipt.reason.empty() && !o.receipt.problems.empty()
+                                        ? "line " + std::to_string(o.receipt.problems.front().line) + ": " +
+                                              o.receipt.problems.front().reason
+                                        : o.receipt.reason));
+      if (recent_rejections.size() > 10) recent_rejections.resize(10);
+    }
+    const auto now = std::chrono::steady_clock::now();
+    for (const auto& u : o.units) dirty_units[u] = now;
+    for (const auto& item : o.unsafe_items) {
+      const auto colon = item.find(':');
+      const std::string unit = item.substr(0, colon);
+      writer->alert(unit, "unsafe_inspection", "inspection rated an item UNSAFE: " + item.substr(colon + 2),
+                    "Keep people away from the unit and have a qualified engineer assess it before any work.",
+                    iso(now_utc()));
+    }
+  }
+
+  void process_file(const fs::path& p) {
+    try {
+      if (auto o = pipeline->process(p)) note_outcome(*o);
+    } catch (const std::exception& e) {
+      // Not the file's fault (disk full, database locked or read-only): it
+      // stays in work/ (or in its party folder) and is tried again later.
+      spdlog::error("could not process {}: {}; will retry in {} s", p.string(), e.what(), backoff.count());
+      retry_at = std::chrono::steady_clock::now() + backoff;
+      backoff = std::min(backoff * 2, std::chrono::seconds(300));
+      retry.push_back(p);
+    }
+  }
+
+  void ingest_ready() {
+    const auto now = std::chrono::steady_clock::now();
+    if (now >= next_rescan) {
+      watcher->rescan();
+      next_rescan = now + std::chrono::seconds(config.rescan_seconds);
+    }
+    if (!retry.empty() && now >= retry_at) {
+      auto again = std::move(retry);
+      retry.clear();
+      try {
+        for (const auto& o : pipeline->recover()) note_outcome(o);
+        backoff = std::chrono::seconds(1);
+      } catch (const std::exception& e) {
+        spdlog::error("recovery failed: {}", e.what());
+      }
+      for (const auto& p : again)
+        if (fs::exists(p) && retry.empty()) process_file(p);
+      watcher->rescan();
+    }
+    if (!retry.empty()) return;
+    for (const auto& p : watcher->take_ready(std::chrono::seconds(config.settle_seconds), now)) {
+      if (stop_requested && !options.once) break;  // leave the rest for next time
+      process_file(p);
+      if (!retry.empty()) break;
+    }
+  }
+
+  analytics::Day today() const { return analytics::day_of(now_utc() + config.utc_offset_minutes * 60LL); }
+
+  void render_dirty(bool force) {
+    const auto now = std::chrono::steady_clock::now();
+    for (auto it = dirty_units.begin(); it != dirty_units.end();) {
+      if (!force && now - it->second < std::chrono::seconds(config.debounce_seconds)) {
+        ++it;
+        continue;
+      }
+      const std::string unit = it->first;
+      it = dirty_units.erase(it);
+      try {
+        const auto as_of = today();
+        const auto a = writer->assess(unit, as_of);
+        check_alerts(unit, a);
+        const auto path = writer->unit_report(unit, as_of, root.reports());
+        spdlog::info("report {} rendered: {}", unit, path.filename().string());
+      } catch (const std::exception& e) {
+        spdlog::error("report for {} failed: {}", unit, e.what());
+      }
+    }
+  }
+
+  void check_alerts(const std::string& unit, const analytics::UnitAssessment& a) {
+    const Snapshot now = Snapshot::of(a);
+    const auto stored = store->state("snapshot:" + unit);
+    const Snapshot before = stored ? Snapshot::decode(*stored) : Snapshot{};
+    const std::string at = iso(now_utc());
+    if (now.c2h2 > 0 && (before.c2h2 <= 0 || now.c2h2 > before.c2h2 * 1.1 + 0.5) &&
+        (a.active_arcing || before.c2h2 <= 0))
+      writer->alert(unit, "acetylene",
+                    before.c2h2 <= 0 ? "acetylene appeared: " + std::to_string(static_cast<int>(now.c2h2 + 0.5)) + " ppm"
+                                     : "acetylene rising: " + std::to_string(before.c2h2) + " -> " + std::to_string(now.c2h2) + " ppm",
+                    "Resample the oil at once to confirm; an engineer decides whether the unit stays energised. "
+                    "Do not re-energise after a trip before that evaluation.",
+                    at);
+    if (now.condition > before.condition && before.condition > 0)
+      writer->alert(unit, "gas_condition",
+                    "IEEE C57.104-2008 condition worsened from " + std::to_string(before.condition) + " to " +
+                        std::to_string(now.condition),
+                    "Follow the sampling interval of C57.104-2008 Table 3 given in the unit report.", at);
+    if (now.status > before.status && before.status > 0)
+      writer->alert(unit, "dga_status",
+                    "IEEE C57.104-2019 DGA status worsened from " + std::to_string(before.status) + " to " +
+                        std::to_string(now.status),
+                    "Resample and review the gas trend with an engineer.", at);
+    const double emergency = a.thermal.long_emergency_limit_c;
+    if (now.peak_hot_spot > emergency && before.peak_hot_spot <= emergency)
+      writer->alert(unit, "hot_spot",
+                    "computed hot-spot temperature reached " + std::to_string(static_cast<int>(now.peak_hot_spot)) +
+                        " °C, above the long-time emergency limit of " + std::to_string(static_cast<int>(emergency)) + " °C",
+                    "Reduce the load and check the cooling; review the loading with an engineer.", at);
+    store->set_state("snapshot:" + unit, now.encode());
+  }
+
+  void weekly() {
+    const std::int64_t now = now_utc();
+    std::int64_t last = 0;
+    if (auto s = store->state("weekly_last_run")) last = parse_iso(*s);
+    if (last == 0) {
+      if (auto c = store->state("created_at")) last = parse_iso(*c);
+      else {
+        store->set_state("created_at", iso(now));
+        last = now;
+      }
+    }
+    const std::int64_t due = next_weekly_time(last, config.weekly_weekday, config.weekly_minute_of_day,
+                                              config.utc_offset_minutes);
+    if (due > now) return;
+    try {
+      // Due now, or missed while the daemon was down: produce it for today.
+      const auto dir = writer->weekly_bundle(today());
+      store->set_state("weekly_last_run", iso(now));
+      store->set_state("weekly_last_bundle", fs::relative(dir, root.root).string());
+      spdlog::info("weekly bundle written: {}", dir.string());
+    } catch (const std::exception& e) {
+      spdlog::error("weekly bundle failed: {}", e.what());
+    }
+  }
+
+  void write_status() {
+    using Poco::JSON::Array;
+    using Poco::JSON::Object;
+    Object::Ptr o = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+    o->set("pid", static_cast<long>(::getpid()));
+    o->set("started_at", iso(started));
+    o->set("last_import", last_import);
+    o->set("last_import_party", last_import_party);
+    o->set("last_import_at", last_import_at);
+    o->set("files_processed", static_cast<long>(files_processed));
+    o->set("files_waiting", static_cast<long>(pipeline->waiting_files().size()));
+    Array::Ptr rej = new Array;
+    for (const auto& r : recent_rejections) rej->add(r);
+    o->set("recent_rejections", rej);
+    std::int64_t last = 0;
+    if (auto s = store->state("weekly_last_run")) last = parse_iso(*s);
+    o->set("last_weekly_bundle", store->state("weekly_last_bundle").value_or(""));
+    o->set("last_weekly_run", last ? iso(last) : "");
+    o->set("next_weekly_run", iso(next_weekly_time(last ? last : now_utc(), config.weekly_weekday,
+                                                   config.weekly_minute_of_day, config.utc_offset_minutes)));
+    Array::Ptr alerts = new Array;
+    for (const auto& a : store->open_alerts()) alerts->add(a.raised_at + " " + a.unit_id + " " + a.kind + ": " + a.text);
+    o->set("open_alerts", alerts);
+    o->set("units_waiting_for_report", static_cast<long>(dirty_units.size()));
+    o->set("stopped_at", stopped_at);
+    std::ostringstream out;
+    Poco::JSON::Stringifier::stringify(o, out, 2);
+    const std::string text = out.str();
+    if (text == last_status_text) return;
+    try {
+      site::write_file_atomically(root.status_file(), text + "\n");
+      last_status_text = text;
+    } catch (const std::exception& e) {
+      spdlog::warn("cannot write status file: {}", e.what());
+    }
+  }
+};
+
+Server::Server(site::SiteRoot root, config::SiteConfig config, std::unique_ptr<store::Store> store,
+               ServerOptions options)
+    : impl_(std::make_unique<Impl>()) {
+  impl_->root = std::move(root);
+  impl_->config = std::move(config);
+  impl_->store = std::move(store);
+  impl_->options = options;
+}
+
+Server::~Server() = default;
+
+int Server::run() {
+  Impl& s = *impl_;
+  s.rebuild();
+  spdlog::info("ferrum serving {} (pid {}); parties: {}", s.root.root.string(), ::getpid(), s.config.parties.size());
+  for (const auto& o : s.pipeline->recover()) s.note_outcome(o);
+  auto last_status = std::chrono::steady_clock::now() - 10s;
+  for (;;) {
+    if (reload_requested.exchange(false)) s.reload();
+    s.ingest_ready();
+    s.render_dirty(s.options.once || stop_requested);
+    if (stop_requested) break;
+    s.weekly();
+    if (std::chrono::steady_clock::now() - last_status >= 1s) {
+      s.write_status();
+      last_status = std::chrono::steady_clock::now();
+    }
+    if (s.options.once && s.watcher->pending() == 0 && s.dirty_units.empty() && s.retry.empty()) break;
+    std::this_thread::sleep_for(200ms);
+  }
+  // Stopping: nothing in flight (files are processed one at a time on this
+  // thread), so the status can say so and the process leave.
+  s.stopped_at = iso(now_utc());
+  s.write_status();
+  spdlog::info("ferrum stopped");
+  return 0;
+}
+
+}  // namespace ferrum::watch
