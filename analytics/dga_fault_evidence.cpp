@@ -34,4 +34,17 @@ FaultEvidence dga_fault_evidence(const OilSample& sample, const TypicalGasLevels
   return e;
 }
 
+bool fault_gases_rising(const OilSample& earlier, const OilSample& later, double pct_per_month) {
+  const int days = later.date - earlier.date;
+  if (days < 1) return false;
+  for (Gas g : {Gas::h2, Gas::ch4, Gas::c2h6, Gas::c2h4, Gas::c2h2}) {
+    const auto before = gas_ppm_or_zero(earlier, g);
+    const LabValue& now = gas_value(later, g);
+    if (!before || !now.is_measured()) continue;
+    if (*before <= 0 && now.value > 0) return true;
+    if (*before > 0 && (now.value - *before) / *before * 100.0 * 30.0 / days > pct_per_month) return true;
+  }
+  return false;
+}
+
 }  // namespace ferrum::analytics

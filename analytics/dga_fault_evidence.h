@@ -38,4 +38,11 @@ struct FaultEvidence {
 FaultEvidence dga_fault_evidence(const OilSample& sample, const TypicalGasLevels& typical,
                                  bool rising);
 
+// True when any fault gas (H2, CH4, C2H6, C2H4, C2H2) rose from `earlier` to
+// `later` by more than `pct_per_month` of its earlier value per 30 days
+// (IEC 60599 speaks of an increase of about 10 %/month as significant; from
+// memory). A gas absent before and measured now counts as rising. Samples
+// less than one day apart never show a rise.
+bool fault_gases_rising(const OilSample& earlier, const OilSample& later, double pct_per_month = 10.0);
+
 }  // namespace ferrum::analytics

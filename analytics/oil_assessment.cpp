@@ -1,0 +1,293 @@
+#include "analytics/oil_assessment.h"
+
+#include <algorithm>
+#include <cstdio>
+
+#include "analytics/dga_gases.h"
+#include "analytics/duval_triangle1.h"
+#include "analytics/iec60599_ratios.h"
+#include "analytics/oil_quality_c57106.h"
+
+namespace ferrum::analytics {
+namespace {
+
+// Result of the DGA part, with the method lines it applied.
+struct DgaWork {
+  DgaSummary summary;
+  std::vector<std::string> methods;
+  std::optional<C57104_2008Procedure> procedure;
+};
+
+std::string method_line(const std::string& method, const std::string& source) { return method + " — " + source; }
+
+std::vector<OilSample> main_tank_history(const std::vector<OilSample>& all, Day as_of) {
+  std::vector<OilSample> out;
+  for (const OilSample& s : all)
+    if (is_main_tank(s) && s.date <= as_of) out.push_back(s);
+  std::stable_sort(out.begin(), out.end(), [](const OilSample& a, const OilSample& b) { return a.date < b.date; });
+  return out;
+}
+
+std::optional<double> unit_age_years(const UnitInfo& unit, Day as_of) {
+  if (unit.year_built <= 0) return std::nullopt;
+  return civil_from_days(as_of).year - unit.year_built;
+}
+
+void fill_gas_readings(DgaSummary& d, const OilSample& last, const C57104_2008Condition& c2008,
+                       const std::vector<OilSample>& history, const GasTrendOptions& trend) {
+  for (Gas g : kAllGases) {
+    GasReading r;
+    r.gas = gas_name(g);
+    const LabValue& v = gas_value(last, g);
+    if (v.is_measured()) r.ppm = v.value;
+    r.below_limit = v.is_below_limit();
+    r.c57104_2008_condition = c2008.gas_condition[gas_index(g)];
+    const GasTrend t = gas_trend(history, g, trend);
+    if (t.applicable) r.rate_ppm_per_year = t.ppm_per_year;
+    d.gases.push_back(r);
+  }
+}
+
+// Acetylene appearing or rising between the last two samples.
+bool acetylene_rising(const OilSample* prev, const OilSample& last) {
+  if (!prev || !last.c2h2.is_measured() || !(last.c2h2.value > 0)) return false;
+  const auto before = gas_ppm_or_zero(*prev, Gas::c2h2);
+  return before && last.c2h2.value > *before;
+}
+
+void fill_duval_history(DgaSummary& d, const std::vector<OilSample>& gas_samples, int keep) {
+  for (auto it = gas_samples.rbegin(); it != gas_samples.rend() && static_cast<int>(d.duval_history.size()) < keep; ++it) {
+    auto t = duval_triangle1(gas_ppm_or_zero(*it, Gas::ch4), gas_ppm_or_zero(*it, Gas::c2h4),
+                             gas_ppm_or_zero(*it, Gas::c2h2));
+    if (!t.applicable) continue;
+    d.duval_history.push_back({it->date, t.percent->ch4, t.percent->c2h4, t.percent->c2h2, t.zone});
+  }
+  std::reverse(d.duval_history.begin(), d.duval_history.end());
+}
+
+void apply_2008(DgaWork& w, const std::vector<OilSample>& samples, const UnitInfo& unit, const OilOptions& o) {
+  DgaSummary& d = w.summary;
+  const OilSample& last = samples.back();
+  const OilSample* prev = samples.size() > 1 ? &samples[samples.size() - 2] : nullptr;
+  const C57104_2008Condition c = classify_c57104_2008(last);
+  d.tdcg_ppm = c.tdcg_ppm;
+  d.c57104_2008_condition = c.condition;
+  fill_gas_readings(d, last, c, samples, o.trend);
+  if (!c.applicable) return;
+  w.methods.push_back(method_line(c.method, c.source));
+  if (prev) d.tdcg_rate_ppm_per_day = tdcg_rate_ppm_per_day(*prev, last);
+  C57104_2008Procedure p = c57104_2008_table3(*c.condition, d.tdcg_rate_ppm_per_day, unit.hv_kv, o.table3);
+  if (!p.applicable) return;
+  d.c57104_2008_interval = p.interval;
+  d.c57104_2008_action = p.action;
+  w.methods.push_back(method_line(p.method, p.source));
+  w.procedure = p;
+}
+
+void apply_fault_typing(DgaWork& w, const std::vector<OilSample>& samples, const OilOptions& o) {
+  DgaSummary& d = w.summary;
+  const OilSample& last = samples.back();
+  const OilSample* prev = samples.size() > 1 ? &samples[samples.size() - 2] : nullptr;
+  const bool rising = prev && fault_gases_rising(*prev, last, o.rising_pct_per_month);
+  const FaultEvidence evidence = dga_fault_evidence(last, o.typical, rising);
+
+  const Iec60599Result iec = iec60599_ratios(last, o.typical, rising);
+  d.iec60599_ratio_fault = iec.fault;
+  d.iec60599_reading = iec.reading;
+  w.methods.push_back(method_line(iec.method, iec.source));
+
+  const DuvalTriangleResult t = duval_triangle1(gas_ppm_or_zero(last, Gas::ch4), gas_ppm_or_zero(last, Gas::c2h4),
+                                                gas_ppm_or_zero(last, Gas::c2h2));
+  if (!t.applicable) {
+    d.duval_reading = t.why_not;
+  } else if (!evidence.present) {
+    d.duval_reading = evidence.reason;
+  } else {
+    d.duval_triangle_1 = t.zone;
+    d.duval_reading = t.zone + ": " + t.zone_name;
+  }
+  w.methods.push_back(method_line(t.method, t.source));
+  fill_duval_history(d, samples, o.duval_history_samples);
+
+  const KeyGasResult k = key_gas_reading(last, o.typical, rising, o.key_gas);
+  d.key_gas = k.reading;
+  w.methods.push_back(method_line(k.method, k.source));
+
+  const Co2CoResult cc = co2_co_reading(last, o.co2_co);
+  d.co2_co_ratio = cc.ratio;
+  d.co2_co_reading = cc.reading;
+  w.methods.push_back(method_line(cc.method, cc.source));
+
+  auto discharge = [](const std::optional<std::string>& f) { return f && (*f == "D1" || *f == "D2"); };
+  const bool c2h2_detected = last.c2h2.is_measured() && last.c2h2.value > 0;
+  d.active_arcing = acetylene_rising(prev, last) ||
+                    (c2h2_detected && (discharge(d.duval_triangle_1) || discharge(d.iec60599_ratio_fault)));
+}
+
+DgaWork summarise_dga(const std::vector<OilSample>& history, const UnitInfo& unit, Day as_of, const OilOptions& o) {
+  DgaWork w;
+  std::vector<OilSample> samples;
+  for (const OilSample& s : history)
+    if (has_gas_analysis(s)) samples.push_back(s);
+  if (samples.empty()) return w;
+  w.summary.sample_date = samples.back().date;
+  apply_2008(w, samples, unit, o);
+
+  const C57104_2019Tables& tables = o.c57104_2019_tables ? *o.c57104_2019_tables : default_c57104_2019_tables();
+  const C57104_2019Status s19 = c57104_2019_status(samples, unit_age_years(unit, as_of), tables, o.trend);
+  w.summary.c57104_2019_status = s19.status;
+  w.summary.c57104_2019_reason = s19.applicable ? s19.reason : s19.why_not;
+  w.methods.push_back(method_line(s19.method, s19.source));
+
+  apply_fault_typing(w, samples, o);
+  GasTrend trend;
+  w.methods.push_back(method_line(trend.method, trend.source));
+  return w;
+}
+
+Action make_action(int priority, Day due, std::string text, std::string reason) {
+  Action a;
+  a.priority = priority;
+  a.due = due;
+  a.text = std::move(text);
+  a.reason = std::move(reason);
+  return a;
+}
+
+void dga_actions(const DgaWork& w, Day as_of, const OilOptions& o, UnitAssessment& out) {
+  const DgaSummary& d = w.summary;
+  if (w.procedure) {
+    const C57104_2008Procedure& p = *w.procedure;
+    char reason[200];
+    std::snprintf(reason, sizeof reason, "C57.104-2008 Condition %d, TDCG rate %s ppm/day: Table 3 interval %s",
+                  p.condition, p.rate_band.c_str(), p.interval.c_str());
+    const int priority = std::max(1, 5 - p.condition);  // Condition 4 -> 1 ... Condition 1 -> 4
+    out.actions.push_back(make_action(priority, as_of + p.interval_days,
+                                      "Resample main-tank oil for DGA within " + std::to_string(p.interval_days) + " days",
+                                      reason));
+    if (p.condition >= 3)
+      out.actions.push_back(make_action(p.condition == 4 ? 1 : 2, as_of + p.interval_days, p.action,
+                                        std::string(reason) + " (operating procedure)"));
+  }
+  if (d.active_arcing)
+    out.actions.push_back(make_action(1, as_of + o.acetylene_investigate_days,
+                                      "Investigate acetylene: confirm with a resample and look for arcing",
+                                      "acetylene appearing or rising, or a D1/D2 diagnosis with C2H2 detected"));
+  if (d.c57104_2019_status && *d.c57104_2019_status == 3)
+    out.actions.push_back(make_action(2, as_of + 30, "Investigate the gassing: identify the fault and plan an outage",
+                                      "C57.104-2019 DGA Status 3: " + d.c57104_2019_reason));
+}
+
+const OilSample* latest_with(const std::vector<OilSample>& samples, bool (*has)(const OilSample&)) {
+  for (auto it = samples.rbegin(); it != samples.rend(); ++it)
+    if (has(*it)) return &*it;
+  return nullptr;
+}
+
+bool has_quality_test(const OilSample& s) {
+  return s.moisture_ppm.present() || s.breakdown_kv.present() || s.acidity_mgkoh_g.present() ||
+         s.ift_mn_m.present() || s.pf25_pct.present() || s.pf100_pct.present() || s.color.present();
+}
+bool has_moisture(const OilSample& s) { return s.moisture_ppm.present(); }
+bool has_furan(const OilSample& s) { return s.furan_2fal_ppb.present(); }
+
+void assess_quality(const std::vector<OilSample>& samples, const UnitInfo& unit, Day as_of, const OilOptions& o,
+                    UnitAssessment& out) {
+  const OilSample* q = latest_with(samples, has_quality_test);
+  if (!q) {
+    out.missing.push_back("oil quality tests");
+    return;
+  }
+  const OilQualityResult r = assess_oil_quality_c57106(*q, unit.hv_kv);
+  out.oil.sample_date = q->date;
+  out.oil.checks = r.checks;
+  out.oil.oil_class = r.oil_class + (r.class_reason.empty() ? "" : " (" + r.class_reason + ")");
+  out.oil.notes.insert(out.oil.notes.end(), r.notes.begin(), r.notes.end());
+  out.methods.push_back(method_line(r.method, r.source));
+  if (r.oil_class == "Class III")
+    out.actions.push_back(make_action(2, as_of + o.reclaim_due_days, "Reclaim the oil (Fuller's earth treatment)",
+                                      "oil Class III per IEEE C57.106 clause 7: " + r.class_reason));
+  else if (r.oil_class == "Class II")
+    out.actions.push_back(make_action(3, as_of + o.recondition_due_days,
+                                      "Recondition the oil (filtering, vacuum dehydration)",
+                                      "oil Class II per IEEE C57.106 clause 7: " + r.class_reason));
+}
+
+void assess_water(const std::vector<OilSample>& samples, const OilOptions& o, UnitAssessment& out) {
+  const OilSample* m = latest_with(samples, has_moisture);
+  if (!m) return;
+  const MoistureResult r = assess_moisture(m->moisture_ppm, m->oil_temp_c, o.moisture);
+  out.oil.relative_saturation_pct = r.relative_saturation_pct;
+  out.oil.water_solubility_ppm = r.solubility_ppm;
+  out.oil.paper_moisture_pct = r.paper_moisture_pct;
+  out.oil.moisture_method = method_line(r.method, r.source);
+  out.oil.notes.insert(out.oil.notes.end(), r.notes.begin(), r.notes.end());
+  if (r.solubility_ppm) out.methods.push_back(out.oil.moisture_method);
+  if (!m->oil_temp_c.is_measured()) out.missing.push_back("sampling temperature");
+}
+
+void assess_paper(const std::vector<OilSample>& samples, const UnitInfo& unit, const OilOptions& o,
+                  UnitAssessment& out) {
+  const OilSample* f = latest_with(samples, has_furan);
+  if (!f) {
+    out.missing.push_back("furan test");
+    return;
+  }
+  const PaperDpResult r = estimate_paper_dp(f->furan_2fal_ppb, f->date, unit, o.paper);
+  PaperSummary& p = out.paper;
+  p.sample_date = f->date;
+  p.furan_2fal_ppb = r.fal_ppb;
+  p.dp_estimate = r.dp_chendong;
+  p.dp_method = "Chendong (1991), log10(2FAL ppm) = 1.51 - 0.0035 DP (from memory)";
+  p.dp_alternative = r.dp_de_pablo;
+  p.dp_alternative_method = "De Pablo (CIGRE), DP = 7100/(8.88 + 2FAL ppm) (from memory)";
+  p.life_used_pct = r.life_used_pct;
+  p.trustworthy = r.trustworthy;
+  p.note = r.note;
+  out.methods.push_back(method_line(r.method, r.source));
+}
+
+void fill_gas_history(const std::vector<OilSample>& samples, UnitAssessment& out) {
+  for (const OilSample& s : samples) {
+    UnitAssessment::GasHistoryPoint p;
+    p.date = s.date;
+    p.h2 = gas_ppm_or_zero(s, Gas::h2);
+    p.ch4 = gas_ppm_or_zero(s, Gas::ch4);
+    p.c2h6 = gas_ppm_or_zero(s, Gas::c2h6);
+    p.c2h4 = gas_ppm_or_zero(s, Gas::c2h4);
+    p.c2h2 = gas_ppm_or_zero(s, Gas::c2h2);
+    p.co = gas_ppm_or_zero(s, Gas::co);
+    p.co2 = gas_ppm_or_zero(s, Gas::co2);
+    out.gas_history.push_back(p);
+  }
+}
+
+}  // namespace
+
+void assess_oil(const UnitData& data, Day as_of, const OilOptions& o, UnitAssessment& out) {
+  const std::vector<OilSample> samples = main_tank_history(data.oil_samples, as_of);
+  if (samples.empty()) {
+    out.missing.push_back("oil sample");
+    return;
+  }
+  fill_gas_history(samples, out);
+  DgaWork w = summarise_dga(samples, data.info, as_of, o);
+  if (!w.summary.sample_date) out.missing.push_back("DGA");
+  out.dga = w.summary;
+  out.active_arcing = w.summary.active_arcing;
+  out.methods.insert(out.methods.end(), w.methods.begin(), w.methods.end());
+  dga_actions(w, as_of, o, out);
+  if (!o.c57104_2019_tables)
+    out.assumptions.push_back("IEEE C57.104-2019 tables: embedded placeholder values from memory, not verified");
+  if (data.info.year_built <= 0) out.assumptions.push_back("unit age unknown: C57.104-2019 'unknown age' rows used");
+  out.assumptions.push_back("gases below the detection limit counted as 0 ppm in sums, rates and the gas history");
+  assess_quality(samples, data.info, as_of, o, out);
+  assess_water(samples, o, out);
+  assess_paper(samples, data.info, o, out);
+}
+
+DgaSummary interpret_dga_sample(const OilSample& sample, const UnitInfo& unit, Day as_of, const OilOptions& o) {
+  return summarise_dga({sample}, unit, as_of, o).summary;
+}
+
+}  // namespace ferrum::analytics
