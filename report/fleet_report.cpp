@@ -69,6 +69,7 @@ BarChart band_chart(const FleetRanking& ranking) {
   for (double v : c.values) c.bar_labels.push_back(fmt_number(v, 0));
   c.y_label = "Units per condition band";
   c.color = Color::gray(0.55f);
+  c.counts = true;
   return c;
 }
 

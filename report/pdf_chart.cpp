@@ -4,6 +4,8 @@
 #include <cmath>
 #include <limits>
 
+#include "report/text_wrap.h"
+
 namespace ferrum::report {
 namespace {
 
@@ -155,9 +157,11 @@ void draw_line_chart(HPDF_Page page, const PdfDocument& doc, const Box& box, con
 
 void draw_bar_chart(HPDF_Page page, const PdfDocument& doc, const Box& box, const BarChart& chart) {
   HPDF_Font regular = doc.font(FontFace::regular);
-  const Box plot{box.x + kLeft, box.y + kBottom, box.w - kLeft - kRight, box.h - kTop - kBottom - 8};
+  const Box plot{box.x + kLeft, box.y + kBottom + 8, box.w - kLeft - kRight, box.h - kTop - kBottom - 8};
   double hi = 0;
   for (double v : chart.values) hi = std::max(hi, v);
+  // Counts need whole-number ticks: a range of at least four keeps the step >= 1.
+  if (chart.counts) hi = std::max(hi, 4.0);
   const auto yt = nice_ticks(0, hi > 0 ? hi : 1, 5);
   const AxisScale ys{0, yt.back().value, false, plot.y, plot.h};
   for (const auto& t : yt) {
@@ -172,8 +176,12 @@ void draw_bar_chart(HPDF_Page page, const PdfDocument& doc, const Box& box, cons
     const double x = plot.x + slot * static_cast<double>(i);
     const double top = *ys.position(std::max(0.0, v));
     if (top > plot.y) fill_rect(page, x + slot * 0.18, plot.y, slot * 0.64, top - plot.y, chart.color);
-    draw_text(page, regular, kTickSize, x + slot / 2, plot.y - 9, chart.categories[i], palette::muted,
-              Align::center);
+    // Category names wrap onto a second line rather than run into their neighbours.
+    const auto lines = wrap_text(chart.categories[i], slot - 2,
+                                 [&](std::string_view s) { return text_width(page, regular, kTickSize, s); });
+    for (size_t k = 0; k < lines.size() && k < 2; ++k)
+      draw_text(page, regular, kTickSize, x + slot / 2, plot.y - 9 - 7.5 * static_cast<double>(k), lines[k],
+                palette::muted, Align::center);
     if (i < chart.bar_labels.size())
       draw_text(page, regular, 6.2, x + slot / 2, top + 2.5, chart.bar_labels[i], palette::ink, Align::center);
   }

@@ -64,6 +64,7 @@ struct BarChart {
   std::vector<std::string> bar_labels;  // printed above each bar (optional)
   std::string y_label;
   Color color = palette::accent;
+  bool counts = false;  // values are counts: no fractional ticks
 };
 void draw_bar_chart(HPDF_Page page, const PdfDocument& doc, const Box& box, const BarChart& chart);
 

@@ -10,7 +10,7 @@ void draw_title_block(PageFlow& flow, const ReportOptions& options, const std::s
   const double note_w = text_width(page, regular, 8, right_note);
   std::string kicker = options.utility_name.empty() ? kind : options.utility_name + " · " + kind;
   // The kicker shares the line with the note: wrap it rather than collide.
-  flow.draw_wrapped(kicker, flow.x(), top + 2, flow.width() - note_w - 16, 8, FontFace::regular, palette::accent);
+  flow.draw_wrapped(kicker, flow.x(), top, flow.width() - note_w - 16, 8, FontFace::regular, palette::accent);
   draw_text(page, regular, 8, flow.x() + flow.width(), top - 8, right_note, palette::muted, Align::right);
   flow.space(12);
   flow.paragraph(title, 17, FontFace::bold);

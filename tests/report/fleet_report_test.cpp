@@ -12,19 +12,7 @@ namespace ferrum::report {
 namespace {
 using namespace testing;
 
-ReportOptions fixed_options() {
-  ReportOptions o;
-  o.utility_name = "Riverside Distribution";
-  o.creation_date = "2026-12-01T10:00:00Z";
-  return o;
-}
-
-class FleetReportTest : public ::testing::Test {
- protected:
-  void SetUp() override {
-    if (!have_tool("pdftotext") || !have_tool("qpdf")) GTEST_SKIP() << "poppler-utils / qpdf not installed";
-  }
-};
+using FleetReportTest = RenderedPdfTest;
 
 TEST_F(FleetReportTest, RankingChartsAlertsAndCoverage) {
   const auto ranking = fixtures::small_ranking();

@@ -7,6 +7,10 @@
 #include <sstream>
 #include <string>
 
+#include <gtest/gtest.h>
+
+#include "report/report_options.h"
+
 namespace ferrum::report::testing {
 
 inline bool have_tool(const std::string& name) {
@@ -49,6 +53,24 @@ inline std::string file_bytes(const std::string& path) {
   s << in.rdbuf();
   return s.str();
 }
+
+// Options with a fixed creation date, so that output bytes are reproducible.
+inline ReportOptions fixed_options() {
+  ReportOptions o;
+  o.utility_name = "Riverside Distribution";
+  o.utc_offset_note = "times without an offset were taken as UTC+01:00";
+  o.creation_date = "2026-12-01T10:00:00Z";
+  return o;
+}
+
+// Base of tests that read rendered PDFs back: skipped without the tools.
+class RenderedPdfTest : public ::testing::Test {
+ protected:
+  void SetUp() override {
+    if (!have_tool("pdftotext") || !have_tool("qpdf") || !have_tool("pdfinfo"))
+      GTEST_SKIP() << "poppler-utils / qpdf not installed";
+  }
+};
 
 inline std::string temp_path(const std::string& name) { return "/tmp/ferrum-report-test-" + name; }
 

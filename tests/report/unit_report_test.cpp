@@ -13,20 +13,7 @@ namespace ferrum::report {
 namespace {
 using namespace testing;
 
-ReportOptions fixed_options() {
-  ReportOptions o;
-  o.utility_name = "Riverside Distribution";
-  o.utc_offset_note = "times without an offset were taken as UTC+01:00";
-  o.creation_date = "2026-12-01T10:00:00Z";
-  return o;
-}
-
-class UnitReportTest : public ::testing::Test {
- protected:
-  void SetUp() override {
-    if (!have_tool("pdftotext") || !have_tool("qpdf")) GTEST_SKIP() << "poppler-utils / qpdf not installed";
-  }
-};
+using UnitReportTest = RenderedPdfTest;
 
 TEST_F(UnitReportTest, FilledUnitShowsEverySectionActionAndKeyNumber) {
   const auto unit = fixtures::filled_unit();
