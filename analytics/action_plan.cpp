@@ -50,13 +50,13 @@ void add_health_actions(const ActionPlanOptions& o, UnitAssessment& a) {
   if (!a.health_index) return;
   double hi = *a.health_index;
   std::string why = "health index " + fmt(hi, 1) + (a.band.empty() ? "" : " (" + a.band + ")");
-  if (hi < o.replace_below_hi)
+  if (hi <= o.replace_below_hi)
     a.actions.push_back({1, a.as_of + o.replace_due_days, "Plan replacement or rebuild",
                          why + ": assess risk immediately (Jahromi 2009 HI table)"});
-  else if (hi < o.plan_below_hi)
+  else if (hi <= o.plan_below_hi)
     a.actions.push_back({2, a.as_of + o.plan_due_days, "Start planning replacement or refurbishment",
                          why + ": plan replacement or rebuild considering risk (Jahromi 2009 HI table)"});
-  else if (hi < o.monitor_below_hi)
+  else if (hi <= o.monitor_below_hi)
     a.actions.push_back({3, a.as_of + o.monitor_due_days, "Intensify monitoring and diagnostic testing",
                          why + ": more diagnostic testing (Jahromi 2009 HI table)"});
 }

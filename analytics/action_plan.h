@@ -15,9 +15,11 @@
 namespace ferrum::analytics {
 
 struct ActionPlanOptions {
-  double replace_below_hi = 30;        // index below which replacement is planned now
-  double plan_below_hi = 50;           // ... planning of replacement/refurbishment starts
-  double monitor_below_hi = 70;        // ... monitoring is intensified
+  // Index at or below which (band edges belong to the worse band, as in
+  // analytics/health_index.h):
+  double replace_below_hi = 30;        // replacement is planned now
+  double plan_below_hi = 50;           // planning of replacement/refurbishment starts
+  double monitor_below_hi = 70;        // monitoring is intensified
   double replace_within_years = 5;     // remaining life below which replacement is planned
   double stale_after_years = 1.0;      // oil / infrared / inspection data older than this
   int replace_due_days = 90;

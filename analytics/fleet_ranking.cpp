@@ -15,14 +15,14 @@ struct Recommendation {
 Recommendation recommend(const RankingOptions& o, const UnitAssessment& a, int this_year) {
   std::optional<double> hi = a.health_index;
   std::optional<double> life = a.remaining_life.years;
-  if ((hi && *hi < o.replace_below_hi) || (life && *life < o.replace_within_years)) {
+  if ((hi && *hi <= o.replace_below_hi) || (life && *life < o.replace_within_years)) {
     // Replace by the year the limit is reached; a failing index means now.
-    int in = life && !(hi && *hi < o.replace_below_hi) ? static_cast<int>(std::floor(*life)) : 0;
+    int in = life && !(hi && *hi <= o.replace_below_hi) ? static_cast<int>(std::floor(*life)) : 0;
     return {"replace", this_year + std::max(in, 0)};
   }
-  if ((hi && *hi < o.refurbish_below_hi) || (life && *life < o.refurbish_within_years))
+  if ((hi && *hi <= o.refurbish_below_hi) || (life && *life < o.refurbish_within_years))
     return {"refurbish", this_year + 1};
-  if (!hi || *hi < o.monitor_below_hi) return {"intensify monitoring", this_year};
+  if (!hi || *hi <= o.monitor_below_hi) return {"intensify monitoring", this_year};
   return {"routine", this_year + 1};
 }
 

@@ -41,7 +41,7 @@ struct RankingOptions {
   double mva_reference = 100;          // MVA at which the component reaches 1
   // Equal risk: |r1 - r2| <= tie_tolerance * max(r1, r2).
   double tie_tolerance = 1e-9;
-  // Actions.
+  // Actions: index at or below (band edges belong to the worse band).
   double replace_below_hi = 30;
   double refurbish_below_hi = 50;
   double monitor_below_hi = 70;

@@ -395,8 +395,9 @@ void score_health(const HealthIndexOptions& o, UnitAssessment& a) {
   for (const auto& h : hits) {
     for (auto& s : a.factors) {
       if (s.name != h.factor) continue;
+      bool binding = total > h.cap && h.cap <= cap;
       s.detail += "; worst-indicator cap (CIGRE TB 761): " + h.what + " limits the index to " + fmt(h.cap, 0) +
-                  (total > h.cap ? " (weighted score " + fmt(total, 1) + ")" : " (not binding)");
+                  (binding ? " (weighted score " + fmt(total, 1) + ")" : " (not binding)");
     }
   }
   if (hi > cap) {

@@ -171,9 +171,9 @@ struct HealthIndexOptions {
   std::vector<SevereCap> caps{
       {"unsafe_inspection", 30},
       {"dga_condition_4", 30},
-      {"active_arcing", 30},
       {"paper_end_of_life", 30},
       {"dga_status_3", 50},
+      {"active_arcing", 50},  // acetylene appearing: serious, may still be small
       {"infrared_severity_4", 50},
   };
   double paper_end_of_life_dp = 200;  // DP at or below which the cap applies (S13)

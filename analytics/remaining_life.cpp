@@ -112,11 +112,26 @@ LifeEstimate thermal_life(const RemainingLifeOptions& o, const UnitAssessment& a
   return e;
 }
 
+// The weighted score before any worst-indicator cap: 100 sum(K HIF)/sum(4 K)
+// over the scored factors (their score and weight are kept unscaled), or the
+// index itself when no factor detail is present.
+double uncapped_index(const UnitAssessment& a) {
+  double num = 0, den = 0;
+  for (const auto& f : a.factors) {
+    if (!f.score || f.weight <= 0) continue;
+    num += f.weight * *f.score;
+    den += 4 * f.weight;
+  }
+  return den > 0 ? 100 * num / den : *a.health_index;
+}
+
 LifeEstimate condition_life(const RemainingLifeOptions& o, const UnitAssessment& a) {
   if (!a.health_index || !std::isfinite(*a.health_index)) return not_applicable("condition", "no health index");
   if (!(o.expected_life_years > 0) || !(o.hi_end_of_life > 0) || !(o.hi_new > o.hi_end_of_life))
     return not_applicable("condition", "invalid exponential ageing options");
-  double hi = std::max(*a.health_index, 1e-6);
+  // A cap is a gate for one severe finding, not a measure of gradual ageing:
+  // the finding has its own basis (gases) or action, so age the weighted score.
+  double hi = std::max(uncapped_index(a), 1e-6);
   double b_expected = std::log(o.hi_end_of_life / o.hi_new) / o.expected_life_years;  // < 0
   double b = b_expected;
   std::string how = "expected rate (age unknown)";

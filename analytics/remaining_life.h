@@ -18,7 +18,9 @@
 //    between half and twice the expected rate ln(HI_EOL/100) / L_expected (the
 //    upper limit as in CNAIM v2.1 section 6.1.8, from memory; the lower limit
 //    is ferrum's, so that a pristine index still ages). End of life is the top
-//    of the worst band, HI 30.
+//    of the worst band, HI 30. The weighted score before the worst-indicator
+//    cap is aged: the cap gates one severe finding, which has its own basis
+//    ("gases") or action, and is not gradual ageing.
 //  * "gases": a fixed short estimate for severe gassing, documented as common
 //    practice rather than a published formula (see GasLifeRule defaults).
 //
@@ -57,9 +59,9 @@ struct RemainingLifeOptions {
   double min_rate_multiple = 0.5;    // unit rate >= 0.5x expected (ferrum)
   // Gases (common practice, ferrum's mapping; the first rule that applies wins).
   std::vector<GasLifeRule> gas_rules{
-      {"active_arcing", 0.5, 0, 1},
       {"dga_condition_4", 1, 0, 2},
       {"dga_status_3", 2, 0.5, 5},
+      {"active_arcing", 2, 0.5, 5},
       {"dga_condition_3", 5, 2, 10},
   };
   // Range and horizon.

@@ -42,23 +42,23 @@ fa::UnitAssessment fresh_unit(double hi) {
 }  // namespace
 
 TEST(ActionPlan, HealthIndexThresholdsBothSides) {
-  auto a = fresh_unit(29.9);
+  auto a = fresh_unit(30);  // the 30 edge is in the worst band
   fa::finalize_actions(a);
   ASSERT_EQ(a.actions.size(), 1u);
   EXPECT_EQ(a.actions[0].text, "Plan replacement or rebuild");
   EXPECT_EQ(a.actions[0].priority, 1);
 
-  auto b = fresh_unit(30);
+  auto b = fresh_unit(30.1);
   fa::finalize_actions(b);
   ASSERT_EQ(b.actions.size(), 1u);
   EXPECT_EQ(b.actions[0].priority, 2);
 
-  auto c = fresh_unit(69.9);
+  auto c = fresh_unit(70);
   fa::finalize_actions(c);
   ASSERT_EQ(c.actions.size(), 1u);
   EXPECT_EQ(c.actions[0].priority, 3);
 
-  auto d = fresh_unit(70);
+  auto d = fresh_unit(70.1);
   fa::finalize_actions(d);
   EXPECT_TRUE(d.actions.empty());
 }

@@ -115,3 +115,16 @@ TEST(FleetRanking, EmptyFleet) {
   EXPECT_TRUE(r.units.empty());
   EXPECT_EQ(r.mva_due_by_year.size(), 10u);
 }
+
+// Action thresholds at the band edges (Jahromi 2009 HI table, from memory;
+// each edge belongs to the worse band): 30 replace, 30.1 refurbish, 50
+// refurbish, 70 intensify monitoring, 70.1 routine.
+TEST(FleetRanking, ActionThresholdsBothSides) {
+  std::vector<fa::UnitAssessment> fleet{unit("a", 30, 3, 10), unit("b", 30.1, 3, 10), unit("c", 50, 3, 10),
+                                        unit("d", 70, 3, 10), unit("e", 70.1, 3, 10)};
+  auto r = fa::rank_fleet(fleet, fleet[0].as_of, fa::RankingOptions{});
+  std::vector<std::string> got;
+  for (const auto& u : r.units) got.push_back(u.unit_id + ":" + u.recommended_action);
+  EXPECT_EQ(got, (std::vector<std::string>{"a:replace", "b:refurbish", "c:refurbish", "d:intensify monitoring",
+                                           "e:routine"}));
+}

@@ -110,6 +110,22 @@ TEST(RemainingLife, ConditionRateLimited) {
   EXPECT_DOUBLE_EQ(*fa::condition_life(fa::RemainingLifeOptions{}, a).years, 0);
 }
 
+// A capped index (e.g. 30 for DGA condition 4) is not aged as such: the
+// weighted score of the factors (here 100 x 10 x 2.4 / 40 = 60) is, giving the
+// 27.138 years of the case above.
+TEST(RemainingLife, ConditionUsesScoreBeforeCap) {
+  auto a = unit20();
+  a.health_index = 30;
+  fa::FactorScore f;
+  f.name = "dga";
+  f.score = 2.4;
+  f.weight = 10;
+  f.contribution = 30;
+  a.factors.push_back(f);
+  auto e = fa::condition_life(fa::RemainingLifeOptions{}, a);
+  EXPECT_NEAR(*e.years, 20 * std::log(0.3) / std::log(0.6) - 20, 1e-9);
+}
+
 // CNAIM checks of domain.md F.3 (computed there; CNAIM formulas from memory):
 // beta1 = ln(5.5/0.5)/60 = 0.03996 reaches HS 1.66 at 30 years; a unit at HS
 // 3.0 at age 30 (beta2 = ln(6)/30 = 0.0597) reaches 5.45 ten years later.
