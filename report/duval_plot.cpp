@@ -81,8 +81,8 @@ DuvalPercent duval_label_anchor(const DuvalZone& zone) {
 void draw_duval_triangle(HPDF_Page page, const PdfDocument& doc, const Box& box,
                          const std::vector<DuvalZone>& zones,
                          const std::vector<analytics::DuvalPoint>& samples) {
-  HPDF_Font regular = doc.font(FontFace::regular);
-  HPDF_Font bold = doc.font(FontFace::bold);
+  FontRef regular = doc.font(FontFace::regular);
+  FontRef bold = doc.font(FontFace::bold);
   // Side length: fit the width (minus corner labels) and the height.
   const double side = std::min(box.w - 40, (box.h - 36) / kSqrt3Half);
   const double ox = box.x + (box.w - side) / 2;

@@ -44,7 +44,7 @@ void ranking_table(PageFlow& flow, const FleetRanking& ranking) {
   for (const auto& u : ranking.units) {
     std::string action = u.recommended_action;
     if (u.insufficient_data) action = "insufficient data" + (u.note.empty() ? "" : ": " + u.note);
-    t.rows.push_back({rank_text(u), u.unit_id, u.site, fmt_number(u.rated_mva, 0), fmt_health_index(u.health_index),
+    t.rows.push_back({rank_text(u), u.unit_id, u.site, u.rated_mva > 0 ? fmt_number(u.rated_mva, 0) : kNoValue, fmt_health_index(u.health_index),
                       u.band.empty() ? kNoValue : u.band, fmt_number(u.remaining_life_years, 1),
                       u.limiting_factor.empty() ? kNoValue : u.limiting_factor, fmt_number(u.risk, 3), action,
                       u.action_year ? std::to_string(*u.action_year) : kNoValue});

@@ -17,8 +17,8 @@ double health_ruler_height() { return 58; }
 
 void draw_health_ruler(HPDF_Page page, const PdfDocument& doc, const Box& box, std::optional<double> hi,
                        std::optional<double> previous_hi) {
-  HPDF_Font regular = doc.font(FontFace::regular);
-  HPDF_Font bold = doc.font(FontFace::bold);
+  FontRef regular = doc.font(FontFace::regular);
+  FontRef bold = doc.font(FontFace::bold);
   const double bar_h = 9;
   const double bar_y = box.y + 24;  // room below for numbers and band names
   const AxisScale scale{0, 100, false, box.x, box.w};

@@ -69,7 +69,7 @@ void PageFlow::subsection(const std::string& title, double keep_with) {
 
 std::vector<std::string> PageFlow::wrap(const std::string& text, double width, double size,
                                         FontFace face) {
-  HPDF_Font font = doc_.font(face);
+  FontRef font = doc_.font(face);
   HPDF_Page page = page_;
   return wrap_text(text, width, [&](std::string_view s) { return text_width(page, font, size, s); });
 }

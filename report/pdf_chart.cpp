@@ -49,7 +49,7 @@ Range x_data_range(const LineChart& chart) {
   return r;
 }
 
-int legend_rows(const LineChart& chart, double width, HPDF_Page page, HPDF_Font font) {
+int legend_rows(const LineChart& chart, double width, HPDF_Page page, FontRef font) {
   double x = 0;
   int rows = chart.series.empty() ? 0 : 1;
   for (const auto& s : chart.series) {
@@ -63,7 +63,7 @@ int legend_rows(const LineChart& chart, double width, HPDF_Page page, HPDF_Font 
   return rows;
 }
 
-void draw_legend(HPDF_Page page, HPDF_Font font, double x0, double top, double width, const LineChart& chart) {
+void draw_legend(HPDF_Page page, FontRef font, double x0, double top, double width, const LineChart& chart) {
   double x = x0, y = top - 8;
   for (const auto& s : chart.series) {
     const double w = 24 + text_width(page, font, 6.8, s.label) + 12;
@@ -89,7 +89,7 @@ std::vector<Tick> chart_y_ticks(const LineChart& chart) {
 }
 
 void draw_line_chart(HPDF_Page page, const PdfDocument& doc, const Box& box, const LineChart& chart) {
-  HPDF_Font regular = doc.font(FontFace::regular);
+  FontRef regular = doc.font(FontFace::regular);
   const int rows = legend_rows(chart, box.w - kLeft, page, regular);
   const Box plot{box.x + kLeft, box.y + kBottom + rows * kLegendRow + 4, box.w - kLeft - kRight,
                  box.h - kTop - kBottom - rows * kLegendRow - 4};
@@ -156,7 +156,7 @@ void draw_line_chart(HPDF_Page page, const PdfDocument& doc, const Box& box, con
 }
 
 void draw_bar_chart(HPDF_Page page, const PdfDocument& doc, const Box& box, const BarChart& chart) {
-  HPDF_Font regular = doc.font(FontFace::regular);
+  FontRef regular = doc.font(FontFace::regular);
   const Box plot{box.x + kLeft, box.y + kBottom + 8, box.w - kLeft - kRight, box.h - kTop - kBottom - 8};
   double hi = 0;
   for (double v : chart.values) hi = std::max(hi, v);

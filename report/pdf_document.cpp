@@ -75,11 +75,9 @@ PdfDocument::PdfDocument(const ReportOptions& options, const std::string& title,
     HPDF_SetCompressionMode(doc_, HPDF_COMP_ALL);
     HPDF_UseUTFEncodings(doc_);
     HPDF_SetCurrentEncoder(doc_, "UTF-8");
-    // Each TTF is parsed once per document; pages share the font objects.
+    // One TTF, parsed once per document; pages share the font object.
     const char* regular = HPDF_LoadTTFontFromFile(doc_, font_path("DejaVuSans.ttf").c_str(), HPDF_TRUE);
-    const char* bold = HPDF_LoadTTFontFromFile(doc_, font_path("DejaVuSans-Bold.ttf").c_str(), HPDF_TRUE);
     regular_ = HPDF_GetFont(doc_, regular, "UTF-8");
-    bold_ = HPDF_GetFont(doc_, bold, "UTF-8");
     HPDF_SetInfoAttr(doc_, HPDF_INFO_TITLE, title.c_str());
     HPDF_SetInfoAttr(doc_, HPDF_INFO_SUBJECT, subject.c_str());
     HPDF_SetInfoAttr(doc_, HPDF_INFO_AUTHOR, options.author.c_str());
@@ -108,8 +106,8 @@ HPDF_Page PdfDocument::add_page() {
   return page;
 }
 
-HPDF_Font PdfDocument::font(FontFace face) const {
-  return face == FontFace::bold ? bold_ : regular_;
+FontRef PdfDocument::font(FontFace face) const {
+  return {regular_, face == FontFace::bold};
 }
 
 void PdfDocument::add_bookmark(const std::string& title, HPDF_Page page, double y) {

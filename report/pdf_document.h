@@ -10,13 +10,12 @@
 #include <string>
 #include <vector>
 
+#include "report/pdf_draw.h"
 #include "report/report_options.h"
 
 namespace ferrum::report {
 
-// Two faces only: libharu spends ~15 ms per embedded TTF when saving (it
-// builds the ToUnicode map glyph by glyph), so a third face would cost more
-// than the 50 ms budget of a unit report allows.
+// Faces of the one embedded font (DejaVu Sans); bold is synthetic, see FontRef.
 enum class FontFace { regular, bold };
 
 class PdfDocument {
@@ -32,7 +31,7 @@ class PdfDocument {
   const std::vector<HPDF_Page>& pages() const { return pages_; }
   double page_width() const { return width_; }
   double page_height() const { return height_; }
-  HPDF_Font font(FontFace face) const;
+  FontRef font(FontFace face) const;
 
   // A top-level bookmark pointing at `y` (page points from the bottom) on `page`.
   void add_bookmark(const std::string& title, HPDF_Page page, double y);
@@ -50,7 +49,7 @@ class PdfDocument {
  private:
   HPDF_Doc doc_ = nullptr;
   double width_ = 0, height_ = 0;
-  HPDF_Font regular_ = nullptr, bold_ = nullptr;
+  HPDF_Font regular_ = nullptr;
   std::vector<HPDF_Page> pages_;
 };
 

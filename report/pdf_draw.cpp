@@ -22,24 +22,32 @@ void set_dash(HPDF_Page page, Dash dash) {
   }
 }
 
-double text_width(HPDF_Page page, HPDF_Font font, double size, std::string_view text) {
+double text_width(HPDF_Page page, FontRef font, double size, std::string_view text) {
   if (text.empty()) return 0;
-  HPDF_Page_SetFontAndSize(page, font, r(size));
-  return HPDF_Page_TextWidth(page, std::string(text).c_str());
+  HPDF_Page_SetFontAndSize(page, font.font, r(size));
+  // The synthetic bold stroke widens each glyph by its line width.
+  const double extra = font.bold ? size * 0.05 : 0;
+  return HPDF_Page_TextWidth(page, std::string(text).c_str()) + extra;
 }
 
-void draw_text(HPDF_Page page, HPDF_Font font, double size, double x, double y, std::string_view text,
+void draw_text(HPDF_Page page, FontRef font, double size, double x, double y, std::string_view text,
                Color color, Align align) {
   if (text.empty()) return;
   const std::string s(text);
-  HPDF_Page_SetFontAndSize(page, font, r(size));
+  HPDF_Page_SetFontAndSize(page, font.font, r(size));
   double left = x;
   if (align != Align::left) {
     const double w = HPDF_Page_TextWidth(page, s.c_str());
     left = align == Align::right ? x - w : x - w / 2;
   }
   set_fill(page, color);
+  if (font.bold) {
+    set_stroke(page, color);
+    set_dash(page, Dash::solid);
+    HPDF_Page_SetLineWidth(page, r(size * 0.05));
+  }
   HPDF_Page_BeginText(page);
+  HPDF_Page_SetTextRenderingMode(page, font.bold ? HPDF_FILL_THEN_STROKE : HPDF_FILL);
   HPDF_Page_TextOut(page, r(left), r(y), s.c_str());
   HPDF_Page_EndText(page);
 }

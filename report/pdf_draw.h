@@ -27,6 +27,15 @@ inline constexpr Color accent_light = {0.86f, 0.91f, 0.92f};
 inline constexpr Color white = Color::gray(1.0f);
 }  // namespace palette
 
+// A face of the document's font. Bold is synthetic (the regular DejaVu glyphs
+// filled and stroked): libharu spends ~24 ms per embedded UTF-8 TrueType face
+// (glyph map on load, ToUnicode map on save), so a second TTF would take a
+// unit report past its 50 ms budget.
+struct FontRef {
+  HPDF_Font font = nullptr;
+  bool bold = false;
+};
+
 enum class Dash { solid, dashed, dotted, dash_dot };
 enum class Align { left, right, center };
 
@@ -34,11 +43,11 @@ void set_fill(HPDF_Page page, Color c);
 void set_stroke(HPDF_Page page, Color c);
 void set_dash(HPDF_Page page, Dash dash);
 
-double text_width(HPDF_Page page, HPDF_Font font, double size, std::string_view text);
+double text_width(HPDF_Page page, FontRef font, double size, std::string_view text);
 
 // One line of text with its baseline at y; x is the left edge, right edge or
 // centre depending on `align`.
-void draw_text(HPDF_Page page, HPDF_Font font, double size, double x, double y, std::string_view text,
+void draw_text(HPDF_Page page, FontRef font, double size, double x, double y, std::string_view text,
                Color color = palette::ink, Align align = Align::left);
 
 void draw_line(HPDF_Page page, double x0, double y0, double x1, double y1, Color color,

@@ -12,14 +12,12 @@ constexpr double kHeadingSize = 8.6;
 // Wraps "lead text" so that the lead, set in bold, is measured in bold.
 std::vector<std::string> wrap_caution(PageFlow& flow, const Caution& c, double width) {
   HPDF_Page page = flow.page();
-  HPDF_Font bold = flow.doc().font(FontFace::bold);
-  HPDF_Font regular = flow.doc().font(FontFace::regular);
+  FontRef bold = flow.doc().font(FontFace::bold);
+  FontRef regular = flow.doc().font(FontFace::regular);
   const std::string whole = c.lead + " " + c.text;
-  return wrap_text(whole, width, [&](std::string_view s) {
-    if (s.size() >= c.lead.size() && s.substr(0, c.lead.size()) == c.lead)
-      return text_width(page, bold, kSize, c.lead) + text_width(page, regular, kSize, s.substr(c.lead.size()));
-    return text_width(page, regular, kSize, s);
-  });
+  const double lead_extra = text_width(page, bold, kSize, c.lead) - text_width(page, regular, kSize, c.lead);
+  return wrap_text(whole, width, [&](std::string_view s) { return text_width(page, regular, kSize, s); },
+                   lead_extra);
 }
 
 double line_height() { return kSize * 1.25; }
@@ -84,8 +82,8 @@ void draw_safety_block(PageFlow& flow, double top) {
   draw_text(page, flow.doc().font(FontFace::bold), kHeadingSize, x + kPad + 4, y, safety_heading(),
             palette::ink);
   y -= kHeadingSize * 0.5;
-  HPDF_Font bold = flow.doc().font(FontFace::bold);
-  HPDF_Font regular = flow.doc().font(FontFace::regular);
+  FontRef bold = flow.doc().font(FontFace::bold);
+  FontRef regular = flow.doc().font(FontFace::regular);
   for (const auto& c : safety_cautions()) {
     bool first = true;
     for (const auto& line : wrap_caution(flow, c, inner)) {

@@ -25,9 +25,11 @@ void split_long_word(std::string_view word, double max_width, const MeasureFn& m
   if (!piece.empty()) out.push_back(piece);
 }
 
-void wrap_paragraph(std::string_view para, double max_width, const MeasureFn& measure,
+void wrap_paragraph(std::string_view para, double max_width, const MeasureFn& measure, double& extra,
                     std::vector<std::string>& out) {
+  const double space = measure(" ");
   std::string line;
+  double line_w = 0;
   size_t pos = 0;
   while (pos < para.size()) {
     while (pos < para.size() && para[pos] == ' ') ++pos;
@@ -36,35 +38,51 @@ void wrap_paragraph(std::string_view para, double max_width, const MeasureFn& me
     if (end == std::string_view::npos) end = para.size();
     const std::string_view word = para.substr(pos, end - pos);
     pos = end;
-    const std::string candidate = line.empty() ? std::string(word) : line + " " + std::string(word);
-    if (measure(candidate) <= max_width) {
-      line = candidate;
+    const double word_w = measure(word);
+    const double candidate_w = line.empty() ? extra + word_w : line_w + space + word_w;
+    if (candidate_w <= max_width) {
+      if (!line.empty()) line += ' ';
+      line += word;
+      line_w = candidate_w;
       continue;
     }
-    if (!line.empty()) out.push_back(line);
+    if (!line.empty()) {
+      out.push_back(line);
+      extra = 0;
+    }
     line.clear();
-    if (measure(word) <= max_width) {
+    if (extra + word_w <= max_width) {
       line = std::string(word);
+      line_w = extra + word_w;
     } else {
       std::vector<std::string> pieces;
-      split_long_word(word, max_width, measure, pieces);
+      split_long_word(word, max_width - extra, measure, pieces);
       for (size_t k = 0; k + 1 < pieces.size(); ++k) out.push_back(pieces[k]);
-      if (!pieces.empty()) line = pieces.back();
+      extra = 0;
+      if (!pieces.empty()) {
+        line = pieces.back();
+        line_w = measure(line);
+      }
     }
   }
-  if (!line.empty()) out.push_back(line);
+  if (!line.empty()) {
+    out.push_back(line);
+    extra = 0;
+  }
 }
 
 }  // namespace
 
-std::vector<std::string> wrap_text(std::string_view text, double max_width, const MeasureFn& measure) {
+std::vector<std::string> wrap_text(std::string_view text, double max_width, const MeasureFn& measure,
+                                   double first_line_extra) {
+  double extra = first_line_extra;
   std::vector<std::string> lines;
   size_t start = 0;
   while (start <= text.size()) {
     size_t nl = text.find('\n', start);
     if (nl == std::string_view::npos) nl = text.size();
     const size_t before = lines.size();
-    wrap_paragraph(text.substr(start, nl - start), max_width, measure, lines);
+    wrap_paragraph(text.substr(start, nl - start), max_width, measure, extra, lines);
     // Keep an explicit blank line between paragraphs, but not at the very end.
     if (lines.size() == before && nl < text.size()) lines.emplace_back();
     start = nl + 1;

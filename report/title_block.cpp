@@ -6,7 +6,7 @@ void draw_title_block(PageFlow& flow, const ReportOptions& options, const std::s
                       const std::string& title, const std::string& right_note) {
   HPDF_Page page = flow.page();
   const double top = flow.y();
-  HPDF_Font regular = flow.doc().font(FontFace::regular);
+  FontRef regular = flow.doc().font(FontFace::regular);
   const double note_w = text_width(page, regular, 8, right_note);
   std::string kicker = options.utility_name.empty() ? kind : options.utility_name + " · " + kind;
   // The kicker shares the line with the note: wrap it rather than collide.

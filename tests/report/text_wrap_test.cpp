@@ -37,3 +37,15 @@ TEST(WrapText, NewlinesAndEmptyInput) {
 
 }  // namespace
 }  // namespace ferrum::report
+
+namespace ferrum::report {
+namespace {
+
+TEST(WrapText, FirstLineExtraNarrowsOnlyTheFirstLine) {
+  // A bold lead-in 3 units wider than measured: "aaa bbb" (7) no longer fits in 8.
+  EXPECT_EQ(wrap_text("aaa bbb ccc ddd", 8, mono, 3), (std::vector<std::string>{"aaa", "bbb ccc", "ddd"}));
+  EXPECT_EQ(wrap_text("aaa bbb ccc ddd", 8, mono, 0), (std::vector<std::string>{"aaa bbb", "ccc ddd"}));
+}
+
+}  // namespace
+}  // namespace ferrum::report
