@@ -11,7 +11,7 @@ analytics::AssessmentOptions options_from_config(const config::SiteConfig& confi
   analytics::AssessmentOptions o;
   o.thermal.method = config.thermal_method == "ieee_c57_91" ? analytics::ThermalMethod::ieee_c57_91
                                                             : analytics::ThermalMethod::iec60076_7;
-  o.thermal.inspection_interval_days = config.inspection_interval_days;
+  o.thermal.inspection.interval_days = config.inspection_interval_days;
   auto& h = o.health;
   for (const auto& [factor, w] : config.health_weights) {
     if (factor == "dga") h.weight_dga = w;
@@ -29,7 +29,10 @@ analytics::AssessmentOptions options_from_config(const config::SiteConfig& confi
       std::ifstream in(tables);
       std::ostringstream text;
       text << in.rdbuf();
-      o.oil.tables_2019 = analytics::parse_c57104_2019_tables(text.str()).value();
+      const auto parsed = analytics::parse_c57104_2019_tables(text.str());
+      if (!parsed.tables)
+        throw std::runtime_error(tables.string() + ":" + std::to_string(parsed.error_line) + ": " + parsed.error);
+      o.oil.c57104_2019_tables = *parsed.tables;
     }
   }
   return o;

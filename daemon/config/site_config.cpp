@@ -284,7 +284,8 @@ std::string default_site_config_text() {
       std::string l;
       while (std::getline(lines, l)) o << "; " << l << "\n";
     }
-    o << k.name << " = " << k.default_text << (k.reloadable ? "" : "    ; (restart)") << "\n";
+    if (!k.reloadable) o << "; (restart)\n";
+    o << k.name << " = " << k.default_text << "\n";
   }
   o << "\n; Parties: one section per party, named after its folder under drop/.\n"
        "; kinds: file kinds it may deliver (units_register, oil_lab, infrared, load_series,\n"

@@ -6,6 +6,7 @@
 // `ferrum init` writes. Parties are sections of their own: [party.NAME].
 #pragma once
 
+#include <cctype>
 #include <map>
 #include <optional>
 #include <set>
@@ -26,7 +27,12 @@ struct Party {
   std::set<std::string> kinds;      // file kinds it may deliver
   std::set<std::string> sites;      // sites it serves; contains "*" for all
   bool may_deliver(const std::string& kind) const { return kinds.count(kind) > 0; }
-  bool serves(const std::string& site) const { return sites.count("*") > 0 || sites.count(site) > 0; }
+  // Site names compare without regard to case.
+  bool serves(const std::string& site) const {
+    std::string lower = site;
+    for (char& c : lower) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+    return sites.count("*") > 0 || sites.count(lower) > 0;
+  }
 };
 
 struct SiteConfig {

@@ -352,6 +352,23 @@ std::vector<FileOutcome> Pipeline::recover() {
       out.push_back(import_claimed(f.path(), party, name, now_text()));
     }
   }
+  // A crash between the move and the receipt leaves a file without its
+  // receipt: rewrite the receipts of recent files from the database.
+  for (const auto& rec : store_.recent_files(200)) {
+    if (rec.status == "importing" || !config_.party(rec.party)) continue;
+    const fs::path dir = root_.drop() / rec.party / "receipts";
+    const fs::path json = dir / (fit_name(rec.original_name, 240) + ".json");
+    if (fs::exists(json, ec)) continue;
+    try {
+      fs::create_directories(dir);
+      site::write_file_atomically(json, rec.receipt_json);
+      site::write_file_atomically(dir / (fit_name(rec.original_name, 240) + ".txt"),
+                                  Receipt::from_json(rec.receipt_json).to_text());
+      spdlog::warn("recovered the missing receipt of {}/{}", rec.party, rec.original_name);
+    } catch (const std::exception& e) {
+      spdlog::error("cannot rewrite the receipt of {}/{}: {}", rec.party, rec.original_name, e.what());
+    }
+  }
   return out;
 }
 
