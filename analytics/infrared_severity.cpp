@@ -1,6 +1,8 @@
 #include "analytics/infrared_severity.h"
 
 #include <algorithm>
+#include <cctype>
+#include <string>
 #include <cmath>
 #include <cstdio>
 #include <map>
@@ -38,6 +40,11 @@ Reading reading(double spot, const std::optional<double>& base, const std::optio
 // The rise that is classified: corrected when the load is known.
 std::optional<double> classified(const Reading& r) { return r.corrected ? r.corrected : r.measured; }
 
+std::string lower(std::string s) {
+  for (char& c : s) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+  return s;
+}
+
 }  // namespace
 
 int neta_priority_over_reference(double rise) {
@@ -59,6 +66,13 @@ double rise_at_rated_load(double rise_k, double load_pct, double exponent) {
   return rise_k * std::pow(100.0 / load_pct, exponent);
 }
 
+bool is_oil_heated_part(const std::string& component) {
+  const std::string c = lower(component);
+  for (const char* word : {"tank", "radiator", "cooler", "conservator", "fan", "pump", "oil"})
+    if (c.find(word) != std::string::npos) return true;
+  return false;
+}
+
 InfraredFinding assess_infrared_scan(const InfraredScan& scan, const InfraredOptions& options) {
   InfraredFinding f;
   f.date = scan.date;
@@ -75,10 +89,29 @@ InfraredFinding assess_infrared_scan(const InfraredScan& scan, const InfraredOpt
     f.severity_text = "not classified: neither a reference component nor ambient temperature recorded";
     return f;
   }
-  const int p_ref = classified(ref) ? neta_priority_over_reference(*classified(ref)) : 0;
-  const int p_amb = classified(amb) ? neta_priority_over_ambient(*classified(amb)) : 0;
+  if (is_oil_heated_part(scan.component)) {
+    // Tanks, radiators and coolers are warmed by the oil, not by their own
+    // I²R losses: the NETA ΔT table (electrical connections) and the I²
+    // load correction do not apply. Report the rises only.
+    f.corrected_rise_k.reset();
+    f.severity_text = "oil-heated part: NETA ΔT criteria apply to current-carrying connections; compare with "
+                      "similar parts and the thermal model";
+    return f;
+  }
+  // A similar component under similar load is the better comparison: when
+  // one was recorded it decides; the ambient criterion is used only without
+  // one (a component a few kelvin above ambient under load is normal).
+  int p_ref = 0, p_amb = 0;
+  std::string basis;
+  if (classified(ref)) {
+    p_ref = neta_priority_over_reference(*classified(ref));
+    basis = "over a similar component";
+  } else if (classified(amb)) {
+    p_amb = neta_priority_over_ambient(*classified(amb));
+    basis = "over ambient (no similar component recorded)";
+  }
   const int severity = std::max(severity_from_neta_priority(p_ref), severity_from_neta_priority(p_amb));
-  std::string text = severity == 0 ? neta_text(0) : neta_text(5 - severity);
+  std::string text = (severity == 0 ? neta_text(0) : neta_text(5 - severity)) + std::string(", ") + basis;
   if (severity > 0) f.severity = severity;
   if (!scan.load_pct) text += "; load not recorded, rise not corrected";
   if (f.low_load) {

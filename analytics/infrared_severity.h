@@ -20,8 +20,17 @@
 //   practice, from memory).
 //
 // ferrum's JSON severity runs the other way: severity = 5 − NETA priority
-// (1 least .. 4 most severe); a scan's severity is the higher of its two
-// readings.
+// (1 least .. 4 most severe).
+//
+// ferrum's reading of the table (its own choice, stated in the README):
+// * when a similar component under similar load was recorded, the rise over
+//   it (corrected to rated load) decides; the rise over ambient is reported
+//   but classified only when no similar component was recorded, because a
+//   sound connection under load runs a few kelvin above ambient and the
+//   ambient column would flag every one of them;
+// * oil-heated parts (tank, radiator, cooler, conservator, fan, pump) are not
+//   classified: the table and the I² correction are for current-carrying
+//   connections.
 #pragma once
 
 #include <optional>
@@ -46,6 +55,9 @@ inline int severity_from_neta_priority(int priority) { return priority == 0 ? 0 
 
 // Rise corrected to rated load. REQUIRES: load_pct > 0.
 double rise_at_rated_load(double rise_k, double load_pct, double exponent);
+
+// True for parts warmed by the oil rather than by their own current.
+bool is_oil_heated_part(const std::string& component);
 
 // One scan. Without any rise (no reference and no ambient) severity is null
 // and severity_text says why.

@@ -41,26 +41,48 @@ TEST(InfraredSeverity, LoadCorrectionWorkedValue) {
   EXPECT_NEAR(rise_at_rated_load(10, 50, 1.6), 30.3, 0.05);
 }
 
-TEST(InfraredSeverity, ScanSeverityIsHigherOfTheTwoCorrectedReadings) {
+TEST(InfraredSeverity, SimilarComponentDecidesAmbientOnlyWithoutOne) {
   InfraredScan s;
   s.component = "HV bushing H1 connector";
   s.spot_c = 45;
-  s.reference_c = 35;  // 10 K -> 40 K corrected at 50 %: > 15 -> NETA 1
-  s.ambient_c = 30;    // 15 K -> 60 K corrected: > 40 -> NETA 1
+  s.reference_c = 35;  // 10 K -> 40 K corrected at 50 % (n = 2): > 15 -> NETA 1 (ANSI/NETA MTS table)
+  s.ambient_c = 30;    // 15 K over ambient: reported, not classified while a reference exists
   s.load_pct = 50;
   auto f = assess_infrared_scan(s, {});
   EXPECT_EQ(*f.rise_over_reference_k, 10);
+  EXPECT_EQ(*f.rise_over_ambient_k, 15);
   EXPECT_EQ(*f.corrected_rise_k, 40);
   EXPECT_EQ(*f.severity, 4);
   EXPECT_FALSE(f.low_load);
-  // At rated load the same rises give NETA 3 over reference and NETA 3 over ambient.
+  // At rated load 10 K over a similar component is NETA 3 (4-15 °C) -> severity 2.
   s.load_pct = 100;
   f = assess_infrared_scan(s, {});
   EXPECT_EQ(*f.severity, 2);
-  // Only the ambient reading available: 15 K -> NETA 3 -> severity 2.
+  // A sound connection: 0.5 K over its neighbour, 15 K over ambient -> no finding
+  // (ferrum's reading: the ambient column is used only without a similar component).
+  s.spot_c = 35.5;
+  f = assess_infrared_scan(s, {});
+  EXPECT_FALSE(f.severity);
+  // Only the ambient reading available: 15 K over ambient at rated load -> NETA 3 (11-20 °C) -> severity 2.
+  s.spot_c = 45;
   s.reference_c.reset();
   f = assess_infrared_scan(s, {});
   EXPECT_EQ(*f.severity, 2);
+  EXPECT_NE(f.severity_text.find("over ambient"), std::string::npos);
+}
+
+TEST(InfraredSeverity, OilHeatedPartsAreNotClassifiedByTheConnectionTable) {
+  InfraredScan s;
+  s.component = "Main tank top";
+  s.spot_c = 60;
+  s.ambient_c = 20;  // 40 K over ambient would be NETA 2 for a connection
+  s.load_pct = 50;
+  const auto f = assess_infrared_scan(s, {});
+  EXPECT_FALSE(f.severity);
+  EXPECT_EQ(*f.rise_over_ambient_k, 40);
+  EXPECT_FALSE(f.corrected_rise_k);
+  EXPECT_TRUE(is_oil_heated_part("cooler bank 2"));
+  EXPECT_FALSE(is_oil_heated_part("LV bushing X2 connector"));
 }
 
 TEST(InfraredSeverity, LowLoadScanFlagged) {
