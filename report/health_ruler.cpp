@@ -2,14 +2,23 @@
 
 #include <algorithm>
 
+#include "analytics/health_index.h"
 #include "report/pdf_draw.h"
 #include "report/report_format.h"
 
 namespace ferrum::report {
 
+// The bands and their names come from the health-index method itself, so
+// that the ruler always shows the names the assessment uses.
 const std::vector<BandSegment>& health_index_bands() {
-  static const std::vector<BandSegment> bands = {
-      {0, 30, "very poor"}, {30, 50, "poor"}, {50, 70, "fair"}, {70, 85, "good"}, {85, 100, "very good"}};
+  static const std::vector<BandSegment> bands = [] {
+    std::vector<BandSegment> out;
+    auto defs = analytics::HealthIndexOptions{}.bands;  // best first
+    std::sort(defs.begin(), defs.end(), [](const auto& a, const auto& b) { return a.lower < b.lower; });
+    for (std::size_t i = 0; i < defs.size(); ++i)
+      out.push_back({defs[i].lower, i + 1 < defs.size() ? defs[i + 1].lower : 100.0, defs[i].name});
+    return out;
+  }();
   return bands;
 }
 
@@ -33,7 +42,9 @@ void draw_health_ruler(HPDF_Page page, const PdfDocument& doc, const Box& box, s
     draw_text(page, regular, 6.8, (x0 + x1) / 2, box.y + 4, bands[i].name, palette::muted, Align::center);
   }
   stroke_rect(page, box.x, bar_y, box.w, bar_h, palette::muted, 0.4);
-  for (double v : {0.0, 30.0, 50.0, 70.0, 85.0, 100.0}) {
+  std::vector<double> ticks{0.0};
+  for (const auto& b : bands) ticks.push_back(b.to);
+  for (double v : ticks) {
     const double x = *scale.position(v);
     draw_line(page, x, bar_y - 3, x, bar_y, palette::muted, 0.4);
     draw_text(page, regular, 6.2, x, bar_y - 9.5, fmt_number(v, 0), palette::muted, Align::center);
