@@ -55,7 +55,7 @@ void condition_changes(const UnitAssessment& cur, const UnitAssessment& prev, st
     const auto it = std::find_if(prev.inspection.begin(), prev.inspection.end(),
                                  [&](const analytics::InspectionFinding& q) { return q.item == f.item; });
     if (it != prev.inspection.end() && it->rating != f.rating)
-      out.push_back("Inspection: " + f.item + " " + (f.rating > it->rating ? "worse" : "better") + ", " +
+      out.push_back("Inspection: " + item_title(f.item) + " " + (f.rating > it->rating ? "worse" : "better") + ", " +
                     rating_title(it->rating) + " → " + rating_title(f.rating) + ".");
   }
   const size_t new_ir = static_cast<size_t>(std::count_if(cur.infrared.begin(), cur.infrared.end(), [&](const auto& f) {

@@ -110,4 +110,11 @@ std::string priority_title(int priority) {
   }
 }
 
+std::string item_title(const std::string& item) {
+  std::string out = item;
+  for (char& c : out)
+    if (c == '_') c = ' ';
+  return out;
+}
+
 }  // namespace ferrum::report

@@ -34,6 +34,7 @@ std::string factor_title(const std::string& key);     // "dga" -> "Dissolved gas
 std::string oil_test_title(const std::string& key);   // "ift" -> "Interfacial tension"
 std::string gas_label(const std::string& gas);        // "C2H2" -> "C₂H₂"
 std::string rating_title(analytics::Rating r);        // very_poor -> "very poor"
+std::string item_title(const std::string& item);       // "cooling_fans_and_pumps" -> "cooling fans and pumps"
 std::string priority_title(int priority);             // 1 -> "P1 urgent"
 
 }  // namespace ferrum::report

@@ -29,7 +29,7 @@ void safety_warning(PageFlow& flow, const UnitAssessment& a) {
   if (a.unsafe_inspection) {
     std::string items;
     for (const auto& f : a.inspection)
-      if (f.rating == analytics::Rating::unsafe) items += (items.empty() ? "" : ", ") + f.item;
+      if (f.rating == analytics::Rating::unsafe) items += (items.empty() ? "" : ", ") + item_title(f.item);
     lines.push_back("An inspection item is rated UNSAFE" + (items.empty() ? std::string() : " (" + items + ")") +
                     ". Keep clear and have it evaluated by qualified personnel before further work near the unit.");
   }

@@ -292,7 +292,7 @@ void findings_section(PageFlow& flow, const UnitAssessment& a) {
   t.columns = {{"Item", 1.3}, {"Date", 1.0}, {"Rating", 0.9}, {"Previous", 0.9}, {"Trend", 0.8}, {"Note", 3.2}};
   for (const auto& f : a.inspection) {
     std::string trend = !f.previous ? "first record" : f.worse ? "worse" : f.rating < *f.previous ? "better" : "same";
-    t.rows.push_back({f.item, analytics::format_day(f.date), rating_title(f.rating),
+    t.rows.push_back({item_title(f.item), analytics::format_day(f.date), rating_title(f.rating),
                       f.previous ? rating_title(*f.previous) : std::string(kNoValue), trend, f.note});
     t.emphasis.push_back(f.rating == analytics::Rating::unsafe || f.worse);
   }
