@@ -184,21 +184,33 @@ const OilSample* latest_with(const std::vector<OilSample>& samples, bool (*has)(
   return nullptr;
 }
 
-bool has_quality_test(const OilSample& s) {
-  return s.moisture_ppm.present() || s.breakdown_kv.present() || s.acidity_mgkoh_g.present() ||
-         s.ift_mn_m.present() || s.pf25_pct.present() || s.pf100_pct.present() || s.color.present();
-}
 bool has_moisture(const OilSample& s) { return s.moisture_ppm.present(); }
+bool has_full_quality_test(const OilSample& s) {
+  return s.breakdown_kv.present() || s.acidity_mgkoh_g.present() || s.ift_mn_m.present() || s.pf25_pct.present() ||
+         s.pf100_pct.present() || s.color.present();
+}
 bool has_furan(const OilSample& s) { return s.furan_2fal_ppb.present(); }
 
 void assess_quality(const std::vector<OilSample>& samples, const UnitInfo& unit, Day as_of, const OilOptions& o,
                     UnitAssessment& out) {
-  const OilSample* q = latest_with(samples, has_quality_test);
+  // Labs measure water with every DGA sample but the full quality tests
+  // (breakdown, acidity, IFT, power factor, colour) less often: take the
+  // latest sample with a full test, and the water of a newer sample if any.
+  const OilSample* q = latest_with(samples, has_full_quality_test);
+  const OilSample* m = latest_with(samples, has_moisture);
+  if (!q) q = m;
   if (!q) {
     out.missing.push_back("oil quality tests");
     return;
   }
-  const OilQualityResult r = assess_oil_quality_c57106(*q, unit.hv_kv);
+  OilSample composite = *q;
+  if (m && m->date > q->date) {
+    composite.moisture_ppm = m->moisture_ppm;
+    out.oil.notes.push_back("water content from the sample of " + format_day(m->date) +
+                            "; the other tests from the sample of " + format_day(q->date));
+  }
+  if (q == m && !has_full_quality_test(*q)) out.missing.push_back("oil quality tests (only water content measured)");
+  const OilQualityResult r = assess_oil_quality_c57106(composite, unit.hv_kv);
   out.oil.sample_date = q->date;
   out.oil.checks = r.checks;
   out.oil.oil_class = r.oil_class + (r.class_reason.empty() ? "" : " (" + r.class_reason + ")");

@@ -273,7 +273,7 @@ void findings_section(PageFlow& flow, const UnitAssessment& a) {
     t.columns = {{"Date", 1.0}, {"Component", 1.6}, {"ΔT to reference", 0.95, Align::right}, {"ΔT to ambient", 0.95, Align::right},
                  {"At rated load", 0.95, Align::right}, {"Severity (4 = worst)", 2.6}};
     for (const auto& f : a.infrared) {
-      std::string sev = f.severity ? std::to_string(*f.severity) + " of 4, NETA priority " + std::to_string(5 - *f.severity) : std::string(kNoValue);
+      std::string sev = f.severity ? std::to_string(*f.severity) + " of 4" : std::string(kNoValue);
       if (!f.severity_text.empty()) sev += ": " + f.severity_text;
       if (f.low_load) sev += " (scan at low load: correction unreliable)";
       t.rows.push_back({analytics::format_day(f.date), f.component, fmt_number(f.rise_over_reference_k, 1, "K"),

@@ -94,6 +94,37 @@ TEST(OilAssessment, OilQualityMoistureAndPaper) {
   EXPECT_TRUE(has_text(out.missing, "DGA"));
 }
 
+TEST(OilAssessment, FullQualityTestsFromTheirSampleWaterFromANewerOne) {
+  UnitData d = unit_132kv();
+  OilSample full;
+  full.date = days_from_civil(2025, 5, 1);
+  full.moisture_ppm = LabValue::measured(12);
+  full.oil_temp_c = LabValue::measured(50);
+  full.breakdown_kv = LabValue::measured(60);
+  full.breakdown_method = "ASTM D1816 2 mm";
+  full.acidity_mgkoh_g = LabValue::measured(0.05);
+  OilSample water_only;
+  water_only.date = days_from_civil(2026, 5, 1);
+  water_only.moisture_ppm = LabValue::measured(30);  // > 25 mg/kg for 69-230 kV (IEEE C57.106, from memory)
+  water_only.oil_temp_c = LabValue::measured(50);
+  d.oil_samples = {full, water_only};
+  UnitAssessment out;
+  assess_oil(d, water_only.date + 1, {}, out);
+  ASSERT_TRUE(out.oil.sample_date);
+  EXPECT_EQ(*out.oil.sample_date, full.date);
+  auto check = [&](const std::string& test) {
+    auto it = std::find_if(out.oil.checks.begin(), out.oil.checks.end(),
+                           [&](const OilCheck& c) { return c.test == test; });
+    return it == out.oil.checks.end() ? std::optional<OilCheck>() : std::optional<OilCheck>(*it);
+  };
+  ASSERT_TRUE(check("breakdown"));
+  EXPECT_DOUBLE_EQ(*check("breakdown")->value, 60);
+  ASSERT_TRUE(check("moisture"));
+  EXPECT_DOUBLE_EQ(*check("moisture")->value, 30);  // the newer water result
+  EXPECT_FALSE(*check("moisture")->within_limit);
+  EXPECT_TRUE(has_text(out.oil.notes, "water content from the sample of 2026-05-01"));
+}
+
 TEST(OilAssessment, SingleSampleInterpretation) {
   UnitInfo unit;
   unit.hv_kv = 132;
