@@ -1,0 +1,367 @@
+#!/usr/bin/env python3
+"""The benchmark harness behind bench/run (Python 3, standard library only).
+
+Runs each benchmark --repeat times, takes medians, and writes a table with the
+reference measured in the same run beside each figure, and the ratio, to
+bench/results.md (and stdout). The load average is recorded with each section:
+the machine is shared, so only ratios measured in the same run are compared.
+
+Sections (--only NAME to run one):
+  ingest   1,000,000-row load series through `ferrum ingest` vs the sqlite3
+           shell's .import of the same file; peak memory (and 10,000,000 rows
+           with --with-10m)
+  fleet    5,000 units, 20 years of history, a year of hourly load:
+           `ferrum assess --json` + `ferrum rank` vs a plain SELECT of the rows
+  kernels  Google Benchmark: thermal kernel, unit reports on 1 and 2 threads
+  latency  `ferrum serve`: lab file renamed into a party folder -> receipt ->
+           updated unit report, 50 drops
+"""
+import argparse
+import datetime
+import json
+import os
+import re
+import shutil
+import statistics
+import subprocess
+import sys
+import time
+from pathlib import Path
+
+AS_OF = "2026-12-01"
+FLEET_UNITS = 5000
+INGEST_UNITS = 5000
+LATENCY_UNITS = 50
+LATENCY_DROPS = 50
+
+INI = """[site]
+name = ferrum benchmark fleet
+utc_offset = +00:00
+
+[ingest]
+settle_seconds = {settle}
+rescan_seconds = 30
+
+[schedule]
+debounce_seconds = {debounce}
+
+[log]
+level = warn
+
+[party.bench]
+kinds = units_register, oil_lab, infrared, inspection, load_series
+sites = *
+"""
+
+
+class Bench:
+    def __init__(self, args):
+        self.args = args
+        self.build = Path(args.build).resolve()
+        self.work = Path(args.work).resolve()
+        self.ferrum = self.build / "daemon" / "ferrum"
+        self.gen = self.build / "bench" / "ferrum_bench_gen"
+        self.kernels = self.build / "bench" / "ferrum_bench_kernels"
+        self.data = self.work / "data"
+        self.data.mkdir(parents=True, exist_ok=True)
+        self.rows = []      # result table rows
+        self.notes = []     # lines printed under the table
+
+    # ------------------------------------------------------------ helpers
+    def log(self, msg):
+        print(f"[bench {time.strftime('%H:%M:%S')}] {msg}", file=sys.stderr, flush=True)
+
+    @staticmethod
+    def loadavg():
+        return "{:.2f} {:.2f} {:.2f}".format(*os.getloadavg())
+
+    def run(self, cmd, **kw):
+        return subprocess.run([str(c) for c in cmd], check=True, text=True, capture_output=True, **kw)
+
+    def timed(self, cmd, stdout=subprocess.DEVNULL):
+        """Runs cmd under /usr/bin/time -v: (wall seconds, peak RSS in MiB, stdout)."""
+        t0 = time.perf_counter()
+        p = subprocess.run(["/usr/bin/time", "-v"] + [str(c) for c in cmd], text=True,
+                           stdout=stdout, stderr=subprocess.PIPE)
+        wall = time.perf_counter() - t0
+        if p.returncode != 0:
+            raise RuntimeError(f"{cmd[0]} failed ({p.returncode}):\n{p.stderr[-2000:]}")
+        rss = int(re.search(r"Maximum resident set size \(kbytes\): (\d+)", p.stderr).group(1)) / 1024
+        return wall, rss, p.stdout
+
+    def new_root(self, name, settle=1, debounce=0):
+        root = self.work / name
+        if root.exists():
+            shutil.rmtree(root)
+        root.mkdir(parents=True)
+        (root / "ferrum.ini").write_text(INI.format(settle=settle, debounce=debounce))
+        self.run([self.ferrum, "init", "--root", root])
+        (root / "drop" / "bench").mkdir(parents=True, exist_ok=True)
+        return root
+
+    def drop(self, root, src, copy=True):
+        dst = root / "drop" / "bench" / Path(src).name
+        tmp = dst.with_name("." + dst.name + ".part")
+        (shutil.copyfile if copy else os.link)(src, tmp)
+        os.rename(tmp, dst)
+        return dst
+
+    def ingest(self, root, *files):
+        """Untimed `ferrum ingest`; every file must be accepted."""
+        p = self.run([self.ferrum, "ingest", "--root", root] + [str(f) for f in files])
+        bad = [l for l in p.stdout.splitlines() if not l.startswith("accepted")]
+        if bad:
+            raise RuntimeError("setup file not accepted: " + "; ".join(bad))
+        return p.stdout
+
+    def generated(self, name, *args):
+        """A generated file or folder under data/, made once (the generator is deterministic)."""
+        path = self.data / name
+        if not path.exists():
+            self.log(f"generating {name}")
+            tmp = path.with_name(path.name + ".building")
+            if tmp.is_dir():
+                shutil.rmtree(tmp)
+            self.run([self.gen, *args, tmp])
+            os.rename(tmp, path)
+        return path
+
+    def add(self, what, value, unit, reference="", ratio="", target="", met=""):
+        self.rows.append((what, value, unit, reference, ratio, target, met))
+
+    def section(self, name):
+        self.log(f"{name}: load average {self.loadavg()}")
+        self.notes.append(f"- {name}: load average at start {self.loadavg()}")
+
+    # ------------------------------------------------------------ 1. ingest
+    def bench_ingest(self):
+        self.section("ingest")
+        register = self.generated(f"units-{INGEST_UNITS}.csv", "register", INGEST_UNITS)
+        sizes = [1_000_000] + ([10_000_000] if self.args.with_10m else [])
+        results = {}
+        for rows in sizes:
+            data = self.generated(f"load-{rows}.csv", "load", rows, INGEST_UNITS)
+            reps = self.args.repeat if rows == 1_000_000 else 1
+            f_wall, f_rss, s_wall, s_rss = [], [], [], []
+            for i in range(reps):
+                root = self.new_root("ingest-root")
+                self.ingest(root, self.drop(root, register))
+                dropped = self.drop(root, data)
+                wall, rss, out = self.timed([self.ferrum, "ingest", "--root", root, dropped], stdout=subprocess.PIPE)
+                if not out.startswith("accepted") or f"{rows} rows" not in out:
+                    raise RuntimeError("ferrum ingest did not accept the file: " + out)
+                f_wall.append(wall)
+                f_rss.append(rss)
+                db = self.work / "shell-import.db"
+                db.unlink(missing_ok=True)
+                wall, rss, _ = self.timed(["sqlite3", db, ".mode csv", f".import {data} load"])
+                count = self.run(["sqlite3", db, "SELECT count(*) FROM load"]).stdout.strip()
+                if int(count) != rows:
+                    raise RuntimeError(f"sqlite3 .import gave {count} rows")
+                s_wall.append(wall)
+                s_rss.append(rss)
+                self.log(f"ingest {rows} rows #{i + 1}: ferrum {f_wall[-1]:.2f} s {f_rss[-1]:.0f} MiB,"
+                         f" sqlite3 shell {s_wall[-1]:.2f} s  (load {self.loadavg()})")
+            fw, sw = statistics.median(f_wall), statistics.median(s_wall)
+            results[rows] = statistics.median(f_rss)
+            label = f"{rows // 1_000_000}M"
+            ratio = sw / fw
+            self.add(f"ingest {label} load rows: `ferrum ingest` (n={reps})", f"{rows / fw / 1e3:.0f}k",
+                     "rows/s", f"{rows / sw / 1e3:.0f}k (sqlite3 .import)", f"{ratio:.2f}×", "≥ 1.0×",
+                     "yes" if ratio >= 1.0 else "no")
+            self.add(f"ingest {label}: wall time ferrum / sqlite3 shell", f"{fw:.2f}", "s", f"{sw:.2f}", "", "", "")
+            self.add(f"ingest {label}: peak RSS ferrum / sqlite3 shell", f"{results[rows]:.0f}", "MiB",
+                     f"{statistics.median(s_rss):.0f}", "", "", "")
+        if 10_000_000 in results:
+            growth = results[10_000_000] / results[1_000_000]
+            self.add("ingest peak RSS 10M / 1M rows", f"{growth:.2f}", "×", "1M run", f"{growth:.2f}×", "≤ 1.2×",
+                     "yes" if growth <= 1.2 else "no")
+
+    # ------------------------------------------------------------ 2. fleet
+    def fleet_root(self):
+        """The 5,000-unit site, ingested once and kept (its data is deterministic)."""
+        files = self.generated(f"fleet-{FLEET_UNITS}", "fleet", FLEET_UNITS)
+        root = self.work / "fleet-root"
+        if (root / ".complete").exists():
+            return root
+        self.log("ingesting the fleet (once; kept in the work folder)")
+        root = self.new_root("fleet-root")
+        t0 = time.perf_counter()
+        self.ingest(root, self.drop(root, files / "units.csv"))
+        others = ["oil.csv", "infrared.csv", "inspection.csv"] + sorted(
+            p.name for p in files.glob("load-*.csv"))
+        self.ingest(root, *[self.drop(root, files / name) for name in others])
+        (root / ".complete").write_text(f"ingested in {time.perf_counter() - t0:.1f} s\n")
+        return root
+
+    def bench_fleet(self):
+        root = self.fleet_root()
+        self.section("fleet")
+        db = root / "ferrum.db"
+        counts = {}
+        for table in ["units", "oil_samples", "oil_values", "infrared_scans", "inspections", "load_points"]:
+            counts[table] = int(self.run(["sqlite3", "-readonly", db, f"SELECT count(*) FROM {table}"]).stdout)
+        select_all = "; ".join(f"SELECT * FROM {t}" for t in counts)
+        assess_t, rank_t, floor_t = [], [], []
+        for i in range(self.args.repeat):
+            wall, rss, _ = self.timed(["sqlite3", "-readonly", db, select_all])
+            floor_t.append(wall)
+            wall, a_rss, out = self.timed([self.ferrum, "assess", "--root", root, "--json", "--as-of", AS_OF],
+                                          stdout=subprocess.PIPE)
+            assess_t.append(wall)
+            if len(json.loads(out)) != FLEET_UNITS:
+                raise RuntimeError("assess --json did not list every unit")
+            wall, r_rss, out = self.timed([self.ferrum, "rank", "--root", root, "--as-of", AS_OF])
+            rank_t.append(wall)
+            self.log(f"fleet #{i + 1}: assess {assess_t[-1]:.1f} s ({a_rss:.0f} MiB), rank {rank_t[-1]:.1f} s"
+                     f" ({r_rss:.0f} MiB), plain SELECT {floor_t[-1]:.1f} s  (load {self.loadavg()})")
+        a, r, f = (statistics.median(x) for x in (assess_t, rank_t, floor_t))
+        n = counts["units"]
+        self.add(f"fleet: `assess --json` + `rank`, {n} units (n={self.args.repeat})", f"{a + r:.1f}", "s",
+                 f"{f:.1f} (2 × SELECT: {2 * f:.1f})", f"{(a + r) / (2 * f):.2f}× of 2 SELECTs", "≤ 60 s",
+                 "yes" if a + r <= 60 else "no")
+        self.add("fleet: `assess --json` per unit", f"{a / n * 1e3:.2f}", "ms", f"{f / n * 1e3:.2f} (SELECT)",
+                 f"{a / f:.2f}×", "", "")
+        self.add("fleet: `rank` per unit", f"{r / n * 1e3:.2f}", "ms", f"{f / n * 1e3:.2f} (SELECT)",
+                 f"{r / f:.2f}×", "", "")
+        self.notes.append("- fleet rows: " + ", ".join(f"{t} {c:,}" for t, c in counts.items()))
+
+    # ------------------------------------------------------------ 3+4. kernels
+    def bench_kernels(self):
+        self.section("kernels")
+        out_json = self.work / "kernels.json"
+        pdfs = self.work / "reports"
+        shutil.rmtree(pdfs, ignore_errors=True)
+        env = dict(os.environ, FERRUM_BENCH_OUT=str(pdfs))
+        subprocess.run([str(self.kernels), f"--benchmark_repetitions={self.args.repeat}",
+                        "--benchmark_report_aggregates_only=true", f"--benchmark_out={out_json}",
+                        "--benchmark_out_format=json"], check=True, env=env, stdout=sys.stderr)
+        med = {}
+        for b in json.loads(out_json.read_text())["benchmarks"]:
+            if b.get("aggregate_name") == "median":
+                med[b["run_name"]] = b
+        th = med["BM_ThermalUnitYear"]
+        ms = th["real_time"]
+        self.add(f"thermal kernel: 525,600 one-minute steps (n={self.args.repeat})", f"{ms:.1f}", "ms", "", "",
+                 "≤ 20 ms", "yes" if ms <= 20 else "no")
+        self.add("thermal kernel: per step", f"{ms * 1e6 / 525600:.1f}", "ns", "", "", "", "")
+        one = med["BM_UnitReports/1/iterations:1/real_time"]["real_time"] / 200
+        two = med["BM_UnitReports/2/iterations:1/real_time"]["real_time"] / 200
+        pages = self.run(["qpdf", "--show-npages", next(pdfs.glob("*.pdf"))]).stdout.strip()
+        self.add(f"unit report ({pages} pages), 1 thread (n={self.args.repeat})", f"{one:.1f}", "ms/unit", "", "",
+                 "≤ 50 ms", "yes" if one <= 50 else "no")
+        self.add("unit reports, 2 threads", f"{two:.1f}", "ms/unit", f"{one:.1f} (1 thread)",
+                 f"{one / two:.2f}× speed-up", "≥ 1.7×", "yes" if one / two >= 1.7 else "no")
+
+    # ------------------------------------------------------------ 5. latency
+    def bench_latency(self):
+        files = self.generated(f"fleet-{LATENCY_UNITS}", "fleet", LATENCY_UNITS)
+        drops = self.generated(f"lab-drops-{LATENCY_DROPS}", "lab", LATENCY_DROPS, LATENCY_UNITS)
+        root = self.new_root("latency-root", settle=0, debounce=0)
+        self.ingest(root, self.drop(root, files / "units.csv"))
+        self.ingest(root, *[self.drop(root, files / n) for n in
+                            ["oil.csv", "infrared.csv", "inspection.csv", "load-01.csv"]])
+        self.section("latency")
+        log = open(root / "serve.out", "w")
+        daemon = subprocess.Popen([str(self.ferrum), "serve", "--root", str(root)], stdout=log, stderr=log)
+        try:
+            self.wait(lambda: self.idle(root), 60, "the daemon to start")
+            to_receipt, to_report = [], []
+            for i, src in enumerate(sorted(drops.glob("lab-*.csv"))):
+                unit = src.read_text().splitlines()[1].split(",")[0]
+                tmp = root / "drop" / "bench" / ("." + src.name + ".part")
+                shutil.copyfile(src, tmp)
+                receipt = root / "drop" / "bench" / "receipts" / (src.name + ".json")
+                t0 = time.time()
+                os.rename(tmp, root / "drop" / "bench" / src.name)
+                t_receipt = self.wait(lambda: receipt.exists(), 30, f"the receipt of {src.name}")
+                t_report = self.wait(lambda: self.report_newer(root, unit, t0), 30, f"the report of {unit}")
+                to_receipt.append(t_receipt - t0)
+                to_report.append(t_report - t0)
+                if '"accepted"' not in receipt.read_text():
+                    raise RuntimeError(f"{src.name} was not accepted")
+        finally:
+            daemon.terminate()
+            daemon.wait(timeout=30)
+            log.close()
+
+        def p95(v):
+            return sorted(v)[max(0, int(round(0.95 * len(v))) - 1)]
+        for what, v in (("receipt", to_receipt), ("updated unit report", to_report)):
+            ok = p95(v) <= 1.0
+            self.add(f"latency: rename → {what}, median (n={len(v)})", f"{statistics.median(v) * 1e3:.0f}", "ms",
+                     "", "", "", "")
+            self.add(f"latency: rename → {what}, p95", f"{p95(v) * 1e3:.0f}", "ms", "settle 0 s", "",
+                     "≤ 1000 ms", "yes" if ok else "no")
+
+    @staticmethod
+    def idle(root):
+        try:
+            s = json.loads((root / "status.json").read_text())
+            return s["files_waiting"] == 0 and s["units_waiting_for_report"] == 0
+        except (OSError, ValueError, KeyError):
+            return False
+
+    @staticmethod
+    def report_newer(root, unit, t0):
+        for p in (root / "reports").glob(f"ferrum-{unit}-*.pdf"):
+            if p.stat().st_mtime >= t0:
+                return True
+        return False
+
+    @staticmethod
+    def wait(predicate, timeout, what):
+        end = time.time() + timeout
+        while time.time() < end:
+            if predicate():
+                return time.time()
+            time.sleep(0.002)
+        raise RuntimeError(f"timed out waiting for {what}")
+
+    # ------------------------------------------------------------ output
+    def table(self):
+        head = ["benchmark", "median", "unit", "reference (same run)", "ratio", "target", "met"]
+        lines = ["| " + " | ".join(head) + " |", "|" + "---|" * len(head)]
+        lines += ["| " + " | ".join(str(c) for c in r) + " |" for r in self.rows]
+        return "\n".join(lines)
+
+    def write(self, started):
+        commit = self.run(["git", "-C", Path(__file__).resolve().parent.parent, "rev-parse", "--short", "HEAD"]).stdout.strip()
+        cpu = next((l.split(":", 1)[1].strip() for l in open("/proc/cpuinfo") if l.startswith("model name")), "?")
+        text = [f"Run {started} UTC, commit {commit}, {os.cpu_count()} × {cpu}, "
+                f"repeat {self.args.repeat}, Release build.", "", self.table(), ""] + self.notes + \
+               [f"- load average at end {self.loadavg()}", ""]
+        print("\n".join(text))
+        if self.args.results:
+            self.merge_results(Path(self.args.results), "\n".join(text))
+
+    @staticmethod
+    def merge_results(path, text):
+        """Replaces the part of results.md between the markers, keeping the prose around it."""
+        begin, end = "<!-- bench/run: table begins -->", "<!-- bench/run: table ends -->"
+        old = path.read_text() if path.exists() else f"# Benchmark results\n\n{begin}\n{end}\n"
+        if begin not in old:
+            old += f"\n{begin}\n{end}\n"
+        head, rest = old.split(begin, 1)
+        tail = rest.split(end, 1)[1] if end in rest else ""
+        path.write_text(f"{head}{begin}\n{text}\n{end}{tail}")
+
+
+def main():
+    ap = argparse.ArgumentParser(description=__doc__, formatter_class=argparse.RawDescriptionHelpFormatter)
+    ap.add_argument("--build", required=True, help="Release build folder")
+    ap.add_argument("--work", required=True, help="scratch folder for data and site roots")
+    ap.add_argument("--repeat", type=int, default=3)
+    ap.add_argument("--with-10m", action="store_true", help="also ingest a 10,000,000-row file (peak memory)")
+    ap.add_argument("--only", action="append", choices=["ingest", "fleet", "kernels", "latency"])
+    ap.add_argument("--results", help="results.md to update")
+    args = ap.parse_args()
+    b = Bench(args)
+    started = datetime.datetime.now(datetime.timezone.utc).strftime("%Y-%m-%d %H:%M")
+    for name in args.only or ["ingest", "fleet", "kernels", "latency"]:
+        getattr(b, "bench_" + name)()
+    b.write(started)
+
+
+if __name__ == "__main__":
+    main()
