@@ -30,50 +30,25 @@
 #include <string_view>
 #include <vector>
 
+#include "analytics/calendar.h"
+
 namespace {
 
 namespace fs = std::filesystem;
 
 // ---------------------------------------------------------------- calendar
-// Days since 1970-01-01 (H. Hinnant's public-domain civil-date algorithms).
-using Day = int;
-
-Day days_from_civil(int y, int m, int d) {
-  y -= m <= 2;
-  const int era = (y >= 0 ? y : y - 399) / 400;
-  const int yoe = y - era * 400;
-  const int doy = (153 * (m + (m > 2 ? -3 : 9)) + 2) / 5 + d - 1;
-  const int doe = yoe * 365 + yoe / 4 - yoe / 100 + doy;
-  return era * 146097 + doe - 719468;
-}
-
-struct Civil {
-  int y, m, d;
-};
-
-Civil civil_from_days(Day z) {
-  z += 719468;
-  const int era = (z >= 0 ? z : z - 146096) / 146097;
-  const int doe = z - era * 146097;
-  const int yoe = (doe - doe / 1460 + doe / 36524 - doe / 146096) / 365;
-  const int doy = doe - (365 * yoe + yoe / 4 - yoe / 100);
-  const int mp = (5 * doy + 2) / 153;
-  const int d = doy - (153 * mp + 2) / 5 + 1;
-  const int m = mp < 10 ? mp + 3 : mp - 9;
-  return {yoe + era * 400 + (m <= 2), m, d};
-}
-
-std::string iso_day(Day day) {
-  const Civil c = civil_from_days(day);
-  char buf[16];
-  std::snprintf(buf, sizeof buf, "%04d-%02d-%02d", c.y, c.m, c.d);
-  return buf;
-}
+// Day arithmetic comes from ferrum's analytics library (analytics/calendar.h).
+using ferrum::analytics::civil_from_days;
+using ferrum::analytics::CivilDate;
+using ferrum::analytics::Day;
+using ferrum::analytics::days_from_civil;
+using ferrum::analytics::format_day;  // "YYYY-MM-DD"
+using ferrum::analytics::weekday_of;  // 0 = Monday
 
 // Fraction of the year, 0 at 1 January.
 double year_phase(Day day) {
-  const Civil c = civil_from_days(day);
-  return (day - days_from_civil(c.y, 1, 1)) / 365.25;
+  const CivilDate c = civil_from_days(day);
+  return (day - days_from_civil(c.year, 1, 1)) / 365.25;
 }
 
 constexpr double kPi = 3.14159265358979323846;
@@ -331,7 +306,7 @@ std::string local_timestamp(long long utc) {
   const Day day = static_cast<Day>(local / 86400);
   const int sec = static_cast<int>(local % 86400);
   char buf[40];
-  std::snprintf(buf, sizeof buf, "%sT%02d:%02d+%02d:00", iso_day(day).c_str(), sec / 3600,
+  std::snprintf(buf, sizeof buf, "%sT%02d:%02d+%02d:00", format_day(day).c_str(), sec / 3600,
                 sec / 60 % 60, off / 60);
   return buf;
 }
@@ -393,8 +368,6 @@ double day_shape(LoadShape shape, double hour, int weekday) {
   }
   return 0.5;
 }
-
-int weekday_of(Day day) { return ((day % 7) + 10) % 7; }  // 1970-01-01 was a Thursday
 
 // Load in p.u. before scaling to the unit's peak, without noise.
 double load_raw(const Unit& u, long long utc, double ambient) {
@@ -592,7 +565,7 @@ Row oil_row(const Unit& u, const Sample& s, int seq, Rng& rng) {
   const double temp = oil_temperature(u, s.date, rng);
   Row r;
   r.cells.push_back(u.id);
-  r.cells.push_back(iso_day(s.date));
+  r.cells.push_back(format_day(s.date));
   r.cells.push_back(gas(u.start.h2, u.end.h2, u.fault.h2, 5));
   r.cells.push_back(gas(u.start.ch4, u.end.ch4, u.fault.ch4, 1));
   r.cells.push_back(gas(u.start.c2h6, u.end.c2h6, u.fault.c2h6, 1));
@@ -621,14 +594,14 @@ Row oil_row(const Unit& u, const Sample& s, int seq, Rng& rng) {
     r.cells.push_back(old_lims ? "" : num(lerp(u.q_start.pf100, u.q_end.pf100, f) * (1 + 0.05 * rng.normal()), 2));
     r.cells.push_back(num(std::round(lerp(u.q_start.color, u.q_end.color, f) * 2) / 2, 1));
     // Furans every third year, yearly on units with ageing paper.
-    const bool furans = u.fal_end_ppb > 1000 || (civil_from_days(s.date).y - u.history_from) % 3 == 0;
+    const bool furans = u.fal_end_ppb > 1000 || (civil_from_days(s.date).year - u.history_from) % 3 == 0;
     r.cells.push_back(furans ? furan_text(u, s.date, f, rng) : "");
   } else {
     for (int i = 0; i < 8; ++i) r.cells.push_back("");
   }
-  const Civil c = civil_from_days(s.date);
+  const CivilDate c = civil_from_days(s.date);
   char ref[32];
-  std::snprintf(ref, sizeof ref, "QL-%04d-%s-%03d", c.y, u.id, seq);
+  std::snprintf(ref, sizeof ref, "QL-%04d-%s-%03d", c.year, u.id, seq);
   r.cells.push_back(ref);
   r.cells.push_back("main_tank");
   return r;
@@ -668,7 +641,7 @@ void infrared_rows(const Unit& u, int survey_index, int unit_index, DropFile& f)
   const long long utc = static_cast<long long>(sv.date) * 86400 + (11 + unit_index % 4) * 3600LL;
   const double ambient = ambient_expected(site_of(u), utc) + 1.2 * rng.normal();
   const double k = load_at(u, utc, ambient);
-  const std::string date = iso_day(sv.date);
+  const std::string date = format_day(sv.date);
   const std::string load = num(k * 100, 0);
   int image = 1;
   auto row = [&](const std::string& comp, double spot, const std::string& ref, double emis,
@@ -799,7 +772,7 @@ bool write_inspections(const fs::path& dir) {
     for (int year = 2018; year <= 2026; ++year) {
       DropFile f(dir, std::string("inspection-") + v.site + "-" + std::to_string(year) + ".csv");
       f.line("unit_id,inspection_date,item,rating,note,inspector");
-      const std::string date = iso_day(days_from_civil(year, v.month, v.day));
+      const std::string date = format_day(days_from_civil(year, v.month, v.day));
       int units = 0;
       for (const Unit& u : fleet()) {
         if (std::string_view(u.site) != v.site || u.year_built > year) continue;
