@@ -41,6 +41,16 @@ std::string format_day(Day d) {
   return buf;
 }
 
+std::string format_utc(Timestamp t) {
+  const Day d = day_of(t);
+  const CivilDate c = civil_from_days(d);
+  const long long sod = t - start_of(d);  // 0 .. 86399
+  char buf[40];
+  std::snprintf(buf, sizeof buf, "%04d-%02d-%02dT%02lld:%02lld:%02lldZ", c.year, c.month, c.day, sod / 3600,
+                (sod / 60) % 60, sod % 60);
+  return buf;
+}
+
 int weekday_of(Day d) {
   // 1970-01-01 was a Thursday (index 3 with Monday = 0).
   const int w = (d + 3) % 7;

@@ -29,6 +29,9 @@ bool is_valid_date(int year, int month, int day);
 // "YYYY-MM-DD".
 std::string format_day(Day d);
 
+// "YYYY-MM-DDTHH:MM:SSZ" (ISO 8601, UTC).
+std::string format_utc(Timestamp t);
+
 // Day containing a timestamp, in UTC.
 inline Day day_of(Timestamp t) {
   return static_cast<Day>(t >= 0 ? t / 86400 : -((-t + 86399) / 86400));

@@ -164,11 +164,7 @@ int cmd_thermal(const Invocation& inv) {
             << "ageing_rate" << sep << "measured_top_oil_c\n";
   std::cout << std::fixed;
   for (const auto& p : series) {
-    const auto c = analytics::civil_from_days(analytics::day_of(p.t));
-    const long long sod = p.t - analytics::start_of(analytics::day_of(p.t));
-    char ts[32];
-    std::snprintf(ts, sizeof ts, "%04d-%02d-%02dT%02lld:%02lldZ", c.year, c.month, c.day, sod / 3600, (sod / 60) % 60);
-    std::cout << ts << sep << std::setprecision(3) << p.load_pu << sep << std::setprecision(1) << p.ambient_c << sep
+    std::cout << analytics::format_utc(p.t) << sep << std::setprecision(3) << p.load_pu << sep << std::setprecision(1) << p.ambient_c << sep
               << p.top_oil_c << sep << p.hot_spot_c << sep << std::setprecision(4) << p.ageing_rate << sep;
     if (!std::isnan(p.measured_top_oil_c)) std::cout << std::setprecision(1) << p.measured_top_oil_c;
     std::cout << "\n";

@@ -29,15 +29,7 @@ Var opt(const std::optional<std::string>& v) { return v ? Var(*v) : Var(); }
 Var opt_day(const std::optional<analytics::Day>& d) { return d ? Var(analytics::format_day(*d)) : Var(); }
 Var text_or_null(const std::string& s) { return s.empty() ? Var() : Var(s); }
 
-std::string format_ts(analytics::Timestamp t) {
-  const analytics::CivilDate c = analytics::civil_from_days(analytics::day_of(t));
-  const long long sod = t - analytics::start_of(analytics::day_of(t));
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%04d-%02d-%02dT%02lld:%02lld:%02lldZ", c.year, c.month, c.day, sod / 3600,
-                (sod / 60) % 60, sod % 60);
-  return buf;
-}
-Var opt_ts(const std::optional<analytics::Timestamp>& t) { return t ? Var(format_ts(*t)) : Var(); }
+Var opt_ts(const std::optional<analytics::Timestamp>& t) { return t ? Var(analytics::format_utc(*t)) : Var(); }
 
 Array::Ptr strings(const std::vector<std::string>& v) {
   Array::Ptr a = new Array;

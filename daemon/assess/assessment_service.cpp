@@ -51,6 +51,19 @@ std::vector<analytics::UnitAssessment> assess_fleet(store::Store& store, analyti
   return out;
 }
 
-analytics::RankingOptions ranking_options_from_config(const config::SiteConfig&) { return {}; }
+analytics::RankingOptions ranking_options_from_config(const config::SiteConfig& config) {
+  analytics::RankingOptions o;
+  for (const auto& [key, v] : config.ranking) {
+    if (key == "pof_as_new") o.pof_as_new = v;
+    else if (key == "pof_at_zero") o.pof_at_zero = v;
+    else if (key == "weight_criticality") o.weight_criticality = v;
+    else if (key == "weight_customers") o.weight_customers = v;
+    else if (key == "weight_mva") o.weight_mva = v;
+    else if (key == "customers_reference") o.customers_reference = v;
+    else if (key == "mva_reference") o.mva_reference = v;
+  }
+  if (!config.ranking.empty()) o.pof_source += "; overridden in ferrum.ini [ranking]";
+  return o;
+}
 
 }  // namespace ferrum::assess

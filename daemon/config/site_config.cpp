@@ -139,6 +139,30 @@ std::vector<Key> make_keys() {
                    c.health_weights[f] = parse_number("health." + name, v, 0, 100);
                  }});
   }
+  struct RankingKey {
+    const char* name;
+    double lo, hi;
+    const char* comment;
+  };
+  static const RankingKey kRanking[] = {
+      {"pof_as_new", 0, 1, "Fleet ranking: probability of failure per year at health index 100 and at 0\n"
+                           "(exponential in between). Empty = ferrum's defaults 0.002 and 0.2 (README)."},
+      {"pof_at_zero", 0, 1, ""},
+      {"weight_criticality", 0, 100, "Consequence = weighted criticality (1-5), customers served and rated MVA.\n"
+                                     "Empty = defaults 0.5, 0.3, 0.2."},
+      {"weight_customers", 0, 100, ""},
+      {"weight_mva", 0, 100, ""},
+      {"customers_reference", 1, 1e9, "Customers and MVA at which their part of the consequence reaches 1 (10000, 100)."},
+      {"mva_reference", 1, 1e6, ""},
+  };
+  for (const auto& r : kRanking) {
+    const std::string name = r.name;
+    const double lo = r.lo, hi = r.hi;
+    k.push_back({"ranking", name, Type::number, "", true, r.comment, [name, lo, hi](SiteConfig& c, const std::string& v) {
+                   if (v.empty()) return;
+                   c.ranking[name] = parse_number("ranking." + name, v, lo, hi);
+                 }});
+  }
   k.push_back({"log", "level", Type::text, "info", true, "trace, debug, info, warn, error.",
                [](SiteConfig& c, const std::string& v) {
                  const std::string l = Poco::toLower(v);
@@ -318,6 +342,7 @@ std::vector<std::string> describe_changes(const SiteConfig& a, const SiteConfig&
   cmp("analysis.inspection_interval_days", a.inspection_interval_days, b.inspection_interval_days);
   cmp("log.level", a.log_level, b.log_level);
   if (a.health_weights != b.health_weights) out.push_back("health weights changed");
+  if (a.ranking != b.ranking) out.push_back("ranking settings changed");
   if (a.extra_inspection_items != b.extra_inspection_items) out.push_back("ingest.extra_inspection_items changed");
   for (const auto& [name, p] : b.parties) {
     auto it = a.parties.find(name);

@@ -54,6 +54,8 @@ struct SiteConfig {
   std::string thermal_method = "iec60076_7";
   int inspection_interval_days = 365;
   std::map<std::string, double> health_weights;  // factor name -> weight override
+  // [ranking]
+  std::map<std::string, double> ranking;         // key -> override of the ranking defaults
   // [log]
   std::string log_level = "info";
   int log_file_mb = 10;

@@ -25,14 +25,6 @@ bool ends_with(const std::string& s, const std::string& suffix) {
   return s.size() >= suffix.size() && s.compare(s.size() - suffix.size(), suffix.size(), suffix) == 0;
 }
 
-std::string iso_utc(std::int64_t t) {
-  const auto c = analytics::civil_from_days(analytics::day_of(t));
-  const long long sod = t - analytics::start_of(analytics::day_of(t));
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%04d-%02d-%02dT%02lld:%02lld:%02lldZ", c.year, c.month, c.day, sod / 3600,
-                (sod / 60) % 60, sod % 60);
-  return buf;
-}
 
 // A file-system name may be at most 255 bytes; long dropped names are cut
 // (keeping the extension) before a hash or ".json" is added.
@@ -68,6 +60,31 @@ fs::path move_to_free_name(const fs::path& from, const fs::path& wanted) {
   throw std::runtime_error("no free name for " + wanted.string());
 }
 
+// Size and modification time of a file: if they differ after the import,
+// the file was written to while it was read.
+struct FileStamp {
+  long long size = -1;
+  long long mtime_ns = -1;
+  static FileStamp of(const fs::path& p) {
+    struct stat st {};
+    if (::stat(p.c_str(), &st) != 0) return {};
+    return {static_cast<long long>(st.st_size), st.st_mtim.tv_sec * 1000000000LL + st.st_mtim.tv_nsec};
+  }
+  bool operator==(const FileStamp&) const = default;
+};
+
+// What the parse found, into the receipt.
+void fill_receipt(Receipt& r, const ImportResult& result, const config::SiteConfig& config) {
+  r.kind = result.kind;
+  r.rows = result.rows;
+  r.problems = result.problems.kept();
+  r.problem_count = result.problems.count();
+  r.warnings = result.warnings.entries();
+  r.reason = result.file_reason;
+  if (result.offset_assumed)
+    r.utc_offset_note = "times without a UTC offset were taken as UTC" + config.utc_offset_text + " (site.utc_offset)";
+}
+
 }  // namespace
 
 std::int64_t system_clock_now() {
@@ -101,15 +118,30 @@ bool Pipeline::is_ignored_name(const std::string& name) {
   return name.empty() || name[0] == '.' || ends_with(name, ".part") || ends_with(name, ".tmp") || name == "receipts";
 }
 
-std::string Pipeline::now_text() const { return iso_utc(clock_()); }
+std::string Pipeline::now_text() const { return analytics::format_utc(clock_()); }
 
 fs::path Pipeline::destination(const std::string& status, const std::string& name, const std::string& sha,
                                std::int64_t now) const {
-  if (status == "rejected") return root_.quarantine() / stored_name(name, sha);
-  const auto c = analytics::civil_from_days(analytics::day_of(now));
-  char ym[16];
-  std::snprintf(ym, sizeof ym, "%04d/%02d", c.year, c.month);
-  return root_.archive() / ym / stored_name(name, sha);
+  fs::path wanted;
+  if (status == "rejected") {
+    wanted = root_.quarantine() / stored_name(name, sha);
+  } else {
+    const auto c = analytics::civil_from_days(analytics::day_of(now));
+    char ym[16];
+    std::snprintf(ym, sizeof ym, "%04d/%02d", c.year, c.month);
+    wanted = root_.archive() / ym / stored_name(name, sha);
+  }
+  // The record must name the place the file will really have: a taken name
+  // (the same file dropped again) gets its .2, .3... here, before the record
+  // is written, not at the move. Otherwise the record points at the earlier
+  // copy and recover() takes a committed file for an uncommitted one.
+  std::error_code ec;
+  for (int i = 2; fs::exists(wanted, ec) && i < 10000; ++i) {
+    fs::path alt = wanted;
+    alt += "." + std::to_string(i);
+    if (!fs::exists(alt, ec)) return alt;
+  }
+  return wanted;
 }
 
 std::vector<fs::path> Pipeline::waiting_files() const {
@@ -211,6 +243,7 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
   r.file = name;
   r.party = party;
   r.received_at = received_at;
+  const FileStamp before = FileStamp::of(claimed);
   r.sha256 = sha256_of_file(claimed);
   const std::int64_t now = clock_();
 
@@ -239,15 +272,15 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
     std::ifstream in(claimed, std::ios::binary);
     if (!in) throw std::runtime_error("cannot open the claimed file " + claimed.string());
     result = import_stream(in, settings, store_);
-    r.kind = result.kind;
-    r.rows = result.rows;
-    r.problems = result.problems.kept();
-    r.problem_count = result.problems.count();
-    r.warnings = result.warnings.entries();
-    r.reason = result.file_reason;
-    if (result.offset_assumed)
-      r.utc_offset_note = "times without a UTC offset were taken as UTC" + config_.utc_offset_text + " (site.utc_offset)";
-    const bool ok = result.problems.empty() && result.file_reason.empty() && !result.kind.empty();
+    fill_receipt(r, result, config_);
+    // A writer still holding the file open may have appended to it while it
+    // was hashed and parsed: the rows would not be those of the stored bytes.
+    const bool changed = !(FileStamp::of(claimed) == before);
+    if (changed) {
+      r.reason = "the file changed while it was being read (was it still being written?); drop it again once it is complete";
+      r.sha256 = sha256_of_file(claimed);
+    }
+    const bool ok = !changed && result.problems.empty() && result.file_reason.empty() && !result.kind.empty();
     if (ok) {
       r.status = "accepted";
       r.units.assign(result.units.begin(), result.units.end());
@@ -325,6 +358,7 @@ std::vector<FileOutcome> Pipeline::recover() {
           rec->original_name == name) {
         // Committed before the crash; only the move and receipt were left.
         FileOutcome o;
+        o.receipt = Receipt::from_json(rec->receipt_json);
         o.receipt.file = name;
         o.receipt.party = party;
         o.receipt.status = rec->status;
@@ -334,6 +368,8 @@ std::vector<FileOutcome> Pipeline::recover() {
         o.receipt.received_at = rec->received_at;
         o.receipt.stored_as = rec->stored_as;
         o.receipt.problem_count = rec->problem_count;
+        // The units it changed, so that their reports are rendered again.
+        if (rec->status == "accepted") o.units = o.receipt.units;
         fs::create_directories((root_.root / rec->stored_as).parent_path());
         const fs::path actual = move_to_free_name(f.path(), root_.root / rec->stored_as);
         if (config_.party(party)) {
@@ -418,15 +454,8 @@ Receipt Pipeline::check(const fs::path& file, const std::string& party) {
     throw;
   }
   store_.rollback();
-  r.kind = result.kind;
-  r.rows = result.rows;
-  r.problems = result.problems.kept();
-  r.problem_count = result.problems.count();
-  r.warnings = result.warnings.entries();
-  r.reason = result.file_reason;
+  fill_receipt(r, result, config_);
   r.units.assign(result.units.begin(), result.units.end());
-  if (result.offset_assumed)
-    r.utc_offset_note = "times without a UTC offset would be taken as UTC" + config_.utc_offset_text;
   if (result.problems.empty() && result.file_reason.empty() && !result.kind.empty()) r.status = "accepted";
   r.stored_as = "(check only: nothing stored)";
   return r;

@@ -30,14 +30,6 @@ namespace {
 
 std::int64_t now_utc() { return ingest::system_clock_now(); }
 
-std::string iso(std::int64_t t) {
-  const auto c = analytics::civil_from_days(analytics::day_of(t));
-  const long long sod = t - analytics::start_of(analytics::day_of(t));
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%04d-%02d-%02dT%02lld:%02lld:%02lldZ", c.year, c.month, c.day, sod / 3600,
-                (sod / 60) % 60, sod % 60);
-  return buf;
-}
 
 std::int64_t parse_iso(const std::string& s) {
   int y = 0, mo = 0, d = 0, h = 0, mi = 0, se = 0;
@@ -123,6 +115,7 @@ struct Server::Impl {
   std::chrono::steady_clock::time_point next_rescan{};
   std::chrono::steady_clock::time_point retry_at{};
   std::chrono::seconds backoff{1};
+  std::chrono::steady_clock::time_point weekly_retry_at{};  // after a failed bundle
   std::vector<fs::path> retry;  // files whose import failed for a reason not theirs
   std::string last_import, last_import_party, last_import_at;
   std::vector<std::string> recent_rejections;
@@ -174,7 +167,7 @@ struct Server::Impl {
       const std::string unit = item.substr(0, colon);
       writer->alert(unit, "unsafe_inspection", "inspection rated an item UNSAFE: " + item.substr(colon + 2),
                     "Keep people away from the unit and have a qualified engineer assess it before any work.",
-                    iso(now_utc()));
+                    analytics::format_utc(now_utc()));
     }
   }
 
@@ -201,10 +194,16 @@ struct Server::Impl {
       auto again = std::move(retry);
       retry.clear();
       try {
+        // Files left in work/ by the failure are finished or imported again.
         for (const auto& o : pipeline->recover()) note_outcome(o);
         backoff = std::chrono::seconds(1);
       } catch (const std::exception& e) {
-        spdlog::error("recovery failed: {}", e.what());
+        // Still failing: keep the files where they are and try again later.
+        spdlog::error("retry failed: {}; next try in {} s", e.what(), backoff.count());
+        retry = std::move(again);
+        retry_at = now + backoff;
+        backoff = std::min(backoff * 2, std::chrono::seconds(300));
+        return;
       }
       for (const auto& p : again)
         if (fs::exists(p) && retry.empty()) process_file(p);
@@ -241,13 +240,32 @@ struct Server::Impl {
     }
   }
 
+  // Units whose reports were still to be re-rendered when the daemon
+  // stopped: a stop must be quick, so they are rendered after the next start.
+  void save_dirty_units() {
+    std::string list;
+    for (const auto& [unit, t] : dirty_units) list += unit + "\n";
+    try {
+      store->set_state("dirty_units", list);
+    } catch (const std::exception& e) {
+      spdlog::error("cannot remember the units waiting for a report: {}", e.what());
+    }
+  }
+  void load_dirty_units() {
+    std::istringstream in(store->state("dirty_units").value_or(""));
+    const auto now = std::chrono::steady_clock::now();
+    for (std::string unit; std::getline(in, unit);)
+      if (!unit.empty()) dirty_units[unit] = now - std::chrono::hours(1);
+  }
+
   void check_alerts(const std::string& unit, const analytics::UnitAssessment& a) {
     const Snapshot now = Snapshot::of(a);
     const auto stored = store->state("snapshot:" + unit);
     const Snapshot before = stored ? Snapshot::decode(*stored) : Snapshot{};
-    const std::string at = iso(now_utc());
-    if (now.c2h2 > 0 && (before.c2h2 <= 0 || now.c2h2 > before.c2h2 * 1.1 + 0.5) &&
-        (a.active_arcing || before.c2h2 <= 0))
+    const std::string at = analytics::format_utc(now_utc());
+    // Appearing, or rising by more than the repeatability of a lab
+    // measurement (10 % + 0.5 ppm: common practice, no published source).
+    if (now.c2h2 > 0 && (before.c2h2 <= 0 || now.c2h2 > before.c2h2 * 1.1 + 0.5))
       writer->alert(unit, "acetylene",
                     before.c2h2 <= 0 ? "acetylene appeared: " + std::to_string(static_cast<int>(now.c2h2 + 0.5)) + " ppm"
                                      : "acetylene rising: " + std::to_string(before.c2h2) + " -> " + std::to_string(now.c2h2) + " ppm",
@@ -280,21 +298,22 @@ struct Server::Impl {
     if (last == 0) {
       if (auto c = store->state("created_at")) last = parse_iso(*c);
       else {
-        store->set_state("created_at", iso(now));
+        store->set_state("created_at", analytics::format_utc(now));
         last = now;
       }
     }
     const std::int64_t due = next_weekly_time(last, config.weekly_weekday, config.weekly_minute_of_day,
                                               config.utc_offset_minutes);
-    if (due > now) return;
+    if (due > now || std::chrono::steady_clock::now() < weekly_retry_at) return;
     try {
       // Due now, or missed while the daemon was down: produce it for today.
       const auto dir = writer->weekly_bundle(today());
-      store->set_state("weekly_last_run", iso(now));
+      store->set_state("weekly_last_run", analytics::format_utc(now));
       store->set_state("weekly_last_bundle", fs::relative(dir, root.root).string());
       spdlog::info("weekly bundle written: {}", dir.string());
     } catch (const std::exception& e) {
-      spdlog::error("weekly bundle failed: {}", e.what());
+      spdlog::error("weekly bundle failed: {}; next try in 10 minutes", e.what());
+      weekly_retry_at = std::chrono::steady_clock::now() + std::chrono::minutes(10);
     }
   }
 
@@ -303,7 +322,7 @@ struct Server::Impl {
     using Poco::JSON::Object;
     Object::Ptr o = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
     o->set("pid", static_cast<long>(::getpid()));
-    o->set("started_at", iso(started));
+    o->set("started_at", analytics::format_utc(started));
     o->set("last_import", last_import);
     o->set("last_import_party", last_import_party);
     o->set("last_import_at", last_import_at);
@@ -315,8 +334,8 @@ struct Server::Impl {
     std::int64_t last = 0;
     if (auto s = store->state("weekly_last_run")) last = parse_iso(*s);
     o->set("last_weekly_bundle", store->state("weekly_last_bundle").value_or(""));
-    o->set("last_weekly_run", last ? iso(last) : "");
-    o->set("next_weekly_run", iso(next_weekly_time(last ? last : now_utc(), config.weekly_weekday,
+    o->set("last_weekly_run", last ? analytics::format_utc(last) : "");
+    o->set("next_weekly_run", analytics::format_utc(next_weekly_time(last ? last : now_utc(), config.weekly_weekday,
                                                    config.weekly_minute_of_day, config.utc_offset_minutes)));
     Array::Ptr alerts = new Array;
     for (const auto& a : store->open_alerts()) alerts->add(a.raised_at + " " + a.unit_id + " " + a.kind + ": " + a.text);
@@ -351,13 +370,14 @@ int Server::run() {
   Impl& s = *impl_;
   s.rebuild();
   spdlog::info("ferrum serving {} (pid {}); parties: {}", s.root.root.string(), ::getpid(), s.config.parties.size());
+  s.load_dirty_units();
   for (const auto& o : s.pipeline->recover()) s.note_outcome(o);
   auto last_status = std::chrono::steady_clock::now() - 10s;
   for (;;) {
     if (reload_requested.exchange(false)) s.reload();
     s.ingest_ready();
-    s.render_dirty(s.options.once || stop_requested);
-    if (stop_requested) break;
+    if (stop_requested && !s.options.once) break;  // reports of dirty units: at the next start
+    s.render_dirty(s.options.once);
     s.weekly();
     if (std::chrono::steady_clock::now() - last_status >= 1s) {
       s.write_status();
@@ -368,7 +388,8 @@ int Server::run() {
   }
   // Stopping: nothing in flight (files are processed one at a time on this
   // thread), so the status can say so and the process leave.
-  s.stopped_at = iso(now_utc());
+  s.save_dirty_units();
+  s.stopped_at = analytics::format_utc(now_utc());
   s.write_status();
   spdlog::info("ferrum stopped");
   return 0;
