@@ -5,6 +5,7 @@
 #include <sys/syscall.h>
 #include <unistd.h>
 
+#include <algorithm>
 #include <cerrno>
 #include <system_error>
 
@@ -19,6 +20,15 @@ namespace {
   throw std::system_error(errno, std::generic_category(), what + " " + p.string());
 }
 
+// A file-system name has at most 255 bytes: the temporary name keeps as much
+// of the final name as fits beside its leading "." and its ".tmp-PID" (a
+// 250-byte receipt name must not make the write fail).
+std::string temporary_name(const std::string& name) {
+  const std::string suffix = ".tmp-" + std::to_string(::getpid());
+  const std::size_t room = 255 - 1 - suffix.size();
+  return "." + name.substr(0, std::min(name.size(), room)) + suffix;
+}
+
 }  // namespace
 
 void sync_directory(const std::filesystem::path& dir) {
@@ -29,7 +39,7 @@ void sync_directory(const std::filesystem::path& dir) {
 }
 
 void write_file_atomically(const std::filesystem::path& path, std::string_view content) {
-  const std::filesystem::path tmp = path.parent_path() / ("." + path.filename().string() + ".tmp-" + std::to_string(::getpid()));
+  const std::filesystem::path tmp = path.parent_path() / temporary_name(path.filename().string());
   const int fd = ::open(tmp.c_str(), O_WRONLY | O_CREAT | O_TRUNC | O_CLOEXEC, 0644);
   if (fd < 0) fail("cannot create", tmp);
   const char* p = content.data();
