@@ -6,12 +6,6 @@ namespace ferrum::ingest {
 
 namespace {
 
-bool all_empty(std::span<const std::string_view> fields) {
-  return std::all_of(fields.begin(), fields.end(), [](std::string_view f) {
-    return f.find_first_not_of(" \t") == std::string_view::npos;
-  });
-}
-
 // Reads every record, parses it with `parser` into `row` and hands good rows
 // to `deliver`.
 template <class Parser, class Row, class Deliver>
@@ -25,7 +19,7 @@ void run_rows(CsvReader& reader, const KindDetection& detection, const CheckOpti
     if (status == RecordStatus::end) break;
     ++summary.rows_read;
     if (status == RecordStatus::malformed) continue;
-    if (all_empty(reader.fields())) {
+    if (is_empty_row(reader.fields())) {
       --summary.rows_read;
       summary.warnings.add(reader.record_line(), "", "row with only empty values ignored");
       continue;
@@ -44,25 +38,6 @@ void note_unknown_columns(const CsvReader& reader, const KindDetection& d, Check
     summary.warnings.add(reader.header_line(), name,
                          name.empty() ? "column without a name: ignored"
                                       : "unknown column: ignored");
-  }
-}
-
-// Load is stored per unit: a load_mva / load_kva / load_a column is converted.
-void note_load_conversion(const KindDetection& d, CheckSummary& summary) {
-  const ColumnBinding& mva = d.columns["load_mva"];
-  const ColumnBinding& amperes = d.columns["load_a"];
-  if (!mva.present() && !amperes.present()) return;
-  auto& notes = summary.conversions;
-  notes.erase(std::remove_if(notes.begin(), notes.end(),
-                             [](const ConversionNote& n) { return n.stored_as.rfind("load_mva", 0) == 0; }),
-              notes.end());
-  if (mva.present()) {
-    notes.push_back({mva.header_name, mva.conversion == Conversion::kva_to_mva ? "kVA" : "MVA",
-                     "load_pu (per unit of the register's rated_mva)"});
-  } else {
-    notes.push_back({amperes.header_name, "A (HV line current)",
-                     "load_pu (I / I_rated, I_rated = rated_mva / (sqrt(3) hv_kv); "
-                     "single-phase: rated_mva / hv_kv)"});
   }
 }
 
@@ -96,6 +71,33 @@ void run_kind(CsvReader& reader, const KindDetection& d, const CheckOptions& opt
 
 }  // namespace
 
+bool is_empty_row(std::span<const std::string_view> fields) {
+  return std::all_of(fields.begin(), fields.end(), [](std::string_view f) {
+    return f.find_first_not_of(" \t") == std::string_view::npos;
+  });
+}
+
+std::vector<ConversionNote> stored_conversions(const KindDetection& d) {
+  std::vector<ConversionNote> notes = d.conversions;
+  if (d.kind != FileKind::load_series) return notes;
+  // Load is stored per unit: a load_mva / load_kva / load_a column is converted.
+  const ColumnBinding& mva = d.columns["load_mva"];
+  const ColumnBinding& amperes = d.columns["load_a"];
+  if (!mva.present() && !amperes.present()) return notes;
+  notes.erase(std::remove_if(notes.begin(), notes.end(),
+                             [](const ConversionNote& n) { return n.stored_as.rfind("load_mva", 0) == 0; }),
+              notes.end());
+  if (mva.present()) {
+    notes.push_back({mva.header_name, mva.conversion == Conversion::kva_to_mva ? "kVA" : "MVA",
+                     "load_pu (per unit of the register's rated_mva)"});
+  } else {
+    notes.push_back({amperes.header_name, "A (HV line current)",
+                     "load_pu (I / I_rated, I_rated = rated_mva / (sqrt(3) hv_kv); "
+                     "single-phase: rated_mva / hv_kv)"});
+  }
+  return notes;
+}
+
 CheckSummary check_stream(std::istream& in, const CheckOptions& options, RowSink& sink) {
   CheckSummary summary(options.max_problems_kept, options.max_distinct_warnings);
   CsvReader reader(in, options.csv);
@@ -118,8 +120,7 @@ CheckSummary check_stream(std::istream& in, const CheckOptions& options, RowSink
   }
   summary.recognised = true;
   summary.kind = detection.kind;
-  summary.conversions = detection.conversions;
-  if (detection.kind == FileKind::load_series) note_load_conversion(detection, summary);
+  summary.conversions = stored_conversions(detection);
   note_unknown_columns(reader, detection, summary);
   if (!sink.begin(detection)) {
     summary.stopped_by_sink = true;

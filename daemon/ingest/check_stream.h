@@ -13,6 +13,7 @@
 #include <cstddef>
 #include <cstdint>
 #include <istream>
+#include <span>
 #include <string>
 #include <vector>
 
@@ -70,5 +71,14 @@ struct CheckSummary {
 };
 
 CheckSummary check_stream(std::istream& in, const CheckOptions& options, RowSink& sink);
+
+// True for a record whose values are all empty or blank: such rows are
+// skipped with a warning, never a problem (drop-file contract).
+bool is_empty_row(std::span<const std::string_view> fields);
+
+// The unit conversions of a recognised file's columns, for provenance: the
+// alias columns of the detection and, for a load series, the load column that
+// is stored per unit of the register's rating (load_mva, load_kva, load_a).
+std::vector<ConversionNote> stored_conversions(const KindDetection& detection);
 
 }  // namespace ferrum::ingest

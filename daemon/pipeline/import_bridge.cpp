@@ -3,6 +3,7 @@
 #include <map>
 #include <memory>
 
+#include "daemon/ingest/check_stream.h"
 #include "daemon/ingest/csv_reader.h"
 #include "daemon/ingest/file_kinds.h"
 #include "daemon/ingest/row_parsers.h"
@@ -47,6 +48,10 @@ void run_rows(CsvReader& reader, Parser& parser, ImportResult& r, Store&& store_
     const RecordStatus st = reader.next(r.problems);
     if (st == RecordStatus::end) break;
     if (st == RecordStatus::malformed) continue;
+    if (is_empty_row(reader.fields())) {
+      r.warnings.add(reader.record_line(), "", "row with only empty values ignored");
+      continue;
+    }
     if (!parser.parse(reader.fields(), reader.record_line(), row)) continue;
     // Once a file has a problem nothing of it will be kept: stop writing,
     // go on validating to report more problems.
@@ -80,7 +85,8 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
   for (int c : kind.unknown_columns)
     r.warnings.add(reader.header_line(), reader.header()[c], "unknown column, ignored");
   if (s.file_id)
-    for (const auto& c : kind.conversions) store.add_conversion(s.file_id, c.column, c.original_unit, c.stored_as);
+    for (const auto& c : stored_conversions(kind))
+      store.add_conversion(s.file_id, c.column, c.original_unit, c.stored_as);
 
   UnitCache units(store, s.units_must_exist);
   ParseOptions po;
