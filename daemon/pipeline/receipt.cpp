@@ -109,7 +109,7 @@ std::string Receipt::to_text() const {
   if (status == "accepted") {
     o << "ACCEPTED: " << rows << " row" << (rows == 1 ? "" : "s") << " of " << kind << " imported.\n";
   } else if (status == "duplicate") {
-    o << "ALREADY IMPORTED: the same content was imported on " << duplicate_of_received_at << " as "
+    o << "ALREADY IMPORTED: the same content was already imported on " << duplicate_of_received_at << " as "
       << duplicate_of_stored_as << ".\nNothing was changed.\n";
   } else {
     o << "REJECTED: nothing from this file was imported.\n";
