@@ -100,18 +100,27 @@ void DropWatcher::drain_events(SteadyClock::time_point now) {
 
 void DropWatcher::rescan() {
   const auto now = SteadyClock::now();
+  // Events already queued come first: they carry the true arrival order,
+  // which a directory listing does not.
+  drain_events(now);
   std::error_code ec;
+  std::vector<std::pair<fs::file_time_type, fs::path>> found;
   for (const auto& e : fs::directory_iterator(drop_, ec)) {
     const auto st = e.symlink_status(ec);
     if (st.type() == fs::file_type::directory) {
       for (const auto& f : fs::directory_iterator(e.path(), ec)) {
         if (f.symlink_status(ec).type() == fs::file_type::directory) continue;
-        add_candidate(f.path(), false, now);
+        std::error_code tec;
+        found.emplace_back(fs::last_write_time(f.path(), tec), f.path());
       }
     } else {
-      add_candidate(e.path(), false, now);
+      std::error_code tec;
+      found.emplace_back(fs::last_write_time(e.path(), tec), e.path());
     }
   }
+  // Files the events missed: oldest first (a listing is in no useful order).
+  std::sort(found.begin(), found.end());
+  for (const auto& [t, p] : found) add_candidate(p, false, now);
 }
 
 std::vector<fs::path> DropWatcher::take_ready(std::chrono::seconds settle, SteadyClock::time_point now) {
@@ -121,6 +130,13 @@ std::vector<fs::path> DropWatcher::take_ready(std::chrono::seconds settle, Stead
     Candidate& c = it->second;
     struct stat st {};
     if (::lstat(it->first.c_str(), &st) != 0) {  // gone (taken by another process, or renamed away)
+      it = candidates_.erase(it);
+      continue;
+    }
+    if (S_ISDIR(st.st_mode)) {
+      // A folder is never a dropped file: a party folder created while the
+      // daemon runs (by a reload, or by hand) must not be taken as a stray
+      // file in drop/ and quarantined with everything in it.
       it = candidates_.erase(it);
       continue;
     }
