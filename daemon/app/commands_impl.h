@@ -19,6 +19,10 @@ int cmd_ingest(const Invocation& inv);
 int cmd_check(const Invocation& inv);
 int cmd_report(const Invocation& inv);
 int cmd_serve(const Invocation& inv);
+// Everything `serve` needs before it may fork into the background: the site
+// root, its configuration, a compatible database, a free root lock and a
+// writable pidfile folder. Throws std::runtime_error saying what is wrong.
+void check_serve_can_start(const std::string& root, const std::string& pidfile);
 int cmd_status(const Invocation& inv);
 int cmd_assess(const Invocation& inv);
 int cmd_rank(const Invocation& inv);

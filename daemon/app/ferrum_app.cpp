@@ -5,7 +5,11 @@
 #include <Poco/Util/OptionSet.h>
 
 #include <algorithm>
+#include <filesystem>
 #include <iostream>
+
+#include "daemon/app/commands_impl.h"
+#include "daemon/site/site_root.h"
 
 namespace ferrum::app {
 
@@ -66,10 +70,56 @@ void FerrumApp::defineOptions(Poco::Util::OptionSet& options) {
 }
 
 void FerrumApp::handleOption(const std::string& name, const std::string& value) {
-  ServerApplication::handleOption(name, value);
+  // Options are parsed before the daemon changes to /: paths become absolute
+  // here. The pidfile is written by `serve` itself once it holds the root lock
+  // (Poco's own handler would write it at once, even for a second daemon that
+  // is then refused, and delete the first one's file at exit).
+  if (name != "pidfile") ServerApplication::handleOption(name, value);
   if (name == "help") help_ = true;
   else if (name == "version") version_ = true;
+  else if ((name == "root" || name == "pidfile") && !value.empty())
+    inv_.options[name] = std::filesystem::absolute(value).lexically_normal().string();
   else inv_.options[name] = value;
+}
+
+int FerrumApp::run(int argc, char** argv) {
+  std::vector<std::string> args(argv, argv + argc);
+  if (std::find(args.begin(), args.end(), "--daemon") == args.end()) return ServerApplication::run(argc, argv);
+  // Same test as Poco's isDaemon(): it forks before parsing anything. Find
+  // --root and --pidfile the way Poco will parse them (--name=value or
+  // --name value) and make the root explicit and absolute for the child.
+  std::string root, pidfile;
+  std::vector<std::string> kept;
+  auto take = [&](const std::string& flag, std::string& target, std::size_t& i) {
+    if (args[i] == flag && i + 1 < args.size()) {
+      target = args[++i];
+      return true;
+    }
+    if (args[i].rfind(flag + "=", 0) != 0) return false;
+    target = args[i].substr(flag.size() + 1);
+    return true;
+  };
+  for (std::size_t i = 0; i < args.size(); ++i)
+    if (i == 0 || (!take("--root", root, i) && !take("--pidfile", pidfile, i))) kept.push_back(args[i]);
+  const auto command = std::find_if(kept.begin() + 1, kept.end(), [](const std::string& a) { return a.empty() || a[0] != '-'; });
+  if (command == kept.end() || *command != "serve") {
+    std::cerr << "ferrum: --daemon applies to 'ferrum serve' only\n";
+    return kUsage;
+  }
+  try {
+    root = site::resolve_root(root).root.string();
+    if (!pidfile.empty()) pidfile = std::filesystem::absolute(pidfile).lexically_normal().string();
+    check_serve_can_start(root, pidfile);
+  } catch (const std::exception& e) {
+    std::cerr << "ferrum serve: " << e.what() << "\n";
+    return kFailed;
+  }
+  kept.push_back("--root=" + root);
+  if (!pidfile.empty()) kept.push_back("--pidfile=" + pidfile);
+  std::vector<char*> rewritten;
+  for (auto& a : kept) rewritten.push_back(a.data());
+  rewritten.push_back(nullptr);
+  return ServerApplication::run(static_cast<int>(kept.size()), rewritten.data());
 }
 
 void FerrumApp::print_help() const {

@@ -14,6 +14,13 @@ class FerrumApp : public Poco::Util::ServerApplication {
  public:
   FerrumApp();
 
+  // Poco forks for --daemon before it even parses the options, and a child's
+  // errors are invisible (stack-notes.md). So with --daemon this first
+  // resolves the root to an absolute path (the child runs in /) and checks
+  // that `serve` can start there, printing why not, before handing over to
+  // ServerApplication::run.
+  int run(int argc, char** argv);
+
  protected:
   void defineOptions(Poco::Util::OptionSet& options) override;
   void handleOption(const std::string& name, const std::string& value) override;
