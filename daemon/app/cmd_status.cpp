@@ -2,14 +2,38 @@
 #include <Poco/JSON/Object.h>
 #include <Poco/JSON/Parser.h>
 
+#include <algorithm>
+#include <chrono>
+#include <cstdio>
 #include <fstream>
 #include <iostream>
 #include <sstream>
 
+#include "analytics/calendar.h"
 #include "daemon/app/commands_impl.h"
 #include "daemon/site/site_root.h"
 
 namespace ferrum::app {
+
+namespace {
+
+// "3d 04h 12m" since an ISO-8601 UTC time written by the daemon.
+std::string uptime_text(const std::string& started_at) {
+  int y = 0, mo = 0, d = 0, h = 0, mi = 0, se = 0;
+  if (std::sscanf(started_at.c_str(), "%d-%d-%dT%d:%d:%dZ", &y, &mo, &d, &h, &mi, &se) != 6) return "unknown";
+  const std::int64_t start = analytics::start_of(analytics::days_from_civil(y, mo, d)) + h * 3600 + mi * 60 + se;
+  const auto now = std::chrono::duration_cast<std::chrono::seconds>(
+                       std::chrono::system_clock::now().time_since_epoch()).count();
+  const long long up = std::max<long long>(0, now - start);
+  char buf[64];
+  if (up >= 86400)
+    std::snprintf(buf, sizeof buf, "%lldd %02lldh %02lldm", up / 86400, up / 3600 % 24, up / 60 % 60);
+  else
+    std::snprintf(buf, sizeof buf, "%lldh %02lldm %02llds", up / 3600, up / 60 % 60, up % 60);
+  return buf;
+}
+
+}  // namespace
 
 int cmd_status(const Invocation& inv) {
   const site::SiteRoot root = site::resolve_root(inv.get("root"));
@@ -34,8 +58,8 @@ int cmd_status(const Invocation& inv) {
   }
   auto get = [&](const char* k) { return st && st->has(k) ? st->get(k).toString() : std::string(); };
   if (pid) {
-    std::cout << "ferrum is running on " << root.root.string() << " (pid " << pid << ", since " << get("started_at")
-              << ")\n";
+    std::cout << "ferrum is running on " << root.root.string() << " (pid " << pid << ", up "
+              << uptime_text(get("started_at")) << ", since " << get("started_at") << ")\n";
   } else {
     std::cout << "ferrum is NOT running on " << root.root.string();
     if (!get("stopped_at").empty()) std::cout << " (stopped " << get("stopped_at") << ")";
