@@ -193,14 +193,17 @@ Day D(int y, int m, int d) { return days_from_civil(y, m, d); }
 
 // The storyline of every unit is in README.md; the comments say what each
 // row is tuned to show. Gas end values are the as-of targets checked against
-// IEEE C57.104-2008 Table 1, Duval Triangle 1 and IEC 60599 Table 1.
+// IEEE C57.104-2008 Table 1, Duval Triangle 1 and IEC 60599 Table 1. Units
+// without a gas story keep every gas within the C57.104-2019 Table 2 values
+// for free-breathing units (analytics/data/ieee_c57104_2019_tables.csv), and
+// most of them within Table 1, so that gases do not talk over their stories.
 const std::vector<Unit>& fleet() {
   static const std::vector<Unit> units = {
       // CRW-T1: 1968 OFAF, old kraft paper. 2-FAL 1.7 -> 7.4 ppm (Chendong DP
       // ~365 -> ~183); oil fails acidity, IFT and colour (class III); CO2 in
       // C57.104-2008 condition 3 from normal ageing. Ranks first for replacement.
       {"CRW-T1", "CRW", 60, "OFAF", 1968, 0.78, LoadShape::residential, 0.22, 0.004, false, 1.0,
-       false, 2008, 4, 14, 2, false, {25, 18, 25, 3, 0, 320, 3400}, {45, 38, 55, 7, 0, 520, 5600},
+       false, 2008, 4, 14, 2, false, {25, 16, 14, 3, 0, 320, 3400}, {42, 30, 30, 7, 0, 520, 5600},
        {}, 0, 1, {14, 58, 0.08, 29, 0.12, 2.0, 2.5}, {21, 49, 0.19, 22, 0.46, 4.6, 4.0}, 1700, 7400,
        0, 0, 0, 0, 0},
       // CRW-T2: 2019 ONAF, upgraded paper, sealed conservator: the healthy unit.
@@ -210,7 +213,7 @@ const std::vector<Unit>& fleet() {
       // CRW-T3: 1996 ONAF with fan groups 2 and 3 dead: measured top oil runs
       // ~50 % more rise than the model all year.
       {"CRW-T3", "CRW", 45, "ONAF", 1996, 0.80, LoadShape::commercial, 0.25, 0.005, true, 1.5,
-       false, 2008, 5, 6, 1, false, {20, 15, 18, 2.5, 0, 200, 1800}, {35, 30, 40, 5.5, 0, 380, 3200},
+       false, 2008, 5, 6, 1, false, {16, 8, 7, 2.5, 0, 200, 1800}, {30, 16, 12, 4.5, 0, 340, 3000},
        {}, 0, 1, {9, 66, 0.03, 38, 0.03, 0.8, 1.0}, {15, 58, 0.07, 32, 0.09, 1.6, 1.5}, 60, 420, 0, 0,
        0, 0, 0},
       // VNM-T1: 1983 ODAF; arcing from late 2023: C2H2 appears in the March
@@ -222,7 +225,7 @@ const std::vector<Unit>& fleet() {
        {16, 55, 0.09, 31, 0.12, 2.2, 2.0}, 150, 900, 0, D(2024, 5, 15), 91, D(2025, 9, 1), 30},
       // VNM-T2: 1985 OFAF sister unit, ordinary ageing (background).
       {"VNM-T2", "VNM", 30, "OFAF", 1985, 0.70, LoadShape::residential, 0.15, 0.003, false, 1.0,
-       false, 2008, 3, 12, 2, false, {18, 11, 13, 2, 0, 190, 1700}, {28, 19, 24, 3.8, 0, 310, 2800},
+       false, 2008, 3, 12, 2, false, {16, 8, 7, 2, 0, 190, 1700}, {26, 15, 12, 3.2, 0, 300, 2800},
        {}, 0, 1, {10, 61, 0.04, 36, 0.05, 1.0, 1.0}, {15, 56, 0.08, 32, 0.10, 2.0, 1.5}, 140, 820,
        0, 0, 0, 0, 0},
       // VNM-T3: 1977 ONAN, oil regenerated 2015-06-18 (2-FAL reset to ND).
@@ -233,18 +236,20 @@ const std::vector<Unit>& fleet() {
       // PLW-T1: 1979 ONAN, wet: moisture 16 -> 46 mg/kg, D1816 2 mm 62 -> 29 kV
       // (C57.106 <=69 kV: 35 mg/kg max, 40 kV min). Breather neglected.
       {"PLW-T1", "PLW", 20, "ONAN", 1979, 0.80, LoadShape::residential, 0.20, 0.004, false, 1.0,
-       false, 2008, 7, 2, 1, false, {30, 10, 15, 1.8, 0, 260, 2500}, {55, 18, 30, 3.5, 0, 420, 3800},
+       false, 2008, 7, 2, 1, false, {18, 7, 7, 1.8, 0, 240, 2400}, {32, 13, 12, 3.2, 0, 400, 3600},
        {}, 0, 1, {16, 62, 0.06, 32, 0.05, 1.1, 1.5}, {46, 29, 0.14, 26, 0.38, 4.2, 2.5}, 300, 1500,
        0, 0, 0, 0, 0},
       // PLW-T2: 2002 ONAF feeding a growing suburb with air conditioning:
-      // summer afternoons at 1.2-1.3 p.u., hot spot above 120 °C.
+      // summer afternoons at 1.2-1.3 p.u., hot spot above 120 °C. Its gases
+      // stay below C57.104-2019 Table 1 and C57.104-2008 condition 1: the
+      // story is heat, so the gases must not become the limiting factor.
       {"PLW-T2", "PLW", 20, "ONAF", 2002, 1.15, LoadShape::residential, 0.45, 0.010, true, 1.0,
-       false, 2008, 7, 2, 1, false, {15, 10, 12, 1.8, 0, 180, 1500}, {40, 45, 60, 10, 0, 480, 3700},
+       false, 2008, 7, 2, 1, false, {12, 6, 5, 1.2, 0, 150, 1200}, {28, 14, 12, 4, 0, 320, 2350},
        {}, 0, 1, {8, 68, 0.02, 40, 0.02, 0.5, 0.5}, {14, 58, 0.07, 33, 0.08, 1.8, 1.5}, 40, 380, 0,
        0, 0, 0, 0},
       // PLW-T3: 1971 ONAN, small and old but lightly loaded (background).
       {"PLW-T3", "PLW", 12, "ONAN", 1971, 0.75, LoadShape::residential, 0.15, 0.003, false, 1.0,
-       false, 2008, 7, 3, 2, false, {25, 16, 28, 3, 0, 330, 3000}, {38, 24, 40, 4.5, 0, 460, 3900},
+       false, 2008, 7, 3, 2, false, {24, 15, 18, 3, 0, 330, 3000}, {34, 22, 28, 4.5, 0, 440, 3800},
        {}, 0, 1, {14, 56, 0.07, 31, 0.10, 1.8, 2.0}, {20, 48, 0.14, 27, 0.22, 3.0, 3.0}, 900, 2600,
        0, 0, 0, 0, 0},
       // OSB-T1: 1991 ONAN; hot thermal fault in oil (e.g. a circulating current
@@ -256,12 +261,12 @@ const std::vector<Unit>& fleet() {
        {14, 57, 0.07, 33, 0.09, 1.7, 1.5}, 80, 520, 0, D(2024, 8, 20), 91, D(2026, 3, 1), 61},
       // OSB-T2: 1993 ONAN sister unit (background).
       {"OSB-T2", "OSB", 10, "ONAN", 1993, 0.75, LoadShape::commercial, 0.20, 0.003, false, 1.0,
-       false, 2008, 5, 21, 1, false, {14, 9, 11, 1.8, 0, 170, 1500}, {24, 18, 22, 3.5, 0, 290, 2700},
+       false, 2008, 5, 21, 1, false, {12, 6, 5, 1.5, 0, 160, 1400}, {22, 12, 10, 2.6, 0, 280, 2300},
        {}, 0, 1, {9, 64, 0.03, 38, 0.03, 0.8, 1.0}, {13, 58, 0.07, 33, 0.08, 1.6, 1.5}, 70, 480, 0,
        0, 0, 0, 0},
       // OSB-T3: 2008 ONAN, upgraded paper (background).
       {"OSB-T3", "OSB", 7.5, "ONAN", 2008, 0.80, LoadShape::residential, 0.15, 0.003, false, 1.0,
-       false, 2009, 5, 21, 1, false, {10, 4, 3, 0.8, 0, 80, 700}, {20, 12, 14, 2.2, 0, 250, 2200}, {},
+       false, 2009, 5, 21, 1, false, {8, 3, 2, 0.6, 0, 70, 600}, {14, 6, 5, 1.5, 0, 210, 1700}, {},
        0, 1, {6, 72, 0.01, 42, 0.02, 0.4, 0.5}, {11, 63, 0.05, 35, 0.06, 1.2, 1.0}, 0, 90, 0, 0, 0,
        0, 0},
       // TKQ-T1: 2012 ONAF at the port; LV bushing X2 connector overheating
@@ -652,9 +657,12 @@ void infrared_rows(const Unit& u, int survey_index, int unit_index, DropFile& f)
            num(ambient, 1) + "," + load + "," + num(emis, 2) + "," + img + "," + note);
   };
   // Three phases of each connector group: rise grows with the square of load.
+  // Sound connectors of one group agree within a few tenths of a kelvin; a
+  // larger spread would read, once corrected to rated load, as the NETA
+  // "possible deficiency" (1-3 K) on healthy units.
   auto phases = [&](const char* side, const char* letter, double rated_rise) {
     std::array<double, 3> spot{};
-    for (int p = 0; p < 3; ++p) spot[p] = ambient + 1.5 + rated_rise * k * k + 0.35 * rng.normal();
+    for (int p = 0; p < 3; ++p) spot[p] = ambient + 1.5 + rated_rise * k * k + 0.12 * rng.normal();
     const bool hot = std::string_view(u.id) == "TKQ-T1" && std::string_view(letter) == "X";
     if (hot) spot[1] = std::min(spot[0], spot[2]) + kHotConnectorExcess[survey_index];
     for (int p = 0; p < 3; ++p) {

@@ -1,0 +1,338 @@
+"""The demo site tells its stories: every row of demo-site/storylines.tsv is
+checked against the real binary's assessment and ranking of the generated
+fleet, and the deliberately broken files are rejected as
+demo-site/drops/EXPECTED_REJECTIONS.md says.
+
+The site root is built once for the whole file (generation and ingest take
+most of the time): ferrum init, the demo's ferrum.ini, the units register
+first, then every generated and committed file through `ferrum ingest`.
+"""
+import json
+import os
+import re
+import shutil
+import subprocess
+import tempfile
+import unittest
+
+from ferrumtest import SOURCE, run
+
+DEMO = os.path.join(SOURCE, "demo-site")
+DEMO_GEN = os.environ.get("FERRUM_DEMO_GEN", "")
+AS_OF = "2026-11-30"
+BROKEN = {"QL-batch-2611-A.csv", "QL-batch-2611-B.csv", "QL-batch-2611-C.csv", "QL-export-2611-D.csv"}
+RATING_ORDER = ["good", "fair", "poor", "very_poor", "unsafe"]
+
+
+# ---------------------------------------------------------------- the check language of storylines.tsv
+def read_storylines():
+    with open(os.path.join(DEMO, "storylines.tsv")) as f:
+        lines = [line.rstrip("\n").split("\t") for line in f if line.strip()]
+    header, rows = lines[0], lines[1:]
+    return [dict(zip(header, r)) for r in rows]
+
+
+def parse_set(text):
+    text = text.strip()
+    assert text.startswith("{") and text.endswith("}"), text
+    return {s.strip() for s in text[1:-1].split(",") if s.strip()}
+
+
+def parse_scalar(text):
+    text = text.strip()
+    if text in ("true", "false"):
+        return text == "true"
+    try:
+        return float(text)
+    except ValueError:
+        return text
+
+
+CHECK = re.compile(r"^(?P<path>[A-Za-z0-9_.()]+)\s*(?P<op>in|contains|<=|>=|=|<|>)\s*(?P<value>.+)$")
+
+
+def derived(doc, row, path):
+    """The value a storyline path names (README.md, "Checking the storylines")."""
+    if path.startswith("abs(") and path.endswith(")"):
+        v = derived(doc, row, path[4:-1])
+        return None if v is None else abs(v)
+    if path == "oil.failed":
+        return {c["test"] for c in doc["oil"]["checks"] if c.get("within_limit") is False}
+    if path == "infrared.max_severity":
+        return max([f["severity"] or 0 for f in doc["infrared"]], default=0)
+    if path == "inspection.worst":
+        ratings = [f["rating"] for f in doc["inspection"]]
+        return max(ratings, key=RATING_ORDER.index) if ratings else None
+    if path == "missing.count":
+        return len(doc["missing"])
+    if path.startswith("ranking."):
+        return row[path.split(".", 1)[1]]
+    value = doc
+    for part in path.split("."):
+        value = value[part]
+    return value
+
+
+def evaluate(actual, op, text):
+    if op == "in":
+        return actual in parse_set(text)
+    if op == "contains":
+        return parse_set(text) <= set(actual)
+    if text.strip().startswith("{"):
+        return op == "=" and set(actual) == parse_set(text)
+    want = parse_scalar(text)
+    if actual is None:
+        return False
+    if op == "=":
+        return actual == want
+    return {"<": actual < want, "<=": actual <= want, ">": actual > want, ">=": actual >= want}[op]
+
+
+# ---------------------------------------------------------------- the site, built once
+class DemoStorylines(unittest.TestCase):
+    @classmethod
+    def setUpClass(cls):
+        if not DEMO_GEN or not os.path.exists(DEMO_GEN):
+            raise unittest.SkipTest("FERRUM_DEMO_GEN not set: the demo generator was not built")
+        cls.root = tempfile.mkdtemp(prefix="ferrum-demo-e2e-")
+        try:
+            cls.build_site()
+        except BaseException:
+            shutil.rmtree(cls.root, ignore_errors=True)
+            raise
+
+    @classmethod
+    def tearDownClass(cls):
+        shutil.rmtree(cls.root, ignore_errors=True)
+
+    @classmethod
+    def build_site(cls):
+        root = cls.root
+        run("init", "--root", root)
+        shutil.copy(os.path.join(DEMO, "site", "ferrum.ini"), os.path.join(root, "ferrum.ini"))
+        staging = os.path.join(root, "staging")
+        subprocess.run([DEMO_GEN, staging], check=True, capture_output=True, timeout=120)
+
+        def place(party, src):
+            folder = os.path.join(root, "drop", party)
+            os.makedirs(folder, exist_ok=True)
+            name = os.path.basename(src)
+            tmp = os.path.join(folder, "." + name + ".part")
+            shutil.copy(src, tmp)
+            os.rename(tmp, os.path.join(folder, name))
+
+        # The register first: every other file names units from it.
+        place("teb_planning", os.path.join(DEMO, "drops", "teb_planning", "units-register.csv"))
+        p = run("ingest", "--root", root, check=False)
+        assert p.returncode == 0, p.stdout + p.stderr
+        cls.dropped = {}
+        for party in sorted(os.listdir(os.path.join(DEMO, "drops"))):
+            committed = os.path.join(DEMO, "drops", party)
+            if not os.path.isdir(committed):
+                continue
+            files = [os.path.join(committed, n) for n in sorted(os.listdir(committed))
+                     if n.endswith(".csv") and n != "units-register.csv"]
+            generated = os.path.join(staging, party)
+            if os.path.isdir(generated):
+                files += [os.path.join(generated, n) for n in sorted(os.listdir(generated))]
+            for f in files:
+                place(party, f)
+                cls.dropped[os.path.basename(f)] = party
+        shutil.rmtree(staging)
+        # Some files are broken on purpose: exit status 4 (some rejected).
+        cls.ingest = run("ingest", "--root", root, check=False, timeout=300)
+        cls.docs = {d["unit_id"]: d for d in json.loads(
+            run("assess", "--root", root, "--as-of", AS_OF, "--json").stdout)}
+        cls.ranking = json.loads(run("rank", "--root", root, "--as-of", AS_OF, "--json").stdout)
+        cls.rows = {r["unit_id"]: r for r in cls.ranking["units"]}
+
+    def receipt(self, name):
+        party = self.dropped[name]
+        with open(os.path.join(self.root, "drop", party, "receipts", name + ".json")) as f:
+            return json.load(f)
+
+    def actions(self, unit, max_priority=5):
+        return [a for a in self.docs[unit]["actions"] if a["priority"] <= max_priority]
+
+    # ------------------------------------------------------------ storylines.tsv, row by row
+    def test_every_storyline_check_holds(self):
+        rows = read_storylines()
+        self.assertEqual(len(rows), 15)
+        self.assertEqual(set(self.docs), {r["unit_id"] for r in rows})
+        checked = 0
+        for r in rows:
+            if r["expected"].strip() == "-":
+                continue
+            for check in r["expected"].split("; "):
+                m = CHECK.match(check.strip())
+                self.assertIsNotNone(m, f"{r['unit_id']}: cannot parse check {check!r}")
+                unit = r["unit_id"]
+                with self.subTest(unit=unit, storyline=r["storyline"], check=check):
+                    actual = derived(self.docs[unit], self.rows[unit], m["path"])
+                    self.assertTrue(evaluate(actual, m["op"], m["value"]),
+                                    f"{unit} ({r['storyline']}): {m['path']} is {actual!r}, expected {m['op']} {m['value']}")
+                checked += 1
+        self.assertGreaterEqual(checked, 25)
+
+    def test_check_language_can_fail(self):
+        # The evaluator itself: a wrong expectation must not pass.
+        doc = self.docs["CRW-T1"]
+        self.assertFalse(evaluate(derived(doc, self.rows["CRW-T1"], "ranking.rank"), "=", "99"))
+        self.assertFalse(evaluate({"moisture"}, "contains", "{moisture,breakdown}"))
+        self.assertFalse(evaluate("T1", "in", "{D1,D2}"))
+        self.assertTrue(evaluate(set(), "=", "{}"))
+        self.assertFalse(evaluate({"ift"}, "=", "{}"))
+
+    # ------------------------------------------------------------ what the brief adds per storyline
+    def test_healthy_unit_is_in_the_top_band_without_urgent_action(self):
+        doc = self.docs["CRW-T2"]
+        self.assertEqual(doc["band"], "sound", doc["health_index"])
+        self.assertEqual(self.actions("CRW-T2", 2), [])
+        self.assertEqual(doc["dga"]["c57104_2019_status"], 1)
+
+    def test_arcing_unit(self):
+        doc = self.docs["VNM-T1"]
+        self.assertIn(doc["dga"]["duval_triangle_1"], {"D1", "D2"})
+        self.assertTrue(doc["active_arcing"])
+        self.assertTrue(doc["dga"]["active_arcing"])
+        self.assertEqual(doc["remaining_life"]["limiting_factor"], "gases")
+        self.assertTrue(any(a["priority"] == 1 for a in doc["actions"]))
+        # The gas story puts it right behind the old unit, ahead of every background unit.
+        self.assertEqual(self.rows["VNM-T1"]["rank"], 2)
+
+    def test_thermal_fault_unit(self):
+        doc = self.docs["OSB-T1"]
+        self.assertEqual(doc["dga"]["duval_triangle_1"], "T3")
+        self.assertEqual(doc["dga"]["iec60599_ratio_fault"], "T3")
+        self.assertFalse(doc["active_arcing"])
+        self.assertEqual(doc["remaining_life"]["limiting_factor"], "gases")
+
+    def test_wet_unit(self):
+        checks = {c["test"]: c for c in self.docs["PLW-T1"]["oil"]["checks"]}
+        self.assertFalse(checks["moisture"]["within_limit"])
+        self.assertGreater(checks["moisture"]["value"], checks["moisture"]["limit"])
+        self.assertFalse(checks["breakdown"]["within_limit"])
+        self.assertLess(checks["breakdown"]["value"], checks["breakdown"]["limit"])
+
+    def test_old_paper_unit_is_first_for_replacement(self):
+        doc = self.docs["CRW-T1"]
+        self.assertLess(doc["paper"]["dp_estimate"], 250)
+        self.assertEqual(doc["remaining_life"]["limiting_factor"], "paper")
+        row = self.rows["CRW-T1"]
+        self.assertEqual((row["rank"], row["tied"], row["recommended_action"]), (1, False, "replace"))
+
+    def test_overloaded_unit_tells_a_heat_story(self):
+        doc = self.docs["PLW-T2"]
+        self.assertGreater(doc["thermal"]["peak_hot_spot_c"], 120)
+        self.assertGreater(doc["thermal"]["hours_above_normal_cyclic"], 0)
+        # Heat, not gases: the gas history stays modest.
+        self.assertLessEqual(doc["dga"]["c57104_2008_condition"], 1)
+        self.assertLessEqual(doc["dga"]["c57104_2019_status"], 2)
+        self.assertNotEqual(doc["remaining_life"]["limiting_factor"], "gases")
+        self.assertTrue(any("load" in a["text"].lower() for a in doc["actions"]), doc["actions"])
+
+    def test_failed_fans_unit(self):
+        doc = self.docs["CRW-T3"]
+        self.assertGreater(doc["thermal"]["top_oil_discrepancy_k"], 5)
+        self.assertTrue(any("cooling" in a["text"].lower() for a in doc["actions"]), doc["actions"])
+
+    def test_hot_connector_unit(self):
+        findings = self.docs["TKQ-T1"]["infrared"]
+        worst = max(findings, key=lambda f: f["severity"] or 0)
+        self.assertEqual(worst["severity"], 4)
+        self.assertIn("X2 connector", worst["component"])
+        # Only the connector: its healthy phases and the tank are not severity 4.
+        self.assertEqual([f["component"] for f in findings if f["severity"] == 4], [worst["component"]])
+
+    def test_unsafe_item_unit(self):
+        doc = self.docs["TKQ-T2"]
+        self.assertTrue(doc["unsafe_inspection"])
+        unsafe = [f for f in doc["inspection"] if f["rating"] == "unsafe"]
+        self.assertEqual([f["item"] for f in unsafe], ["grounding"])
+        self.assertTrue(any(a["priority"] == 1 and "grounding" in a["text"] for a in doc["actions"]),
+                        doc["actions"])
+
+    def test_sparse_unit(self):
+        doc = self.docs["TKQ-T3"]
+        self.assertIsNone(doc["health_index"])
+        missing = " ".join(doc["missing"]).lower()
+        for what in ("load", "infrared", "inspection"):
+            self.assertIn(what, missing)
+        row = self.rows["TKQ-T3"]
+        self.assertTrue(row["insufficient_data"])
+        self.assertEqual(self.ranking["units"][-1]["unit_id"], "TKQ-T3")
+
+    def test_background_units_look_plausible(self):
+        background = [r["unit_id"] for r in read_storylines() if r["storyline"] == "background"]
+        # Table 1 holds 90th percentiles (IEEE C57.104-2019; values from memory,
+        # analytics/data/ieee_c57104_2019_tables.csv): most ordinary units lie below them.
+        statuses = [self.docs[u]["dga"]["c57104_2019_status"] for u in background]
+        self.assertGreaterEqual(statuses.count(1), 3, f"background C57.104-2019 statuses {statuses}")
+        for u in background:
+            doc = self.docs[u]
+            with self.subTest(unit=u):
+                self.assertLessEqual(doc["dga"]["c57104_2019_status"], 2)
+                self.assertFalse(doc["active_arcing"])
+                self.assertFalse(doc["unsafe_inspection"])
+                self.assertLessEqual(derived(doc, None, "infrared.max_severity"), 1)
+                self.assertEqual(self.actions(u, 1), [])
+                # No background unit outranks a storyline unit that needs replacing.
+                self.assertGreater(self.rows[u]["rank"], self.rows["CRW-T1"]["rank"])
+                self.assertGreater(self.rows[u]["rank"], self.rows["VNM-T1"]["rank"])
+
+    def test_regenerated_oil_makes_the_furan_dp_untrustworthy(self):
+        self.assertFalse(self.docs["VNM-T3"]["paper"]["trustworthy"])
+
+    # ------------------------------------------------------------ receipts
+    def test_broken_files_are_rejected_as_documented(self):
+        self.assertEqual(self.ingest.returncode, 4, self.ingest.stdout + self.ingest.stderr)
+        expected = {  # demo-site/drops/EXPECTED_REJECTIONS.md
+            "QL-batch-2611-A.csv": (4, "c2h4_ppm", 6, "-3.2", "negative"),
+            "QL-batch-2611-B.csv": (3, "unit_id", 1, "VNM-T4", "not in the units register"),
+            "QL-batch-2611-C.csv": (2, "sample_date", 2, "2026-02-30", "calendar date"),
+        }
+        for name, (line, column, number, value, says) in expected.items():
+            with self.subTest(file=name):
+                r = self.receipt(name)
+                self.assertEqual((r["status"], r["kind"], r["problem_count"]), ("rejected", "oil_lab", 1))
+                self.assertEqual(len(r["problems"]), 1)
+                p = r["problems"][0]
+                self.assertEqual((p["line"], p["column"], p["column_number"], p["value"]),
+                                 (line, column, number, value))
+                self.assertIn(says, p["reason"])
+                self.assertTrue(r["stored_as"].startswith("quarantine/"))
+        self.assertIn("ethylene", self.receipt("QL-batch-2611-A.csv")["problems"][0]["reason"])
+        r = self.receipt("QL-export-2611-D.csv")
+        self.assertEqual((r["status"], r["kind"]), ("rejected", None))
+        file_level = [p for p in r["problems"] if p["line"] == 1]
+        self.assertEqual(len(file_level), 1)
+        self.assertIn("matches no kind", file_level[0]["reason"])
+        for column in ("unit_id", "sample_date", "survey_date", "inspection_date", "timestamp"):
+            self.assertIn(column, file_level[0]["reason"])
+        self.assertEqual([p for p in r["problems"] if p["line"] != 1], [])
+
+    def test_every_other_file_is_accepted(self):
+        expected_rows = {  # demo-site/drops/EXPECTED_REJECTIONS.md
+            "QL-2023-03-commissioning-TKQ-T3.csv": ("oil_lab", 1),
+            "IR-followup-TKQ-T1-2026-09-22.csv": ("infrared", 3),
+            "spotcheck-TKQ-2026-11-18.csv": ("inspection", 3),
+        }
+        for name in self.dropped:
+            if name in BROKEN:
+                continue
+            with self.subTest(file=name):
+                r = self.receipt(name)
+                self.assertEqual(r["status"], "accepted", r["problems"])
+                if name in expected_rows:
+                    self.assertEqual((r["kind"], r["rows"]), expected_rows[name])
+                if name.startswith("load-"):
+                    self.assertEqual((r["kind"], r["rows"]), ("load_series", 35040))
+        with open(os.path.join(self.root, "drop", "teb_planning", "receipts", "units-register.csv.json")) as f:
+            r = json.load(f)
+        self.assertEqual((r["status"], r["kind"], r["rows"]), ("accepted", "units_register", 15))
+        # Nothing of a broken file reached the store: no sample of the unknown unit.
+        self.assertNotIn("VNM-T4", self.docs)
+
+
+if __name__ == "__main__":
+    unittest.main()
