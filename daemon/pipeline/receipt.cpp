@@ -5,22 +5,48 @@
 #include <Poco/JSON/Parser.h>
 #include <Poco/JSON/Stringifier.h>
 
+#include <cstdio>
 #include <sstream>
 
+#include "daemon/ingest/utf8.h"
+
 namespace ferrum::ingest {
+namespace {
+
+// JSON text is UTF-8, but a dropped file's name may be any bytes: bytes that
+// are not valid UTF-8 are written as \xNN (as in problem values), so that
+// every receipt stays readable by a strict JSON parser.
+std::string json_text(std::string_view s) {
+  std::string out;
+  for (std::size_t i = 0; i < s.size();) {
+    const std::size_t n = utf8_sequence_length(s, i);
+    if (n > 0) {
+      out.append(s.substr(i, n));
+      i += n;
+      continue;
+    }
+    char buf[8];
+    std::snprintf(buf, sizeof buf, "\\x%02X", static_cast<unsigned char>(s[i]));
+    out += buf;
+    ++i;
+  }
+  return out;
+}
+
+}  // namespace
 
 std::string Receipt::to_json() const {
   using Poco::JSON::Array;
   using Poco::JSON::Object;
   Object::Ptr o = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
-  o->set("file", file);
+  o->set("file", json_text(file));
   o->set("party", party);
   o->set("sha256", sha256.empty() ? Poco::Dynamic::Var() : Poco::Dynamic::Var(sha256));
   o->set("status", status);
   o->set("kind", kind.empty() ? Poco::Dynamic::Var() : Poco::Dynamic::Var(kind));
   o->set("rows", rows);
   o->set("received_at", received_at);
-  o->set("stored_as", stored_as);
+  o->set("stored_as", json_text(stored_as));
   o->set("reason", reason.empty() ? Poco::Dynamic::Var() : Poco::Dynamic::Var(reason));
   Array::Ptr w = new Array;
   for (const auto& x : warnings) {
@@ -50,7 +76,7 @@ std::string Receipt::to_json() const {
   if (status == "duplicate") {
     Object::Ptr d = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
     d->set("received_at", duplicate_of_received_at);
-    d->set("stored_as", duplicate_of_stored_as);
+    d->set("stored_as", json_text(duplicate_of_stored_as));
     o->set("already_imported", d);
   }
   if (!utc_offset_note.empty()) o->set("time_note", utc_offset_note);
