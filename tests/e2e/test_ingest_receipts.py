@@ -114,6 +114,29 @@ class ReceiptContent(IngestCase):
         self.assertEqual(sorted(r["units"]), ["T1", "T2"])
 
 
+class NamedFiles(IngestCase):
+    def test_ingest_of_named_files_takes_only_those(self):
+        bom_crlf = "\ufeffunit_id,sample_date,h2_ppm,note\r\nT1,2026-03-01,1,\"a\r\nb\"\r\nT1,2026-03-02,-1,x\r\n"
+        self.drop("crlf.csv", bom_crlf)
+        self.drop("header-only.csv", "unit_id,sample_date,h2_ppm\n")
+        self.drop("later.csv", LAB)
+        p = run("ingest", "--root", self.root, self.path("drop", "planning", "crlf.csv"),
+                self.path("drop", "planning", "header-only.csv"), check=False)
+        self.assertEqual(p.returncode, 4, p.stdout + p.stderr)
+        # BOM accepted, CRLF line ends, a quoted line break: the bad row starts on line 4.
+        self.assertEqual([(x["line"], x["column"]) for x in self.receipt("crlf.csv")["problems"]], [(4, "h2_ppm")])
+        self.assertIn("no data rows", self.receipt("header-only.csv")["reason"])
+        self.assertTrue(os.path.exists(self.path("drop", "planning", "later.csv")))  # not named: left for later
+        self.assertEqual(self.count("oil_samples"), 0)
+        outside = os.path.join(self.root, "elsewhere.csv")
+        with open(outside, "w") as f:
+            f.write(LAB)
+        p = run("ingest", "--root", self.root, outside, check=False)
+        self.assertEqual(p.returncode, 2, p.stdout + p.stderr)  # usage: not inside drop/
+        self.assertIn("not inside", p.stderr)
+        self.assertTrue(os.path.exists(outside))
+
+
 class Duplicates(IngestCase):
     def test_same_content_again_is_a_duplicate_and_changes_nothing(self):
         self.drop("lab.csv", LAB)
