@@ -36,6 +36,17 @@ class ServeIngests(IngestCase):
         self.wait_for(lambda: os.path.exists(os.path.join(receipts, "good-again.csv.json")), timeout=25,
                       what="duplicate receipt")
         self.assertEqual(self.receipt("good-again.csv")["status"], "duplicate")
+        # Refusals work in the daemon too: a file directly in drop/, a symbolic link.
+        with open(self.path("drop", "stray.csv"), "w") as f:
+            f.write(GOOD.replace("L-1", "L-7"))
+        target = self.path("outside.csv")
+        with open(target, "w") as f:
+            f.write(GOOD.replace("L-1", "L-8"))
+        os.symlink(target, self.path("drop", "planning", "link.csv"))
+        self.wait_for(lambda: os.path.exists(self.path("quarantine", "receipts", "stray.csv.json")) and
+                      os.path.exists(os.path.join(receipts, "link.csv.json")), timeout=25, what="refusals")
+        self.assertIn("symbolic link", self.receipt("link.csv")["reason"])
+        self.assertTrue(os.path.exists(target))
         code, _, err = self.stop_daemon()
         self.assertEqual(code, 0, err)
         self.assertEqual(self.count("oil_samples"), 1)
