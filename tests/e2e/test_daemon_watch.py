@@ -155,6 +155,19 @@ class Watching(DaemonCase):
         self.wait_for(lambda: self.has_receipt("before-start.csv"), timeout=10, what="start-up scan")
         self.assertEqual(self.stop_daemon(), 0)
 
+    def test_reports_debounced_and_only_for_units_affected(self):
+        self.set_keys({"schedule": {"debounce_seconds": "2"}})
+        self.start_daemon()
+        # Three files for T1 in quick succession: one re-render of T1, none of T2.
+        for i in range(3):
+            self.drop(f"t1-{i}.csv", LOAD_HEADER + "".join(load_rows("T1", 10 * i, 10)))
+        self.wait_for(lambda: "report T1 rendered" in self.site_log(), timeout=20, what="T1 report")
+        time.sleep(2.5)
+        log = self.site_log()
+        self.assertEqual(log.count("report T1 rendered"), 1, log)
+        self.assertNotIn("report T2 rendered", log)
+        self.assertEqual(self.stop_daemon(), 0)
+
     def test_500_files_at_once_in_order_per_party(self):
         self.add_party("scada")
         self.start_daemon()
