@@ -38,11 +38,8 @@ std::string fmt_ppm(std::optional<double> v) {
   int decimals = 0;
   if (a < 10) decimals = 1;
   if (a < 1) decimals = 2;
-  if (a >= 1000) {
-    // Three significant figures on large numbers: 14 830 -> 14800.
-    const double mag = std::pow(10.0, std::floor(std::log10(a)) - 2);
-    return fmt_number(std::round(*v / mag) * mag, 0);
-  }
+  // Large values stay whole, as the laboratory reports them: rounding 1308 to
+  // 1310 would contradict the method texts that quote the value itself.
   return fmt_number(v, decimals);
 }
 

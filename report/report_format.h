@@ -22,8 +22,9 @@ std::string fmt_years_range(std::optional<double> years, std::optional<double> l
 // A laboratory value with the precision its unit is reported in
 // (mg/kg, kV, mN/m whole; mg KOH/g and % two decimals; others one).
 std::string fmt_measure(std::optional<double> v, const std::string& unit);
-// Significant-figure formatting for values of any size (gas ppm): 3 significant
-// figures, at most 1 decimal ("0.5", "12", "1480").
+// Gas ppm as laboratories print them: two decimals below 1, one below 10,
+// whole numbers from 10 up ("0.25", "4.5", "12", "1308"), never rounded to
+// fewer digits, so that the tables agree with texts quoting the same value.
 std::string fmt_ppm(std::optional<double> v);
 std::string fmt_day(std::optional<analytics::Day> d);
 // "2025-06-01 14:00 UTC".
