@@ -38,12 +38,20 @@ void ranking_table(PageFlow& flow, const FleetRanking& ranking) {
                  FontFace::regular, palette::muted);
   Table t;
   t.font_size = 7.2;
-  t.columns = {{"Rank", 0.5},  {"Unit", 0.8}, {"Site", 1.4},  {"MVA", 0.55, Align::right}, {"HI", 0.45, Align::right},
-               {"Band", 0.8},  {"Life, years", 0.65, Align::right}, {"Limited by", 0.8}, {"Risk", 0.6, Align::right},
-               {"Action", 1.1}, {"Year", 0.5, Align::right}};
+  // Band and Action are wide enough for "deteriorating" and "intensify
+  // monitoring" to stay whole words at this size.
+  t.columns = {{"Rank", 0.5},  {"Unit", 0.8}, {"Site", 1.25}, {"MVA", 0.55, Align::right}, {"HI", 0.45, Align::right},
+               {"Band", 1.0},  {"Life, years", 0.65, Align::right}, {"Limited by", 0.8}, {"Risk", 0.6, Align::right},
+               {"Action", 1.15}, {"Year", 0.5, Align::right}};
+  // Why a unit has too little data can run to many lines: it goes under the
+  // table at full width, not into the narrow Action cell.
+  std::vector<std::string> why_insufficient;
   for (const auto& u : ranking.units) {
     std::string action = u.recommended_action;
-    if (u.insufficient_data) action = "insufficient data" + (u.note.empty() ? "" : ": " + u.note);
+    if (u.insufficient_data) {
+      action = "insufficient data (see below)";
+      why_insufficient.push_back(u.unit_id + ": insufficient data" + (u.note.empty() ? "" : ": " + u.note));
+    }
     t.rows.push_back({rank_text(u), u.unit_id, u.site, u.rated_mva > 0 ? fmt_number(u.rated_mva, 0) : kNoValue, fmt_health_index(u.health_index),
                       u.band.empty() ? kNoValue : u.band, fmt_number(u.remaining_life_years, 1),
                       u.limiting_factor.empty() ? kNoValue : u.limiting_factor, fmt_number(u.risk, 3), action,
@@ -51,6 +59,7 @@ void ranking_table(PageFlow& flow, const FleetRanking& ranking) {
     t.emphasis.push_back(u.recommended_action == "replace");
   }
   flow.table(t);
+  for (const auto& why : why_insufficient) flow.paragraph(why, type::small, FontFace::regular, palette::muted);
 }
 
 BarChart band_chart(const FleetRanking& ranking) {
@@ -142,15 +151,26 @@ void render_fleet_report(const FleetRanking& ranking, const std::vector<UnitAsse
   const std::string title = "Fleet condition ranking";
   PdfDocument doc(options, title + " as of " + fmt_day(ranking.as_of), "Fleet ranking by risk");
   PageFlow flow(doc, title + " · as of " + fmt_day(ranking.as_of));
+  // Page 1 carries the safety cautions at its foot, as in the unit report.
+  const double safety_h = safety_block_height(flow);
+  const double first_safety_top = flow.bottom() + safety_h;
+  draw_safety_block(flow, first_safety_top);
+  flow.reserve_bottom(safety_h + 10);
   draw_title_block(flow, options, "Fleet report", title,
                    "as of " + fmt_day(ranking.as_of) + " · " + std::to_string(ranking.units.size()) + " units");
   ranking_table(flow, ranking);
   charts(flow, ranking);
   alerts(flow, open_alerts);
   coverage(flow, units);
-  flow.ensure(safety_block_height(flow) + 12);
-  doc.add_bookmark("SAFETY", flow.page(), flow.y());
-  add_safety_block(flow);
+  // A one-page report already has the block at its foot; a longer one
+  // repeats it at the end.
+  if (doc.pages().size() > 1) {
+    flow.ensure(safety_h + 12);
+    doc.add_bookmark("SAFETY", flow.page(), flow.y());
+    add_safety_block(flow);
+  } else {
+    doc.add_bookmark("SAFETY", flow.page(), first_safety_top);
+  }
   doc.draw_footers("ferrum · fleet ranking · as of " + fmt_day(ranking.as_of));
   doc.save(path);
 }
