@@ -88,7 +88,7 @@ void dga_readings(PageFlow& flow, const UnitAssessment& a) {
   t.rows = {
       {"TDCG", fmt_ppm(d.tdcg_ppm) + " µL/L",
        d.tdcg_rate_ppm_per_day ? "rate " + fmt_number(d.tdcg_rate_ppm_per_day, 1) + " µL/L per day" : ""},
-      {"IEEE C57.104-2008 (TDCG condition)", "condition " + opt_int(d.c57104_2008_condition),
+      {"IEEE C57.104-2008 (highest of TDCG and single gases)", "condition " + opt_int(d.c57104_2008_condition),
        or_dash(d.c57104_2008_interval.empty() && d.c57104_2008_action.empty()
                    ? ""
                    : "sampling: " + or_dash(d.c57104_2008_interval) + "; procedure: " + or_dash(d.c57104_2008_action))},
