@@ -349,7 +349,7 @@ class Bench:
                 f"repeat {self.args.repeat}, Release build.", "", self.table(), ""] + self.notes + \
                [f"- load average at end {self.loadavg()}", ""]
         print("\n".join(text))
-        if self.args.results:
+        if self.args.results and not self.args.only:  # a partial run does not replace the table
             self.merge_results(Path(self.args.results), "\n".join(text))
 
     @staticmethod
@@ -372,7 +372,7 @@ def main():
     ap.add_argument("--with-10m", action="store_true", help="also ingest a 10,000,000-row file (peak memory)")
     ap.add_argument("--only-10m", action="store_true", help="ingest only the 10,000,000-row file")
     ap.add_argument("--only", action="append", choices=["ingest", "fleet", "kernels", "latency"])
-    ap.add_argument("--results", help="results.md to update")
+    ap.add_argument("--results", help="results.md to update (only by a run of every section)")
     args = ap.parse_args()
     b = Bench(args)
     started = datetime.datetime.now(datetime.timezone.utc).strftime("%Y-%m-%d %H:%M")
