@@ -48,8 +48,13 @@ void add_reason(std::string& reasons, const std::string& r) {
 
 void add_health_actions(const ActionPlanOptions& o, UnitAssessment& a) {
   if (!a.health_index) return;
-  double hi = *a.health_index;
-  std::string why = "health index " + fmt(hi, 1) + (a.band.empty() ? "" : " (" + a.band + ")");
+  // Correctable findings have their own actions; the replacement advice
+  // follows the condition without them (see UnitAssessment::condition_index).
+  double hi = a.condition_index ? *a.condition_index : *a.health_index;
+  std::string why = hi == *a.health_index
+                        ? "health index " + fmt(hi, 1) + (a.band.empty() ? "" : " (" + a.band + ")")
+                        : "condition index " + fmt(hi, 1) + " without the correctable findings (health index " +
+                              fmt(*a.health_index, 1) + ")";
   if (hi <= o.replace_below_hi)
     a.actions.push_back({1, a.as_of + o.replace_due_days, "Plan replacement or rebuild",
                          why + ": assess risk immediately (Jahromi 2009 HI table)"});

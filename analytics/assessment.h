@@ -178,6 +178,10 @@ struct UnitAssessment {
   UnitInfo unit;
   Day as_of = 0;
   std::optional<double> health_index;  // 0..100
+  // The index without the caps of correctable findings (an unsafe inspection
+  // item, a hot connection): the unit's condition once they are repaired.
+  // Replacement and refurbishment advice reads this; risk reads health_index.
+  std::optional<double> condition_index;
   std::string band;                    // plain band name
   std::string band_expected_life;      // expected-life range of the band
   std::string confidence;              // "4 of 7 factors, last oil sample 3 years old"

@@ -13,7 +13,9 @@ struct Recommendation {
 };
 
 Recommendation recommend(const RankingOptions& o, const UnitAssessment& a, int this_year) {
-  std::optional<double> hi = a.health_index;
+  // Replacement advice reads the condition without correctable findings: a
+  // stolen earth conductor calls for making safe, not for a new transformer.
+  std::optional<double> hi = a.condition_index ? a.condition_index : a.health_index;
   std::optional<double> life = a.remaining_life.years;
   if ((hi && *hi <= o.replace_below_hi) || (life && *life < o.replace_within_years)) {
     // Replace by the year the limit is reached; a failing index means now.

@@ -255,6 +255,7 @@ struct CapHit {
   std::string factor;
   std::string what;
   double cap;
+  bool correctable = false;  // repaired in the field (make safe, retighten), not a sign of ageing
 };
 
 std::vector<CapHit> triggered_caps(const HealthIndexOptions& o, const UnitAssessment& a) {
@@ -263,7 +264,7 @@ std::vector<CapHit> triggered_caps(const HealthIndexOptions& o, const UnitAssess
   for (const auto& [item, f] : latest_per_item(a)) unsafe = unsafe || f->rating == Rating::unsafe;
   for (const auto& c : o.caps) {
     if (c.trigger == "unsafe_inspection" && unsafe)
-      hits.push_back({"inspection", "an inspection item rated unsafe", c.cap});
+      hits.push_back({"inspection", "an inspection item rated unsafe", c.cap, true});
     else if (c.trigger == "dga_condition_4" && a.dga.c57104_2008_condition == 4)
       hits.push_back({"dga", "DGA condition 4 (IEEE C57.104-2008)", c.cap});
     else if (c.trigger == "dga_status_3" && a.dga.c57104_2019_status == 3)
@@ -272,7 +273,7 @@ std::vector<CapHit> triggered_caps(const HealthIndexOptions& o, const UnitAssess
       hits.push_back({"dga", "active arcing", c.cap});
     else if (c.trigger == "infrared_severity_4" &&
              worst_infrared_severity(a, o.infrared_window_days, nullptr) >= 4)
-      hits.push_back({"infrared", "infrared severity 4", c.cap});
+      hits.push_back({"infrared", "infrared severity 4", c.cap, true});
     else if (c.trigger == "paper_end_of_life" && a.paper.dp_estimate &&
              *a.paper.dp_estimate <= o.paper_end_of_life_dp)
       hits.push_back({"paper", "paper DP at or below " + fmt(o.paper_end_of_life_dp, 0), c.cap});
@@ -400,6 +401,12 @@ void score_health(const HealthIndexOptions& o, UnitAssessment& a) {
                   (binding ? " (weighted score " + fmt(total, 1) + ")" : " (not binding)");
     }
   }
+  // Correctable findings lower the index (the unit is at risk until they are
+  // repaired) but not the condition the replacement advice reads.
+  double ageing_cap = 100;
+  for (const auto& h : hits)
+    if (!h.correctable) ageing_cap = std::min(ageing_cap, h.cap);
+  a.condition_index = std::min(total, ageing_cap);
   if (hi > cap) {
     double scale = cap / hi;
     for (auto& s : a.factors) s.contribution *= scale;

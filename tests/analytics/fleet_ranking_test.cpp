@@ -128,3 +128,22 @@ TEST(FleetRanking, ActionThresholdsBothSides) {
   EXPECT_EQ(got, (std::vector<std::string>{"a:replace", "b:refurbish", "c:refurbish", "d:intensify monitoring",
                                            "e:routine"}));
 }
+
+// A correctable finding (unsafe item, hot connection) caps the index, so the
+// unit ranks high on risk, but the replacement advice follows the condition
+// without it (ferrum's reading of CIGRE TB 761 gating; no published source
+// for the split).
+TEST(FleetRanking, CorrectableFindingRaisesRiskNotReplacement) {
+  auto capped = unit("T-UNSAFE", 30, 3, 40);
+  capped.condition_index = 82;
+  capped.remaining_life.years = 40;
+  auto worn = unit("T-WORN", 30, 3, 40);
+  worn.remaining_life.years = 40;
+  const auto r = fa::rank_fleet({capped, worn}, capped.as_of, {});
+  ASSERT_EQ(r.units.size(), 2u);
+  EXPECT_TRUE(r.units[0].tied);  // same risk: both at index 30
+  for (const auto& u : r.units) {
+    if (u.unit_id == "T-UNSAFE") EXPECT_EQ(u.recommended_action, "routine");
+    if (u.unit_id == "T-WORN") EXPECT_EQ(u.recommended_action, "replace");
+  }
+}

@@ -243,10 +243,16 @@ TEST(HealthIndex, WorstIndicatorCapBindsAndIsExplained) {
   EXPECT_NEAR(contribution_sum(a), 30, 1e-9);
   EXPECT_NE(factor(a, "dga").detail.find("CIGRE TB 761"), std::string::npos);
 
+  EXPECT_DOUBLE_EQ(*a.condition_index, 30);  // DGA condition 4 is ageing, not a field repair
+
   auto u = worked_unit();
   u.inspection[0].rating = fa::Rating::unsafe;  // worst item: HIF 0 and the cap
   fa::score_health(fa::HealthIndexOptions{}, u);
   EXPECT_DOUBLE_EQ(*u.health_index, 30);
+  // The unsafe item is correctable: the condition index is the weighted score
+  // without its cap (ferrum's own split, used for replacement advice only).
+  ASSERT_TRUE(u.condition_index);
+  EXPECT_GT(*u.condition_index, 30);
 
   auto s = worked_unit();
   s.dga.c57104_2019_status = 3;  // cap 50, below 65.3: binds
