@@ -193,6 +193,7 @@ Object::Ptr to_json(const analytics::UnitAssessment& a) {
   o->set("as_of", analytics::format_day(a.as_of));
   o->set("unit", unit_json(a.unit));
   o->set("health_index", opt(a.health_index));
+  o->set("condition_index", opt(a.condition_index));
   o->set("band", text_or_null(a.band));
   o->set("band_expected_life", text_or_null(a.band_expected_life));
   o->set("confidence", text_or_null(a.confidence));
