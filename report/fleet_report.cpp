@@ -50,8 +50,10 @@ void ranking_table(PageFlow& flow, const FleetRanking& ranking) {
     std::string action = u.recommended_action;
     if (u.insufficient_data) {
       action = "insufficient data (see below)";
-      // The ranking's note already starts with "insufficient data".
-      why_insufficient.push_back(u.unit_id + ": " + (u.note.empty() ? std::string("insufficient data") : u.note));
+      // The ranking's note may already start with "insufficient data".
+      const bool prefixed = u.note.rfind("insufficient data", 0) == 0;
+      why_insufficient.push_back(u.unit_id + ": " + (prefixed ? u.note
+                                                              : "insufficient data" + (u.note.empty() ? "" : ": " + u.note)));
     }
     t.rows.push_back({rank_text(u), u.unit_id, u.site, u.rated_mva > 0 ? fmt_number(u.rated_mva, 0) : kNoValue, fmt_health_index(u.health_index),
                       u.band.empty() ? kNoValue : u.band, fmt_number(u.remaining_life_years, 1),
