@@ -60,6 +60,23 @@ fs::path move_to_free_name(const fs::path& from, const fs::path& wanted) {
   throw std::runtime_error("no free name for " + wanted.string());
 }
 
+// A dropped name as it goes into the log: control characters (a newline in a
+// name would forge a log line) written as \xNN.
+std::string loggable(const std::string& name) {
+  std::string out;
+  for (const char ch : name) {
+    const auto c = static_cast<unsigned char>(ch);
+    if (c < 0x20 || c == 0x7f) {
+      char hex[8];
+      std::snprintf(hex, sizeof hex, "\\x%02x", c);
+      out += hex;
+    } else {
+      out += ch;
+    }
+  }
+  return out;
+}
+
 // Size and modification time of a file: if they differ after the import,
 // the file was written to while it was read.
 struct FileStamp {
@@ -212,7 +229,7 @@ std::optional<FileOutcome> Pipeline::process(const fs::path& dropped) {
     out = import_claimed(claimed, party, name, now_text());
   }
   out->seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
-  spdlog::info("file {}/{}: {} {} rows={} problems={} in {:.3f}s", party.empty() ? "drop" : party, name,
+  spdlog::info("file {}/{}: {} {} rows={} problems={} in {:.3f}s", party.empty() ? "drop" : party, loggable(name),
                out->receipt.status, out->receipt.kind, out->receipt.rows, out->receipt.problem_count, out->seconds);
   return out;
 }
