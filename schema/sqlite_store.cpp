@@ -163,7 +163,10 @@ class SqliteStore final : public Store {
     sqlite3_extended_result_codes(db_, 1);
     try {
       check_is_ferrum_db(path);
-      exec(db_, "PRAGMA journal_mode=WAL; PRAGMA synchronous=NORMAL; PRAGMA foreign_keys=ON;");
+      // synchronous=FULL: a commit is on disk before the pipeline moves the
+      // file into archive/ (a durable rename). With NORMAL a power loss could
+      // keep the move but lose the commit: a file archived with no rows.
+      exec(db_, "PRAGMA journal_mode=WAL; PRAGMA synchronous=FULL; PRAGMA foreign_keys=ON;");
       migrate();
     } catch (...) {
       sqlite3_close(db_);
