@@ -143,7 +143,10 @@ TEST(FleetRanking, CorrectableFindingRaisesRiskNotReplacement) {
   ASSERT_EQ(r.units.size(), 2u);
   EXPECT_TRUE(r.units[0].tied);  // same risk: both at index 30
   for (const auto& u : r.units) {
-    if (u.unit_id == "T-UNSAFE") EXPECT_EQ(u.recommended_action, "routine");
-    if (u.unit_id == "T-WORN") EXPECT_EQ(u.recommended_action, "replace");
+    if (u.unit_id == "T-UNSAFE") {
+      EXPECT_EQ(u.recommended_action, "routine");
+    } else {
+      EXPECT_EQ(u.recommended_action, "replace");
+    }
   }
 }
