@@ -1,5 +1,7 @@
 #include "daemon/assess/assessment_service.h"
 
+#include <algorithm>
+#include <cctype>
 #include <fstream>
 #include <sstream>
 
@@ -23,6 +25,22 @@ analytics::AssessmentOptions options_from_config(const config::SiteConfig& confi
     else if (factor == "age") h.weight_age = w;
   }
   if (!config.health_weights.empty()) h.source += "; weights overridden in ferrum.ini [health]";
+  auto cuts4 = [](const std::vector<double>& v) { return analytics::RatingCuts{v[0], v[1], v[2], v[3]}; };
+  for (const auto& [key, v] : config.health_bands) {
+    if (key == "dga_cuts") h.dga_cuts = cuts4(v);
+    else if (key == "oil_cuts") h.oil_cuts = cuts4(v);
+    else if (key == "furan_ppm_cuts") h.furan_ppm_cuts = cuts4(v);
+    else if (key == "dp_cuts") h.dp_cuts = cuts4(v);
+    else if (key == "ageing_factor_cuts") h.ageing_factor_cuts = cuts4(v);
+    else if (key == "age_cuts") h.age_cuts = cuts4(v);
+    else if (key.rfind("gas_", 0) == 0) {
+      std::string gas = key.substr(4);
+      for (char& c : gas) c = static_cast<char>(std::toupper(static_cast<unsigned char>(c)));
+      for (auto& g : h.gas_bands)
+        if (g.gas == gas) std::copy(v.begin(), v.end(), g.upper.begin());
+    }
+  }
+  if (!config.health_bands.empty()) h.source += "; score bands overridden in ferrum.ini [health]";
   if (root) {
     const auto tables = root->tables() / "ieee_c57104_2019_tables.csv";
     if (std::filesystem::exists(tables)) {

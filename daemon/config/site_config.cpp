@@ -139,6 +139,47 @@ std::vector<Key> make_keys() {
                    c.health_weights[f] = parse_number("health." + name, v, 0, 100);
                  }});
   }
+  // Score bands of the health index: comma-separated cut points.
+  struct BandKey {
+    const char* name;
+    std::size_t count;
+    bool increasing;
+    const char* comment;
+  };
+  static const BandKey kBands[] = {
+      {"dga_cuts", 4, true, "Score bands (cut points, comma-separated). Empty = the published defaults (README).\n"
+                            "Rating cuts A|B|C|D|E of the DGA factor DGAF, e.g. 1.2, 1.5, 2.0, 3.0."},
+      {"oil_cuts", 4, true, "Rating cuts of the oil-quality factor, e.g. 1.2, 1.5, 2.0, 3.0."},
+      {"furan_ppm_cuts", 4, true, "Rating cuts on 2-FAL in ppm, e.g. 0.1, 0.25, 0.5, 1.0."},
+      {"dp_cuts", 4, false, "Rating cuts on DP (decreasing), e.g. 717, 603, 517, 431."},
+      {"ageing_factor_cuts", 4, true, "Rating cuts on the equivalent ageing factor, e.g. 0.5, 1.0, 2.0, 4.0."},
+      {"age_cuts", 4, true, "Rating cuts on age in years, e.g. 20, 35, 45, 55."},
+      {"gas_h2", 5, true, "Per-gas score bands (ppm upper limits of scores 1..5), e.g. gas_h2 = 100, 200, 300, 500, 700."},
+      {"gas_ch4", 5, true, ""},
+      {"gas_c2h6", 5, true, ""},
+      {"gas_c2h4", 5, true, ""},
+      {"gas_c2h2", 5, true, ""},
+      {"gas_co", 5, true, ""},
+      {"gas_co2", 5, true, ""},
+  };
+  for (const auto& b : kBands) {
+    const std::string name = b.name;
+    const std::size_t count = b.count;
+    const bool increasing = b.increasing;
+    k.push_back({"health", name, Type::list, "", true, b.comment,
+                 [name, count, increasing](SiteConfig& c, const std::string& v) {
+                   if (v.empty()) return;
+                   std::vector<double> cuts;
+                   for (const auto& part : split_list(v)) cuts.push_back(parse_number("health." + name, part, -1e12, 1e12));
+                   if (cuts.size() != count)
+                     throw ConfigError("health." + name + ": give " + std::to_string(count) + " numbers");
+                   for (std::size_t i = 1; i < cuts.size(); ++i)
+                     if (increasing ? !(cuts[i] > cuts[i - 1]) : !(cuts[i] < cuts[i - 1]))
+                       throw ConfigError("health." + name + ": the numbers must be " +
+                                         (increasing ? "increasing" : "decreasing"));
+                   c.health_bands[name] = cuts;
+                 }});
+  }
   struct RankingKey {
     const char* name;
     double lo, hi;
@@ -343,6 +384,7 @@ std::vector<std::string> describe_changes(const SiteConfig& a, const SiteConfig&
   cmp("log.level", a.log_level, b.log_level);
   if (a.health_weights != b.health_weights) out.push_back("health weights changed");
   if (a.ranking != b.ranking) out.push_back("ranking settings changed");
+  if (a.health_bands != b.health_bands) out.push_back("health score bands changed");
   if (a.extra_inspection_items != b.extra_inspection_items) out.push_back("ingest.extra_inspection_items changed");
   for (const auto& [name, p] : b.parties) {
     auto it = a.parties.find(name);

@@ -54,6 +54,7 @@ struct SiteConfig {
   std::string thermal_method = "iec60076_7";
   int inspection_interval_days = 365;
   std::map<std::string, double> health_weights;  // factor name -> weight override
+  std::map<std::string, std::vector<double>> health_bands;  // band key -> cut points override
   // [ranking]
   std::map<std::string, double> ranking;         // key -> override of the ranking defaults
   // [log]

@@ -38,6 +38,19 @@ TEST(AssessmentService, IniOverridesReachTheAnalyticsOptions) {
   EXPECT_DOUBLE_EQ(r.weight_criticality, analytics::RankingOptions{}.weight_criticality);
 }
 
+TEST(AssessmentService, ScoreBandsCanBeOverridden) {
+  const auto c = load("[health]\ndga_cuts = 1.1, 1.4, 1.9, 2.9\ngas_c2h2 = 1, 2, 10, 20, 40\ndp_cuts = 800, 600, 400, 250\n"
+                      "[party.p]\nkinds = *\n");
+  const auto o = assess::options_from_config(c, nullptr);
+  EXPECT_DOUBLE_EQ(o.health.dga_cuts[0], 1.1);
+  EXPECT_DOUBLE_EQ(o.health.dp_cuts[3], 250);
+  for (const auto& g : o.health.gas_bands)
+    if (g.gas == "C2H2") EXPECT_DOUBLE_EQ(g.upper[4], 40);
+  EXPECT_NE(o.health.source.find("score bands"), std::string::npos);
+  EXPECT_THROW(load("[health]\ndga_cuts = 1, 2, 3\n[party.p]\nkinds = *\n"), config::ConfigError);
+  EXPECT_THROW(load("[health]\nage_cuts = 40, 30, 20, 10\n[party.p]\nkinds = *\n"), config::ConfigError);
+}
+
 TEST(AssessmentService, DefaultsWhenNothingIsOverridden) {
   const auto c = load("[party.p]\nkinds = *\n");
   const auto o = assess::options_from_config(c, nullptr);
