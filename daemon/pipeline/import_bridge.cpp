@@ -42,9 +42,11 @@ bool site_allowed(const ImportSettings& s, const std::string& unit_id, const std
 }
 
 template <class Parser, class Row, class Store>
-void run_rows(CsvReader& reader, Parser& parser, ImportResult& r, Store&& store_row) {
+void run_rows(CsvReader& reader, Parser& parser, ImportResult& r, const std::atomic<bool>* cancel,
+              Store&& store_row) {
   Row row;
-  for (;;) {
+  for (std::uint64_t n = 1;; ++n) {
+    if (cancel && (n & 4095) == 0 && cancel->load(std::memory_order_relaxed)) throw ImportCancelled();
     const RecordStatus st = reader.next(r.problems);
     if (st == RecordStatus::end) break;
     if (st == RecordStatus::malformed) continue;
@@ -100,7 +102,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
   switch (kind.kind) {
     case FileKind::units_register: {
       UnitRowParser p(kind.columns, po, comma, r.problems, r.warnings);
-      run_rows<UnitRowParser, UnitRow>(reader, p, r, [&](const UnitRow& row) {
+      run_rows<UnitRowParser, UnitRow>(reader, p, r, s.cancel, [&](const UnitRow& row) {
         if (!site_allowed(s, row.unit.unit_id, row.unit.site, row.line, r.problems)) return false;
         if (store.upsert_unit(row.unit, s.file_id, static_cast<int>(row.line))) r.units.insert(row.unit.unit_id);
         return true;
@@ -109,7 +111,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
     }
     case FileKind::oil_lab: {
       OilRowParser p(kind.columns, po, comma, r.problems, r.warnings);
-      run_rows<OilRowParser, OilRow>(reader, p, r, [&](const OilRow& row) {
+      run_rows<OilRowParser, OilRow>(reader, p, r, s.cancel, [&](const OilRow& row) {
         const auto* u = units.find(row.unit_id);
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;  // `ferrum check` away from a site
@@ -121,7 +123,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
     }
     case FileKind::infrared: {
       InfraredRowParser p(kind.columns, po, comma, r.problems, r.warnings);
-      run_rows<InfraredRowParser, InfraredRow>(reader, p, r, [&](const InfraredRow& row) {
+      run_rows<InfraredRowParser, InfraredRow>(reader, p, r, s.cancel, [&](const InfraredRow& row) {
         const auto* u = units.find(row.unit_id);
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;
@@ -133,7 +135,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
     }
     case FileKind::inspection: {
       InspectionRowParser p(kind.columns, po, comma, r.problems, r.warnings);
-      run_rows<InspectionRowParser, InspectionRow>(reader, p, r, [&](const InspectionRow& row) {
+      run_rows<InspectionRowParser, InspectionRow>(reader, p, r, s.cancel, [&](const InspectionRow& row) {
         const auto* u = units.find(row.unit_id);
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;
@@ -150,7 +152,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
     case FileKind::load_series: {
       LoadRowParser p(kind.columns, po, comma, r.problems, r.warnings);
       std::string last_checked;
-      run_rows<LoadRowParser, LoadRow>(reader, p, r, [&](const LoadRow& row) {
+      run_rows<LoadRowParser, LoadRow>(reader, p, r, s.cancel, [&](const LoadRow& row) {
         const auto* u = units.find(row.unit_id);
         if (row.unit_id != last_checked) {  // rows come in runs of one unit: check once per run
           if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;

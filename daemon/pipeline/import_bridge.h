@@ -3,7 +3,9 @@
 // permissions row by row. Nothing here commits; the pipeline decides.
 #pragma once
 
+#include <atomic>
 #include <istream>
+#include <stdexcept>
 #include <set>
 #include <string>
 #include <vector>
@@ -20,6 +22,15 @@ struct ImportSettings {
   std::int64_t now = 0;                    // UTC seconds, for "date in the future"
   std::int64_t file_id = 0;                // provenance of every row
   bool units_must_exist = true;            // false: `ferrum check` without a site database
+  // Set by the daemon's stop request: the import stops between rows by
+  // throwing ImportCancelled, the caller rolls back and the file stays in
+  // work/ to be imported whole at the next start.
+  const std::atomic<bool>* cancel = nullptr;
+};
+
+class ImportCancelled : public std::runtime_error {
+ public:
+  ImportCancelled() : std::runtime_error("import interrupted by a stop request") {}
 };
 
 struct ImportResult {

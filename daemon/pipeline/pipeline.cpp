@@ -280,6 +280,7 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
   settings.party = p;
   settings.config = &config_;
   settings.now = now;
+  settings.cancel = cancel_;
   ImportResult result;
   store_.begin();
   try {

@@ -21,6 +21,7 @@
 // it again. So the rows and the file's place never disagree after a crash.
 #pragma once
 
+#include <atomic>
 #include <chrono>
 #include <filesystem>
 #include <functional>
@@ -68,6 +69,9 @@ class Pipeline {
   // For `ferrum check` away from a site: do not require units to be in the
   // (empty) register.
   void set_units_must_exist(bool v) { units_must_exist_ = v; }
+  // The daemon's stop flag: an import in progress is rolled back when it is
+  // set, and the file stays in work/ (recover() imports it at the next start).
+  void set_cancel_flag(const std::atomic<bool>* flag) { cancel_ = flag; }
 
   // Every file waiting in the party folders (and stray files in drop/),
   // oldest first per party.
@@ -89,6 +93,7 @@ class Pipeline {
   store::Store& store_;
   Clock clock_;
   bool units_must_exist_ = true;
+  const std::atomic<bool>* cancel_ = nullptr;
 };
 
 // SHA-256 of a file's content, lower-case hex. Throws std::runtime_error.

@@ -13,6 +13,7 @@
 
 #include "analytics/calendar.h"
 #include "daemon/app/logging.h"
+#include "daemon/pipeline/import_bridge.h"
 #include "daemon/pipeline/pipeline.h"
 #include "daemon/reporting/report_writer.h"
 #include "daemon/site/atomic_file.h"
@@ -125,6 +126,7 @@ struct Server::Impl {
 
   void rebuild() {
     pipeline = std::make_unique<ingest::Pipeline>(root, config, *store);
+    pipeline->set_cancel_flag(&Server::stop_requested);
     writer = std::make_unique<reporting::ReportWriter>(root, config, *store);
     std::vector<std::string> parties;
     for (const auto& [name, p] : config.parties) parties.push_back(name);
@@ -174,6 +176,10 @@ struct Server::Impl {
   void process_file(const fs::path& p) {
     try {
       if (auto o = pipeline->process(p)) note_outcome(*o);
+    } catch (const ingest::ImportCancelled&) {
+      // Stopping: the transaction was rolled back; the file waits in work/
+      // and recover() imports it whole at the next start.
+      spdlog::info("stop requested: the import of {} was rolled back and resumes at the next start", p.string());
     } catch (const std::exception& e) {
       // Not the file's fault (disk full, database locked or read-only): it
       // stays in work/ (or in its party folder) and is tried again later.
