@@ -193,6 +193,7 @@ std::optional<FileOutcome> Pipeline::process(const fs::path& dropped) {
   if (is_ignored_name(name)) return std::nullopt;
   struct stat st {};
   if (::lstat(dropped.c_str(), &st) != 0) return std::nullopt;  // gone already
+  if (S_ISDIR(st.st_mode)) return std::nullopt;                  // party folders, receipts/: never files
 
   const fs::path parent = dropped.parent_path();
   const bool in_drop_root = fs::equivalent(parent, root_.drop());
