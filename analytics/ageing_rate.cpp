@@ -4,16 +4,6 @@
 
 namespace ferrum::analytics {
 
-double iec_ageing_rate_kraft(double hot_spot_c) { return std::exp2((hot_spot_c - 98.0) / 6.0); }
-
-double ageing_acceleration_factor(double hot_spot_c) {
-  return std::exp(15000.0 / 383.0 - 15000.0 / (hot_spot_c + 273.0));
-}
-
-double ageing_rate(PaperType paper, double hot_spot_c) {
-  return paper == PaperType::kraft ? iec_ageing_rate_kraft(hot_spot_c) : ageing_acceleration_factor(hot_spot_c);
-}
-
 std::string ageing_rate_source(PaperType paper) {
   return paper == PaperType::kraft
              ? "relative ageing rate V = 2^((θh − 98)/6), non-upgraded paper (IEC 60076-7:2005 §6.2)"

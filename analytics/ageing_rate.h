@@ -16,19 +16,25 @@
 // they are extrapolations.
 #pragma once
 
+#include <cmath>
 #include <string>
 
 #include "analytics/unit_data.h"
 
 namespace ferrum::analytics {
 
+// The three rates are inline: the thermal kernel evaluates one per step.
 // IEC 60076-7 relative ageing rate, non-upgraded paper (1 at 98 °C).
-double iec_ageing_rate_kraft(double hot_spot_c);
+inline double iec_ageing_rate_kraft(double hot_spot_c) { return std::exp2((hot_spot_c - 98.0) / 6.0); }
 // IEC 60076-7 / IEEE C57.91 Arrhenius form for upgraded paper (1 at 110 °C).
 // IEEE calls it F_AA.
-double ageing_acceleration_factor(double hot_spot_c);
+inline double ageing_acceleration_factor(double hot_spot_c) {
+  return std::exp(15000.0 / 383.0 - 15000.0 / (hot_spot_c + 273.0));
+}
 // The rate for the unit's paper type.
-double ageing_rate(PaperType paper, double hot_spot_c);
+inline double ageing_rate(PaperType paper, double hot_spot_c) {
+  return paper == PaperType::kraft ? iec_ageing_rate_kraft(hot_spot_c) : ageing_acceleration_factor(hot_spot_c);
+}
 // Name and source of the rate used for a paper type.
 std::string ageing_rate_source(PaperType paper);
 

@@ -53,6 +53,25 @@ IecStepTargets iec_step_targets(const IecThermalParameters& p, double k);
 void iec_step(const IecThermalParameters& p, const IecStepTargets& targets, double ambient_c, double dt_min,
               IecThermalState& s);
 
+// The step-length terms of a step: Dt/(k11·τ_o), Dt/(k22·τ_w), Dt/(τ_o/k22),
+// computed once per step length so that a run of equal steps needs no
+// division.
+struct IecStepFactors {
+  double top_oil = 0;
+  double dh1 = 0;
+  double dh2 = 0;
+};
+IecStepFactors iec_step_factors(const IecThermalParameters& p, double dt_min);
+// One step with both kinds of terms given: the difference equations proper
+// (inline: the thermal kernel runs it once per sub-step).
+inline void iec_step(const IecThermalParameters& p, const IecStepTargets& t, const IecStepFactors& f,
+                     double ambient_c, IecThermalState& s) {
+  const double g = t.gradient_k;
+  s.top_oil_c += f.top_oil * (t.top_oil_rise_k - (s.top_oil_c - ambient_c));
+  s.dh1_k += f.dh1 * (p.k21 * g - s.dh1_k);
+  s.dh2_k += f.dh2 * ((p.k21 - 1) * g - s.dh2_k);
+}
+
 // Hot-spot response function f2(t) of §8.2.2 for a load increase:
 // k21·(1 − e^(−t/(k22·τ_w))) − (k21 − 1)·(1 − e^(−t/(τ_o/k22))).
 double iec_hot_spot_step_response(const IecThermalParameters& p, double t_min);

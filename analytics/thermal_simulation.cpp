@@ -30,6 +30,10 @@ Timestamp infer_interval(std::span<const LoadPoint> load) {
 }
 
 // Thermal state of either model, advanced in place, with the ageing integral.
+// Runs of equal loads and equal step lengths (the usual case: a fixed
+// sampling interval) reuse the load terms and the step factors, and the
+// ageing rate at the current hot-spot is kept for the output point, so a
+// step costs two powers and one exp2 at most (profiled, bench/results.md §3).
 class Integrator {
  public:
   explicit Integrator(const ThermalModel& m)
@@ -42,6 +46,7 @@ class Integrator {
       ieee_ = ieee_steady_state(m_.ieee, k);
     }
     ambient_ = ambient;
+    rate_ = ageing_rate(m_.paper, hot_spot());
   }
 
   // Advances by dt_s at constant k and ambient; returns Σ V·Δt in hours.
@@ -51,18 +56,27 @@ class Integrator {
     if (m_.method == ThermalMethod::ieee_c57_91) {
       // Exact exponential: one step, ageing on the end temperature.
       ieee_step(m_.ieee, k, dt_min, ieee_);
-      return ageing_rate(m_.paper, hot_spot()) * dt_min / 60.0;
+      rate_ = ageing_rate(m_.paper, hot_spot());
+      return rate_ * dt_min / 60.0;
     }
-    // Sub-step long intervals (see kStepFractionOfLimit).
-    const int n = std::max(1, static_cast<int>(std::ceil(dt_min / max_step_min_)));
-    const double h = dt_min / n;
-    const IecStepTargets targets = iec_step_targets(m_.iec, k);
-    double aged = 0;
-    for (int i = 0; i < n; ++i) {
-      iec_step(m_.iec, targets, ambient, h, iec_);
-      aged += ageing_rate(m_.paper, iec_.hot_spot_c()) * h / 60.0;
+    if (!(k == targets_k_)) {
+      targets_ = iec_step_targets(m_.iec, k);
+      targets_k_ = k;
     }
-    return aged;
+    if (!(dt_min == steps_dt_min_)) {
+      // Sub-step long intervals (see kStepFractionOfLimit).
+      sub_steps_ = std::max(1, static_cast<int>(std::ceil(dt_min / max_step_min_)));
+      sub_step_h_ = dt_min / sub_steps_ / 60.0;
+      factors_ = iec_step_factors(m_.iec, dt_min / sub_steps_);
+      steps_dt_min_ = dt_min;
+    }
+    double rate_sum = 0;
+    for (int i = 0; i < sub_steps_; ++i) {
+      iec_step(m_.iec, targets_, factors_, ambient, iec_);
+      rate_ = ageing_rate(m_.paper, iec_.hot_spot_c());
+      rate_sum += rate_;
+    }
+    return rate_sum * sub_step_h_;
   }
 
   double top_oil() const {
@@ -72,6 +86,8 @@ class Integrator {
     return m_.method == ThermalMethod::iec60076_7 ? iec_.hot_spot_c()
                                                   : ambient_ + ieee_.top_oil_rise_k + ieee_.hot_spot_rise_k;
   }
+  // Ageing rate (V or F_AA) at the current hot-spot.
+  double rate() const { return rate_; }
 
  private:
   const ThermalModel& m_;
@@ -79,6 +95,14 @@ class Integrator {
   IecThermalState iec_;
   IeeeThermalState ieee_;
   double ambient_ = 20;
+  double rate_ = 0;
+  // Caches of the last load and step length (NaN: none yet).
+  double targets_k_ = std::numeric_limits<double>::quiet_NaN();
+  IecStepTargets targets_;
+  double steps_dt_min_ = std::numeric_limits<double>::quiet_NaN();
+  int sub_steps_ = 1;
+  double sub_step_h_ = 0;
+  IecStepFactors factors_;
 };
 
 double ambient_for(const LoadPoint& p, const GapOptions& g, bool& from_profile) {
@@ -154,7 +178,7 @@ SimulationStats simulate_thermal(const ThermalModel& model, std::span<const Load
     st.bridged_h += bridged_h;
     st.loss_of_life_h += aged_h;
     const double hs = model_state.hot_spot();
-    out[st.written++] = ThermalPoint{p.t, p.load_pu, amb, model_state.top_oil(), hs, ageing_rate(model.paper, hs),
+    out[st.written++] = ThermalPoint{p.t, p.load_pu, amb, model_state.top_oil(), hs, model_state.rate(),
                                      p.top_oil_c, step_h, bridged_h, aged_h, from_profile};
     last_t = p.t;
     last_k = p.load_pu;

@@ -3,6 +3,7 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
 
 namespace ferrum::analytics {
@@ -93,6 +94,22 @@ TEST(Iec60076_7Difference, OnafHotSpotGradientOvershoots) {
 TEST(Iec60076_7Difference, MaximumStep) {
   EXPECT_DOUBLE_EQ(iec_max_step_min(table(IecCoolingClass::onaf)), 7.0);
   EXPECT_DOUBLE_EQ(iec_max_step_min(table(IecCoolingClass::onan_distribution)), 4.0);
+}
+
+
+// The steady terms are evaluated as exp(e·ln b) for speed; they must equal
+// the standard's powers Δθ_or·((1 + K²R)/(1 + R))^x and Δθ_hr·K^y
+// (IEC 60076-7:2005 §8.2.2) to far below any temperature resolution.
+TEST(Iec60076_7Difference, SteadyTermsEqualTheStandardsPowers) {
+  for (int c = 0; c < 5; ++c) {
+    const auto p = iec_recommended_parameters(static_cast<IecCoolingClass>(c));
+    for (double k : {0.0, 1e-6, 0.05, 0.37, 0.8, 1.0, 1.25, 1.5, 2.0, 3.0}) {
+      const double rise = p.top_oil_rise_k * std::pow((1 + k * k * p.r) / (1 + p.r), p.x);
+      const double grad = p.hot_spot_gradient_k * std::pow(k, p.y);
+      EXPECT_NEAR(iec_steady_top_oil_rise(p, k), rise, 1e-12 * std::max(1.0, rise)) << c << " K=" << k;
+      EXPECT_NEAR(iec_steady_hot_spot_gradient(p, k), grad, 1e-12 * std::max(1.0, grad)) << c << " K=" << k;
+    }
+  }
 }
 
 }  // namespace
