@@ -43,6 +43,10 @@ IecStepFactors iec_step_factors(const IecThermalParameters& p, double dt_min) {
   return {dt_min / (p.k11 * p.tau_o_min), dt_min / (p.k22 * p.tau_w_min), dt_min / (p.tau_o_min / p.k22)};
 }
 
+IecStepDecay iec_step_decay(const IecStepFactors& f, int n) {
+  return {std::pow(1 - f.top_oil, n), std::pow(1 - f.dh1, n), std::pow(1 - f.dh2, n)};
+}
+
 void iec_step(const IecThermalParameters& p, const IecStepTargets& t, double ambient_c, double dt_min,
               IecThermalState& s) {
   iec_step(p, t, iec_step_factors(p, dt_min), ambient_c, s);

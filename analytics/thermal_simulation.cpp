@@ -29,6 +29,15 @@ Timestamp infer_interval(std::span<const LoadPoint> load) {
   return sample[n / 2];
 }
 
+// The ageing integral ∫V dt of a sub-stepped interval is taken between
+// nodes every kSubStepsPerNode sub-steps, i.e. at most the standard's
+// largest step apart, by the logarithmic mean of V at the nodes (exact for a
+// hot-spot that moves linearly between them; mean_ageing_rate). Evaluating
+// V at every sub-step cost most of an hourly series (profiled,
+// bench/results.md §2); nodes are 7 min apart on ONAF, and the sub-steps
+// between them are taken in one go (iec_steps, the same numbers).
+constexpr int kSubStepsPerNode = static_cast<int>(1.0 / kStepFractionOfLimit + 0.5);
+
 // Thermal state of either model, advanced in place, with the ageing integral.
 // Runs of equal loads and equal step lengths (the usual case: a fixed
 // sampling interval) reuse the load terms and the step factors, and the
@@ -63,20 +72,20 @@ class Integrator {
       targets_ = iec_step_targets(m_.iec, k);
       targets_k_ = k;
     }
-    if (!(dt_min == steps_dt_min_)) {
-      // Sub-step long intervals (see kStepFractionOfLimit).
-      sub_steps_ = std::max(1, static_cast<int>(std::ceil(dt_min / max_step_min_)));
-      sub_step_h_ = dt_min / sub_steps_ / 60.0;
-      factors_ = iec_step_factors(m_.iec, dt_min / sub_steps_);
-      steps_dt_min_ = dt_min;
+    if (!(dt_min == steps_dt_min_)) plan_sub_steps(dt_min);
+    double aged_h = 0;
+    double theta0 = iec_.hot_spot_c(), v0 = rate_;
+    for (int i = 0; i < nodes_; ++i) {
+      const bool last = i + 1 == nodes_;
+      if (sub_steps_ == 1) iec_step(m_.iec, targets_, factors_, ambient, iec_);
+      else iec_steps(m_.iec, targets_, last ? last_decay_ : node_decay_, ambient, iec_);
+      const double theta1 = iec_.hot_spot_c(), v1 = ageing_rate(m_.paper, theta1);
+      aged_h += mean_ageing_rate(m_.paper, theta0, v0, theta1, v1) * (last ? last_node_h_ : node_h_);
+      theta0 = theta1;
+      v0 = v1;
     }
-    double rate_sum = 0;
-    for (int i = 0; i < sub_steps_; ++i) {
-      iec_step(m_.iec, targets_, factors_, ambient, iec_);
-      rate_ = ageing_rate(m_.paper, iec_.hot_spot_c());
-      rate_sum += rate_;
-    }
-    return rate_sum * sub_step_h_;
+    rate_ = v0;
+    return aged_h;
   }
 
   double top_oil() const {
@@ -90,6 +99,22 @@ class Integrator {
   double rate() const { return rate_; }
 
  private:
+  // Sub-steps (see kStepFractionOfLimit) grouped into nodes of
+  // kSubStepsPerNode, the last node taking the rest; each node is advanced
+  // in one go (iec_steps).
+  void plan_sub_steps(double dt_min) {
+    sub_steps_ = std::max(1, static_cast<int>(std::ceil(dt_min / max_step_min_)));
+    const double sub_step_min = dt_min / sub_steps_;
+    factors_ = iec_step_factors(m_.iec, sub_step_min);
+    nodes_ = (sub_steps_ + kSubStepsPerNode - 1) / kSubStepsPerNode;
+    const int in_last = sub_steps_ - (nodes_ - 1) * kSubStepsPerNode;
+    node_decay_ = iec_step_decay(factors_, kSubStepsPerNode);
+    last_decay_ = iec_step_decay(factors_, in_last);
+    node_h_ = kSubStepsPerNode * sub_step_min / 60.0;
+    last_node_h_ = in_last * sub_step_min / 60.0;
+    steps_dt_min_ = dt_min;
+  }
+
   const ThermalModel& m_;
   double max_step_min_;
   IecThermalState iec_;
@@ -101,8 +126,10 @@ class Integrator {
   IecStepTargets targets_;
   double steps_dt_min_ = std::numeric_limits<double>::quiet_NaN();
   int sub_steps_ = 1;
-  double sub_step_h_ = 0;
+  int nodes_ = 1;
   IecStepFactors factors_;
+  IecStepDecay node_decay_, last_decay_;
+  double node_h_ = 0, last_node_h_ = 0;
 };
 
 double ambient_for(const LoadPoint& p, const GapOptions& g, bool& from_profile) {

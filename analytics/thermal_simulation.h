@@ -15,6 +15,9 @@
 //   and is neither covered nor bridged;
 // * a missing ambient takes the month's value of the ambient profile.
 // Loads are held constant over the interval that ends at their timestamp.
+// Ageing ∫V dt is integrated between nodes at most the standard's largest
+// step apart by the logarithmic mean of V (mean_ageing_rate in ageing_rate.h;
+// ferrum's rule, exact for a hot-spot moving linearly between nodes).
 //
 // Units: timestamps UTC s, load per unit, temperatures °C, durations h.
 // The kernel does not allocate: it writes into a caller-provided span.

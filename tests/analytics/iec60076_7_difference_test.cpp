@@ -5,6 +5,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <utility>
 
 namespace ferrum::analytics {
 namespace {
@@ -96,6 +97,28 @@ TEST(Iec60076_7Difference, MaximumStep) {
   EXPECT_DOUBLE_EQ(iec_max_step_min(table(IecCoolingClass::onan_distribution)), 4.0);
 }
 
+
+// n steps in one go (iec_steps) give the numbers of n single difference
+// steps (IEC 60076-7:2005 §8.2.3 equations, iterated here), after a load
+// increase and a decrease, at the largest step the standard allows.
+TEST(Iec60076_7Difference, MultiStepEqualsRepeatedSteps) {
+  for (int c = 0; c < 5; ++c) {
+    const auto p = iec_recommended_parameters(static_cast<IecCoolingClass>(c));
+    const double dt = iec_max_step_min(p) * 0.2;
+    for (auto [k0, k1] : {std::pair{0.6, 1.3}, std::pair{1.4, 0.3}}) {
+      const auto start = iec_steady_state(p, k0, 15.0);
+      const auto targets = iec_step_targets(p, k1);
+      const auto factors = iec_step_factors(p, dt);
+      for (int n : {1, 2, 5, 43}) {
+        IecThermalState one_by_one = start, at_once = start;
+        for (int i = 0; i < n; ++i) iec_step(p, targets, factors, 25.0, one_by_one);
+        iec_steps(p, targets, iec_step_decay(factors, n), 25.0, at_once);
+        EXPECT_NEAR(at_once.top_oil_c, one_by_one.top_oil_c, 1e-9) << c << " n=" << n;
+        EXPECT_NEAR(at_once.hot_spot_c(), one_by_one.hot_spot_c(), 1e-9) << c << " n=" << n;
+      }
+    }
+  }
+}
 
 // The steady terms are evaluated as exp(e·ln b) for speed; they must equal
 // the standard's powers Δθ_or·((1 + K²R)/(1 + R))^x and Δθ_hr·K^y
