@@ -89,9 +89,14 @@ class FaultsTest(SiteTestCase):
             self.assertEqual(self.receipt_status(f"old-{i}.csv", "lab"), "accepted")
         self.assertEqual(self.count("oil_samples"), len(stamps))
 
-    @unittest.skip("unfinished: fails, cause not yet found (tests/fuzz/RESULTS.md, Faults)")
     def test_broken_configuration_on_sighup_keeps_the_old_one(self):
         self.start_daemon()
+        # The register first (drop-files.md: "deliver the register first"): a
+        # file renamed into a folder is taken at once, a file found by the
+        # start-up scan only after settle_seconds, so without this wait the oil
+        # file below could be taken first and rightly rejected (unit T1 not in
+        # the register). That race, not the reload, made this case fail.
+        self.wait_for(lambda: self.receipt_status("register.csv", "planning") == "accepted", what="register")
         with open(self.path("ferrum.ini"), "a") as f:
             f.write("\n[ingest\nthis is not = = a key\nsettle_seconds = banana\n")
         self.daemon.send_signal(signal.SIGHUP)
@@ -105,7 +110,6 @@ class FaultsTest(SiteTestCase):
         code, _, err = self.stop_daemon()
         self.assertEqual(code, 0, err[-2000:])
 
-    @unittest.skip("unfinished: ferrum ingest aborted in recover() on an in-flux build (tests/fuzz/RESULTS.md, Faults)")
     def test_read_only_database_at_start_stops_cleanly(self):
         """A database that cannot be written (immutable flag, so that even
         root cannot write it): the daemon stops with a clear message and
@@ -145,10 +149,14 @@ class FullDiskTest(unittest.TestCase):
         if self.daemon and self.daemon.poll() is None:
             self.daemon.kill()
             self.daemon.wait()
-        subprocess.run(["umount", self.root])
+        for _ in range(50):  # a process that just exited may still hold the mount for a moment
+            if subprocess.run(["umount", self.root], capture_output=True).returncode == 0:
+                break
+            time.sleep(0.1)
+        else:
+            subprocess.run(["umount", "-l", self.root])
         os.rmdir(self.root)
 
-    @unittest.skip("unfinished: the filler write itself hits ENOSPC (test bug; tests/fuzz/RESULTS.md, Faults)")
     def test_full_disk_leaves_the_file_waiting_and_retries(self):
         ferrumtest.run("init", "--root", self.root)
         quick_config(os.path.join(self.root, "ferrum.ini"), "\n[party.lab]\nkinds = *\nsites = *\n")
@@ -163,23 +171,25 @@ class FullDiskTest(unittest.TestCase):
         deadline = time.time() + 20
         while not os.path.exists(os.path.join(receipts, "register.csv.json")) and time.time() < deadline:
             time.sleep(0.1)
-        # Fill the disk, leaving a little room, then drop a load series whose
-        # rows cannot fit in the database.
-        filler = os.path.join(self.root, "filler")
-        with open(filler, "wb") as f:
-            try:
-                while True:
-                    f.write(b"\0" * 4096)
-                    f.flush()
-            except OSError:
-                pass
-        os.truncate(filler, max(os.path.getsize(filler) - 300 * 1024, 0))
+        # A load series whose rows cannot fit in the database: written first
+        # (under a temporary name), then the disk is filled, leaving a little
+        # room (for log lines), then the series is dropped.
         rows = ["unit_id,timestamp,load_mva,ambient_c,top_oil_c"]
         for k in range(4000):
             rows.append(f"T1,{time.strftime('%Y-%m-%dT%H:%MZ', time.gmtime(1577836800 + k * 900))},{10 + k % 9},5,40")
         content = "\n".join(rows) + "\n"
         with open(os.path.join(lab, ".load.part"), "w") as f:
             f.write(content)
+        filler = os.path.join(self.root, "filler")
+        # Unbuffered: with a buffer, close() would flush the block that did not
+        # fit and raise ENOSPC out of the `with`.
+        with open(filler, "wb", buffering=0) as f:
+            try:
+                while True:
+                    f.write(b"\0" * 4096)
+            except OSError:
+                pass
+        os.truncate(filler, max(os.path.getsize(filler) - 64 * 1024, 0))
         os.rename(os.path.join(lab, ".load.part"), os.path.join(lab, "load.csv"))
         logf = os.path.join(self.root, "log", "ferrum.log")
 
@@ -213,9 +223,12 @@ class FullDiskTest(unittest.TestCase):
         self.daemon.send_signal(signal.SIGTERM)
         _, err = self.daemon.communicate(timeout=30)
         self.assertEqual(self.daemon.returncode, 0, err[-2000:])
-        with sqlite3.connect(os.path.join(self.root, "ferrum.db")) as c:
+        c = sqlite3.connect(os.path.join(self.root, "ferrum.db"))
+        try:  # closed before tearDown unmounts the root
             self.assertEqual(c.execute("SELECT count(*) FROM load_points").fetchone()[0], 4000)
             self.assertEqual(c.execute("PRAGMA integrity_check").fetchone()[0], "ok")
+        finally:
+            c.close()
 
 
 if __name__ == "__main__":
