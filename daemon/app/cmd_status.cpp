@@ -38,7 +38,10 @@ std::string uptime_text(const std::string& started_at) {
 int cmd_status(const Invocation& inv) {
   const site::SiteRoot root = site::resolve_root(inv.get("root"));
   if (!std::filesystem::exists(root.config())) throw std::runtime_error("no ferrum.ini in " + root.root.string());
-  const long pid = site::RootLock::holder_pid(root);
+  // The root lock is held by the daemon (`ferrum serve`) or by a one-off
+  // command such as `ferrum ingest`: only the first is "running".
+  const site::LockHolder holder = site::RootLock::holder(root);
+  const long pid = holder.is_daemon() ? holder.pid : 0;
   std::ifstream in(root.status_file());
   Poco::JSON::Object::Ptr st;
   if (in) {
@@ -52,6 +55,12 @@ int cmd_status(const Invocation& inv) {
   if (inv.has("json")) {
     Poco::JSON::Object::Ptr o = st ? st : Poco::JSON::Object::Ptr(new Poco::JSON::Object);
     o->set("running", pid != 0);
+    if (holder.pid != 0 && !holder.is_daemon()) {
+      Poco::JSON::Object::Ptr h = new Poco::JSON::Object;
+      h->set("pid", holder.pid);
+      h->set("command", holder.command);
+      o->set("lock_holder", h);
+    }
     o->stringify(std::cout, 2);
     std::cout << "\n";
     return pid ? kOk : kNotRunning;
@@ -64,6 +73,9 @@ int cmd_status(const Invocation& inv) {
     std::cout << "ferrum is NOT running on " << root.root.string();
     if (!get("stopped_at").empty()) std::cout << " (stopped " << get("stopped_at") << ")";
     std::cout << "\n";
+    if (holder.pid != 0)
+      std::cout << "  busy:           'ferrum " << holder.command << "' (pid " << holder.pid
+                << ") is working on this root now\n";
   }
   if (st) {
     std::cout << "  last import:    "

@@ -6,8 +6,33 @@
 
 #include <cstdlib>
 #include <fstream>
+#include <iterator>
+#include <sstream>
 
 namespace ferrum::site {
+
+namespace {
+
+// This process's ferrum command ("serve", "ingest", ...): the first argument
+// after the program name that is not an option (`ferrum COMMAND [options]`),
+// read from /proc/self/cmdline; only [a-z0-9_-], at most 32 characters.
+std::string own_command() {
+  std::ifstream in("/proc/self/cmdline", std::ios::binary);
+  const std::string all((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+  std::istringstream args(all);
+  std::string arg;
+  std::getline(args, arg, '\0');  // the program
+  while (std::getline(args, arg, '\0')) {
+    if (arg.empty() || arg[0] == '-') continue;
+    std::string out;
+    for (const char c : arg.substr(0, 32))
+      if ((c >= 'a' && c <= 'z') || (c >= '0' && c <= '9') || c == '_' || c == '-') out += c;
+    return out;
+  }
+  return "";
+}
+
+}  // namespace
 
 SiteRoot resolve_root(const std::string& option_value) {
   std::string r = option_value;
@@ -36,26 +61,30 @@ bool RootLock::try_acquire(const SiteRoot& root) {
     fd_ = -1;
     return false;
   }
-  const std::string pid = std::to_string(::getpid()) + "\n";
+  const std::string command = own_command();
+  const std::string text = std::to_string(::getpid()) + (command.empty() ? "" : " " + command) + "\n";
   if (::ftruncate(fd_, 0) == 0) {
-    [[maybe_unused]] auto n = ::pwrite(fd_, pid.data(), pid.size(), 0);
+    [[maybe_unused]] auto n = ::pwrite(fd_, text.data(), text.size(), 0);
   }
   return true;
 }
 
-long RootLock::holder_pid(const SiteRoot& root) {
+long RootLock::holder_pid(const SiteRoot& root) { return holder(root).pid; }
+
+LockHolder RootLock::holder(const SiteRoot& root) {
   const int fd = ::open(root.lock_file().c_str(), O_RDONLY | O_CLOEXEC);
-  if (fd < 0) return 0;
+  if (fd < 0) return {};
   // Free lock: nobody holds it.
   if (::flock(fd, LOCK_SH | LOCK_NB) == 0) {
     ::close(fd);
-    return 0;
+    return {};
   }
   ::close(fd);
   std::ifstream in(root.lock_file());
-  long pid = 0;
-  in >> pid;
-  return pid;
+  LockHolder h;
+  in >> h.pid >> h.command;
+  if (h.pid <= 0) h = {};
+  return h;
 }
 
 }  // namespace ferrum::site

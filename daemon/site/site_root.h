@@ -5,7 +5,8 @@
 //   ROOT/archive/YYYY/MM/  imported files     ROOT/quarantine/   rejected files
 //   ROOT/reports/     PDFs (reports/YYYY-Www/ weekly bundles, reports/alerts/)
 //   ROOT/ferrum.db    SQLite (WAL)          ROOT/log/ferrum.log rotating log
-//   ROOT/ferrum.lock  held by the process that writes the root
+//   ROOT/ferrum.lock  held by the process that writes the root; holds
+//                     "PID COMMAND" (e.g. "4242 serve") of that process
 #pragma once
 
 #include <filesystem>
@@ -36,8 +37,18 @@ SiteRoot resolve_root(const std::string& option_value);
 // Creates the folders (idempotent). Does not touch an existing ferrum.ini.
 void create_layout(const SiteRoot& root);
 
+// Who holds the root lock: its pid and its ferrum command ("serve",
+// "ingest", ...; empty when the lock file names no command).
+struct LockHolder {
+  long pid = 0;  // 0: nobody holds the lock
+  std::string command;
+  bool is_daemon() const { return pid != 0 && (command.empty() || command == "serve"); }
+};
+
 // An exclusive advisory lock on ROOT/ferrum.lock (flock), held while the
 // object lives. try_acquire returns false when another process holds it.
+// The holder writes "PID COMMAND" into the lock file, so that `ferrum status`
+// can tell the daemon from a `ferrum ingest` run.
 class RootLock {
  public:
   RootLock() = default;
@@ -47,6 +58,10 @@ class RootLock {
   bool try_acquire(const SiteRoot& root);
   // Pid written in the lock file by its holder, or 0.
   static long holder_pid(const SiteRoot& root);
+  // Pid and command written in the lock file by its holder; pid 0 when the
+  // lock is free. A lock file of an older version (pid only) gives an empty
+  // command, taken as the daemon.
+  static LockHolder holder(const SiteRoot& root);
 
  private:
   int fd_ = -1;
