@@ -1,9 +1,15 @@
 #include "daemon/assess/assessment_service.h"
 
 #include <algorithm>
+#include <atomic>
 #include <cctype>
+#include <condition_variable>
+#include <exception>
 #include <fstream>
+#include <mutex>
+#include <optional>
 #include <sstream>
+#include <thread>
 
 #include "daemon/reporting/report_writer.h"
 
@@ -66,6 +72,108 @@ std::vector<analytics::UnitAssessment> assess_fleet(store::Store& store, analyti
                                                     const analytics::AssessmentOptions& options) {
   std::vector<analytics::UnitAssessment> out;
   for (const auto& u : store.units()) out.push_back(assess_unit(store, u.unit_id, as_of, options));
+  return out;
+}
+
+namespace {
+
+// Finished assessments waiting for the caller, by position in the id list.
+class OrderedResults {
+ public:
+  explicit OrderedResults(std::size_t n, std::size_t window) : slots_(n), window_(window) {}
+
+  // A worker's next index, or nothing when all are taken or work stopped.
+  // Waits while the worker would run more than `window` ahead of the caller.
+  std::optional<std::size_t> take() {
+    std::unique_lock lock(mutex_);
+    changed_.wait(lock, [&] { return failed_ || next_take_ >= slots_.size() || next_take_ < next_emit_ + window_; });
+    if (failed_ || next_take_ >= slots_.size()) return std::nullopt;
+    return next_take_++;
+  }
+  void put(std::size_t i, analytics::UnitAssessment&& a) {
+    {
+      std::lock_guard lock(mutex_);
+      slots_[i] = std::move(a);
+    }
+    changed_.notify_all();
+  }
+  void fail(std::exception_ptr e) {
+    {
+      std::lock_guard lock(mutex_);
+      if (!error_) error_ = e;
+      failed_ = true;
+    }
+    changed_.notify_all();
+  }
+  // The caller's next assessment in order; rethrows a worker's exception.
+  analytics::UnitAssessment next() {
+    std::unique_lock lock(mutex_);
+    changed_.wait(lock, [&] { return failed_ || slots_[next_emit_].has_value(); });
+    if (failed_) std::rethrow_exception(error_);
+    analytics::UnitAssessment a = std::move(*slots_[next_emit_]);
+    slots_[next_emit_++].reset();
+    lock.unlock();
+    changed_.notify_all();
+    return a;
+  }
+  void stop() {
+    {
+      std::lock_guard lock(mutex_);
+      failed_ = true;
+    }
+    changed_.notify_all();
+  }
+
+ private:
+  std::mutex mutex_;
+  std::condition_variable changed_;
+  std::vector<std::optional<analytics::UnitAssessment>> slots_;
+  std::size_t window_;
+  std::size_t next_take_ = 0, next_emit_ = 0;
+  bool failed_ = false;
+  std::exception_ptr error_;
+};
+
+}  // namespace
+
+void assess_units_parallel(const std::string& database, const std::vector<std::string>& ids, analytics::Day as_of,
+                           const analytics::AssessmentOptions& options, unsigned workers,
+                           const std::function<void(analytics::UnitAssessment&&)>& emit) {
+  if (workers == 0) workers = std::max(1u, std::thread::hardware_concurrency());
+  workers = static_cast<unsigned>(std::min<std::size_t>(workers, std::max<std::size_t>(ids.size(), 1)));
+  constexpr std::size_t kWindowPerWorker = 16;
+  OrderedResults results(ids.size(), kWindowPerWorker * workers);
+  std::vector<std::thread> threads;
+  for (unsigned w = 0; w < workers; ++w) {
+    threads.emplace_back([&] {
+      try {
+        auto store = store::open_sqlite_store(database);
+        while (auto i = results.take()) results.put(*i, assess_unit(*store, ids[*i], as_of, options));
+      } catch (...) {
+        results.fail(std::current_exception());
+      }
+    });
+  }
+  try {
+    for (std::size_t i = 0; i < ids.size(); ++i) emit(results.next());
+  } catch (...) {
+    results.stop();
+    for (auto& t : threads) t.join();
+    throw;
+  }
+  for (auto& t : threads) t.join();
+}
+
+std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store, const std::string& database,
+                                                             analytics::Day as_of,
+                                                             const analytics::AssessmentOptions& options) {
+  std::vector<std::string> ids;
+  for (const auto& u : store.units()) ids.push_back(u.unit_id);
+  std::vector<analytics::UnitAssessment> out;
+  out.reserve(ids.size());
+  assess_units_parallel(database, ids, as_of, options, 0, [&](analytics::UnitAssessment&& a) {
+    out.push_back(std::move(a));
+  });
   return out;
 }
 

@@ -3,6 +3,7 @@
 // assessment. No rendering here.
 #pragma once
 
+#include <functional>
 #include <string>
 #include <vector>
 
@@ -25,6 +26,22 @@ analytics::UnitAssessment assess_unit(store::Store& store, const std::string& un
 // Every unit in the register, in unit_id order.
 std::vector<analytics::UnitAssessment> assess_fleet(store::Store& store, analytics::Day as_of,
                                                     const analytics::AssessmentOptions& options);
+
+// Assesses `ids` on `workers` threads (0: one per core), each with its own
+// connection to the database at `database` (an SQLite connection serves one
+// thread at a time; WAL lets the readers run beside a writer). `emit` gets
+// the assessments in the order of `ids`, on the calling thread, while the
+// workers go on; at most a bounded window of finished assessments waits
+// for it, so memory does not grow with the fleet. A worker's exception stops
+// the others and is rethrown here.
+void assess_units_parallel(const std::string& database, const std::vector<std::string>& ids, analytics::Day as_of,
+                           const analytics::AssessmentOptions& options, unsigned workers,
+                           const std::function<void(analytics::UnitAssessment&&)>& emit);
+
+// Every unit in the register, in unit_id order, assessed in parallel.
+std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store, const std::string& database,
+                                                             analytics::Day as_of,
+                                                             const analytics::AssessmentOptions& options);
 
 analytics::RankingOptions ranking_options_from_config(const config::SiteConfig& config);
 

@@ -111,7 +111,7 @@ fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as
 }
 
 ReportWriter::FleetFiles ReportWriter::fleet_report(analytics::Day as_of, const fs::path& out_dir) {
-  const auto units = assess::assess_fleet(store_, as_of, options_);
+  const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_);
   const auto ranking = analytics::rank_fleet(units, as_of, assess::ranking_options_from_config(config_));
   std::vector<std::string> alerts;
   for (const auto& a : store_.open_alerts()) alerts.push_back(a.unit_id + ": " + a.text + " (" + a.raised_at + ")");
@@ -139,7 +139,7 @@ fs::path ReportWriter::weekly_bundle(analytics::Day as_of) {
     unit_files.emplace_back(u.unit_id, p.filename().string());
   }
   const FleetFiles fleet = fleet_report(as_of, scratch);
-  const auto units = assess::assess_fleet(store_, as_of, options_);
+  const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_);
   const auto ranking = analytics::rank_fleet(units, as_of, assess::ranking_options_from_config(config_));
   report::render_weekly_index(label, ranking, unit_files, report_options(config_), (scratch / "index.pdf").string());
   if (fs::exists(dir)) fs::remove_all(dir);  // an incomplete earlier attempt (no index.pdf)

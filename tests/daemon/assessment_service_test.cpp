@@ -62,4 +62,77 @@ TEST(AssessmentService, RankingValuesOutOfRangeAreErrors) {
   EXPECT_THROW(load("[ranking]\npof_as_new = 2\n[party.p]\nkinds = *\n"), config::ConfigError);
 }
 
+
+// Parallel assessment: the same assessments as one by one, handed over in
+// the order of the ids whatever the number of workers; a failing worker's
+// error reaches the caller. (Plumbing: no engineering values checked here.)
+class ParallelAssessment : public ::testing::Test {
+ protected:
+  void SetUp() override {
+    db_ = (fs::temp_directory_path() / ("ferrum-par-" + std::to_string(::getpid()) + ".db")).string();
+    fs::remove(db_);
+    store_ = store::open_sqlite_store(db_);
+    store_->begin();
+    store::FileRecord f;
+    f.sha256 = "0";
+    f.party = "p";
+    f.original_name = "units.csv";
+    f.kind = "units_register";
+    f.status = "accepted";
+    const auto file = store_->add_file(f);
+    for (int i = 0; i < 9; ++i) {
+      analytics::UnitInfo u;
+      u.unit_id = "T" + std::to_string(i);
+      u.rated_mva = 10 + 5 * i;
+      u.cooling = i % 2 ? "ONAF" : "ONAN";
+      u.year_built = 1960 + 6 * i;
+      store_->upsert_unit(u, file, i + 2);
+      for (int h = 0; h < 48; ++h)
+        store_->add_load_point(u.unit_id, {1767225600 + h * 3600, 0.4 + 0.1 * i, 20}, file, 100 + h);
+    }
+    store_->commit();
+  }
+  void TearDown() override {
+    store_.reset();
+    for (const char* suffix : {"", "-wal", "-shm"}) fs::remove(db_ + suffix);
+  }
+  std::string db_;
+  std::unique_ptr<store::Store> store_;
+};
+
+TEST_F(ParallelAssessment, SameResultsInTheOrderAsked) {
+  const std::vector<std::string> ids = {"T5", "T0", "T8", "T3", "T1", "T7", "T2", "T6", "T4"};
+  const auto as_of = analytics::days_from_civil(2026, 6, 1);
+  const analytics::AssessmentOptions options;
+  for (unsigned workers : {1u, 2u, 4u}) {
+    std::vector<analytics::UnitAssessment> got;
+    assess::assess_units_parallel(db_, ids, as_of, options, workers,
+                                  [&](analytics::UnitAssessment&& a) { got.push_back(std::move(a)); });
+    ASSERT_EQ(got.size(), ids.size());
+    for (std::size_t i = 0; i < ids.size(); ++i) {
+      const auto alone = assess::assess_unit(*store_, ids[i], as_of, options);
+      EXPECT_EQ(got[i].unit.unit_id, ids[i]) << workers;
+      EXPECT_EQ(got[i].health_index, alone.health_index) << ids[i];
+      ASSERT_TRUE(alone.thermal.loss_of_life_hours.has_value()) << ids[i];
+      EXPECT_EQ(got[i].thermal.loss_of_life_hours, alone.thermal.loss_of_life_hours) << ids[i];
+    }
+  }
+  const auto fleet = assess::assess_fleet_parallel(*store_, db_, as_of, options);
+  ASSERT_EQ(fleet.size(), 9u);
+  EXPECT_EQ(fleet.front().unit.unit_id, "T0");
+  EXPECT_EQ(fleet.back().unit.unit_id, "T8");
+}
+
+TEST_F(ParallelAssessment, AWorkersErrorReachesTheCaller) {
+  int emitted = 0;
+  EXPECT_ANY_THROW(assess::assess_units_parallel((fs::path(db_) / "no" / "such.db").string(), {"T0", "T1"},
+                                                 analytics::days_from_civil(2026, 6, 1), {}, 2,
+                                                 [&](analytics::UnitAssessment&&) { ++emitted; }));
+  EXPECT_EQ(emitted, 0);
+  // The caller's own exception stops the workers too.
+  EXPECT_THROW(assess::assess_units_parallel(db_, {"T0", "T1", "T2", "T3"}, analytics::days_from_civil(2026, 6, 1),
+                                             {}, 2, [](analytics::UnitAssessment&&) { throw std::runtime_error("x"); }),
+               std::runtime_error);
+}
+
 }  // namespace
