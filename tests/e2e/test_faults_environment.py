@@ -113,7 +113,8 @@ class FaultsTest(SiteTestCase):
     def test_read_only_database_at_start_stops_cleanly(self):
         """A database that cannot be written (immutable flag, so that even
         root cannot write it): the daemon stops with a clear message and
-        touches no dropped file."""
+        touches no dropped file; `ferrum ingest` exits 1 and leaves the file
+        waiting in work/; once writable, the daemon imports it."""
         run = ferrumtest.run("ingest", "--root", self.root)
         self.assertIn("accepted", run.stdout)
         self.drop("oil-1.csv", OIL.format(1, 10), party="lab")
@@ -127,6 +128,14 @@ class FaultsTest(SiteTestCase):
             self.assertNotIn("Segmentation", p.stderr)
             self.assertRegex(p.stderr.lower(), r"read-?only|readonly|permission|not permitted|cannot")
             self.assertTrue(os.path.exists(self.path("drop", "lab", "oil-1.csv")), "the dropped file was moved")
+            # `ferrum ingest` claims the file, fails on the first write (exit 1,
+            # a clear message), and leaves it waiting in work/ with no receipt.
+            p = subprocess.run([ferrumtest.FERRUM, "ingest", "--root", self.root], capture_output=True, text=True,
+                               timeout=30)
+            self.assertEqual(p.returncode, 1, p.stdout + p.stderr)
+            self.assertRegex(p.stderr.lower(), r"read-?only|readonly")
+            self.assertTrue(os.path.exists(self.path("work", "lab", "oil-1.csv")), "the claimed file is not waiting")
+            self.assertIsNone(self.receipt_status("oil-1.csv", "lab"))
         finally:
             subprocess.run(["chattr", "-i", db])
         self.start_daemon()
