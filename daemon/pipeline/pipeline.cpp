@@ -11,6 +11,7 @@
 #include <cstdio>
 #include <fstream>
 #include <map>
+#include <sstream>
 
 #include "analytics/calendar.h"
 #include "daemon/pipeline/import_bridge.h"
@@ -198,26 +199,11 @@ std::optional<FileOutcome> Pipeline::process(const fs::path& dropped) {
   const fs::path parent = dropped.parent_path();
   const bool in_drop_root = fs::equivalent(parent, root_.drop());
   const std::string party = in_drop_root ? std::string() : parent.filename().string();
-  std::optional<FileOutcome> out;
-  if (in_drop_root) {
-    out = refuse(dropped, "", name, "files must be dropped into your party's folder (drop/PARTY/), not into drop/ itself", true);
-  } else if (!fs::equivalent(parent.parent_path(), root_.drop())) {
+  if (!in_drop_root && !fs::equivalent(parent.parent_path(), root_.drop()))
     return std::nullopt;  // deeper folders (receipts/) are not drop folders
-  } else if (!config_.party(party)) {
-    out = refuse(dropped, party, name, "'" + party + "' is not a party in ferrum.ini; ask the site to add it", true);
-  } else if (S_ISLNK(st.st_mode)) {
-    out = refuse(dropped, party, name, "symbolic links are refused unread; drop the file itself", true);
-  } else if (S_ISDIR(st.st_mode)) {
-    return std::nullopt;
-  } else if (!S_ISREG(st.st_mode)) {
-    out = refuse(dropped, party, name, "only regular files are accepted (this is a device, FIFO or socket)", true);
-  } else if (st.st_nlink > 1) {
-    out = refuse(dropped, party, name, "hard links are refused unread; drop a copy of the file", true);
-  } else if (static_cast<long long>(st.st_size) > config_.max_file_bytes) {
-    out = refuse(dropped, party, name,
-                 "the file is larger than the site's limit of " + std::to_string(config_.max_file_bytes / (1024 * 1024)) +
-                     " MB (ingest.max_file_mb); split it",
-                 true);
+  std::optional<FileOutcome> out;
+  if (const std::string reason = unread_refusal(st, party); !reason.empty()) {
+    out = refuse(dropped, party, name, reason, true);
   } else {
     // Claim it: whoever renames it first owns it.
     const fs::path work_dir = root_.work() / party;
@@ -233,6 +219,18 @@ std::optional<FileOutcome> Pipeline::process(const fs::path& dropped) {
   spdlog::info("file {}/{}: {} {} rows={} problems={} in {:.3f}s", party.empty() ? "drop" : party, loggable(name),
                out->receipt.status, out->receipt.kind, out->receipt.rows, out->receipt.problem_count, out->seconds);
   return out;
+}
+
+std::string Pipeline::unread_refusal(const struct stat& st, const std::string& party) const {
+  if (party.empty()) return "files must be dropped into your party's folder (drop/PARTY/), not into drop/ itself";
+  if (!config_.party(party)) return "'" + party + "' is not a party in ferrum.ini; ask the site to add it";
+  if (S_ISLNK(st.st_mode)) return "symbolic links are refused unread; drop the file itself";
+  if (!S_ISREG(st.st_mode)) return "only regular files are accepted (this is a device, FIFO or socket)";
+  if (st.st_nlink > 1) return "hard links are refused unread; drop a copy of the file";
+  if (static_cast<long long>(st.st_size) > config_.max_file_bytes)
+    return "the file is larger than the site's limit of " + std::to_string(config_.max_file_bytes / (1024 * 1024)) +
+           " MB (ingest.max_file_mb); split it";
+  return "";
 }
 
 FileOutcome Pipeline::refuse(const fs::path& path, const std::string& party, const std::string& name,
@@ -344,24 +342,74 @@ void Pipeline::finish(FileOutcome& out, const fs::path& from) {
   write_receipt(out.receipt);
 }
 
+fs::path Pipeline::receipt_dir(const std::string& party) const {
+  // No party folder to answer in: the receipt goes beside the quarantined file.
+  if (party.empty() || !config_.party(party)) return root_.quarantine() / "receipts";
+  return root_.drop() / party / "receipts";
+}
+
 void Pipeline::write_receipt(const Receipt& r) {
-  if (r.party.empty() || !config_.party(r.party)) {
-    // No party folder to answer in: the receipt goes beside the quarantined file.
-    const fs::path dir = root_.quarantine() / "receipts";
-    fs::create_directories(dir);
-    site::write_file_atomically(dir / (fit_name(r.file, 240) + ".txt"), r.to_text());
-    site::write_file_atomically(dir / (fit_name(r.file, 240) + ".json"), r.to_json());
-    return;
-  }
-  const fs::path dir = root_.drop() / r.party / "receipts";
+  const fs::path dir = receipt_dir(r.party);
   fs::create_directories(dir);
   site::write_file_atomically(dir / (fit_name(r.file, 240) + ".txt"), r.to_text());
   site::write_file_atomically(dir / (fit_name(r.file, 240) + ".json"), r.to_json());
 }
 
+// A file refused unread gets its row (step 4) before its move into
+// quarantine/ (step 5), like every other file: the commit decides, the move
+// follows. A crash between the two leaves that row, whose stored_as does not
+// exist, and the file still where it was dropped, with no receipt. Taken as a
+// new drop it would get a second 'rejected' row; so the move is finished here
+// under the first row. Nothing else writes a files row before recover(), so
+// such a row can only be the newest one; and the file in its place must still
+// be refused for the same reason (a file dropped since under that name is a
+// new delivery, left to the watcher).
+std::optional<FileOutcome> Pipeline::finish_interrupted_refusal() {
+  const auto latest = store_.recent_files(1);
+  if (latest.empty()) return std::nullopt;
+  const store::FileRecord& rec = latest.front();
+  if (rec.status != "rejected" || !rec.sha256.empty() || rec.stored_as.empty()) return std::nullopt;
+  const std::string party = rec.party == "(none)" ? std::string() : rec.party;
+  const std::string& name = rec.original_name;
+  if (name.empty() || fs::path(name).filename() != fs::path(name) || is_ignored_name(name) ||
+      (!party.empty() && fs::path(party).filename() != fs::path(party)))
+    return std::nullopt;
+  std::error_code ec;
+  const fs::path wanted = root_.root / rec.stored_as;
+  if (fs::symlink_status(wanted, ec).type() != fs::file_type::not_found) return std::nullopt;  // moved already
+  // Its receipt written means its move was done (the receipt follows the
+  // move): the file was taken out of quarantine/ by hand since.
+  if (std::ifstream in{receipt_dir(party) / (fit_name(name, 240) + ".json")}) {
+    std::stringstream text;
+    text << in.rdbuf();
+    try {
+      if (Receipt::from_json(text.str()).stored_as == rec.stored_as) return std::nullopt;
+    } catch (const std::exception&) {
+      // An unreadable receipt: not this row's; finish() below rewrites it.
+    }
+  }
+  const fs::path dropped = (party.empty() ? root_.drop() : root_.drop() / party) / name;
+  struct stat st {};
+  if (::lstat(dropped.c_str(), &st) != 0 || S_ISDIR(st.st_mode)) return std::nullopt;
+  FileOutcome o;
+  o.receipt = Receipt::from_json(rec.receipt_json);
+  if (o.receipt.reason.empty() || unread_refusal(st, party) != o.receipt.reason) return std::nullopt;
+  o.receipt.file = name;
+  o.receipt.party = party;
+  o.receipt.status = "rejected";
+  o.receipt.received_at = rec.received_at;
+  o.receipt.stored_as = rec.stored_as;
+  finish(o, dropped);
+  spdlog::warn("recovered {}/{}: finished the move of a refused file to {} after an interruption",
+               party.empty() ? "drop" : party, loggable(name), o.receipt.stored_as);
+  return o;
+}
+
 std::vector<FileOutcome> Pipeline::recover() {
   std::vector<FileOutcome> out;
   std::error_code ec;
+  // First, before any new row: a refusal whose move was interrupted.
+  if (auto o = finish_interrupted_refusal()) out.push_back(std::move(*o));
   for (const auto& pdir : fs::directory_iterator(root_.work(), ec)) {
     if (!pdir.is_directory(ec)) continue;
     const std::string party = pdir.path().filename().string();
@@ -403,8 +451,11 @@ std::vector<FileOutcome> Pipeline::recover() {
         continue;
       }
       // Never committed: import it again from the start.
-      spdlog::warn("recovered {}/{}: the import was interrupted; processing it again", party, name);
+      spdlog::warn("recovered {}/{}: the import was interrupted; processing it again", party, loggable(name));
       out.push_back(import_claimed(f.path(), party, name, now_text()));
+      const Receipt& r = out.back().receipt;
+      spdlog::info("file {}/{}: {} {} rows={} problems={} (after an interruption)", party, loggable(name), r.status,
+                   r.kind, r.rows, r.problem_count);
     }
   }
   // A crash between the move and the receipt leaves a file without its

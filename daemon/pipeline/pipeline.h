@@ -18,8 +18,12 @@
 // (files.stored_as) before the move (step 5). recover() at start-up looks at
 // every file left in work/: a committed record with that content -> finish
 // the move and the receipt; no record -> the import never happened, process
-// it again. So the rows and the file's place never disagree after a crash.
+// it again. A file refused unread whose row was committed but which is still
+// in drop/: finish its move under that row (no second row). So the rows and
+// the file's place never disagree after a crash.
 #pragma once
+
+#include <sys/stat.h>
 
 #include <atomic>
 #include <chrono>
@@ -82,7 +86,14 @@ class Pipeline {
                              const std::string& name, const std::string& received_at);
   FileOutcome refuse(const std::filesystem::path& path, const std::string& party, const std::string& name,
                      const std::string& reason, bool unread);
+  // Why a dropped file (lstat `st`; `party` empty directly in drop/) is
+  // refused without being opened, or empty when it may be read.
+  std::string unread_refusal(const struct stat& st, const std::string& party) const;
+  // Finishes the move of a file refused unread whose row was committed just
+  // before a crash (see recover() in pipeline.cpp).
+  std::optional<FileOutcome> finish_interrupted_refusal();
   void finish(FileOutcome& outcome, const std::filesystem::path& from);
+  std::filesystem::path receipt_dir(const std::string& party) const;
   void write_receipt(const Receipt& r);
   std::filesystem::path destination(const std::string& status, const std::string& name, const std::string& sha,
                                     std::int64_t now) const;
