@@ -112,7 +112,16 @@ fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as
 
 ReportWriter::FleetFiles ReportWriter::fleet_report(analytics::Day as_of, const fs::path& out_dir) {
   const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_);
-  const auto ranking = analytics::rank_fleet(units, as_of, assess::ranking_options_from_config(config_));
+  return fleet_files(units, rank(units, as_of), as_of, out_dir);
+}
+
+analytics::FleetRanking ReportWriter::rank(const std::vector<analytics::UnitAssessment>& units, analytics::Day as_of) {
+  return analytics::rank_fleet(units, as_of, assess::ranking_options_from_config(config_));
+}
+
+ReportWriter::FleetFiles ReportWriter::fleet_files(const std::vector<analytics::UnitAssessment>& units,
+                                                   const analytics::FleetRanking& ranking, analytics::Day as_of,
+                                                   const fs::path& out_dir) {
   std::vector<std::string> alerts;
   for (const auto& a : store_.open_alerts()) alerts.push_back(a.unit_id + ": " + a.text + " (" + a.raised_at + ")");
   fs::create_directories(out_dir);
@@ -138,9 +147,10 @@ fs::path ReportWriter::weekly_bundle(analytics::Day as_of) {
     const fs::path p = unit_report(u.unit_id, as_of, scratch);
     unit_files.emplace_back(u.unit_id, p.filename().string());
   }
-  const FleetFiles fleet = fleet_report(as_of, scratch);
+  // One fleet assessment serves the fleet report and the index.
   const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_);
-  const auto ranking = analytics::rank_fleet(units, as_of, assess::ranking_options_from_config(config_));
+  const auto ranking = rank(units, as_of);
+  fleet_files(units, ranking, as_of, scratch);
   report::render_weekly_index(label, ranking, unit_files, report_options(config_), (scratch / "index.pdf").string());
   if (fs::exists(dir)) fs::remove_all(dir);  // an incomplete earlier attempt (no index.pdf)
   fs::rename(scratch, dir);

@@ -10,6 +10,7 @@
 
 #include "analytics/assessment.h"
 #include "analytics/assess_unit.h"
+#include "analytics/fleet_ranking.h"
 #include "daemon/config/site_config.h"
 #include "daemon/site/site_root.h"
 #include "schema/store.h"
@@ -45,6 +46,10 @@ class ReportWriter {
   static std::string week_label(analytics::Day d);  // "2026-W49"
 
  private:
+  analytics::FleetRanking rank(const std::vector<analytics::UnitAssessment>& units, analytics::Day as_of);
+  FleetFiles fleet_files(const std::vector<analytics::UnitAssessment>& units, const analytics::FleetRanking& ranking,
+                         analytics::Day as_of, const std::filesystem::path& out_dir);
+
   site::SiteRoot root_;
   config::SiteConfig config_;
   store::Store& store_;
