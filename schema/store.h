@@ -52,6 +52,13 @@ struct Alert {
 // Outcome of adding one load point.
 enum class LoadInsert { added, replaced_earlier_file, duplicate_in_file };
 
+// A load point that was a second reading of the same unit and time in the
+// same file (a file problem), found when queued points were written.
+struct LoadDuplicate {
+  std::int64_t line = 0;   // the point's line in its file
+  std::string unit_id;
+};
+
 class Store {
  public:
   virtual ~Store() = default;
@@ -81,8 +88,24 @@ class Store {
   // Measurements. REQUIRES: the unit exists.
   virtual void add_oil_sample(const std::string& unit_id, const analytics::OilSample& sample,
                               std::int64_t file_id, int line) = 0;
+  // One point, written at once (writes the queued points first).
   virtual LoadInsert add_load_point(const std::string& unit_id, const analytics::LoadPoint& point,
                                     std::int64_t file_id, int line) = 0;
+  // The bulk path for load series: points are queued and written in
+  // multi-row statements when a batch is full. Same rules as add_load_point:
+  // an earlier file's point for the same unit and time is replaced, a second
+  // point for it in the same file is not written and is reported, by line.
+  // Each call returns the first duplicate of the batch it wrote, if any
+  // (points after it in that batch may have been written: the caller rejects
+  // the file and rolls back). flush_load_points writes what is still queued;
+  // call it before commit. Every read, write and commit of the store writes
+  // the queue first; a duplicate found that way is returned by the next
+  // flush_load_points, and commit() throws StoreError while one is
+  // unreported. rollback() discards the queue.
+  virtual std::optional<LoadDuplicate> queue_load_point(const std::string& unit_id,
+                                                        const analytics::LoadPoint& point,
+                                                        std::int64_t file_id, std::int64_t line) = 0;
+  virtual std::optional<LoadDuplicate> flush_load_points() = 0;
   virtual void add_infrared(const std::string& unit_id, const analytics::InfraredScan& scan,
                             std::int64_t file_id, int line) = 0;
   virtual void add_inspection(const std::string& unit_id, const analytics::InspectionRecord& rec,

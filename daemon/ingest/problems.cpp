@@ -1,5 +1,7 @@
 #include "daemon/ingest/problems.h"
 
+#include <utility>
+
 #include "daemon/ingest/utf8.h"
 
 namespace ferrum::ingest {
@@ -40,6 +42,7 @@ std::string display_value(std::string_view raw, std::size_t max_bytes) {
 
 void ProblemLog::add(std::int64_t line, std::string_view column, int column_number,
                      std::string_view raw_value, std::string reason) {
+  if (count_ == 0 && before_first_) std::exchange(before_first_, nullptr)();
   ++count_;
   if (kept_.size() >= keep_) return;
   kept_.push_back(Problem{line, std::string(column), column_number, display_value(raw_value),

@@ -15,6 +15,7 @@
 
 #include <cstddef>
 #include <cstdint>
+#include <functional>
 #include <string>
 #include <string_view>
 #include <vector>
@@ -42,8 +43,15 @@ class ProblemLog {
   std::int64_t count() const { return count_; }
   bool empty() const { return count_ == 0; }
 
+  // Runs `hook` once, just before the first problem is logged (nullptr
+  // removes it). Whoever holds rows back in a batch writes them there, so
+  // that a problem found in them is logged, in line order, before the
+  // problem of a later row. The hook may log problems itself.
+  void before_first_problem(std::function<void()> hook) { before_first_ = std::move(hook); }
+
  private:
   std::size_t keep_;
+  std::function<void()> before_first_;
   std::vector<Problem> kept_;
   std::int64_t count_ = 0;
 };

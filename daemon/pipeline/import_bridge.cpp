@@ -41,6 +41,56 @@ bool site_allowed(const ImportSettings& s, const std::string& unit_id, const std
   return false;
 }
 
+// Load points go to the store in batches (Store::queue_load_point), so a
+// second reading of the same time is found up to a batch after its row. The
+// receipt must still be the one a row-by-row import gives: the duplicate is
+// logged before any later problem (ProblemLog::before_first_problem), its
+// row is taken out of the row count, and the UTC-offset note only counts
+// rows before it. Later rows of its batch were written, but a file with a
+// problem is rolled back whole.
+class LoadWriter {
+ public:
+  LoadWriter(store::Store& store, ImportResult& r, std::string column, int column_number)
+      : store_(store), r_(r), column_(std::move(column)), column_number_(column_number) {
+    r_.problems.before_first_problem([this] { flush(); });
+  }
+  ~LoadWriter() { r_.problems.before_first_problem(nullptr); }
+  LoadWriter(const LoadWriter&) = delete;
+  LoadWriter& operator=(const LoadWriter&) = delete;
+
+  // Queues a counted row's point.
+  void add(const LoadRow& row, std::int64_t file_id) {
+    report(store_.queue_load_point(row.unit_id, row.point, file_id, row.line));
+  }
+  // Writes what is queued; false when it held a duplicate.
+  bool flush() { return report(store_.flush_load_points()); }
+  void note_offset_assumed(std::int64_t line) {
+    if (first_offset_line_ == 0) first_offset_line_ = line;
+  }
+  // Call after the last row.
+  void finish() {
+    if (r_.problems.empty()) flush();
+    r_.problems.before_first_problem(nullptr);
+    r_.offset_assumed = first_offset_line_ != 0 && (duplicate_line_ == 0 || first_offset_line_ < duplicate_line_);
+  }
+
+ private:
+  bool report(std::optional<store::LoadDuplicate> d) {
+    if (!d) return true;
+    duplicate_line_ = d->line;
+    --r_.rows;  // counted when it was queued
+    r_.problems.add(d->line, column_, column_number_, "",
+                    "a second reading for unit " + d->unit_id + " at the same time");
+    return false;
+  }
+
+  store::Store& store_;
+  ImportResult& r_;
+  std::string column_;
+  int column_number_;
+  std::int64_t first_offset_line_ = 0, duplicate_line_ = 0;
+};
+
 template <class Parser, class Row, class Store>
 void run_rows(CsvReader& reader, Parser& parser, ImportResult& r, const std::atomic<bool>* cancel,
               Store&& store_row) {
@@ -151,25 +201,28 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
     }
     case FileKind::load_series: {
       LoadRowParser p(kind.columns, po, comma, r.problems, r.warnings);
+      const int ts_index = kind.columns["timestamp"].index;
+      LoadWriter writer(store, r, std::string(reader.column_name(static_cast<std::size_t>(ts_index))), ts_index + 1);
       std::string last_checked;
+      const analytics::UnitInfo* u = nullptr;
       run_rows<LoadRowParser, LoadRow>(reader, p, r, s.cancel, [&](const LoadRow& row) {
-        const auto* u = units.find(row.unit_id);
-        if (row.unit_id != last_checked) {  // rows come in runs of one unit: check once per run
-          if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
+        if (row.unit_id != last_checked) {  // rows come in runs of one unit: look up and check once per run
+          u = units.find(row.unit_id);
+          if (u && s.party && !s.party->serves(u->site)) {
+            // A row-by-row import would not get here after a duplicate in
+            // the queued rows: report that one instead.
+            if (!writer.flush()) return true;
+            site_allowed(s, row.unit_id, u->site, row.line, r.problems);
+            return false;
+          }
           last_checked = row.unit_id;
           r.units.insert(row.unit_id);
         }
-        if (row.offset_assumed) r.offset_assumed = true;
-        if (!u) return true;
-        if (store.add_load_point(row.unit_id, row.point, s.file_id, static_cast<int>(row.line)) ==
-            store::LoadInsert::duplicate_in_file) {
-          r.problems.add(row.line, reader.column_name(static_cast<std::size_t>(kind.columns["timestamp"].index)),
-                         kind.columns["timestamp"].index + 1, "",
-                         "a second reading for unit " + row.unit_id + " at the same time");
-          return false;
-        }
+        if (row.offset_assumed) writer.note_offset_assumed(row.line);
+        if (u) writer.add(row, s.file_id);
         return true;
       });
+      writer.finish();
       break;
     }
   }

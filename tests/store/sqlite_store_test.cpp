@@ -5,49 +5,14 @@
 #include <fstream>
 
 #include "schema/store.h"
+#include "tests/store/store_fixture.h"
 
 namespace fs = std::filesystem;
 using namespace ferrum;
 
 namespace {
 
-class StoreTest : public ::testing::Test {
- protected:
-  void SetUp() override {
-    dir_ = fs::temp_directory_path() / ("ferrum-store-" + std::to_string(::getpid()) + "-" +
-                                        ::testing::UnitTest::GetInstance()->current_test_info()->name());
-    fs::remove_all(dir_);
-    fs::create_directories(dir_);
-    db_ = (dir_ / "ferrum.db").string();
-  }
-  void TearDown() override { fs::remove_all(dir_); }
-
-  static analytics::UnitInfo unit(const std::string& id) {
-    analytics::UnitInfo u;
-    u.unit_id = id;
-    u.site = "North";
-    u.rated_mva = 40;
-    u.hv_kv = 132;
-    u.lv_kv = 33;
-    u.cooling = "ONAF";
-    u.year_built = 1985;
-    return u;
-  }
-
-  std::int64_t file(store::Store& s, const std::string& sha = "abc") {
-    store::FileRecord f;
-    f.sha256 = sha;
-    f.party = "planning";
-    f.original_name = "units.csv";
-    f.status = "accepted";
-    f.received_at = "2026-12-01T00:00:00Z";
-    f.receipt_json = "{}";
-    return s.add_file(f);
-  }
-
-  fs::path dir_;
-  std::string db_;
-};
+class StoreTest : public ferrum::testing::StoreFixture {};
 
 TEST_F(StoreTest, MigratesAndReopens) {
   { auto s = store::open_sqlite_store(db_); EXPECT_EQ(s->count_rows("units"), 0); }
