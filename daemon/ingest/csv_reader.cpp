@@ -76,6 +76,21 @@ void CsvReader::skip_rest_of_line() {
   ++line_;
 }
 
+// Copies the longest run of plain bytes (no delimiter, line end, quote or
+// NUL) that is already buffered into buf_, up to max_record_bytes; returns
+// its length. Byte-at-a-time scanning was the reader's main cost.
+std::size_t CsvReader::copy_plain_run() {
+  const std::string_view avail = src_.buffered();
+  const std::size_t room = buf_.size() < options_.max_record_bytes ? options_.max_record_bytes - buf_.size() : 0;
+  const std::size_t limit = std::min(avail.size(), room);
+  std::size_t n = 0;
+  while (n < limit && !special_[static_cast<unsigned char>(avail[n])]) ++n;
+  if (n == 0) return 0;
+  buf_.append(avail.data(), n);
+  src_.skip(n);
+  return n;
+}
+
 // One record into buf_ (field bytes, unescaped) and ends_ (field ends).
 CsvReader::Scan CsvReader::scan_record() {
   enum class State { start, unquoted, quoted, quote_in_quoted, after_quoted };
@@ -103,6 +118,16 @@ CsvReader::Scan CsvReader::scan_record() {
   };
 
   for (;;) {
+    if (state == State::start || state == State::unquoted) {
+      const std::size_t before = buf_.size();
+      if (const std::size_t n = copy_plain_run()) {
+        any = true;
+        if (blank_so_far)
+          blank_so_far = std::all_of(buf_.begin() + static_cast<std::ptrdiff_t>(before), buf_.end(), is_blank);
+        state = State::unquoted;
+        continue;
+      }
+    }
     const int c = src_.get();
     if (c == kEnd) {
       if (!any) {
@@ -215,6 +240,7 @@ void CsvReader::log_record_problem(ProblemLog& problems, int field, std::string 
 }
 
 bool CsvReader::check_utf8(ProblemLog& problems) {
+  if (is_ascii(buf_)) return true;
   for (std::size_t i = 0; i < views_.size(); ++i) {
     const std::size_t bad = find_invalid_utf8(views_[i]);
     if (bad == std::string_view::npos) continue;
@@ -276,6 +302,7 @@ bool CsvReader::read_header(ProblemLog& problems) {
     const std::string_view text = trim_blanks(line);
     if (!text.empty() && text.front() != '#') {
       delimiter_ = detect_delimiter(line);
+      for (const char c : {delimiter_, '\n', '\r', '"', '\0'}) special_[static_cast<unsigned char>(c)] = true;
       src_.push_back(line + '\n');
       line_ = start;
       break;

@@ -23,6 +23,7 @@
 // Not thread-safe. The istream must outlive the reader.
 #pragma once
 
+#include <array>
 #include <cstddef>
 #include <cstdint>
 #include <istream>
@@ -102,6 +103,14 @@ class CsvReader {
       if (pos_ == end_ && !refill()) return kEnd;
       return static_cast<unsigned char>(buf_[pos_]);
     }
+    // Bytes that get() would return next without refilling: empty while
+    // pushed-back bytes are pending or the chunk is used up.
+    std::string_view buffered() const {
+      if (back_pos_ < back_.size()) return {};
+      return std::string_view(buf_.data() + pos_, end_ - pos_);
+    }
+    // Consumes n bytes of buffered().
+    void skip(std::size_t n) { pos_ += n; }
     // The next get() returns these bytes first, then what was pending.
     void push_back(std::string bytes) {
       back_ = std::move(bytes) + back_.substr(back_pos_);
@@ -128,6 +137,7 @@ class CsvReader {
   };
 
   Scan scan_record();
+  std::size_t copy_plain_run();
   void fail(Scan& scan, std::string reason);
   void skip_rest_of_line();
   bool skip_byte_order_mark(ProblemLog& problems);
@@ -147,6 +157,9 @@ class CsvReader {
   std::string buf_;                // bytes of the current record's fields
   std::vector<std::size_t> ends_;  // end offset in buf_ of each field
   std::vector<std::string_view> views_;
+  // Bytes that end a run of plain field bytes (delimiter, line ends, quote,
+  // NUL): everything else is copied in bulk by copy_plain_run().
+  std::array<bool, 256> special_{};
 };
 
 }  // namespace ferrum::ingest

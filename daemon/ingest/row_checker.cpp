@@ -66,6 +66,7 @@ void RowChecker::warn(const ColumnBinding& b, std::string_view message) {
 
 bool RowChecker::check_range(const ColumnBinding& b, std::string_view label, double v,
                              const Range& r) {
+  if (!(v < r.min || (r.min_exclusive && v <= r.min) || v > r.max)) return true;  // the hot path: in range
   const std::string unit = *r.unit ? std::string(" ") + r.unit : std::string();
   std::string why;
   if (v < r.min || (r.min_exclusive && v <= r.min)) {

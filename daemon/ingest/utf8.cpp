@@ -1,5 +1,8 @@
 #include "daemon/ingest/utf8.h"
 
+#include <cstdint>
+#include <cstring>
+
 namespace ferrum::ingest {
 
 namespace {
@@ -33,6 +36,19 @@ std::size_t utf8_sequence_length(std::string_view s, std::size_t pos) {
     if (!is_continuation(byte(i))) return 0;
   }
   return len;
+}
+
+bool is_ascii(std::string_view s) {
+  constexpr std::uint64_t kHighBits = 0x8080808080808080ULL;
+  std::size_t i = 0;
+  std::uint64_t any = 0;
+  for (; i + 8 <= s.size(); i += 8) {
+    std::uint64_t word;
+    std::memcpy(&word, s.data() + i, 8);
+    any |= word;
+  }
+  for (; i < s.size(); ++i) any |= static_cast<unsigned char>(s[i]);
+  return (any & kHighBits) == 0;
 }
 
 std::size_t find_invalid_utf8(std::string_view s) {

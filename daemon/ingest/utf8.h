@@ -11,6 +11,10 @@ namespace ferrum::ingest {
 // bytes there are not valid UTF-8. REQUIRES: pos < s.size().
 std::size_t utf8_sequence_length(std::string_view s, std::size_t pos);
 
+// True when every byte is below 0x80 (then the text is valid UTF-8); checks
+// eight bytes at a time, for the common all-ASCII record.
+bool is_ascii(std::string_view s);
+
 // Byte offset of the first invalid sequence in `s`, or npos when all valid.
 std::size_t find_invalid_utf8(std::string_view s);
 
