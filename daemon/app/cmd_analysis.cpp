@@ -10,6 +10,7 @@
 #include "daemon/app/site_context.h"
 #include "daemon/assess/assessment_json.h"
 #include "daemon/assess/assessment_service.h"
+#include "daemon/assess/ranking_cache.h"
 #include "daemon/ingest/field_parsers.h"
 #include "report/fleet_report.h"
 
@@ -48,8 +49,12 @@ int cmd_assess(const Invocation& inv) {
   const analytics::Day as_of = today(inv, site->config);
   const auto options = assess::options_from_config(site->config, &site->root);
   std::vector<std::string> ids = inv.args;
-  if (ids.empty())
+  const bool whole_fleet = ids.empty();
+  if (whole_fleet)
     for (const auto& u : site->store->units()) ids.push_back(u.unit_id);
+  // The key before the first read: an import meanwhile changes it (ranking_cache.h).
+  const std::string cache_key = whole_fleet ? assess::ranking_cache_key(site->root, *site->store, as_of) : "";
+  std::vector<analytics::UnitAssessment> ranking_inputs;
   for (const auto& id : ids)
     if (!site->store->find_unit(id)) throw std::runtime_error("unit " + id + " is not in the register");
   // Units are assessed on every core and written out one by one, in order:
@@ -59,11 +64,13 @@ int cmd_assess(const Invocation& inv) {
   if (json) std::cout << "[";
   assess::assess_units_parallel(site->root.database().string(), ids, as_of, options, 0,
                                 [&](analytics::UnitAssessment&& a) {
+                                  if (whole_fleet) ranking_inputs.push_back(assess::ranking_fields(a));
                                   if (!json) return print_assessment_text(a);
                                   std::cout << (first ? "\n" : ",\n") << assess::stringify(assess::to_json(a));
                                   first = false;
                                 });
   if (json) std::cout << (first ? "]\n" : "\n]\n");
+  if (whole_fleet) assess::write_ranking_cache(site->root, cache_key, ranking_inputs);
   return kOk;
 }
 
@@ -71,9 +78,17 @@ int cmd_rank(const Invocation& inv) {
   if (inv.has("json") && inv.has("csv")) throw UsageError("--json or --csv, not both");
   auto site = open_site(inv, Access::read);
   const analytics::Day as_of = today(inv, site->config);
-  const auto units = assess::assess_fleet_parallel(*site->store, site->root.database().string(), as_of,
-                                                   assess::options_from_config(site->config, &site->root));
-  const auto ranking = analytics::rank_fleet(units, as_of, assess::ranking_options_from_config(site->config));
+  // The last whole-fleet assessment when nothing changed since (ranking_cache.h).
+  const std::string cache_key = assess::ranking_cache_key(site->root, *site->store, as_of);
+  auto units = inv.has("fresh") ? std::nullopt : assess::read_ranking_cache(site->root, cache_key);
+  if (!units) {
+    units = assess::assess_fleet_parallel(*site->store, site->root.database().string(), as_of,
+                                          assess::options_from_config(site->config, &site->root));
+    std::vector<analytics::UnitAssessment> inputs;
+    for (const auto& a : *units) inputs.push_back(assess::ranking_fields(a));
+    assess::write_ranking_cache(site->root, cache_key, inputs);
+  }
+  const auto ranking = analytics::rank_fleet(*units, as_of, assess::ranking_options_from_config(site->config));
   if (inv.has("json")) {
     std::cout << assess::stringify(assess::to_json(ranking)) << "\n";
     return kOk;

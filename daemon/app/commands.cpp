@@ -53,10 +53,11 @@ const std::vector<CommandInfo>& commands() {
        "remaining life, gases, oil, paper, thermal, infrared, inspection, actions, missing data.\n"
        "--json prints a JSON array (schema in README.md).",
        {"root", "json", "as-of"}},
-      {"rank", "ferrum rank --root DIR [--json | --csv]", "rank the fleet by risk",
+      {"rank", "ferrum rank --root DIR [--json | --csv] [--fresh]", "rank the fleet by risk",
        "Every unit with rank, site, health index, band, remaining life and limiting factor, risk,\n"
-       "recommended action and year, and the rated MVA due per year for ten years.",
-       {"root", "json", "csv", "as-of"}},
+       "recommended action and year, and the rated MVA due per year for ten years. Reuses the last\n"
+       "whole-fleet assessment (ROOT/cache/) when nothing changed since; --fresh assesses anew.",
+       {"root", "json", "csv", "as-of", "fresh"}},
       {"dga", "ferrum dga --h2 PPM --ch4 PPM ... [--json]", "interpret one gas sample typed on the command line",
        "No database needed. Gases in µL/L (ppm): --h2 --ch4 --c2h6 --c2h4 --c2h2 --co --co2 --o2 --n2.\n"
        "A value written <N or ND means below the detection limit. --age YEARS selects the IEEE\n"

@@ -47,6 +47,7 @@ const OptionDef kOptions[] = {
     {"age", "YEARS", "age of the unit in years (IEEE C57.104-2019 tables; default: unknown)"},
     {"hv-kv", "KV", "HV voltage in kV (default 132)"},
     {"once", nullptr, "serve: process what is waiting, render, and exit (for scripts)"},
+    {"fresh", nullptr, "rank: assess every unit anew instead of reusing the last whole-fleet assessment"},
 };
 
 bool command_accepts(const CommandInfo& c, const std::string& option) {

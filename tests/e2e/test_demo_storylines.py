@@ -154,6 +154,12 @@ class DemoStorylines(unittest.TestCase):
     def actions(self, unit, max_priority=5):
         return [a for a in self.docs[unit]["actions"] if a["priority"] <= max_priority]
 
+    def test_ranking_from_the_cache_equals_a_fresh_one(self):
+        # cls.ranking was read from the inputs the whole-fleet assess just kept.
+        self.assertTrue(os.path.exists(os.path.join(self.root, "cache", "ranking-inputs.json")))
+        fresh = json.loads(run("rank", "--root", self.root, "--as-of", AS_OF, "--json", "--fresh").stdout)
+        self.assertEqual(fresh, self.ranking)
+
     # ------------------------------------------------------------ storylines.tsv, row by row
     def test_every_storyline_check_holds(self):
         rows = read_storylines()

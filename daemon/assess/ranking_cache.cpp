@@ -1,0 +1,157 @@
+#include "daemon/assess/ranking_cache.h"
+
+#include <Poco/DigestEngine.h>
+#include <Poco/JSON/Parser.h>
+#include <Poco/SHA2Engine.h>
+
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+
+#include "daemon/site/atomic_file.h"
+
+namespace ferrum::assess {
+namespace {
+
+namespace fs = std::filesystem;
+using Poco::JSON::Array;
+using Poco::JSON::Object;
+
+fs::path cache_file(const site::SiteRoot& root) { return root.root / "cache" / "ranking-inputs.json"; }
+
+std::string file_text(const fs::path& p) {
+  std::ifstream in(p, std::ios::binary);
+  std::ostringstream s;
+  s << in.rdbuf();
+  return s.str();
+}
+
+// Size and modification time of the running executable: any rebuild or
+// upgrade (other methods, other defaults) changes them.
+std::string executable_identity() {
+  std::error_code ec;
+  const fs::path exe = fs::read_symlink("/proc/self/exe", ec);
+  if (ec) return "unknown";
+  const auto size = fs::file_size(exe, ec);
+  const auto time = fs::last_write_time(exe, ec).time_since_epoch().count();
+  return exe.string() + ":" + std::to_string(size) + ":" + std::to_string(time);
+}
+
+template <typename T>
+Poco::Dynamic::Var opt(const std::optional<T>& v) {
+  return v ? Poco::Dynamic::Var(*v) : Poco::Dynamic::Var();
+}
+
+template <typename T>
+std::optional<T> get_opt(const Object::Ptr& o, const std::string& key) {
+  if (!o->has(key) || o->isNull(key)) return std::nullopt;
+  return o->getValue<T>(key);
+}
+
+Object::Ptr unit_to_json(const analytics::UnitAssessment& a) {
+  Object::Ptr o = new Object;
+  o->set("unit_id", a.unit.unit_id);
+  o->set("site", a.unit.site);
+  o->set("rated_mva", a.unit.rated_mva);
+  o->set("criticality", a.unit.criticality);
+  o->set("customers_served", opt(a.unit.customers_served));
+  o->set("health_index", opt(a.health_index));
+  o->set("condition_index", opt(a.condition_index));
+  o->set("band", a.band);
+  o->set("confidence", a.confidence);
+  Array::Ptr missing = new Array;
+  for (const auto& m : a.missing) missing->add(m);
+  o->set("missing", missing);
+  o->set("remaining_life_years", opt(a.remaining_life.years));
+  o->set("limiting_factor", a.remaining_life.limiting_factor);
+  return o;
+}
+
+analytics::UnitAssessment unit_from_json(const Object::Ptr& o) {
+  analytics::UnitAssessment a;
+  a.unit.unit_id = o->getValue<std::string>("unit_id");
+  a.unit.site = o->getValue<std::string>("site");
+  a.unit.rated_mva = o->getValue<double>("rated_mva");
+  a.unit.criticality = o->getValue<int>("criticality");
+  a.unit.customers_served = get_opt<int>(o, "customers_served");
+  a.health_index = get_opt<double>(o, "health_index");
+  a.condition_index = get_opt<double>(o, "condition_index");
+  a.band = o->getValue<std::string>("band");
+  a.confidence = o->getValue<std::string>("confidence");
+  const auto missing = o->getArray("missing");
+  for (std::size_t i = 0; missing && i < missing->size(); ++i) a.missing.push_back(missing->getElement<std::string>(i));
+  a.remaining_life.years = get_opt<double>(o, "remaining_life_years");
+  a.remaining_life.limiting_factor = o->getValue<std::string>("limiting_factor");
+  return a;
+}
+
+}  // namespace
+
+analytics::UnitAssessment ranking_fields(const analytics::UnitAssessment& a) {
+  analytics::UnitAssessment r;
+  r.unit.unit_id = a.unit.unit_id;
+  r.unit.site = a.unit.site;
+  r.unit.rated_mva = a.unit.rated_mva;
+  r.unit.criticality = a.unit.criticality;
+  r.unit.customers_served = a.unit.customers_served;
+  r.health_index = a.health_index;
+  r.condition_index = a.condition_index;
+  r.band = a.band;
+  r.confidence = a.confidence;
+  r.missing = a.missing;
+  r.remaining_life.years = a.remaining_life.years;
+  r.remaining_life.limiting_factor = a.remaining_life.limiting_factor;
+  return r;
+}
+
+std::string ranking_cache_key(const site::SiteRoot& root, store::Store& store, analytics::Day as_of) {
+  Poco::SHA2Engine engine(Poco::SHA2Engine::SHA_256);
+  const auto part = [&](const std::string& s) {
+    engine.update(std::to_string(s.size()) + ":");
+    engine.update(s);
+  };
+  part(executable_identity());
+  part(file_text(root.config()));
+  part(file_text(root.tables() / "ieee_c57104_2019_tables.csv"));
+  const auto newest = store.recent_files(1);
+  part(newest.empty() ? "no files" : std::to_string(newest.front().id) + ":" + newest.front().status);
+  part(std::to_string(as_of));
+  return Poco::DigestEngine::digestToHex(engine.digest());
+}
+
+std::optional<std::vector<analytics::UnitAssessment>> read_ranking_cache(const site::SiteRoot& root,
+                                                                         const std::string& key) {
+  try {
+    const fs::path p = cache_file(root);
+    if (!fs::exists(p)) return std::nullopt;
+    Poco::JSON::Parser parser;
+    const auto doc = parser.parse(file_text(p)).extract<Object::Ptr>();
+    if (doc->getValue<std::string>("key") != key) return std::nullopt;
+    const auto units = doc->getArray("units");
+    std::vector<analytics::UnitAssessment> out;
+    for (std::size_t i = 0; units && i < units->size(); ++i) out.push_back(unit_from_json(units->getObject(i)));
+    return out;
+  } catch (const std::exception&) {  // Poco's exceptions too
+    return std::nullopt;                // unreadable or of another version: assess afresh
+  }
+}
+
+bool write_ranking_cache(const site::SiteRoot& root, const std::string& key,
+                         const std::vector<analytics::UnitAssessment>& units) {
+  try {
+    Object::Ptr doc = new Object;
+    doc->set("key", key);
+    Array::Ptr list = new Array;
+    for (const auto& u : units) list->add(unit_to_json(u));
+    doc->set("units", list);
+    std::ostringstream text;
+    Poco::JSON::Stringifier::stringify(doc, text, 0);
+    fs::create_directories(cache_file(root).parent_path());
+    site::write_file_atomically(cache_file(root), text.str());
+    return true;
+  } catch (const std::exception&) {
+    return false;
+  }
+}
+
+}  // namespace ferrum::assess

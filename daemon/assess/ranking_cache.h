@@ -1,0 +1,43 @@
+// The inputs of the fleet ranking from the last whole-fleet assessment, kept
+// in ROOT/cache/ranking-inputs.json so that `rank` after `assess` (or a
+// second `rank`) need not assess every unit again: over 5,000 units the
+// assessments are the whole cost of a ranking (bench/results.md §2).
+//
+// The cache holds, per unit, exactly the fields analytics::rank_fleet reads
+// (fleet_ranking.cpp: unit_id, site, rated MVA, criticality, customers,
+// health and condition index, band, confidence, missing data, remaining
+// life and its limiting factor); a test compares rankings made from full
+// and from cached assessments. It is used only under the key it was written
+// with: a digest of the ferrum executable (size and time), ferrum.ini, the
+// site's own IEEE C57.104 tables, the newest file record in the database
+// (every import adds one) and the as-of day. Anything else, or any error
+// reading it, means the assessments are made afresh. Deleting ROOT/cache/
+// is always safe.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "analytics/assessment.h"
+#include "daemon/site/site_root.h"
+#include "schema/store.h"
+
+namespace ferrum::assess {
+
+std::string ranking_cache_key(const site::SiteRoot& root, store::Store& store, analytics::Day as_of);
+
+// The cached units (only the ranking's fields filled), when the cache
+// exists and was written under `key`.
+std::optional<std::vector<analytics::UnitAssessment>> read_ranking_cache(const site::SiteRoot& root,
+                                                                         const std::string& key);
+
+// Best effort: a site root the command may not write to (a reader's
+// account) only means no cache; returns whether it was written.
+bool write_ranking_cache(const site::SiteRoot& root, const std::string& key,
+                         const std::vector<analytics::UnitAssessment>& units);
+
+// The ranking's fields of an assessment (what the cache keeps).
+analytics::UnitAssessment ranking_fields(const analytics::UnitAssessment& a);
+
+}  // namespace ferrum::assess
