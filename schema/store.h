@@ -137,6 +137,10 @@ class Store {
 // a file that is not a ferrum database, StoreError otherwise.
 std::unique_ptr<Store> open_sqlite_store(const std::string& path);
 
+// Load points the SQLite store writes per multi-row statement
+// (Store::queue_load_point).
+inline constexpr int kSqliteLoadBatch = 256;
+
 // Schema version this build writes.
 int schema_version();
 

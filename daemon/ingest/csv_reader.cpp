@@ -76,17 +76,26 @@ void CsvReader::skip_rest_of_line() {
   ++line_;
 }
 
-// Copies the longest run of plain bytes (no delimiter, line end, quote or
-// NUL) that is already buffered into buf_, up to max_record_bytes; returns
-// its length. Byte-at-a-time scanning was the reader's main cost.
+// Copies the unquoted fields already buffered into buf_/ends_: plain bytes
+// and the delimiters between them, up to a line end, quote or NUL (left to
+// the byte-at-a-time scanner) and at most max_record_bytes; returns the
+// number of bytes consumed. Byte-at-a-time scanning was the reader's main
+// cost.
 std::size_t CsvReader::copy_plain_run() {
   const std::string_view avail = src_.buffered();
   const std::size_t room = buf_.size() < options_.max_record_bytes ? options_.max_record_bytes - buf_.size() : 0;
   const std::size_t limit = std::min(avail.size(), room);
-  std::size_t n = 0;
-  while (n < limit && !special_[static_cast<unsigned char>(avail[n])]) ++n;
-  if (n == 0) return 0;
-  buf_.append(avail.data(), n);
+  const auto delimiter = static_cast<unsigned char>(delimiter_);
+  std::size_t n = 0, run = 0;
+  for (; n < limit; ++n) {
+    const auto c = static_cast<unsigned char>(avail[n]);
+    if (!special_[c]) continue;
+    if (c != delimiter) break;
+    buf_.append(avail.data() + run, n - run);
+    ends_.push_back(buf_.size());
+    run = n + 1;
+  }
+  buf_.append(avail.data() + run, n - run);
   src_.skip(n);
   return n;
 }
@@ -119,12 +128,14 @@ CsvReader::Scan CsvReader::scan_record() {
 
   for (;;) {
     if (state == State::start || state == State::unquoted) {
-      const std::size_t before = buf_.size();
-      if (const std::size_t n = copy_plain_run()) {
+      const std::size_t before = buf_.size(), fields_before = ends_.size();
+      if (copy_plain_run() > 0) {
         any = true;
-        if (blank_so_far)
-          blank_so_far = std::all_of(buf_.begin() + static_cast<std::ptrdiff_t>(before), buf_.end(), is_blank);
-        state = State::unquoted;
+        const bool new_field = ends_.size() != fields_before;  // a delimiter was consumed
+        const std::size_t field_start = new_field ? ends_.back() : before;
+        if (new_field || blank_so_far)
+          blank_so_far = std::all_of(buf_.begin() + static_cast<std::ptrdiff_t>(field_start), buf_.end(), is_blank);
+        state = new_field && buf_.size() == field_start ? State::start : State::unquoted;
         continue;
       }
     }

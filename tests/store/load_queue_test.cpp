@@ -53,25 +53,27 @@ class LoadQueueTest : public ferrum::testing::StoreFixture {
 };
 
 TEST_F(LoadQueueTest, ManyBatchesAndARestAreAllWritten) {
-  EXPECT_TRUE(queue("T1", hourly(1000), f1_).empty());  // 1000 = 15 full batches of 64 + 40
-  EXPECT_EQ(s_->count_rows("load_points"), 1000);
-  const auto pts = s_->load_points("T1", 0, 3600LL * 999);
-  ASSERT_EQ(pts.size(), 1000u);
-  EXPECT_EQ(pts[999].t, 3600LL * 999);
+  constexpr int n = 3 * store::kSqliteLoadBatch + 40;  // three full batches and a rest
+  EXPECT_TRUE(queue("T1", hourly(n), f1_).empty());
+  EXPECT_EQ(s_->count_rows("load_points"), n);
+  const auto pts = s_->load_points("T1", 0, 3600LL * (n - 1));
+  ASSERT_EQ(pts.size(), static_cast<std::size_t>(n));
+  EXPECT_EQ(pts[n - 1].t, 3600LL * (n - 1));
   EXPECT_TRUE(std::isnan(pts[0].ambient_c));
 }
 
 TEST_F(LoadQueueTest, DuplicateAgainstAnEarlierBatchIsReportedAtItsLine) {
-  auto t = hourly(300);
-  t[150] = t[10];  // line 152 repeats the time of line 12, three batches later
+  constexpr int b = store::kSqliteLoadBatch;
+  auto t = hourly(4 * b);
+  t[2 * b + 5] = t[10];  // repeats the time of line 12, two batches later
   const auto d = queue("T1", t, f1_);
   ASSERT_EQ(d.size(), 1u);
-  EXPECT_EQ(d[0].line, 152);
+  EXPECT_EQ(d[0].line, 2 + 2 * b + 5);
   EXPECT_EQ(d[0].unit_id, "T1");
 }
 
 TEST_F(LoadQueueTest, FirstOfSeveralDuplicatesInOneBatchIsReported) {
-  auto t = hourly(64);
+  auto t = hourly(store::kSqliteLoadBatch);  // exactly one full batch
   t[40] = t[39];
   t[50] = t[3];
   const auto d = queue("T1", t, f1_);
@@ -80,24 +82,30 @@ TEST_F(LoadQueueTest, FirstOfSeveralDuplicatesInOneBatchIsReported) {
 }
 
 TEST_F(LoadQueueTest, DuplicateInTheLastShortBatchIsReportedByFlush) {
-  auto t = hourly(70);
-  t[69] = t[66];
+  constexpr int n = store::kSqliteLoadBatch + 6;
+  auto t = hourly(n);
+  t[n - 1] = t[n - 4];
   const auto d = queue("T1", t, f1_);
   ASSERT_EQ(d.size(), 1u);
-  EXPECT_EQ(d[0].line, 71);
+  EXPECT_EQ(d[0].line, n + 1);
 }
 
 TEST_F(LoadQueueTest, SameTimeOfAnotherUnitIsNoDuplicate) {
-  EXPECT_TRUE(queue("T1", hourly(40), f1_).empty());
-  EXPECT_TRUE(queue("T2", hourly(40), f1_).empty());
-  EXPECT_EQ(s_->count_rows("load_points"), 80);
+  // Both units' points in one batch.
+  for (int i = 0; i < store::kSqliteLoadBatch; ++i) {
+    analytics::LoadPoint p{3600LL * (i / 2), 0.5};
+    EXPECT_FALSE(s_->queue_load_point(i % 2 ? "T2" : "T1", p, f1_, 2 + i));
+  }
+  EXPECT_FALSE(s_->flush_load_points());
+  EXPECT_EQ(s_->count_rows("load_points"), store::kSqliteLoadBatch);
 }
 
 TEST_F(LoadQueueTest, AnEarlierFilesPointsAreReplaced) {
-  EXPECT_TRUE(queue("T1", hourly(100), f1_, 0.5).empty());
-  EXPECT_TRUE(queue("T1", hourly(100), f2_, 0.7).empty());
-  const auto pts = s_->load_points("T1", 0, 3600LL * 99);
-  ASSERT_EQ(pts.size(), 100u);
+  constexpr int n = 2 * store::kSqliteLoadBatch + 10;  // full batches and a rest
+  EXPECT_TRUE(queue("T1", hourly(n), f1_, 0.5).empty());
+  EXPECT_TRUE(queue("T1", hourly(n), f2_, 0.7).empty());
+  const auto pts = s_->load_points("T1", 0, 3600LL * (n - 1));
+  ASSERT_EQ(pts.size(), static_cast<std::size_t>(n));
   for (const auto& p : pts) EXPECT_DOUBLE_EQ(p.load_pu, 0.7);
 }
 
