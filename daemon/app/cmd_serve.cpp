@@ -41,7 +41,7 @@ void check_serve_can_start(const std::string& root_option, const std::string& pi
   config::load_site_config(root.config().string());  // throws ConfigError
   {
     site::RootLock lock;
-    if (!lock.try_acquire(root)) {
+    if (!lock.try_acquire(root, "serve")) {
       const long pid = site::RootLock::holder_pid(root);
       throw std::runtime_error("another ferrum process" + (pid ? " (pid " + std::to_string(pid) + ")" : std::string()) +
                                " is working on " + root.root.string());

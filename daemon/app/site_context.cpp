@@ -19,7 +19,7 @@ std::unique_ptr<SiteContext> open_site(const Invocation& inv, Access access) {
   init_site_logging(s->root.log_dir(), s->config.log_level, s->config.log_file_mb, s->config.log_files);
   if (access == Access::write) {
     s->lock = std::make_unique<site::RootLock>();
-    if (!s->lock->try_acquire(s->root)) {
+    if (!s->lock->try_acquire(s->root, inv.command)) {
       const long pid = site::RootLock::holder_pid(s->root);
       throw std::runtime_error("another ferrum process" + (pid ? " (pid " + std::to_string(pid) + ")" : std::string()) +
                                " is working on " + s->root.root.string() +

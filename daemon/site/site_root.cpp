@@ -6,33 +6,8 @@
 
 #include <cstdlib>
 #include <fstream>
-#include <iterator>
-#include <sstream>
 
 namespace ferrum::site {
-
-namespace {
-
-// This process's ferrum command ("serve", "ingest", ...): the first argument
-// after the program name that is not an option (`ferrum COMMAND [options]`),
-// read from /proc/self/cmdline; only [a-z0-9_-], at most 32 characters.
-std::string own_command() {
-  std::ifstream in("/proc/self/cmdline", std::ios::binary);
-  const std::string all((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
-  std::istringstream args(all);
-  std::string arg;
-  std::getline(args, arg, '\0');  // the program
-  while (std::getline(args, arg, '\0')) {
-    if (arg.empty() || arg[0] == '-') continue;
-    std::string out;
-    for (const char c : arg.substr(0, 32))
-      if ((c >= 'a' && c <= 'z') || (c >= '0' && c <= '9') || c == '_' || c == '-') out += c;
-    return out;
-  }
-  return "";
-}
-
-}  // namespace
 
 SiteRoot resolve_root(const std::string& option_value) {
   std::string r = option_value;
@@ -53,7 +28,7 @@ RootLock::~RootLock() {
   if (fd_ >= 0) ::close(fd_);
 }
 
-bool RootLock::try_acquire(const SiteRoot& root) {
+bool RootLock::try_acquire(const SiteRoot& root, std::string_view command) {
   fd_ = ::open(root.lock_file().c_str(), O_RDWR | O_CREAT | O_CLOEXEC, 0644);
   if (fd_ < 0) return false;
   if (::flock(fd_, LOCK_EX | LOCK_NB) != 0) {
@@ -61,8 +36,11 @@ bool RootLock::try_acquire(const SiteRoot& root) {
     fd_ = -1;
     return false;
   }
-  const std::string command = own_command();
-  const std::string text = std::to_string(::getpid()) + (command.empty() ? "" : " " + command) + "\n";
+  // Only [a-z0-9_-], at most 32 characters: the file is read back as "PID COMMAND".
+  std::string word;
+  for (const char c : command.substr(0, 32))
+    if ((c >= 'a' && c <= 'z') || (c >= '0' && c <= '9') || c == '_' || c == '-') word += c;
+  const std::string text = std::to_string(::getpid()) + (word.empty() ? "" : " " + word) + "\n";
   if (::ftruncate(fd_, 0) == 0) {
     [[maybe_unused]] auto n = ::pwrite(fd_, text.data(), text.size(), 0);
   }

@@ -11,6 +11,7 @@
 
 #include <filesystem>
 #include <string>
+#include <string_view>
 
 namespace ferrum::site {
 
@@ -55,7 +56,9 @@ class RootLock {
   ~RootLock();
   RootLock(const RootLock&) = delete;
   RootLock& operator=(const RootLock&) = delete;
-  bool try_acquire(const SiteRoot& root);
+  // `command` is the ferrum command taking the lock ("serve", "ingest"),
+  // written beside the pid.
+  bool try_acquire(const SiteRoot& root, std::string_view command = {});
   // Pid written in the lock file by its holder, or 0.
   static long holder_pid(const SiteRoot& root);
   // Pid and command written in the lock file by its holder; pid 0 when the

@@ -73,4 +73,24 @@ TEST_F(RootLockTest, AcquireWritesOwnPidAndRefusesASecondHolder) {
   EXPECT_FALSE(second.try_acquire(root));
 }
 
+// The command is the one the caller names (not guessed from the process's
+// arguments, where `ferrum --root DIR serve` puts the root first); only
+// [a-z0-9_-] is kept.
+TEST_F(RootLockTest, AcquireWritesTheNamedCommand) {
+  {
+    site::RootLock lock;
+    ASSERT_TRUE(lock.try_acquire(root, "serve"));
+    EXPECT_TRUE(site::RootLock::holder(root).is_daemon());
+  }
+  {
+    site::RootLock lock;
+    ASSERT_TRUE(lock.try_acquire(root, "ingest"));
+    EXPECT_EQ(site::RootLock::holder(root).command, "ingest");
+    EXPECT_FALSE(site::RootLock::holder(root).is_daemon());
+  }
+  site::RootLock lock;
+  ASSERT_TRUE(lock.try_acquire(root, "in gest/\n.."));
+  EXPECT_EQ(site::RootLock::holder(root).command, "ingest");
+}
+
 }  // namespace
