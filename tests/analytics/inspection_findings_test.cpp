@@ -21,7 +21,9 @@ TEST(InspectionFindings, LatestRatingPreviousAndWorse) {
                                            rec(100, "tank", Rating::fair), rec(400, "tank", Rating::good)};
   const auto r = review_inspections(v, 500, {});
   ASSERT_EQ(r.findings.size(), 2u);
-  EXPECT_EQ(r.findings[0].item, "bushings");  // worst first
+  // Worst first, a lower rating than the previous one is "worse": common
+  // practice, no published source.
+  EXPECT_EQ(r.findings[0].item, "bushings");
   EXPECT_EQ(r.findings[0].rating, Rating::poor);
   EXPECT_EQ(*r.findings[0].previous, Rating::good);
   EXPECT_TRUE(r.findings[0].worse);
@@ -30,7 +32,8 @@ TEST(InspectionFindings, LatestRatingPreviousAndWorse) {
   EXPECT_EQ(*r.latest, 400);
 }
 
-// Overdue strictly after the interval: 365 days is not overdue, 366 is.
+// Overdue strictly after the interval: 365 days is not overdue, 366 is (a
+// yearly visual inspection: common utility practice, no published source).
 TEST(InspectionFindings, OverdueBothSidesOfInterval) {
   const std::vector<InspectionRecord> v = {rec(100, "fans", Rating::good)};
   EXPECT_TRUE(review_inspections(v, 465, {}).overdue_items.empty());
@@ -40,6 +43,8 @@ TEST(InspectionFindings, OverdueBothSidesOfInterval) {
   EXPECT_EQ(review_inspections(v, 281, o).overdue_items.size(), 1u);
 }
 
+// An unsafe item leads the list; records after the as-of day are not yet
+// known (common practice, no published source).
 TEST(InspectionFindings, UnsafeItemsFirstAndFutureRecordsIgnored) {
   const std::vector<InspectionRecord> v = {rec(100, "fans", Rating::fair), rec(120, "oil_level", Rating::unsafe),
                                            rec(900, "fans", Rating::unsafe)};
@@ -49,6 +54,8 @@ TEST(InspectionFindings, UnsafeItemsFirstAndFutureRecordsIgnored) {
   EXPECT_EQ(r.findings[1].rating, Rating::fair);
 }
 
+// Two ratings of one item on one day: the worse counts (common practice, no
+// published source).
 TEST(InspectionFindings, SameDayWorstCountsAndNoRecords) {
   const std::vector<InspectionRecord> v = {rec(100, "fans", Rating::good), rec(100, "fans", Rating::very_poor)};
   EXPECT_EQ(review_inspections(v, 200, {}).findings[0].rating, Rating::very_poor);

@@ -1,3 +1,6 @@
+// The edge between ferrum.ini and the analytics options, and the parallel
+// assessment of units. Plumbing: no engineering value is checked here, so no
+// published source applies (the methods are checked in tests/analytics).
 #include <gtest/gtest.h>
 
 #include <unistd.h>

@@ -1,3 +1,5 @@
+// Reading ferrum.ini: keys, defaults, errors with their line. Plumbing: no
+// engineering value is checked here, so no published source applies.
 #include <gtest/gtest.h>
 
 #include <unistd.h>

@@ -2,7 +2,6 @@
 hot-spot above the long-time emergency limit, and a worsening gas condition
 (IEEE C57.104-2008) or DGA status (C57.104-2019). Each is raised once, when
 the unit crosses, not again while it stays there."""
-import csv
 import os
 import time
 import unittest
@@ -24,13 +23,6 @@ def load_at(unit, load_pu, ambient_c, hours, days_ago):
 
 
 class MoreAlerts(DaemonCase):
-    def alerts(self):
-        path = self.path("reports", "alerts", "alerts.csv")
-        if not os.path.exists(path):
-            return []
-        with open(path, newline="") as f:
-            return list(csv.DictReader(f))
-
     def kinds(self, unit):
         return [a["kind"] for a in self.alerts() if a["unit_id"] == unit]
 

@@ -2,7 +2,6 @@
 root lock, databases it must refuse, the weekly bundle missed while down,
 alerts and the log file."""
 import calendar
-import csv
 import json
 import os
 import signal
@@ -169,13 +168,6 @@ class Service(DaemonCase):
         self.serve_once()
         with self.db() as c:
             self.assertIsNone(c.execute("SELECT value FROM daemon_state WHERE key='weekly_last_bundle'").fetchone())
-
-    def alerts(self):
-        path = self.path("reports", "alerts", "alerts.csv")
-        if not os.path.exists(path):
-            return []
-        with open(path, newline="") as f:
-            return list(csv.DictReader(f))
 
     def test_alerts_unsafe_item_and_acetylene(self):
         self.start_daemon()

@@ -1,6 +1,7 @@
 """`ferrum serve` as a real process: files written slowly, renamed in, and
 500 at once; arrival order per party. Also home of DaemonCase, the helpers
 the other test_daemon_*.py files share."""
+import csv
 import os
 import re
 import signal
@@ -83,6 +84,14 @@ class DaemonCase(SiteTestCase):
     def site_log(self):
         with open(self.path("log", "ferrum.log")) as f:
             return f.read()
+
+    def alerts(self):
+        """Rows of reports/alerts/alerts.csv (none before the first alert)."""
+        path = self.path("reports", "alerts", "alerts.csv")
+        if not os.path.exists(path):
+            return []
+        with open(path, newline="") as f:
+            return list(csv.DictReader(f))
 
     def has_receipt(self, name, party=None):
         return os.path.exists(self.path("drop", party or self.party, "receipts", name + ".json"))
