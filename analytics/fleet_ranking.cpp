@@ -84,6 +84,23 @@ double probability_of_failure(double hi, const RankingOptions& o) {
   return std::clamp(p, 0.0, 1.0);
 }
 
+UnitAssessment ranking_fields(const UnitAssessment& a) {
+  UnitAssessment r;
+  r.unit.unit_id = a.unit.unit_id;
+  r.unit.site = a.unit.site;
+  r.unit.rated_mva = a.unit.rated_mva;
+  r.unit.criticality = a.unit.criticality;
+  r.unit.customers_served = a.unit.customers_served;
+  r.health_index = a.health_index;
+  r.condition_index = a.condition_index;
+  r.band = a.band;
+  r.confidence = a.confidence;
+  r.missing = a.missing;
+  r.remaining_life.years = a.remaining_life.years;
+  r.remaining_life.limiting_factor = a.remaining_life.limiting_factor;
+  return r;
+}
+
 double consequence_of(const UnitInfo& u, const RankingOptions& o) {
   double sum = 0, weights = 0;
   auto add = [&](double w, double v) {

@@ -54,6 +54,14 @@ struct RankingOptions {
 // empty ranking with the ten-year summary at zero.
 FleetRanking rank_fleet(const std::vector<UnitAssessment>& units, Day as_of, const RankingOptions& options);
 
+// The fields of an assessment that rank_fleet reads, and only those (unit id,
+// site, MVA, criticality, customers; health and condition index, band,
+// confidence, missing data; remaining life and its limiting factor):
+// rank_fleet gives the same ranking from them as from the whole assessments
+// (tested). What a stored ranking input keeps (daemon/assess/ranking_cache).
+// Kept beside rank_fleet so that the two change together.
+UnitAssessment ranking_fields(const UnitAssessment& a);
+
 // The two factors of risk, exposed for tests and reports.
 double probability_of_failure(double health_index, const RankingOptions& options);
 double consequence_of(const UnitInfo& unit, const RankingOptions& options);

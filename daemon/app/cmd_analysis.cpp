@@ -55,8 +55,9 @@ int cmd_assess(const Invocation& inv) {
   // The key before the first read: an import meanwhile changes it (ranking_cache.h).
   const std::string cache_key = whole_fleet ? assess::ranking_cache_key(site->root, *site->store, as_of) : "";
   std::vector<analytics::UnitAssessment> ranking_inputs;
-  for (const auto& id : ids)
-    if (!site->store->find_unit(id)) throw std::runtime_error("unit " + id + " is not in the register");
+  if (!whole_fleet)  // named units must exist; the register's own list needs no check
+    for (const auto& id : ids)
+      if (!site->store->find_unit(id)) throw std::runtime_error("unit " + id + " is not in the register");
   // Units are assessed on every core and written out one by one, in order:
   // the JSON array is streamed, never held whole (5,000 units make ~750 MB).
   const bool json = inv.has("json");
@@ -64,7 +65,7 @@ int cmd_assess(const Invocation& inv) {
   if (json) std::cout << "[";
   assess::assess_units_parallel(site->root.database().string(), ids, as_of, options, 0,
                                 [&](analytics::UnitAssessment&& a) {
-                                  if (whole_fleet) ranking_inputs.push_back(assess::ranking_fields(a));
+                                  if (whole_fleet) ranking_inputs.push_back(analytics::ranking_fields(a));
                                   if (!json) return print_assessment_text(a);
                                   std::cout << (first ? "\n" : ",\n") << assess::stringify(assess::to_json(a));
                                   first = false;
@@ -85,7 +86,7 @@ int cmd_rank(const Invocation& inv) {
     units = assess::assess_fleet_parallel(*site->store, site->root.database().string(), as_of,
                                           assess::options_from_config(site->config, &site->root));
     std::vector<analytics::UnitAssessment> inputs;
-    for (const auto& a : *units) inputs.push_back(assess::ranking_fields(a));
+    for (const auto& a : *units) inputs.push_back(analytics::ranking_fields(a));
     assess::write_ranking_cache(site->root, cache_key, inputs);
   }
   const auto ranking = analytics::rank_fleet(*units, as_of, assess::ranking_options_from_config(site->config));

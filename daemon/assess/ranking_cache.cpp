@@ -87,23 +87,6 @@ analytics::UnitAssessment unit_from_json(const Object::Ptr& o) {
 
 }  // namespace
 
-analytics::UnitAssessment ranking_fields(const analytics::UnitAssessment& a) {
-  analytics::UnitAssessment r;
-  r.unit.unit_id = a.unit.unit_id;
-  r.unit.site = a.unit.site;
-  r.unit.rated_mva = a.unit.rated_mva;
-  r.unit.criticality = a.unit.criticality;
-  r.unit.customers_served = a.unit.customers_served;
-  r.health_index = a.health_index;
-  r.condition_index = a.condition_index;
-  r.band = a.band;
-  r.confidence = a.confidence;
-  r.missing = a.missing;
-  r.remaining_life.years = a.remaining_life.years;
-  r.remaining_life.limiting_factor = a.remaining_life.limiting_factor;
-  return r;
-}
-
 std::string ranking_cache_key(const site::SiteRoot& root, store::Store& store, analytics::Day as_of) {
   Poco::SHA2Engine engine(Poco::SHA2Engine::SHA_256);
   const auto part = [&](const std::string& s) {

@@ -3,10 +3,8 @@
 // second `rank`) need not assess every unit again: over 5,000 units the
 // assessments are the whole cost of a ranking (bench/results.md §2).
 //
-// The cache holds, per unit, exactly the fields analytics::rank_fleet reads
-// (fleet_ranking.cpp: unit_id, site, rated MVA, criticality, customers,
-// health and condition index, band, confidence, missing data, remaining
-// life and its limiting factor); a test compares rankings made from full
+// The cache holds, per unit, analytics::ranking_fields (exactly the fields
+// rank_fleet reads; fleet_ranking.h); tests compare rankings made from full
 // and from cached assessments. It is used only under the key it was written
 // with: a digest of the ferrum executable (size and time), ferrum.ini, the
 // site's own IEEE C57.104 tables, the newest file record in the database
@@ -36,8 +34,5 @@ std::optional<std::vector<analytics::UnitAssessment>> read_ranking_cache(const s
 // account) only means no cache; returns whether it was written.
 bool write_ranking_cache(const site::SiteRoot& root, const std::string& key,
                          const std::vector<analytics::UnitAssessment>& units);
-
-// The ranking's fields of an assessment (what the cache keeps).
-analytics::UnitAssessment ranking_fields(const analytics::UnitAssessment& a);
 
 }  // namespace ferrum::assess

@@ -4,6 +4,7 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <tuple>
 
 namespace fa = ferrum::analytics;
 
@@ -149,4 +150,48 @@ TEST(FleetRanking, CorrectableFindingRaisesRiskNotReplacement) {
       EXPECT_EQ(u.recommended_action, "replace");
     }
   }
+}
+
+// The ranking from ranking_fields equals the ranking from whole assessments,
+// on a fleet that uses every field rank_fleet reads and many it does not.
+// (Consistency of two code paths: no engineering value, no source needed.)
+TEST(FleetRanking, RankingFieldsGiveTheSameRanking) {
+  std::vector<fa::UnitAssessment> fleet{unit("A", 20, 5, 80), unit("B", 62, 3, 40), unit("C", std::nullopt, 2, 10),
+                                        unit("D", 45, 4, 25), unit("E", 88, 1, 5)};
+  fleet[0].remaining_life.years = 1.5;
+  fleet[0].remaining_life.limiting_factor = "paper";
+  fleet[1].condition_index = 80;  // capped by a correctable finding
+  fleet[1].band = "serviceable";
+  fleet[1].unit.customers_served = 12000;
+  fleet[2].confidence = "2 of 7 factors: too few";
+  fleet[2].missing = {"oil sample", "inspection"};
+  fleet[3].remaining_life.years = 7;
+  fleet[3].remaining_life.limiting_factor = "gases";
+  fleet[3].unit.site = "South";
+  for (auto& a : fleet) {  // fields the ranking does not read
+    a.methods = {"a method"};
+    a.actions.push_back({});
+    a.dga.tdcg_ppm = 500;
+  }
+  fa::RankingOptions o;
+  o.weight_customers = 0.5;
+  const auto whole = fa::rank_fleet(fleet, fleet[0].as_of, o);
+  std::vector<fa::UnitAssessment> reduced;
+  for (const auto& a : fleet) reduced.push_back(fa::ranking_fields(a));
+  EXPECT_TRUE(reduced[0].methods.empty());
+  const auto from_fields = fa::rank_fleet(reduced, fleet[0].as_of, o);
+  ASSERT_EQ(whole.units.size(), from_fields.units.size());
+  for (std::size_t i = 0; i < whole.units.size(); ++i) {
+    const auto &x = whole.units[i], &y = from_fields.units[i];
+    EXPECT_EQ(std::tie(x.rank, x.tied, x.unit_id, x.site, x.rated_mva, x.health_index, x.band, x.remaining_life_years,
+                       x.limiting_factor, x.probability_of_failure, x.consequence, x.risk, x.recommended_action,
+                       x.action_year, x.insufficient_data, x.note),
+              std::tie(y.rank, y.tied, y.unit_id, y.site, y.rated_mva, y.health_index, y.band, y.remaining_life_years,
+                       y.limiting_factor, y.probability_of_failure, y.consequence, y.risk, y.recommended_action,
+                       y.action_year, y.insufficient_data, y.note))
+        << x.unit_id;
+  }
+  ASSERT_EQ(whole.mva_due_by_year.size(), from_fields.mva_due_by_year.size());
+  for (std::size_t i = 0; i < whole.mva_due_by_year.size(); ++i)
+    EXPECT_EQ(whole.mva_due_by_year[i].mva, from_fields.mva_due_by_year[i].mva);
 }
