@@ -34,11 +34,12 @@ std::string describe(const char* what, double ppm, int condition) {
 struct Table3Row {
   const char* interval[3];  // rate >30, 10-30, <10
   int days[3];
-  const char* action_fast;  // rate >30
-  const char* action_slow;  // otherwise
+  const char* action_fast;  // rate >30 and 10-30 (the procedure cells span both rows)
+  const char* action_slow;  // rate <10 or unknown
 };
 
-// IEEE C57.104-2008 Table 3, rows for Conditions 1..4 (from memory, domain.md A.2).
+// IEEE C57.104-2008 Table 3, rows for Conditions 1..4 (from memory).
+// The operating-procedure cells span the ">30" and "10-30 ppm/day" rows.
 constexpr Table3Row kTable3[4] = {
     {{"monthly", "quarterly", "annual"}, {30, 91, 365},
      "Exercise caution; analyse individual gases for cause; determine load dependence",
@@ -134,7 +135,7 @@ C57104_2008Procedure c57104_2008_table3(int condition, std::optional<double> rat
   const Table3Row& row = kTable3[condition - 1];
   p.interval = row.interval[column];
   p.interval_days = row.days[column];
-  p.action = column == 0 ? row.action_fast : row.action_slow;
+  p.action = column <= 1 ? row.action_fast : row.action_slow;
   if (condition == 1 && column == 2 && hv_kv >= options.ehv_threshold_kv) {
     p.interval = "6-monthly";
     p.interval_days = 182;

@@ -16,7 +16,7 @@ constexpr const char* kTableSource = "IEC 60076-7:2005 Table 5";
 //                                    x    y    R   k11  k21  k22 τo   τw  Δθor H·gr
 constexpr std::array<IecThermalParameters, 5> kTable5 = {{
     {0.8, 1.6, 5, 1.0, 1.0, 2.0, 180, 4, 55, 23},  // ONAN distribution (<= 2.5 MVA)
-    {0.8, 1.3, 6, 0.5, 3.0, 2.0, 210, 10, 52, 26},  // ONAN medium and large
+    {0.8, 1.3, 6, 0.5, 2.0, 2.0, 210, 10, 52, 26},  // ONAN medium and large (k21 = 2.0 in the 2005 edition)
     {0.8, 1.3, 6, 0.5, 2.0, 2.0, 150, 7, 52, 26},   // ONAF
     {1.0, 1.3, 6, 1.0, 1.3, 1.0, 90, 7, 56, 22},    // OF
     {1.0, 2.0, 6, 1.0, 1.0, 1.0, 90, 7, 49, 29},    // OD

@@ -15,6 +15,10 @@ Exponents table4_exponents(IecCoolingClass c) {
     case IecCoolingClass::onan_distribution:
     case IecCoolingClass::onan: return {0.8, 0.8};
     case IecCoolingClass::onaf:
+    // OFAF/OF: published reproductions disagree (n = 0.8 or 0.9). ferrum
+    // takes n = 0.9 as listed for forced-oil cooling in IEEE C57.91-2011
+    // Table 4 (from memory; verify), the more conservative of the two at
+    // overload (K > 1 gives a higher top-oil rise).
     case IecCoolingClass::of: return {0.9, 0.8};
     case IecCoolingClass::od: return {1.0, 1.0};
   }

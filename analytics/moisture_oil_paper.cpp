@@ -43,16 +43,21 @@ MoistureResult assess_moisture(const LabValue& water, const LabValue& temp, cons
   r.relative_saturation_pct = 100.0 * water.value / *r.solubility_ppm;
   if (*r.relative_saturation_pct > 100)
     r.notes.push_back("oil above saturation: free water possible, or sample contaminated");
-  r.paper_moisture_pct = fessler_paper_moisture_pct(std::min(*r.relative_saturation_pct, 100.0), temp.value);
   if (temp.value < o.cold_sample_c) {
+    // No paper-water figure from a cold sample: Fessler's relation then gives
+    // values well above the usual equilibrium curves (7.8 % at 20 °C and 30 %
+    // relative saturation), and oil and paper are rarely near equilibrium.
     r.equilibrium_doubtful = true;
-    char buf[200];
+    char buf[240];
     std::snprintf(buf, sizeof buf,
-                  "cold sample (%.1f °C < %.0f °C): oil and paper are far from equilibrium, "
-                  "the paper water estimate is unreliable (likely overstated)",
-                  temp.value, o.cold_sample_c);
+                  "cold sample (%.1f °C < %.0f °C): no paper water estimate, because oil and paper are "
+                  "far from equilibrium and the equilibrium relation overstates it; a sample taken at "
+                  "%.0f °C or more from a steadily loaded unit allows one",
+                  temp.value, o.cold_sample_c, o.cold_sample_c);
     r.notes.push_back(buf);
+    return r;
   }
+  r.paper_moisture_pct = fessler_paper_moisture_pct(std::min(*r.relative_saturation_pct, 100.0), temp.value);
   return r;
 }
 

@@ -1,7 +1,7 @@
 // Water in the oil-paper insulation of mineral-oil transformers.
 //   * Solubility of water in mineral oil: log10 Ws(ppm) = A − B/T, T in K,
 //     A = 7.0895, B = 1567 (Oommen-type fit for new oil; constants from
-//     memory, domain.md B.3). The fit reproduces the published solubility
+//     memory). The fit reproduces the published solubility
 //     table (S7, verified: 22 / 55 / 121 / 242 / 446 / 772 ppm at 0 / 20 / 40
 //     / 60 / 80 / 100 °C) within about 1 %. Aged oil dissolves more water:
 //     A and B are options.
@@ -32,7 +32,7 @@ struct MoistureOptions {
   double solubility_a = 7.0895;  // log10 Ws = A − B/T (new mineral oil)
   double solubility_b = 1567.0;  // K
   // Below this sampling temperature (°C) oil and paper are taken to be far
-  // from equilibrium and the paper estimate is flagged. Default 40 °C.
+  // from equilibrium and no paper-water estimate is given. Default 40 °C.
   double cold_sample_c = 40.0;
 };
 

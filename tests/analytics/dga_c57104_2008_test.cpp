@@ -113,6 +113,22 @@ TEST(C57104_2008, Table3ActionsAndEhvInterval) {
   EXPECT_EQ(c57104_2008_table3(1, 5, 344).interval, "annual");
 }
 
+// IEEE C57.104-2008 Table 3: the operating-procedure cells span the ">30" and
+// "10-30 ppm/day" rows (checked against a public reproduction, issue 17).
+TEST(C57104_2008, Table3ProcedureCellsSpanTheTwoFastRows) {
+  const auto c4 = c57104_2008_table3(4, 20, 132).action;  // IEEE C57.104-2008, Table 3
+  EXPECT_NE(c4.find("Consider removal from service"), std::string::npos) << c4;
+  EXPECT_NE(c4.find("advise the manufacturer"), std::string::npos) << c4;
+  EXPECT_EQ(c4.find("plan an outage"), std::string::npos) << c4;
+  const auto c1 = c57104_2008_table3(1, 20, 132).action;  // IEEE C57.104-2008, Table 3
+  EXPECT_NE(c1.find("Exercise caution"), std::string::npos) << c1;
+  EXPECT_NE(c1.find("determine load dependence"), std::string::npos) << c1;
+  EXPECT_EQ(c1.find("normal operation"), std::string::npos) << c1;
+  // Below 10 ppm/day the slower procedures stay.
+  EXPECT_NE(c57104_2008_table3(1, 9, 132).action.find("normal operation"), std::string::npos);
+  EXPECT_NE(c57104_2008_table3(4, 9, 132).action.find("plan an outage"), std::string::npos);
+}
+
 TEST(C57104_2008, Table3UnknownRateAndInvalidCondition) {
   auto p = c57104_2008_table3(3, std::nullopt, 132);
   EXPECT_EQ(p.rate_band, "unknown");

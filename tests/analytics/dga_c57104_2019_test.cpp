@@ -13,7 +13,7 @@ using testing::gas_sample;
 
 // All table values used here are the embedded placeholders of
 // analytics/data/ieee_c57104_2019_tables.csv: IEEE C57.104-2019 Tables 1-4 FROM MEMORY
-// (domain.md A.3, low confidence). The tests check the logic, not the standard's numbers.
+// (low confidence) except the cells corrected below. The tests check the logic, not the standard's numbers.
 
 OilSample sealed(Day d, testing::Gases g) {
   OilSample s = gas_sample(d, g);
@@ -25,7 +25,7 @@ OilSample sealed(Day d, testing::Gases g) {
 TEST(C57104_2019Tables, EmbeddedTextParses) {
   auto r = parse_c57104_2019_tables(default_c57104_2019_tables_text());
   ASSERT_TRUE(r.tables) << r.error_line << ": " << r.error;
-  // Table 1, unknown age, O2/N2 <= 0.2 / > 0.2 placeholders of domain.md A.3 (from memory):
+  // Table 1, unknown age, O2/N2 <= 0.2 / > 0.2 placeholders (from memory):
   // H2 80/40, CH4 90/20, C2H6 90/15, C2H4 50/50, C2H2 1/2, CO 900/500, CO2 9000/5000.
   const auto& low = r.tables->table1[0][0];
   const auto& high = r.tables->table1[1][0];
@@ -78,6 +78,26 @@ TEST(C57104_2019Status, SingleSampleLevelsBothSidesOfTables1And2) {
   EXPECT_EQ(three.status, 3);
   EXPECT_NE(three.reason.find("Table 2"), std::string::npos);
   EXPECT_EQ(three.o2n2_group, "<= 0.2");
+}
+
+// Cells corrected after checking against public reproductions of the standard
+// (issue 17): IEEE C57.104-2019 Table 2, O2/N2 > 0.2, age > 30: CH4 = 30;
+// Table 1, O2/N2 <= 0.2, age > 30: CO = 900; Table 2, O2/N2 <= 0.2, age > 30: C2H2 = 4.
+TEST(C57104_2019Tables, CorrectedCellsOver30Years) {
+  const auto& t = default_c57104_2019_tables();
+  const auto over30 = static_cast<std::size_t>(AgeGroup::over30);
+  EXPECT_EQ(*t.table2[1][over30][gas_index(Gas::ch4)], 30);   // IEEE C57.104-2019, Table 2
+  EXPECT_EQ(*t.table1[0][over30][gas_index(Gas::co)], 900);   // IEEE C57.104-2019, Table 1
+  EXPECT_EQ(*t.table2[0][over30][gas_index(Gas::c2h2)], 4);   // IEEE C57.104-2019, Table 2
+  // Free-breathing unit, 40 years: CH4 45 is above Table 2 (30), so status 3.
+  OilSample open = gas_sample(0, {.ch4 = 45});
+  open.o2 = LabValue::measured(15000);
+  open.n2 = LabValue::measured(50000);  // O2/N2 = 0.3 > 0.2
+  EXPECT_EQ(c57104_2019_status({open}, 40, t).status, 3);
+  // Sealed unit, 40 years: CO 800 is within Table 1 (900), status 1.
+  EXPECT_EQ(c57104_2019_status({sealed(0, {.co = 800})}, 40, t).status, 1);
+  // Sealed unit, 40 years: C2H2 3 is above Table 1 (1) but within Table 2 (4), status 2.
+  EXPECT_EQ(c57104_2019_status({sealed(0, {.c2h2 = 3})}, 40, t).status, 2);
 }
 
 TEST(C57104_2019Status, ChangeBetweenSamplesRaisesStatus) {

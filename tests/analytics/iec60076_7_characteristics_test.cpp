@@ -25,7 +25,7 @@ TEST(Iec60076_7Characteristics, CoolingClassFromString) {
   EXPECT_FALSE(known);
 }
 
-// Table 5 ONAF column (from memory, domain.md D.2).
+// Table 5 ONAF column (from memory; verify).
 TEST(Iec60076_7Characteristics, OnafRecommendedValues) {
   const auto p = iec_recommended_parameters(IecCoolingClass::onaf);
   EXPECT_EQ(p.x, 0.8);
@@ -33,6 +33,12 @@ TEST(Iec60076_7Characteristics, OnafRecommendedValues) {
   EXPECT_EQ(p.k21, 2.0);
   EXPECT_EQ(p.tau_o_min, 150);
   EXPECT_EQ(p.top_oil_rise_k, 52);
+}
+
+// IEC 60076-7:2005 Table 5, ONAN medium and large power transformers: k21 = 2.0
+// (checked against a public reproduction, issue 17; 3.0 was wrong for the 2005 edition).
+TEST(Iec60076_7Characteristics, OnanMediumLargeK21) {
+  EXPECT_EQ(iec_recommended_parameters(IecCoolingClass::onan).k21, 2.0);  // IEC 60076-7:2005, Table 5
 }
 
 TEST(Iec60076_7Characteristics, RegisterDataReplaceTableValuesAndSayWhere) {

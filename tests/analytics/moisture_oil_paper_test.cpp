@@ -48,11 +48,17 @@ TEST(MoistureOilPaper, FesslerEquationAndPlausibility) {
 TEST(MoistureOilPaper, ColdSampleThresholdBothSides) {
   auto cold = assess_moisture(LabValue::measured(15), LabValue::measured(39.9));
   EXPECT_TRUE(cold.equilibrium_doubtful);
-  EXPECT_TRUE(cold.paper_moisture_pct);
+  // No paper-water figure below 40 °C: Fessler's relation gives 7.8 % at 20 °C and
+  // 30 % RS, well above the usual equilibrium curves (issue 17; Fessler et al. 1987
+  // compared with published equilibrium curves).
+  EXPECT_FALSE(cold.paper_moisture_pct);
+  EXPECT_TRUE(cold.relative_saturation_pct);
   ASSERT_FALSE(cold.notes.empty());
   EXPECT_NE(cold.notes.back().find("cold sample"), std::string::npos);
+  EXPECT_NE(cold.notes.back().find("40 °C or more"), std::string::npos) << cold.notes.back();
   auto warm = assess_moisture(LabValue::measured(15), LabValue::measured(40));
   EXPECT_FALSE(warm.equilibrium_doubtful);
+  EXPECT_TRUE(warm.paper_moisture_pct);
   EXPECT_TRUE(warm.notes.empty());
 }
 
