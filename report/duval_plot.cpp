@@ -24,7 +24,8 @@ Color zone_fill(const std::string& code) {
 }  // namespace
 
 const std::vector<DuvalZone>& duval_triangle1_zones() {
-  // Akbari et al., Table II (domain.md A.5).
+  // Zone vertices (CH4, C2H4, C2H2 %) as tabulated by Akbari et al., Table II,
+  // from the boundaries of M. Duval's Triangle 1 (IEC 60599:2015, Annex B).
   static const std::vector<DuvalZone> zones = {
       {"PD", {{98, 2, 0}, {100, 0, 0}, {98, 0, 2}}},
       {"T1", {{76, 20, 4}, {80, 20, 0}, {98, 2, 0}, {98, 0, 2}, {96, 0, 4}}},
@@ -42,8 +43,10 @@ const std::vector<DuvalZone>& duval_triangle1_zones() {
 Point duval_to_cartesian(const DuvalPercent& pct) {
   const double total = pct[0] + pct[1] + pct[2];
   if (!(total > 0)) return {0, 0};
-  const double c2h4 = pct[1] / total, c2h2 = pct[2] / total;
-  return {c2h4 + c2h2 / 2, kSqrt3Half * c2h2};
+  // Conventional orientation of the published method: 100 % CH4 at the top
+  // vertex, 100 % C2H4 bottom right, 100 % C2H2 bottom left.
+  const double ch4 = pct[0] / total, c2h4 = pct[1] / total;
+  return {c2h4 + ch4 / 2, kSqrt3Half * ch4};
 }
 
 Point polygon_centroid(const std::vector<Point>& poly) {
@@ -73,9 +76,9 @@ DuvalPercent duval_label_anchor(const DuvalZone& zone) {
   for (const auto& v : zone.vertices) pts.push_back(duval_to_cartesian(v));
   const Point c = polygon_centroid(pts);
   // Back from Cartesian to percentages.
-  const double c2h2 = c.y / kSqrt3Half;
-  const double c2h4 = c.x - c2h2 / 2;
-  return {100 * (1 - c2h4 - c2h2), 100 * c2h4, 100 * c2h2};
+  const double ch4 = c.y / kSqrt3Half;
+  const double c2h4 = c.x - ch4 / 2;
+  return {100 * ch4, 100 * c2h4, 100 * (1 - ch4 - c2h4)};
 }
 
 void draw_duval_triangle(HPDF_Page page, const PdfDocument& doc, const Box& box,
@@ -84,9 +87,9 @@ void draw_duval_triangle(HPDF_Page page, const PdfDocument& doc, const Box& box,
   FontRef regular = doc.font(FontFace::regular);
   FontRef bold = doc.font(FontFace::bold);
   // Side length: fit the width (minus corner labels) and the height.
-  const double side = std::min(box.w - 40, (box.h - 36) / kSqrt3Half);
+  const double side = std::min(box.w - 40, (box.h - 30) / kSqrt3Half);
   const double ox = box.x + (box.w - side) / 2;
-  const double oy = box.y + 24;
+  const double oy = box.y + 14;
   auto to_page = [&](const DuvalPercent& pct) {
     const Point p = duval_to_cartesian(pct);
     return Point{ox + p.x * side, oy + p.y * side};
@@ -116,24 +119,27 @@ void draw_duval_triangle(HPDF_Page page, const PdfDocument& doc, const Box& box,
   HPDF_Page_LineTo(page, r(c.x), r(c.y));
   HPDF_Page_ClosePath(page);
   HPDF_Page_Stroke(page);
-  // Corner names sit below the row of base-zone labels.
-  draw_text(page, regular, 6.6, a.x, a.y - 19, "100 % CH₄", palette::muted, Align::center);
-  draw_text(page, regular, 6.6, b.x, b.y - 19, "100 % C₂H₄", palette::muted, Align::center);
-  draw_text(page, regular, 6.6, c.x, c.y + 4, "100 % C₂H₂", palette::muted, Align::center);
+  // Corner names: CH4 above the top vertex, the others below the base.
+  draw_text(page, regular, 6.6, a.x, a.y + 5, "100 % CH₄", palette::muted, Align::center);
+  draw_text(page, regular, 6.6, b.x, b.y - 10, "100 % C₂H₄", palette::muted, Align::center);
+  draw_text(page, regular, 6.6, c.x, c.y - 10, "100 % C₂H₂", palette::muted, Align::center);
 
   for (const auto& z : zones) {
     const Point p = to_page(duval_label_anchor(z));
     if (z.code == "PD") {
-      draw_line(page, p.x, p.y + 1, p.x - 10, p.y + 12, palette::muted, 0.5);
-      draw_text(page, bold, 7, p.x - 11, p.y + 13, "PD", palette::ink, Align::center);
+      draw_line(page, p.x + 1, p.y - 1, p.x + 14, p.y - 1, palette::muted, 0.5);
+      draw_text(page, bold, 7, p.x + 16, p.y - 3.5, "PD", palette::ink);
       continue;
     }
     double top_c2h2 = 0;
     for (const auto& v : z.vertices) top_c2h2 = std::max(top_c2h2, v[2]);
     if (top_c2h2 * side / 100 < 12) {
-      // A strip along the base too thin for text: label under the base.
-      draw_line(page, p.x, a.y, p.x, a.y - 3, palette::muted, 0.5);
-      draw_text(page, bold, 7, p.x, a.y - 10, z.code, palette::ink, Align::center);
+      // A strip along the right edge (C2H2 near 0) too thin for text:
+      // label to the right of the edge, level with the zone's middle.
+      const auto anchor = duval_label_anchor(z);
+      const Point e = to_page({anchor[0], 100 - anchor[0], 0});
+      draw_line(page, e.x, e.y, e.x + 4, e.y, palette::muted, 0.5);
+      draw_text(page, bold, 7, e.x + 6, e.y - 2.5, z.code, palette::ink);
       continue;
     }
     draw_text(page, bold, 7.5, p.x, p.y - 2.5, z.code, palette::ink, Align::center);

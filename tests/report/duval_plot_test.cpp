@@ -36,14 +36,18 @@ const DuvalZone& zone(const std::string& code) {
 }
 
 TEST(DuvalPlot, ProjectionOfCorners) {
-  // domain.md A.5: x = C2H4 + C2H2/2, y = (√3/2)·C2H2 with fractions [geometry; computed].
+  // Conventional orientation of Duval Triangle 1 (IEC 60599:2015, Annex B figure):
+  // 100 % CH4 at the top vertex. x = C2H4 + CH4/2, y = (√3/2)·CH4 with fractions [geometry].
+  EXPECT_NEAR(duval_to_cartesian({100, 0, 0}).y, std::sqrt(3.0) / 2, 1e-12);
+  EXPECT_DOUBLE_EQ(duval_to_cartesian({100, 0, 0}).x, 0.5);
   const Point ch4 = duval_to_cartesian({100, 0, 0});
   const Point c2h4 = duval_to_cartesian({0, 100, 0});
   const Point c2h2 = duval_to_cartesian({0, 0, 100});
-  EXPECT_DOUBLE_EQ(ch4.x, 0);
+  EXPECT_GT(ch4.y, c2h4.y);  // CH4 on top
   EXPECT_DOUBLE_EQ(c2h4.x, 1);
-  EXPECT_DOUBLE_EQ(c2h2.x, 0.5);
-  EXPECT_NEAR(c2h2.y, std::sqrt(3.0) / 2, 1e-12);
+  EXPECT_DOUBLE_EQ(c2h4.y, 0);
+  EXPECT_DOUBLE_EQ(c2h2.x, 0);
+  EXPECT_DOUBLE_EQ(c2h2.y, 0);
   // Unnormalised ppm give the same point as their percentages (45/90/15 ppm = 30/60/10 %).
   const Point a = duval_to_cartesian({45, 90, 15}), b = duval_to_cartesian({30, 60, 10});
   EXPECT_NEAR(a.x, b.x, 1e-12);
@@ -62,7 +66,7 @@ TEST(DuvalPlot, ZonesTileTheTriangle) {
 }
 
 TEST(DuvalPlot, CheckPointsFallInTheirPublishedZones) {
-  // Check values of domain.md A.5 [computed from the published boundaries].
+  // Check points computed from the published zone boundaries (Akbari et al., Table II).
   EXPECT_TRUE(inside(zone("T3"), {30, 60, 10}));
   EXPECT_TRUE(inside(zone("T1"), {90.1, 9.0, 0.9}));
   EXPECT_TRUE(inside(zone("T2"), {66.4, 33.2, 0.4}));
