@@ -4,7 +4,7 @@
 //
 // Health-index actions follow the "requirement" column of the HI -> condition
 // table of Jahromi et al., IEEE Electrical Insulation Magazine 25(2), 2009
-// (from memory, domain.md F.1): below 30 replace or rebuild, 30-50 start
+// (from memory): below 30 replace or rebuild, 30-50 start
 // planning replacement or rebuild, 50-70 more diagnostic testing. The due
 // dates and the stale-data actions are ferrum's own defaults.
 // Order: priority (1 = most urgent), then due date, then text.

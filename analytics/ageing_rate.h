@@ -6,7 +6,7 @@
 // * IEEE C57.91-2011 clause 5 ageing acceleration factor (65 °C-rise,
 //   thermally upgraded insulation): F_AA = exp(15000/383 − 15000/(θ_H + 273)),
 //   equivalent ageing F_EQA = Σ F_AA·Δt / Σ Δt, %LOL = F_EQA·t·100 / normal life.
-// Equations from memory (domain.md D.1/D.2, high confidence). Normal
+// Equations from memory, checked against public reproductions. Normal
 // insulation life default 180 000 h: IEEE C57.91-2011 Table 1 (from memory).
 //
 // Inputs: θ_h hot-spot temperature in °C; durations in hours. Outputs

@@ -1,12 +1,13 @@
 // IEEE C57.104-2008, "IEEE Guide for the Interpretation of Gases Generated in
 // Oil-Immersed Transformers":
 //   * Table 1: dissolved-gas concentration limits for the four conditions,
-//     per gas and for TDCG (verified against a public reproduction, domain.md
-//     A.1, source S1).
+//     per gas and for TDCG (checked against a public reproduction of the
+//     table).
 //   * The unit's condition is the highest level reached by any individual gas
-//     or by TDCG (domain.md A.1; from memory of the guide's text).
+//     or by TDCG (from memory of the guide's text).
 //   * Table 3: sampling interval and operating procedure from the TDCG
-//     condition and the TDCG rate (ppm/day) (domain.md A.2; from memory).
+//     condition and the TDCG rate (ppm/day) (from memory; the procedure cells span the
+//     ">30" and "10-30 ppm/day" rows, checked against a public reproduction).
 //
 // Inputs: gases in µL/L (ppm); rate in ppm/day = (S_T − S_O)/days between the
 // last two samples. Validity: mineral-oil transformers (not OLTC

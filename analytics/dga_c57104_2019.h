@@ -2,7 +2,8 @@
 // Mineral Oil-Immersed Transformers": DGA status 1/2/3 from gas levels
 // against the 90th / 95th percentile tables (chosen by O2/N2 ratio and the
 // unit's age) and from the change between consecutive samples and the rate
-// of change (domain.md A.3; structure and values from memory).
+// of change (structure and values from memory; see analytics/data/ieee_c57104_2019_tables.csv
+// for the cells checked against a public reproduction).
 //   Table 1: 90th-percentile concentrations; Table 2: 95th percentiles;
 //   Table 3: 95th percentile of the change between consecutive samples;
 //   Table 4: 95th percentile of the rate (ppm/year) over 3–6 samples.

@@ -1,8 +1,8 @@
 // CO2/CO ratio reading for paper (cellulose) involvement.
-// Sources (domain.md A.8): normal ageing of a conservator unit gives roughly
+// Sources (IEC 60599 and IEEE C57.104, from memory): normal ageing of a conservator unit gives roughly
 // 3 to 10–11; below 3 points to rapid paper degradation / paper involved in
-// the fault, possibly with carbonisation [Reclamation via S14, Transformers
-// Magazine S14; IEC 60599 from memory]; above the upper band may mean
+// the fault, possibly with carbonisation [US Bureau of Reclamation FIST 3-30;
+// IEC 60599 from memory]; above the upper band may mean
 // cellulose overheating if other gases also show abnormal degradation. The
 // upper band is 10 in IEC 60599 / CIGRE and 11 for the US Bureau of
 // Reclamation: configurable, default 10 (IEC).

@@ -6,7 +6,7 @@
 // Source: IEC 60599 (2015/2022) clause on the application of ratios, and its
 // Annex A typical (90 %) concentrations for power transformers without a
 // communicating OLTC (IEC 60599:2007 Annex A; values from memory, low
-// confidence; domain.md A.0, A.4). The lower end of each published range is
+// confidence). The lower end of each published range is
 // the default, so that a method is applied rather than withheld when in doubt.
 // Inputs in µL/L (ppm).
 #pragma once

@@ -1,7 +1,7 @@
 // The dissolved gases that the DGA methods read, and how they are taken from
 // an oil sample. Units: µL/L (ppm) throughout.
 //
-// Conventions (domain.md A.0): TDCG is H2 + CH4 + C2H2 + C2H4 + C2H6 + CO
+// Conventions (IEEE C57.104-2008): TDCG is H2 + CH4 + C2H2 + C2H4 + C2H6 + CO
 // [IEEE C57.104-2008]. A gas reported below its detection limit counts as
 // zero in sums, but never as a measured value in a ratio's denominator.
 #pragma once

@@ -41,7 +41,7 @@ bool contains(const std::vector<TrianglePercent>& poly, const TrianglePercent& p
 }
 
 // The published limits of each zone, with their strict / non-strict sides
-// (domain.md A.5). Used only to decide which zone owns a point lying on a
+// (Duval Triangle 1 as published). Used only to decide which zone owns a point lying on a
 // boundary shared by several polygons: no single zone priority works,
 // because e.g. T3 owns its C2H4 = 50 % edge against DT while DT owns the
 // C2H2 = 15 % edge against T3.
@@ -56,7 +56,7 @@ bool owns_boundary_point(const std::string& code, const TrianglePercent& p) {
 }
 
 std::vector<DuvalZone> make_zones() {
-  // Vertices (%CH4, %C2H4, %C2H2), domain.md A.5 (S3 Table II).
+  // Vertices (%CH4, %C2H4, %C2H2), Akbari et al., Table II.
   return {
       {"PD", "partial discharges", {{98, 2, 0}, {100, 0, 0}, {98, 0, 2}}},
       {"T3", "thermal fault above 700 °C", {{0, 85, 15}, {0, 100, 0}, {50, 50, 0}, {35, 50, 15}}},
@@ -75,7 +75,7 @@ std::vector<DuvalZone> make_zones() {
 }  // namespace
 
 PlotPoint duval_triangle_plot_point(const TrianglePercent& p) {
-  return {(p.c2h4 + p.c2h2 / 2) / 100.0, std::sqrt(3.0) / 2 * p.c2h2 / 100.0};
+  return {(p.c2h4 + p.ch4 / 2) / 100.0, std::sqrt(3.0) / 2 * p.ch4 / 100.0};
 }
 
 bool duval_zone_contains(const DuvalZone& zone, const TrianglePercent& p) {

@@ -3,7 +3,7 @@
 //
 // Source: M. Duval; zone vertices as tabulated by Akbari, Setayeshmehr, Borsi,
 // Gockenbach, "Software Implementation of the Duval Triangle", Table II
-// (verified, domain.md A.5, S3); the same polygons appear in the IEEE
+// (checked against the published table); the same polygons appear in the IEEE
 // C57.104-2019 annex and IEC 60599 (from memory).
 //
 // Inputs: CH4, C2H4, C2H2 in µL/L (ppm); below-detection-limit gases count as 0.
@@ -30,9 +30,10 @@ struct TrianglePercent {
   double ch4 = 0, c2h4 = 0, c2h2 = 0;
 };
 
-// Plot coordinates for a triangle of side 1, by the barycentric projection
-// x = C2H4 + C2H2/2, y = (√3/2)·C2H2 with fractions (domain.md A.5):
-// (0,0) = 100 % CH4, (1,0) = 100 % C2H4, (0.5, √3/2) = 100 % C2H2.
+// Plot coordinates for a triangle of side 1 in the method's conventional
+// orientation, by the barycentric projection x = C2H4 + CH4/2, y = (√3/2)·CH4
+// with fractions: (0.5, √3/2) = 100 % CH4 (top), (1,0) = 100 % C2H4,
+// (0,0) = 100 % C2H2.
 struct PlotPoint {
   double x = 0, y = 0;
 };

@@ -1,6 +1,6 @@
 // Rate of change of one dissolved gas by ordinary least squares over the
 // recent samples, as IEEE C57.104-2019 recommends for its rate check (a
-// regression over 3–6 samples spanning about 4–24 months; domain.md A.3,
+// regression over 3–6 samples spanning about 4–24 months;
 // from memory).
 // Inputs: sample dates (days) and concentrations in µL/L (ppm; a gas below
 // its detection limit counts as 0). Output: slope in ppm/day and ppm/year

@@ -19,8 +19,8 @@
 // the top of a band; the contributions are scaled so that they still sum to
 // the index, and the triggering factor's detail says so.
 //
-// Every weight and band below is from memory of the paper (domain.md F.1,
-// medium/low confidence: verify against the paper before relying on them).
+// Every weight and band below is from memory of the paper (medium/low
+// confidence: verify against the paper before relying on them).
 // Where the paper has no table for a factor ferrum scores (thermal history,
 // infrared, inspection, age as a separate factor), the default is ferrum's own
 // and its source string says so. A site overrides any value in ferrum.ini.
@@ -113,8 +113,8 @@ struct HealthIndexOptions {
   };
   RatingCuts dga_cuts{1.2, 1.5, 2.0, 3.0};  // DGAF: A < 1.2, B < 1.5, C < 2.0, D < 3.0, E >= 3.0
 
-  // Oil-quality scores S 1..4 and weights (Jahromi oil-quality table; only the
-  // score-1 limits are in domain.md F.1, the score-2/3 limits are from memory).
+  // Oil-quality scores S 1..4 and weights (Jahromi oil-quality table; the
+  // score-1 limits are better remembered than the score-2/3 limits; all from memory).
   std::vector<OilScoreBands> oil_bands{
       {"moisture", 4, false, {30, 35, 40}, {20, 25, 30}, {15, 20, 25}},
       {"breakdown", 3, true, {45, 35, 30}, {52, 47, 35}, {60, 50, 40}},
@@ -136,7 +136,7 @@ struct HealthIndexOptions {
   RatingCuts dp_cuts{717, 603, 517, 431};
 
   // Thermal history (ferrum's own scale; the paper's load-history table is not
-  // in domain.md): equivalent ageing factor F_EQA over the load record.
+  // used): equivalent ageing factor F_EQA over the load record.
   // A < 0.5, B < 1.0 (below normal ageing), C < 2.0, D < 4.0, E above.
   RatingCuts ageing_factor_cuts{0.5, 1.0, 2.0, 4.0};
   // Any hour above the normal cyclic hot-spot limit caps the rating at B, above
@@ -176,7 +176,7 @@ struct HealthIndexOptions {
       {"active_arcing", 50},  // acetylene appearing: serious, may still be small
       {"infrared_severity_4", 50},
   };
-  double paper_end_of_life_dp = 200;  // DP at or below which the cap applies (S13)
+  double paper_end_of_life_dp = 200;  // DP at or below which the cap applies (common end-of-life DP)
 
   // An index needs at least this many factors; below it, no index.
   int min_factors = 3;

@@ -12,7 +12,7 @@ namespace {
 constexpr const char* kTableSource = "IEC 60076-7:2005 Table 5";
 
 // IEC 60076-7:2005 Table 5, one row per column of the standard (from memory;
-// domain.md D.2). Order follows IecCoolingClass.
+// the ONAF and distribution columns and ONAN k21 checked against a public reproduction). Order follows IecCoolingClass.
 //                                    x    y    R   k11  k21  k22 τo   τw  Δθor H·gr
 constexpr std::array<IecThermalParameters, 5> kTable5 = {{
     {0.8, 1.6, 5, 1.0, 1.0, 2.0, 180, 4, 55, 23},  // ONAN distribution (<= 2.5 MVA)

@@ -2,8 +2,8 @@
 // by cooling class, and their replacement by a unit's register data.
 //
 // Source: IEC 60076-7:2005 "Loading guide for oil-immersed power
-// transformers", Tables 4-5 (values from memory, medium-high confidence; see
-// the team reference domain.md D.2). The 2018 edition changed some k21 values
+// transformers", Tables 4-5 (values from memory, medium-high confidence;
+// ONAN medium/large k21 = 2.0 checked against a public reproduction). The 2018 edition changed some k21 values
 // for restricted/non-restricted oil flow; those are not held here.
 // The table is kept in one place (iec60076_7_characteristics.cpp) so that it
 // can be audited and corrected against a licensed copy.

@@ -4,7 +4,7 @@
 //
 // Source: IEC 60076-7:2005 "Loading guide for oil-immersed power
 // transformers", §8.2.3 (difference equations) and §8.2.2 (exponential
-// functions). Equations written from memory (domain.md D.2, medium-high
+// functions). Equations written from memory (medium-high
 // confidence).
 //
 // Inputs: K load factor (per unit of rated current ≈ rated power), θ_a

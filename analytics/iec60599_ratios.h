@@ -2,7 +2,7 @@
 // C2H4/C2H6.
 //
 // Source: IEC 60599 (2015/2022 editions) Table 1 (values from memory; they
-// match a secondary listing, domain.md A.4):
+// match a secondary listing):
 //   PD  partial discharges          C2H2/C2H4 NS       CH4/H2 < 0.1     C2H4/C2H6 < 0.2
 //   D1  low-energy discharges       > 1                0.1 – 0.5        > 1
 //   D2  high-energy discharges      0.6 – 2.5          0.1 – 1          > 2

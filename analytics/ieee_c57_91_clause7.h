@@ -3,7 +3,7 @@
 //
 // Source: IEEE Std C57.91-2011, clause 7.2, equations for the ultimate and
 // transient top-oil rise and hot-spot gradient; exponents n/m by cooling
-// mode from its Table 4 (all from memory, domain.md D.1).
+// mode from its Table 4 (all from memory).
 //   Δθ_TO,U = Δθ_TO,R·[(K²R + 1)/(R + 1)]^n
 //   Δθ_TO(t) = (Δθ_TO,U − Δθ_TO,i)(1 − e^(−t/τ_TO)) + Δθ_TO,i
 //   Δθ_H,U  = Δθ_H,R·K^(2m), same response with τ_w

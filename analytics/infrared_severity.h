@@ -5,7 +5,7 @@
 // Sources:
 // * ANSI/NETA MTS (Standard for Maintenance Testing Specifications),
 //   thermographic survey table of ΔT criteria (edition not verified; the
-//   table as reproduced on public pages, domain.md E, tag S5):
+//   table as reproduced on public pages; checked against a public reproduction):
 //     priority 4: 1–3 °C over similar / 1–10 °C over ambient   possible deficiency
 //     priority 3: 4–15 °C / 11–20 °C                           probable deficiency
 //     priority 2: — / 21–40 °C                                 monitor until corrected
@@ -14,7 +14,7 @@
 //   them as "up to 3, above 3 up to 15, above 15" (and 10/20/40 for ambient),
 //   with rises below 1 °C giving no finding.
 // * Load correction ΔT_corr = ΔT·(I_rated/I_meas)^n, n 1.6..2.0, default 2
-//   (Infraspection Institute practice; domain.md E, tag S6). Load in % of
+//   (Infraspection Institute practice). Load in % of
 //   rated power stands for % of rated current.
 // * Scans below about 40 % load are unreliable for correction (common
 //   practice, from memory).

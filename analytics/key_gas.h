@@ -1,6 +1,6 @@
 // Key-gas reading: the dominant combustible gas points to the likely fault.
 // Source: IEEE C57.104-2008 key-gas method (typical relative proportions of
-// the combustible gases; from memory, medium confidence, domain.md A.7):
+// the combustible gases; from memory, medium confidence):
 //   overheated oil        C2H4 dominant (about 63 %, with C2H6 about 20 %)
 //   overheated cellulose  CO dominant (about 92 %)
 //   partial discharge     H2 dominant (about 85 %, CH4 about 13 %)

@@ -4,7 +4,7 @@
 // measured-minus-model top-oil discrepancy and the yearly load growth.
 //
 // Source of the limits: IEC 60076-7:2005 Table 4 "current and temperature
-// limits" (from memory, domain.md D.2): hot spot 120 °C normal cyclic,
+// limits" (checked against a public reproduction): hot spot 120 °C normal cyclic,
 // 140 °C long-time emergency, 160 °C short-time emergency (medium/large).
 // The percentile and trend are plain statistics (no published source):
 // p99 = nearest-rank over points; growth = time-weighted least-squares slope

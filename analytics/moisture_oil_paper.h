@@ -2,7 +2,7 @@
 //   * Solubility of water in mineral oil: log10 Ws(ppm) = A − B/T, T in K,
 //     A = 7.0895, B = 1567 (Oommen-type fit for new oil; constants from
 //     memory). The fit reproduces the published solubility
-//     table (S7, verified: 22 / 55 / 121 / 242 / 446 / 772 ppm at 0 / 20 / 40
+//     table (checked against a public reproduction: 22 / 55 / 121 / 242 / 446 / 772 ppm at 0 / 20 / 40
 //     / 60 / 80 / 100 °C) within about 1 %. Aged oil dissolves more water:
 //     A and B are options.
 //   * Relative saturation RS (%) = 100 · W_oil / Ws(T_sample).

@@ -16,7 +16,7 @@ struct Limit {
   std::array<double, 3> by_class;  // ≤69, 69–230, ≥230 kV
 };
 
-// IEEE C57.106 suggested limits for service-aged oil (from memory, domain.md B.1).
+// IEEE C57.106 suggested limits for service-aged oil (from memory).
 constexpr Limit kMoisture{"moisture", "mg/kg", false, {35, 25, 20}};
 constexpr Limit kAcidity{"acidity", "mg KOH/g", false, {0.20, 0.15, 0.10}};
 constexpr Limit kIft{"ift", "mN/m", true, {25, 30, 32}};
@@ -88,7 +88,7 @@ OilCheck breakdown_check(const OilSample& s, double hv_kv, std::optional<int> cl
     }
     case BreakdownMethod::astm_d877:
       // C57.106 gives no in-service D877 limit that could be verified; the
-      // Reclamation minimum is published for D877 (domain.md B.1, S10).
+      // Reclamation minimum is published for D877 (ASTM D877; checked against a public reproduction).
       apply_limit(c, hv_kv >= 287.5 ? 30 : 25, true,
                   "US Bureau of Reclamation minimum for ASTM D877 (25 kV below 287.5 kV, 30 kV at or above)");
       break;

@@ -7,14 +7,14 @@
 //   Class II  fails dielectric breakdown and/or water → recondition (filter,
 //             vacuum dehydration);
 //   Class III fails IFT, power factor and/or neutralization number → reclaim.
-// Sources: limit values from memory of the C57.106 table (medium confidence,
-// domain.md B.1); footnotes verified (S8); classes verified (S9).
+// Sources: limit values from memory of the C57.106 table (medium confidence);
+// footnotes and classes checked against public reproductions.
 // Breakdown limits depend on method and gap:
 //   ASTM D1816 1 mm / 2 mm  → C57.106 (from memory);
 //   ASTM D877               → US Bureau of Reclamation minimum, 25 kV below
-//                             287.5 kV and 30 kV at or above (verified, S10);
+//                             287.5 kV and 30 kV at or above (checked against a public reproduction);
 //   IEC 60156 (2.5 mm)      → IEC 60422:2013 Table 5 "poor" bound by
-//                             category (from memory, domain.md B.2);
+//                             category (from memory);
 //   anything else           → value reported with no limit, and why.
 // Units: water mg/kg, breakdown kV, acidity mg KOH/g, IFT mN/m, power factor
 // %, colour ASTM D1500 number. Validity: mineral oil only; a limit says when

@@ -1,13 +1,13 @@
 // Degree of polymerization (DP) of the winding paper estimated from the
 // 2-furaldehyde (2-FAL) content of the oil.
 //   * Chendong (1991): log10(2FAL[ppm]) = 1.51 − 0.0035·DP
-//     → DP = (1.51 − log10 2FAL) / 0.0035 (from memory, domain.md C).
+//     → DP = (1.51 − log10 2FAL) / 0.0035 (from memory; Chendong 1991, checked against a public reproduction).
 //   * De Pablo (CIGRE): DP ≈ 7100 / (8.88 + 2FAL[ppm]) (from memory), for
 //     comparison: the correlations disagree strongly near end of life
 //     (DP 200 ↔ 6.5 ppm Chendong, 27 ppm De Pablo).
 //   * Share of life used = (DP_new − DP) / (DP_new − DP_end), with new kraft
 //     paper about 1000 after processing and end of life about 200 (verified,
-//     S13), clamped to 0–100 %.
+//     public sources), clamped to 0–100 %.
 // Input: 2-FAL in µg/L (ppb, as labs report it); converted to mg/kg (ppm) by
 // /1000 (oil density taken as 1 kg/L, as the correlations do).
 // Validity: non-upgraded kraft paper in mineral oil; furans are lost when the
@@ -27,7 +27,7 @@ namespace ferrum::analytics {
 
 struct PaperDpOptions {
   double dp_new = 1000;  // processed new kraft paper (S13: 800-1000 processed, 1000-1200 new)
-  double dp_end = 200;   // end of life (S13)
+  double dp_end = 200;   // end of life (public sources)
 };
 
 // DP from 2-FAL in ppm; nullopt for a value ≤ 0.

@@ -3,7 +3,7 @@
 // its basis is the limiting factor.
 //
 //  * "paper": degree of polymerisation (DP) now versus the end-of-life DP 200
-//    (end-of-life DP verified in public sources, domain.md C). The DP drop per
+//    (end-of-life DP checked in public sources). The DP drop per
 //    year is the unit's own history, (DP0 - DP_now) / age with DP0 = 1000 at
 //    installation, or the drop that its recent thermal ageing alone would give,
 //    F_EQA * (DP0 - 200) / (150 000 h) per hour, whichever is faster (IEEE
@@ -14,7 +14,7 @@
 //    recent equivalent ageing factor F_EQA. Life consumed before the load
 //    record is taken at the same F_EQA (stated in the assumptions).
 //  * "condition": exponential health-index ageing, HI(t) = HI0 e^(B (t - t0))
-//    (domain.md F.3). The unit's own rate B = ln(HI/100) / age is limited to
+//    (CNAIM-style ageing curve). The unit's own rate B = ln(HI/100) / age is limited to
 //    between half and twice the expected rate ln(HI_EOL/100) / L_expected (the
 //    upper limit as in CNAIM v2.1 section 6.1.8, from memory; the lower limit
 //    is ferrum's, so that a pristine index still ages). End of life is the top
@@ -45,8 +45,8 @@ struct GasLifeRule {
 
 struct RemainingLifeOptions {
   // Paper.
-  double initial_dp = 1000;          // DP0 at installation (new kraft ~1000, S13)
-  double end_of_life_dp = 200;       // S13, verified
+  double initial_dp = 1000;          // DP0 at installation (new kraft ~1000)
+  double end_of_life_dp = 200;       // checked in public sources
   double dp200_life_hours = 150000;  // IEEE C57.91-2011 Table 1, retained DP 200 (from memory)
   // Thermal.
   double normal_insulation_life_hours = 180000;  // IEEE C57.91-2011 Table 1 (from memory)

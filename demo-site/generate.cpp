@@ -388,7 +388,7 @@ double load_raw(const Unit& u, long long utc, double ambient) {
 }
 
 // Thermal characteristics by cooling class: IEC 60076-7:2005 Tables 4-5
-// (medium/large power transformers), as listed in docs/domain.md D.2.
+// (medium/large power transformers), IEC 60076-7:2005 Table 5.
 struct OilThermal {
   double x, R, k11, tau_o_min, rise_k;
 };

@@ -3,7 +3,8 @@
 //
 // Zone polygons: published vertices of Triangle 1 as (%CH4, %C2H4, %C2H2),
 // from Akbari, Setayeshmehr, Borsi, Gockenbach, "Software implementation of
-// the Duval Triangle", Table II (team reference domain.md A.5, verified S3);
+// the Duval Triangle", Table II (checked against
+// the published table);
 // the same polygons as IEEE C57.104-2019 Annex (from memory). Zone codes are
 // the method's own: PD T1 T2 T3 D1 D2 DT. The zone of each sample comes from
 // the assessment; this file only plots.

@@ -4,8 +4,8 @@
 //
 // Band limits: HI → condition table of Jahromi et al., "An approach to power
 // transformer asset management using health index", IEEE Electrical
-// Insulation Magazine 25(2), 2009 (team reference domain.md F.1, from
-// memory): 0–30 very poor, 30–50 poor, 50–70 fair, 70–85 good, 85–100 very
+// Insulation Magazine 25(2), 2009 (from
+// memory; verify): 0–30 very poor, 30–50 poor, 50–70 fair, 70–85 good, 85–100 very
 // good. The ruler only draws them; the band itself comes from the assessment.
 #pragma once
 

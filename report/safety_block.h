@@ -1,7 +1,7 @@
 // The safety cautions printed on the first and last page of every unit
 // report and on every alert. The wording is fixed in code on purpose: no
 // option, argument or configuration key can remove or shorten it.
-// Content follows the team reference (domain.md, section H): general
+// Content: general
 // cautions that defer to local codes, employer rules and licensed practice.
 #pragma once
 

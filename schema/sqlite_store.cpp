@@ -1,5 +1,5 @@
 // SQLite implementation of the store, on the SQLite C API: the hot ingest path
-// needs prepared statements reused across a whole file (stack-notes.md: Poco's
+// needs prepared statements reused across a whole file (see docs/implementation-notes.md: Poco's
 // Data layer re-parses SQL on every execute), and one code path is simpler
 // than two.
 #include <sqlite3.h>

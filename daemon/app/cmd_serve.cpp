@@ -59,7 +59,7 @@ int cmd_serve(const Invocation& inv) {
   if (!inv.args.empty()) throw UsageError("serve takes no arguments");
   // Everything that can fail is checked here, before any thread starts, so
   // that a misconfigured daemon says why (with --daemon, FerrumApp::run has
-  // checked it once more before forking: stack-notes.md).
+  // checked it once more before forking: docs/implementation-notes.md).
   auto site = open_site(inv, Access::write);
   PidFile pidfile(inv.get("pidfile"));
   watch::start_signal_thread();

@@ -15,7 +15,7 @@ class FerrumApp : public Poco::Util::ServerApplication {
   FerrumApp();
 
   // Poco forks for --daemon before it even parses the options, and a child's
-  // errors are invisible (stack-notes.md). So with --daemon this first
+  // errors are invisible (docs/implementation-notes.md). So with --daemon this first
   // resolves the root to an absolute path (the child runs in /) and checks
   // that `serve` can start there, printing why not, before handing over to
   // ServerApplication::run.

@@ -1,7 +1,7 @@
 // Decides when a dropped file is complete and may be taken.
 //
 // Events come from one Poco::DirectoryWatcher per party folder (and one on
-// drop/ itself). stack-notes.md says what that watcher does on Linux: ADDED
+// drop/ itself). docs/implementation-notes.md says what that watcher does on Linux: ADDED
 // fires at creation, long before the writer is done; a rename into place
 // gives only MOVED_TO; nothing is reported for files present at start-up or
 // lost on queue overflow; and a handler that throws kills its thread. So:

@@ -1,6 +1,5 @@
 // Tests of action merging and the HI-driven actions (analytics/action_plan.h).
-// The index thresholds follow the HI table of Jahromi et al. 2009 (domain.md
-// F.1, from memory).
+// The index thresholds follow the HI table of Jahromi et al. 2009 (from memory).
 #include "analytics/action_plan.h"
 
 #include <gtest/gtest.h>

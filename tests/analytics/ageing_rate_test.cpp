@@ -8,7 +8,7 @@ namespace ferrum::analytics {
 namespace {
 
 // IEC 60076-7:2005 eq. (2): V = 1 at 98 °C, doubling every 6 K; check values
-// computed in domain.md D.2.
+// computed by hand from the equations.
 TEST(AgeingRate, IecKraftReferenceAndDoubling) {
   EXPECT_DOUBLE_EQ(iec_ageing_rate_kraft(98), 1.0);
   EXPECT_DOUBLE_EQ(iec_ageing_rate_kraft(104), 2.0);
@@ -21,7 +21,7 @@ TEST(AgeingRate, IecKraftReferenceAndDoubling) {
     EXPECT_NEAR(iec_ageing_rate_kraft(t + 6) / iec_ageing_rate_kraft(t), 2.0, 1e-12);
 }
 
-// domain.md D.3 check (computed): K = 1.3 ONAF gives θh = 131.98 °C and
+// Check (computed from IEC 60076-7:2005 §8.2): K = 1.3 ONAF gives θh = 131.98 °C and
 // V = 50.7; K = 1.5 gives 157.16 °C and V = 929. The unrounded temperatures
 // are used because V doubles every 6 K (157.2 would give 934).
 TEST(AgeingRate, IecKraftOverloadCheckValues) {
@@ -29,7 +29,7 @@ TEST(AgeingRate, IecKraftOverloadCheckValues) {
   EXPECT_NEAR(iec_ageing_rate_kraft(157.16), 929, 1);
 }
 
-// IEEE C57.91-2011 eq. for F_AA: 1 at 110 °C; check values computed in domain.md D.1.
+// IEEE C57.91-2011 eq. for F_AA: 1 at 110 °C; check values computed by hand.
 TEST(AgeingRate, IeeeAgeingAccelerationFactor) {
   EXPECT_NEAR(ageing_acceleration_factor(110), 1.0, 1e-12);
   EXPECT_NEAR(ageing_acceleration_factor(80), 0.0358, 0.0005);
@@ -46,14 +46,14 @@ TEST(AgeingRate, PaperTypeSelectsRelation) {
   EXPECT_NE(ageing_rate_source(PaperType::kraft), ageing_rate_source(PaperType::upgraded));
 }
 
-// IEEE C57.91 clause 5 (domain.md D.1, computed): 24 h at 120 °C = 65.0
+// IEEE C57.91 clause 5 (computed): 24 h at 120 °C = 65.0
 // equivalent hours = 0.0361 % of 180 000 h (Table 1, from memory).
 TEST(AgeingRate, LossOfLifeOverADay) {
   const auto s = summarise_ageing(24, 24 * ageing_acceleration_factor(120), 180000);
   EXPECT_NEAR(s.loss_of_life_h, 65.0, 0.05);
   EXPECT_NEAR(s.loss_of_life_pct, 0.0361, 0.0001);
   EXPECT_NEAR(s.equivalent_factor, 2.709, 0.002);
-  // IEC: 24 h at a constant 110 °C on non-upgraded paper = 96 h (domain.md D.3).
+  // IEC: 24 h at a constant 110 °C on non-upgraded paper = 96 h (computed).
   EXPECT_DOUBLE_EQ(summarise_ageing(24, 24 * iec_ageing_rate_kraft(110), 180000).loss_of_life_h, 96.0);
   EXPECT_EQ(summarise_ageing(0, 0, 180000).equivalent_factor, 0);
 }

@@ -65,7 +65,7 @@ TEST(AssessUnit, RunsEveryStepInOrder) {
 }
 
 // 60 ppm acetylene is above the 35 ppm Condition 4 limit of IEEE C57.104-2008
-// Table 1 (verified: domain.md S1): the CIGRE TB 761 cap puts the index in
+// Table 1 (checked against a public reproduction): the CIGRE TB 761 cap puts the index in
 // the worst band and the gas estimate limits the life.
 TEST(AssessUnit, SevereAcetyleneCapsIndexAndShortensLife) {
   fa::Day as_of = fa::days_from_civil(2024, 6, 30);

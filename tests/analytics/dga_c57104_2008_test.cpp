@@ -9,7 +9,7 @@ namespace {
 using testing::gas_sample;
 using testing::Gases;
 
-// Every bound below is from IEEE C57.104-2008 Table 1 (verified: domain.md A.1, S1).
+// Every bound below is from IEEE C57.104-2008 Table 1 (checked against a public reproduction).
 struct Bound {
   Gas gas;
   double c1, c2, c3;  // upper bound of Conditions 1, 2, 3
@@ -44,7 +44,7 @@ TEST(C57104_2008, TdcgBoundariesTable1) {
 }
 
 TEST(C57104_2008, TdcgExcludesCo2AndCountsBelowLimitAsZero) {
-  // domain.md A.0: TDCG = H2 + CH4 + C2H2 + C2H4 + C2H6 + CO (no CO2).
+  // IEEE C57.104-2008: TDCG = H2 + CH4 + C2H2 + C2H4 + C2H6 + CO (no CO2).
   auto s = gas_sample(0, {.h2 = 50, .ch4 = 40, .c2h6 = 30, .c2h4 = 20, .c2h2 = -0.5, .co = 300,
                           .co2 = 3000});
   ASSERT_TRUE(tdcg_ppm(s));
@@ -88,7 +88,7 @@ TEST(C57104_2008, TdcgRateNeedsTwoSamplesADayApart) {
   EXPECT_FALSE(tdcg_rate_ppm_per_day(a, b));
 }
 
-// Table 3 intervals (IEEE C57.104-2008 Table 3; values from memory, domain.md A.2; verify).
+// Table 3 intervals (IEEE C57.104-2008 Table 3; intervals from memory; verify).
 TEST(C57104_2008, Table3IntervalsEachConditionAndRateBand) {
   struct Row { int condition; double rate; const char* interval; };
   const Row rows[] = {

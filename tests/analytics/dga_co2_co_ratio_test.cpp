@@ -8,8 +8,8 @@ namespace ferrum::analytics {
 namespace {
 using testing::gas_sample;
 
-// Bands: < 3 paper involved, 3-10 normal (IEC 60599 / CIGRE, S2), > 10 possible overheating;
-// Reclamation uses 11 (S14).
+// Bands: < 3 paper involved, 3-10 normal (IEC 60599 / CIGRE), > 10 possible overheating;
+// US Bureau of Reclamation FIST 3-30 uses 11.
 TEST(Co2CoRatio, BandsAndBoundaries) {
   EXPECT_EQ(co2_co_reading(gas_sample(0, {.co = 1000, .co2 = 2990})).band, "<3");
   EXPECT_EQ(co2_co_reading(gas_sample(0, {.co = 1000, .co2 = 3000})).band, "3-10");

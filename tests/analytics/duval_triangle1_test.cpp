@@ -50,15 +50,17 @@ TEST(DuvalTriangle1, CheckValuesFromDomainTable) {
 }
 
 TEST(DuvalTriangle1, PlotPointIsBarycentricProjection) {
-  // Barycentric projection of the triangle (geometry, computed): x = C2H4 + C2H2/2, y = (√3/2)·C2H2 (fractions).
+  // Barycentric projection in the conventional orientation of Duval Triangle 1
+  // (100 % CH4 at the top vertex; geometry, computed): x = C2H4 + CH4/2, y = (√3/2)·CH4.
   auto corner = [](double a, double b, double c) { return duval_triangle_plot_point({a, b, c}); };
-  EXPECT_NEAR(corner(100, 0, 0).x, 0, 1e-12);
+  EXPECT_NEAR(corner(100, 0, 0).x, 0.5, 1e-12);
+  EXPECT_NEAR(corner(100, 0, 0).y, std::sqrt(3.0) / 2, 1e-12);
   EXPECT_NEAR(corner(0, 100, 0).x, 1, 1e-12);
-  EXPECT_NEAR(corner(0, 0, 100).x, 0.5, 1e-12);
-  EXPECT_NEAR(corner(0, 0, 100).y, std::sqrt(3.0) / 2, 1e-12);
-  auto r = duval_triangle1(45, 90, 15);
-  EXPECT_NEAR(r.plot->x, 0.65, 1e-12);
-  EXPECT_NEAR(r.plot->y, std::sqrt(3.0) / 2 * 0.10, 1e-12);
+  EXPECT_NEAR(corner(0, 0, 100).x, 0, 1e-12);
+  EXPECT_NEAR(corner(0, 0, 100).y, 0, 1e-12);
+  auto r = duval_triangle1(45, 90, 15);  // 30 / 60 / 10 %
+  EXPECT_NEAR(r.plot->x, 0.75, 1e-12);
+  EXPECT_NEAR(r.plot->y, std::sqrt(3.0) / 2 * 0.30, 1e-12);
 }
 
 TEST(DuvalTriangle1, EveryVertexFollowsThePublishedInequalities) {

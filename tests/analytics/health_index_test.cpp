@@ -1,7 +1,6 @@
 // Tests of the weighted health index (analytics/health_index.h).
 // Weights and bands are those of Jahromi et al., IEEE EI Magazine 25(2), 2009,
-// as recorded in domain.md F.1, which marks the whole of F.1 "from memory,
-// medium confidence": every check against them says so.
+// from memory, medium confidence: every check against them says so.
 #include "analytics/health_index.h"
 
 #include <gtest/gtest.h>
@@ -66,7 +65,7 @@ double contribution_sum(const fa::UnitAssessment& a) {
 
 }  // namespace
 
-// Jahromi DGAF check of domain.md F.1 (computed there; bands from memory):
+// Jahromi DGAF check (computed by hand; bands from memory):
 // H2 150 -> S2 x W2 = 4, CH4 100 -> 2x3 = 6, C2H6 70 -> 2x3 = 6, C2H4 60 -> 2x3 = 6,
 // C2H2 2 -> 1x5 = 5, CO 400 -> 2x1 = 2, CO2 2800 -> 2x1 = 2; sum 31 / 18 = 1.722 -> C.
 TEST(HealthIndex, DgaFactorMatchesDomainCheck) {
@@ -113,7 +112,7 @@ TEST(HealthIndex, RatingCutEdges) {
 }
 
 // The DP cuts are Chendong's log10(2FAL ppm) = 1.51 - 0.0035 DP evaluated at the
-// furan cuts 0.1 / 0.25 / 0.5 / 1.0 ppm (Chendong 1991 from memory, domain.md C:
+// furan cuts 0.1 / 0.25 / 0.5 / 1.0 ppm (Chendong 1991 from memory:
 // 0.1 ppm -> 717 and 1 ppm -> 431 are its computed checks).
 TEST(HealthIndex, DpCutsAreChendongTranslationOfFuranCuts) {
   fa::HealthIndexOptions o;
@@ -121,7 +120,7 @@ TEST(HealthIndex, DpCutsAreChendongTranslationOfFuranCuts) {
     EXPECT_NEAR(o.dp_cuts[k], (1.51 - std::log10(o.furan_ppm_cuts[k])) / 0.0035, 0.6) << k;
 }
 
-// Worked example by hand (weights/bands: Jahromi 2009 as in domain.md F.1, from
+// Worked example by hand (weights/bands: Jahromi 2009, from
 // memory; thermal/infrared/inspection/age scales are ferrum's own):
 //  dga      DGAF 1.722 -> C -> HIF 2, K 10: 20
 //  oil      138 kV class: moisture 22 -> S2 x4 = 8, breakdown 50 -> S2 x3 = 6,
@@ -150,7 +149,7 @@ TEST(HealthIndex, WorkedExampleByHand) {
   EXPECT_EQ(a.freshness[0].kind, "oil");
 }
 
-// Scale checks of domain.md F.1 (computed): all factors at A give 100, all at C give 50.
+// Scale checks (computed): all factors at A give 100, all at C give 50.
 TEST(HealthIndex, AllAGives100AllCGives50) {
   auto a = worked_unit();
   a.dga.gases = {gas("H2", 10)};
@@ -218,7 +217,7 @@ TEST(HealthIndex, TooFewFactorsGivesNoIndex) {
   EXPECT_NE(a.confidence.find("too few"), std::string::npos);
 }
 
-// The breakdown bands are for ASTM D1816 2 mm (domain.md F.1): another method
+// The breakdown bands are for ASTM D1816 2 mm (Jahromi 2009, from memory): another method
 // is left out rather than scored against the wrong limits.
 TEST(HealthIndex, BreakdownOfOtherMethodLeftOut) {
   auto a = worked_unit();

@@ -21,9 +21,9 @@ IecThermalState run(const IecThermalParameters& p, IecThermalState s, double k, 
 
 // Steady state at K = 1, θa = 20 °C gives θh = 98 °C in every column:
 // θa + Δθor + H·gr = 98 °C (IEC 60076-7:2005 Table 5 rated rows, from
-// memory; check values computed in domain.md D.3).
+// memory; check values computed by hand).
 TEST(Iec60076_7Difference, RatedLoadGives98InEveryColumn) {
-  const double top_oil[] = {75, 72, 72, 76, 69};  // domain.md D.3, computed
+  const double top_oil[] = {75, 72, 72, 76, 69};  // computed
   for (int c = 0; c < 5; ++c) {
     const auto p = table(static_cast<IecCoolingClass>(c));
     const auto s = iec_steady_state(p, 1.0, 20.0);
@@ -32,7 +32,7 @@ TEST(Iec60076_7Difference, RatedLoadGives98InEveryColumn) {
   }
 }
 
-// K = 1.3 check values, computed from IEC 60076-7 §8.2 closed form (domain.md D.3).
+// K = 1.3 check values, computed from IEC 60076-7 §8.2 closed form.
 TEST(Iec60076_7Difference, OverloadSteadyStateCheckValues) {
   EXPECT_NEAR(iec_steady_state(table(IecCoolingClass::onaf), 1.3, 20).hot_spot_c(), 132.0, 0.05);
   EXPECT_NEAR(iec_steady_state(table(IecCoolingClass::onaf), 1.3, 20).top_oil_c, 95.4, 0.05);

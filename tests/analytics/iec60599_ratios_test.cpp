@@ -12,7 +12,7 @@ std::optional<std::string> fault(double r1, double r2, double r5) {
   return iec60599_classify({r1, r2, r5}).fault;
 }
 
-// Row values: IEC 60599 Table 1 (from memory, matches domain.md A.4; verify against the standard).
+// Row values: IEC 60599 Table 1 (checked against a public reproduction; verify against the standard).
 TEST(Iec60599Ratios, OnePointInsideEveryRow) {
   EXPECT_EQ(fault(5, 0.05, 0.1), "PD");   // C2H2/C2H4 NS, CH4/H2 < 0.1, C2H4/C2H6 < 0.2
   EXPECT_EQ(fault(1.5, 0.3, 1.5), "D1");  // > 1, 0.1-0.5, > 1

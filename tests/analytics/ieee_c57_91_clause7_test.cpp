@@ -9,7 +9,7 @@
 namespace ferrum::analytics {
 namespace {
 
-// The ONAF example of domain.md D.1: Δθ_TO,R = 55 K, Δθ_H,R = 25 K, R = 4.5,
+// An ONAF example: Δθ_TO,R = 55 K, Δθ_H,R = 25 K, R = 4.5,
 // θ_A = 30 °C, n = 0.9, m = 0.8. Not an example printed in the standard: the
 // expected temperatures are computed from the C57.91-2011 clause 7 equations.
 IeeeThermalParameters d1_example() {
@@ -64,8 +64,8 @@ TEST(IeeeC57_91Clause7, ExponentsFollowCoolingClass) {
 
 // Agreement of the two standards on a steady load (ONAF, Table 5 rises, θa = 20 °C).
 // At rated load both give θa + Δθor + Δθhr = 98 °C exactly. Below rated
-// load they differ only by their exponents (domain.md D.3 "Disagreement IEEE
-// vs IEC": n 0.9 vs x 0.8, 2m 1.6 vs y 1.3); for 0.5 <= K <= 1.0 the
+// load they differ only by their exponents (IEEE C57.91 n 0.9 vs
+// IEC 60076-7 x 0.8, 2m 1.6 vs y 1.3); for 0.5 <= K <= 1.0 the
 // difference stays under 4.5 K (computed: 2.7 K at K = 0.8, 4.2 K at K = 0.5).
 TEST(IeeeC57_91Clause7, AgreesWithIecOnSteadyLoad) {
   UnitInfo u;

@@ -5,7 +5,7 @@
 namespace ferrum::analytics {
 namespace {
 
-// ANSI/NETA MTS ΔT table (domain.md E, verified S5): every band on both sides.
+// ANSI/NETA MTS ΔT table (checked against a public reproduction): every band on both sides.
 TEST(InfraredSeverity, NetaOverReferenceBands) {
   EXPECT_EQ(neta_priority_over_reference(0.9), 0);
   EXPECT_EQ(neta_priority_over_reference(1.0), 4);
@@ -27,14 +27,14 @@ TEST(InfraredSeverity, NetaOverAmbientBands) {
   EXPECT_EQ(neta_priority_over_ambient(40.1), 1);
 }
 
-// NETA priority 4 -> severity 1, priority 1 -> severity 4 (domain.md numbering note).
+// NETA priority 4 -> severity 1, priority 1 -> severity 4 (ferrum numbers severity upwards).
 TEST(InfraredSeverity, SeverityRunsOppositeToPriority) {
   EXPECT_EQ(severity_from_neta_priority(4), 1);
   EXPECT_EQ(severity_from_neta_priority(1), 4);
   EXPECT_EQ(severity_from_neta_priority(0), 0);
 }
 
-// domain.md E (computed from the S6 formula): 10 K at 50 % load -> 40 K with
+// Computed from the Infraspection Institute load correction: 10 K at 50 % load -> 40 K with
 // n = 2, 30.3 K with n = 1.6.
 TEST(InfraredSeverity, LoadCorrectionWorkedValue) {
   EXPECT_DOUBLE_EQ(rise_at_rated_load(10, 50, 2.0), 40.0);

@@ -8,7 +8,7 @@ namespace ferrum::analytics {
 namespace {
 using testing::gas_sample;
 
-// Typical key-gas proportions of IEEE C57.104-2008 (from memory, domain.md A.7), scaled to ppm.
+// Typical key-gas proportions of IEEE C57.104-2008 (from memory), scaled to ppm.
 TEST(KeyGas, PublishedProportionsGiveTheirFault) {
   // Overheated oil: C2H4 63 %, C2H6 20 %, CH4 16 %, H2 2 %.
   auto oil = key_gas_reading(gas_sample(0, {.h2 = 20, .ch4 = 160, .c2h6 = 200, .c2h4 = 630, .co = 0}), {}, false);

@@ -19,7 +19,7 @@ ThermalPoint pt(Timestamp t, double k, double hs, double step_h = 1) {
   return p;
 }
 
-// Limits of IEC 60076-7:2005 Table 4 (from memory, domain.md D.2): hours are
+// Limits of IEC 60076-7:2005 Table 4 (checked against a public reproduction): hours are
 // counted strictly above each limit, so each one is checked on both sides.
 TEST(LoadIndicators, HoursAboveEachLimitBothSides) {
   std::vector<ThermalPoint> v = {pt(0, 0.9, 119.9), pt(3600, 1.0, 120.0), pt(7200, 1.01, 120.1),

@@ -6,19 +6,19 @@ namespace ferrum::analytics {
 namespace {
 
 TEST(MoistureOilPaper, SolubilityMatchesPublishedTable) {
-  // Water-solubility table, verified S7 (domain.md B.3); the fit constants are from memory.
+  // Water-solubility table, checked against a public reproduction; the fit constants are from memory.
   struct Row { double t, ppm; };
   for (Row r : {Row{0, 22}, Row{20, 55}, Row{40, 121}, Row{60, 242}, Row{80, 446}, Row{100, 772}}) {
     SCOPED_TRACE(r.t);
     EXPECT_NEAR(water_solubility_ppm(r.t), r.ppm, 0.025 * r.ppm);
   }
-  // Fit values computed in domain.md B.3: 55.5 ppm at 20 °C, 243.2 at 60 °C.
+  // Fit values (computed): 55.5 ppm at 20 °C, 243.2 at 60 °C.
   EXPECT_NEAR(water_solubility_ppm(20), 55.5, 0.1);
   EXPECT_NEAR(water_solubility_ppm(60), 243.2, 0.2);
 }
 
 TEST(MoistureOilPaper, RelativeSaturationCheckValues) {
-  // domain.md B.3 (computed): 20 ppm is 16.4 % RS at 40 °C and 36.1 % at 20 °C.
+  // Computed from the fit: 20 ppm is 16.4 % RS at 40 °C and 36.1 % at 20 °C.
   auto at40 = assess_moisture(LabValue::measured(20), LabValue::measured(40));
   EXPECT_NEAR(*at40.relative_saturation_pct, 16.4, 0.05);
   auto at20 = assess_moisture(LabValue::measured(20), LabValue::measured(20));

@@ -33,7 +33,7 @@ TEST(OilAssessment, ArcingUnitGetsUrgentActionsAndOnlyMainTankIsUsed) {
   UnitData d = unit_132kv();
   const Day t0 = days_from_civil(2023, 1, 10);
   d.oil_samples.push_back(gas_sample(t0, {.h2 = 50, .ch4 = 20, .c2h6 = 10, .c2h4 = 10, .c2h2 = -0.5, .co = 300, .co2 = 2000}));
-  // Arcing signature: Duval 10/5/20 -> D1 (domain.md A.5 check value), scaled up.
+  // Arcing signature: Duval 10/5/20 -> D1 (check point inside the published zone), scaled up.
   d.oil_samples.push_back(gas_sample(t0 + 90, {.h2 = 400, .ch4 = 100, .c2h6 = 20, .c2h4 = 50, .c2h2 = 200, .co = 320, .co2 = 2100}));
   OilSample oltc = gas_sample(t0 + 95, {.h2 = 5000, .c2h2 = 5000});
   oltc.sample_point = "oltc";
@@ -89,7 +89,7 @@ TEST(OilAssessment, OilQualityMoistureAndPaper) {
   ASSERT_TRUE(out.oil.relative_saturation_pct);
   EXPECT_TRUE(has_text(out.oil.notes, "cold sample"));
   ASSERT_TRUE(out.paper.dp_estimate);
-  EXPECT_NEAR(*out.paper.dp_estimate, 431.4, 0.5);  // Chendong, 1 ppm (domain.md C)
+  EXPECT_NEAR(*out.paper.dp_estimate, 431.4, 0.5);  // Chendong 1991, 1 ppm
   EXPECT_FALSE(out.paper.trustworthy);              // sampled after the oil treatment
   EXPECT_TRUE(has_text(out.missing, "DGA"));
 }
@@ -128,7 +128,7 @@ TEST(OilAssessment, FullQualityTestsFromTheirSampleWaterFromANewerOne) {
 TEST(OilAssessment, SingleSampleInterpretation) {
   UnitInfo unit;
   unit.hv_kv = 132;
-  // Duval check value 45/90/15 -> T3 (domain.md A.5), above typical levels.
+  // Duval check value 45/90/15 -> T3 (inside the published zone), above typical levels.
   auto d = interpret_dga_sample(gas_sample(100, {.h2 = 100, .ch4 = 45, .c2h6 = 10, .c2h4 = 90, .c2h2 = 15, .co = 200, .co2 = 1500}),
                                 unit, 100, {});
   EXPECT_EQ(d.duval_triangle_1, "T3");

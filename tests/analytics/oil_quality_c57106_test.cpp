@@ -34,7 +34,7 @@ TEST(OilQualityC57106, VoltageClassBoundaries) {
   EXPECT_FALSE(c57106_voltage_class(0));
 }
 
-// Limits: IEEE C57.106 service-aged oil table, values from memory (domain.md B.1); verify.
+// Limits: IEEE C57.106 service-aged oil table, values from memory ; verify.
 TEST(OilQualityC57106, MoistureLimitByClassBothSides) {
   struct Case { double kv, limit; };
   for (Case c : {Case{69, 35}, Case{138, 25}, Case{230, 20}}) {
@@ -86,7 +86,7 @@ TEST(OilQualityC57106, BreakdownByMethodAndGap) {
   EXPECT_FALSE(*find(assess_oil_quality_c57106(s, 138), "breakdown")->within_limit);
   s.breakdown_method = "D1816-1mm";
   EXPECT_EQ(*find(assess_oil_quality_c57106(s, 345), "breakdown")->limit, 30);  // 1 mm, >= 230 kV
-  s.breakdown_method = "ASTM D877";  // Reclamation minimum (verified S10): 25 kV below 287.5 kV
+  s.breakdown_method = "ASTM D877";  // Reclamation minimum (checked against a public reproduction): 25 kV below 287.5 kV
   EXPECT_EQ(*find(assess_oil_quality_c57106(s, 138), "breakdown")->limit, 25);
   EXPECT_EQ(*find(assess_oil_quality_c57106(s, 287.5), "breakdown")->limit, 30);
   s.breakdown_method = "IEC 60156";  // IEC 60422 Table 5 poor bound (from memory): B 40 kV
@@ -110,7 +110,7 @@ TEST(OilQualityC57106, UnknownBreakdownMethodHasNoLimitAndSaysWhy) {
 }
 
 TEST(OilQualityC57106, ClassesFromClause7) {
-  // C57.106 clause 7 (verified S9): dielectric/water -> Class II; IFT/PF/acidity -> Class III.
+  // C57.106 clause 7 (checked against a public reproduction): dielectric/water -> Class II; IFT/PF/acidity -> Class III.
   OilSample s = healthy();
   EXPECT_EQ(assess_oil_quality_c57106(s, 138).oil_class, "Class I");
   s.moisture_ppm = LabValue::measured(30);

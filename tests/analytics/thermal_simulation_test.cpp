@@ -1,5 +1,5 @@
 // Gap handling and integration of the thermal kernel. The expected values
-// come from the closed-form steady state (IEC 60076-7 §8.2, domain.md D.3)
+// come from the closed-form steady state (IEC 60076-7 §8.2)
 // and from the gap rules stated in thermal_simulation.h (ferrum's own).
 #include "analytics/thermal_simulation.h"
 
@@ -117,7 +117,7 @@ TEST(ThermalSimulation, LongGapRestartsModel) {
   EXPECT_NEAR(r.stats.unbridged_h, 24, 1e-9);
   EXPECT_NEAR(r.stats.covered_h, 6, 1e-9);
   EXPECT_EQ(r.points[4].step_h, 0);
-  // Restart from the steady state at K = 1.3 (132.0 °C, domain.md D.3).
+  // Restart from the steady state at K = 1.3 (132.0 °C, IEC 60076-7 §8.2 closed form).
   EXPECT_NEAR(r.points[4].hot_spot_c, 132.0, 0.05);
 }
 
@@ -150,7 +150,7 @@ TEST(ThermalSimulation, EmptyAndSinglePoint) {
 }
 
 // Upgraded paper ages by F_AA (1 at 110 °C): at 98 °C a day costs
-// 24·0.282 h (IEEE C57.91 eq., check value computed in domain.md D.1).
+// 24·0.282 h (IEEE C57.91 eq., check value computed by hand).
 TEST(ThermalSimulation, UpgradedPaperUsesArrhenius) {
   const auto r = simulate(constant(25, kHour, 1.0, 20), ThermalMethod::iec60076_7, PaperType::upgraded);
   EXPECT_NEAR(r.stats.loss_of_life_h, 24 * 0.282, 0.03);
