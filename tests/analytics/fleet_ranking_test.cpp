@@ -166,7 +166,7 @@ TEST(FleetRanking, RankingFieldsGiveTheSameRanking) {
   fleet[2].confidence = "2 of 7 factors: too few";
   fleet[2].missing = {"oil sample", "inspection"};
   fleet[3].remaining_life.years = 7;
-  fleet[3].remaining_life.limiting_factor = "gases";
+  fleet[3].remaining_life.limiting_factor = "thermal";
   fleet[3].unit.site = "South";
   for (auto& a : fleet) {  // fields the ranking does not read
     a.methods = {"a method"};
