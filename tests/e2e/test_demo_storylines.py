@@ -210,6 +210,9 @@ class DemoStorylines(unittest.TestCase):
         # investigate the fault).
         self.assertIn(doc["remaining_life"]["limiting_factor"], {"paper", "thermal", "age", "condition"})
         self.assertTrue(any(a["priority"] == 1 for a in doc["actions"]))
+        # Repair, not replace: the paper is sound (common practice, no published source
+        # for the ranking wording; IEEE C57.104-2019 operating procedures for the gassing).
+        self.assertEqual(self.rows["VNM-T1"]["recommended_action"], "repair")
         # The gas story puts it right behind the old unit, ahead of every background unit.
         self.assertEqual(self.rows["VNM-T1"]["rank"], 2)
 
@@ -219,6 +222,9 @@ class DemoStorylines(unittest.TestCase):
         self.assertEqual(doc["dga"]["iec60599_ratio_fault"], "T3")
         self.assertFalse(doc["active_arcing"])
         self.assertIn(doc["remaining_life"]["limiting_factor"], {"paper", "thermal", "age", "condition"})
+        # A hot thermal fault in oil is investigated and repaired, not a reason to
+        # replace a unit with sound paper (IEEE C57.104-2019 operating procedures).
+        self.assertEqual(self.rows["OSB-T1"]["recommended_action"], "repair")
 
     def test_wet_unit(self):
         checks = {c["test"]: c for c in self.docs["PLW-T1"]["oil"]["checks"]}
