@@ -26,7 +26,7 @@ struct FactorScore {
 };
 
 struct LifeEstimate {
-  std::string basis;  // "paper", "gases", "thermal", "condition"
+  std::string basis;  // "paper", "thermal", "condition"
   std::optional<double> years, low_years, high_years;
   std::string method;  // how it was obtained
 };
@@ -35,8 +35,10 @@ struct RemainingLife {
   std::optional<double> years;
   std::optional<double> low_years;
   std::optional<double> high_years;
-  std::string limiting_factor;          // "paper", "gases", "thermal", "condition", or "" when unknown
+  std::string limiting_factor;          // "paper", "thermal", "condition", or "" when unknown
   std::vector<LifeEstimate> estimates;  // every estimate, the limiting one included
+  bool beyond_horizon = false;          // years reached the horizon: "more than horizon_years"
+  double horizon_years = 40;            // [ranking] life_horizon_years
 };
 
 // One gas reading of the latest sample, with per-gas trend.

@@ -22,6 +22,9 @@ Recommendation recommend(const RankingOptions& o, const UnitAssessment& a, int t
     int in = life && !(hi && *hi <= o.replace_below_hi) ? static_cast<int>(std::floor(*life)) : 0;
     return {"replace", this_year + std::max(in, 0)};
   }
+  // A correctable finding (gassing fault, unsafe item, hot joint) capped the
+  // index below the condition: the row says so instead of "routine".
+  if (a.health_index && a.condition_index && *a.health_index < *a.condition_index) return {"repair", this_year};
   if ((hi && *hi <= o.refurbish_below_hi) || (life && *life < o.refurbish_within_years))
     return {"refurbish", this_year + 1};
   if (!hi || *hi <= o.monitor_below_hi) return {"intensify monitoring", this_year};

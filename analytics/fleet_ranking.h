@@ -15,9 +15,12 @@
 // rank (1, 2, 2, 4), is marked tied and is ordered by unit_id with a note.
 // Units without a health index are listed after the ranked ones, by unit_id,
 // with insufficient_data set, rank 0 and a note naming what is missing.
-// Recommended action and year: replace / refurbish / intensify monitoring /
-// routine, from the index and the remaining life (thresholds in the options;
-// index thresholds from the HI table of Jahromi et al. 2009, from memory).
+// Recommended action and year: replace / refurbish / repair / intensify
+// monitoring / routine, from the condition index (without correctable
+// findings) and the remaining life (thresholds in the options; index
+// thresholds from the HI table of Jahromi et al. 2009, from memory). "repair"
+// this year when a correctable finding (gassing fault, unsafe item, hot joint)
+// capped the index below the condition: the row never says "routine" then.
 #pragma once
 
 #include <string>

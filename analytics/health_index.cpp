@@ -255,7 +255,7 @@ struct CapHit {
   std::string factor;
   std::string what;
   double cap;
-  bool correctable = false;  // repaired in the field (make safe, retighten), not a sign of ageing
+  bool correctable = false;  // repaired (make safe, retighten, find and repair a gassing fault), not ageing
 };
 
 std::vector<CapHit> triggered_caps(const HealthIndexOptions& o, const UnitAssessment& a) {
@@ -266,11 +266,11 @@ std::vector<CapHit> triggered_caps(const HealthIndexOptions& o, const UnitAssess
     if (c.trigger == "unsafe_inspection" && unsafe)
       hits.push_back({"inspection", "an inspection item rated unsafe", c.cap, true});
     else if (c.trigger == "dga_condition_4" && a.dga.c57104_2008_condition == 4)
-      hits.push_back({"dga", "DGA condition 4 (IEEE C57.104-2008)", c.cap});
+      hits.push_back({"dga", "DGA condition 4 (IEEE C57.104-2008)", c.cap, true});
     else if (c.trigger == "dga_status_3" && a.dga.c57104_2019_status == 3)
-      hits.push_back({"dga", "DGA status 3 (IEEE C57.104-2019)", c.cap});
+      hits.push_back({"dga", "DGA status 3 (IEEE C57.104-2019)", c.cap, true});
     else if (c.trigger == "active_arcing" && (a.active_arcing || a.dga.active_arcing))
-      hits.push_back({"dga", "active arcing", c.cap});
+      hits.push_back({"dga", "active arcing", c.cap, true});
     else if (c.trigger == "infrared_severity_4" &&
              worst_infrared_severity(a, o.infrared_window_days, nullptr) >= 4)
       hits.push_back({"infrared", "infrared severity 4", c.cap, true});

@@ -35,14 +35,6 @@ void fill_years(LifeEstimate& e, double amount, double rate, const RemainingLife
   e.high_years = clip(amount / (rate * (1 - u)));
 }
 
-bool gas_rule_applies(const std::string& trigger, const UnitAssessment& a) {
-  if (trigger == "active_arcing") return a.active_arcing || a.dga.active_arcing;
-  if (trigger == "dga_condition_4") return a.dga.c57104_2008_condition == 4;
-  if (trigger == "dga_condition_3") return a.dga.c57104_2008_condition == 3;
-  if (trigger == "dga_status_3") return a.dga.c57104_2019_status == 3;
-  return false;
-}
-
 }  // namespace
 
 std::optional<double> exponential_time_to(double from, double to, double rate) {
@@ -130,7 +122,7 @@ LifeEstimate condition_life(const RemainingLifeOptions& o, const UnitAssessment&
   if (!(o.expected_life_years > 0) || !(o.hi_end_of_life > 0) || !(o.hi_new > o.hi_end_of_life))
     return not_applicable("condition", "invalid exponential ageing options");
   // A cap is a gate for one severe finding, not a measure of gradual ageing:
-  // the finding has its own basis (gases) or action, so age the weighted score.
+  // the finding has its own action, so age the weighted score.
   double hi = std::max(uncapped_index(a), 1e-6);
   double b_expected = std::log(o.hi_end_of_life / o.hi_new) / o.expected_life_years;  // < 0
   double b = b_expected;
@@ -149,24 +141,10 @@ LifeEstimate condition_life(const RemainingLifeOptions& o, const UnitAssessment&
   return e;
 }
 
-LifeEstimate gas_life(const RemainingLifeOptions& o, const UnitAssessment& a) {
-  for (const auto& r : o.gas_rules) {
-    if (!gas_rule_applies(r.trigger, a)) continue;
-    LifeEstimate e;
-    e.basis = "gases";
-    e.years = r.years;
-    e.low_years = r.low_years;
-    e.high_years = r.high_years;
-    e.method = r.trigger + ": fixed estimate " + fmt(r.years, 1) + " years (common practice: a unit gassing at " +
-               "this level is expected to need intervention soon; ferrum mapping, not a published formula)";
-    return e;
-  }
-  return not_applicable("gases", "no severe gassing");
-}
-
 void estimate_remaining_life(const RemainingLifeOptions& o, UnitAssessment& a) {
   RemainingLife rl;
-  rl.estimates = {paper_life(o, a), gas_life(o, a), thermal_life(o, a), condition_life(o, a)};
+  rl.estimates = {paper_life(o, a), thermal_life(o, a), condition_life(o, a)};
+  rl.horizon_years = o.horizon_years;
   const LifeEstimate* best = nullptr;
   for (const auto& e : rl.estimates)
     if (e.years && (!best || *e.years < *best->years)) best = &e;
@@ -175,11 +153,14 @@ void estimate_remaining_life(const RemainingLifeOptions& o, UnitAssessment& a) {
     rl.low_years = best->low_years;
     rl.high_years = best->high_years;
     rl.limiting_factor = best->basis;
+    rl.beyond_horizon = *best->years >= o.horizon_years;
   } else {
-    a.missing.push_back("remaining life: no paper, gas, thermal or condition basis");
+    a.missing.push_back("remaining life: no paper, thermal or condition basis");
   }
-  a.methods.push_back("remaining life: smallest of paper (DP to 200), gases, thermal (IEEE C57.91 "
-                      "normal life) and condition (exponential HI ageing) estimates");
+  a.methods.push_back("remaining life: smallest of paper (DP to 200), thermal (IEEE C57.91 normal life) and "
+                      "condition (exponential HI ageing) estimates, end-of-life evidence only (correctable "
+                      "defects raise risk and get actions, they do not shorten life); estimates beyond " +
+                      fmt(o.horizon_years, 0) + " years reported as more than " + fmt(o.horizon_years, 0) + " years");
   if (a.thermal.equivalent_ageing_factor && a.thermal.covered_hours > 0)
     a.assumptions.push_back("thermal life consumed before the load record taken at the recorded F_EQA");
   if (a.paper.dp_estimate)

@@ -1,5 +1,5 @@
-// Remaining-life estimate of one transformer, in years, from four separate
-// bases reported side by side; the smallest central estimate is the answer and
+// Remaining-life estimate of one transformer, in years, from three separate
+// end-of-life bases reported side by side; the smallest central estimate is the answer and
 // its basis is the limiting factor.
 //
 //  * "paper": degree of polymerisation (DP) now versus the end-of-life DP 200
@@ -19,10 +19,15 @@
 //    upper limit as in CNAIM v2.1 section 6.1.8, from memory; the lower limit
 //    is ferrum's, so that a pristine index still ages). End of life is the top
 //    of the worst band, HI 30. The weighted score before the worst-indicator
-//    cap is aged: the cap gates one severe finding, which has its own basis
-//    ("gases") or action, and is not gradual ageing.
-//  * "gases": a fixed short estimate for severe gassing, documented as common
-//    practice rather than a published formula (see GasLifeRule defaults).
+//    cap is aged: the cap gates one severe finding, which has its own action,
+//    and is not gradual ageing.
+//
+// Correctable defects (an active gassing fault, a hot joint, wet oil, an unsafe
+// item) never shorten remaining life: no published method maps a gas level to
+// years of life, and a repaired fault leaves the paper as it was. They raise the
+// probability of failure and produce their own actions (action_plan.h).
+// Estimates beyond the horizon are reported as the horizon, flagged
+// beyond_horizon ("more than N years").
 //
 // Ranges: each estimate's low/high come from its ageing rate raised/lowered by
 // rate_uncertainty (default 30 %), except the gas rules, which carry their own.
@@ -36,12 +41,6 @@
 #include "analytics/assessment.h"
 
 namespace ferrum::analytics {
-
-// A gas-driven life estimate: applies when its trigger holds.
-struct GasLifeRule {
-  std::string trigger;   // "active_arcing", "dga_condition_4", "dga_status_3", "dga_condition_3"
-  double years = 1, low_years = 0, high_years = 2;
-};
 
 struct RemainingLifeOptions {
   // Paper.
@@ -57,16 +56,9 @@ struct RemainingLifeOptions {
   double expected_life_years = 60;   // ferrum default; CNAIM uses asset-specific lives
   double max_rate_multiple = 2.0;    // unit rate <= 2x expected (CNAIM, from memory)
   double min_rate_multiple = 0.5;    // unit rate >= 0.5x expected (ferrum)
-  // Gases (common practice, ferrum's mapping; the first rule that applies wins).
-  std::vector<GasLifeRule> gas_rules{
-      {"dga_condition_4", 1, 0, 2},
-      {"dga_status_3", 2, 0.5, 5},
-      {"active_arcing", 2, 0.5, 5},
-      {"dga_condition_3", 5, 2, 10},
-  };
   // Range and horizon.
   double rate_uncertainty = 0.3;     // +-30 % on the ageing rate
-  double horizon_years = 100;        // longer estimates are reported as this
+  double horizon_years = 40;         // [ranking] life_horizon_years; longer estimates are reported as this
 };
 
 // Fills a.remaining_life (every estimate, the smallest central one as the
@@ -80,7 +72,6 @@ void estimate_remaining_life(const RemainingLifeOptions& options, UnitAssessment
 LifeEstimate paper_life(const RemainingLifeOptions& o, const UnitAssessment& a);
 LifeEstimate thermal_life(const RemainingLifeOptions& o, const UnitAssessment& a);
 LifeEstimate condition_life(const RemainingLifeOptions& o, const UnitAssessment& a);
-LifeEstimate gas_life(const RemainingLifeOptions& o, const UnitAssessment& a);
 
 // Time for an exponentially growing (rate > 0) or decaying (rate < 0)
 // quantity to go from `from` to `to`: ln(to/from)/rate. 0 when already past

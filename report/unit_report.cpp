@@ -92,7 +92,10 @@ void health_block(PageFlow& flow, const UnitAssessment& a, const UnitAssessment*
 void remaining_life_line(PageFlow& flow, const UnitAssessment& a) {
   const auto& rl = a.remaining_life;
   std::string text = "Remaining life: ";
-  if (rl.years) {
+  if (rl.years && rl.beyond_horizon) {
+    text += "more than " + fmt_number(rl.horizon_years, 0) + " years (the planning horizon)";
+    text += ".";
+  } else if (rl.years) {
     text += fmt_years_range(rl.years, rl.low_years, rl.high_years);
     if (!rl.limiting_factor.empty()) text += ", limited by " + rl.limiting_factor;
     text += ".";

@@ -62,6 +62,8 @@ Object::Ptr remaining_life_json(const analytics::RemainingLife& r) {
   o->set("low_years", opt(r.low_years));
   o->set("high_years", opt(r.high_years));
   o->set("limiting_factor", text_or_null(r.limiting_factor));
+  o->set("beyond_horizon", r.beyond_horizon);
+  o->set("horizon_years", r.horizon_years);
   Array::Ptr est = new Array;
   for (const auto& e : r.estimates) {
     Object::Ptr x = new Object;

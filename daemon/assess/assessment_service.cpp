@@ -31,6 +31,8 @@ analytics::AssessmentOptions options_from_config(const config::SiteConfig& confi
     else if (factor == "age") h.weight_age = w;
   }
   if (!config.health_weights.empty()) h.source += "; weights overridden in ferrum.ini [health]";
+  if (auto it = config.ranking.find("life_horizon_years"); it != config.ranking.end())
+    o.life.horizon_years = it->second;
   auto cuts4 = [](const std::vector<double>& v) { return analytics::RatingCuts{v[0], v[1], v[2], v[3]}; };
   for (const auto& [key, v] : config.health_bands) {
     if (key == "dga_cuts") h.dga_cuts = cuts4(v);
@@ -179,7 +181,9 @@ std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store
 
 analytics::RankingOptions ranking_options_from_config(const config::SiteConfig& config) {
   analytics::RankingOptions o;
+  bool overridden = false;
   for (const auto& [key, v] : config.ranking) {
+    overridden = overridden || key != "life_horizon_years";
     if (key == "pof_as_new") o.pof_as_new = v;
     else if (key == "pof_at_zero") o.pof_at_zero = v;
     else if (key == "weight_criticality") o.weight_criticality = v;
@@ -188,7 +192,7 @@ analytics::RankingOptions ranking_options_from_config(const config::SiteConfig& 
     else if (key == "customers_reference") o.customers_reference = v;
     else if (key == "mva_reference") o.mva_reference = v;
   }
-  if (!config.ranking.empty()) o.pof_source += "; overridden in ferrum.ini [ranking]";
+  if (overridden) o.pof_source += "; overridden in ferrum.ini [ranking]";
   return o;
 }
 

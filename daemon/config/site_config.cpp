@@ -195,6 +195,7 @@ std::vector<Key> make_keys() {
       {"weight_mva", 0, 100, ""},
       {"customers_reference", 1, 1e9, "Customers and MVA at which their part of the consequence reaches 1 (10000, 100)."},
       {"mva_reference", 1, 1e6, ""},
+      {"life_horizon_years", 5, 200, "Remaining life beyond this many years is reported as \"more than N years\" (40)."},
   };
   for (const auto& r : kRanking) {
     const std::string name = r.name;

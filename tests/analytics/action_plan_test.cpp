@@ -65,13 +65,13 @@ TEST(ActionPlan, HealthIndexThresholdsBothSides) {
 TEST(ActionPlan, ShortLifeMergesWithReplacementAction) {
   auto a = fresh_unit(25);
   a.remaining_life.years = 0.5;
-  a.remaining_life.limiting_factor = "gases";
+  a.remaining_life.limiting_factor = "paper";
   fa::finalize_actions(a);
   ASSERT_EQ(a.actions.size(), 1u);
   // HI 25 asks within 90 days, the half-year life within 91 (half of it): the
   // merged action keeps the earlier date.
   EXPECT_EQ(a.actions[0].due, 20000 + 90);
-  EXPECT_NE(a.actions[0].reason.find("limited by gases"), std::string::npos);
+  EXPECT_NE(a.actions[0].reason.find("limited by paper"), std::string::npos);
   EXPECT_NE(a.actions[0].reason.find("health index"), std::string::npos);
 }
 

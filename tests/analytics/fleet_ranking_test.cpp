@@ -132,8 +132,9 @@ TEST(FleetRanking, ActionThresholdsBothSides) {
 
 // A correctable finding (unsafe item, hot connection) caps the index, so the
 // unit ranks high on risk, but the replacement advice follows the condition
-// without it (ferrum's reading of CIGRE TB 761 gating; no published source
-// for the split).
+// without it: the row says "repair" this year, never "routine" (ferrum's
+// reading of CIGRE TB 761 gating; common practice, no published source for
+// the split).
 TEST(FleetRanking, CorrectableFindingRaisesRiskNotReplacement) {
   auto capped = unit("T-UNSAFE", 30, 3, 40);
   capped.condition_index = 82;
@@ -145,7 +146,8 @@ TEST(FleetRanking, CorrectableFindingRaisesRiskNotReplacement) {
   EXPECT_TRUE(r.units[0].tied);  // same risk: both at index 30
   for (const auto& u : r.units) {
     if (u.unit_id == "T-UNSAFE") {
-      EXPECT_EQ(u.recommended_action, "routine");
+      EXPECT_EQ(u.recommended_action, "repair");
+      EXPECT_EQ(u.action_year, fa::civil_from_days(capped.as_of).year);
     } else {
       EXPECT_EQ(u.recommended_action, "replace");
     }
@@ -166,7 +168,7 @@ TEST(FleetRanking, RankingFieldsGiveTheSameRanking) {
   fleet[2].confidence = "2 of 7 factors: too few";
   fleet[2].missing = {"oil sample", "inspection"};
   fleet[3].remaining_life.years = 7;
-  fleet[3].remaining_life.limiting_factor = "gases";
+  fleet[3].remaining_life.limiting_factor = "thermal";
   fleet[3].unit.site = "South";
   for (auto& a : fleet) {  // fields the ranking does not read
     a.methods = {"a method"};

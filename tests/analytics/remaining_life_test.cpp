@@ -150,16 +150,57 @@ TEST(RemainingLife, SmallestEstimateLimitsAndOthersAreKept) {
   fa::estimate_remaining_life(fa::RemainingLifeOptions{}, a);
   EXPECT_EQ(a.remaining_life.limiting_factor, "paper");
   EXPECT_NEAR(*a.remaining_life.years, 20, 1e-9);
-  EXPECT_EQ(a.remaining_life.estimates.size(), 4u);
+  EXPECT_EQ(a.remaining_life.estimates.size(), 3u);
+  EXPECT_FALSE(a.remaining_life.beyond_horizon);
+}
 
-  a.dga.c57104_2008_condition = 4;  // ferrum mapping: 1 year (0..2)
+// A correctable defect (here severe gassing, IEEE C57.104-2008 Condition 4 and
+// C57.104-2019 Status 3, active arcing) leaves remaining life as the paper,
+// thermal and condition evidence gives it: the fault is investigated and
+// repaired (IEEE C57.104-2019 clause 6 operating procedures), the paper stays
+// as it was. // common practice, no published source for the life figure.
+TEST(RemainingLife, DefectAloneNeverShortensLife) {
+  auto a = unit20();
+  a.paper.dp_estimate = 600;
+  a.thermal.equivalent_ageing_factor = 0.1;
+  a.health_index = 60;
   fa::estimate_remaining_life(fa::RemainingLifeOptions{}, a);
-  EXPECT_EQ(a.remaining_life.limiting_factor, "gases");
-  EXPECT_DOUBLE_EQ(*a.remaining_life.years, 1);
-  EXPECT_DOUBLE_EQ(*a.remaining_life.high_years, 2);
-  a.dga.c57104_2008_condition = 2;  // below the mapping: no gas estimate
+  const double before = *a.remaining_life.years;
+  a.dga.c57104_2008_condition = 4;
+  a.dga.c57104_2019_status = 3;
+  a.dga.active_arcing = a.active_arcing = true;
   fa::estimate_remaining_life(fa::RemainingLifeOptions{}, a);
   EXPECT_EQ(a.remaining_life.limiting_factor, "paper");
+  EXPECT_DOUBLE_EQ(*a.remaining_life.years, before);
+  for (const auto& e : a.remaining_life.estimates) EXPECT_NE(e.basis, "gases");
+}
+
+// Property: the estimate never passes the horizon and is flagged when it
+// reaches it; it never rises as DP falls. // common practice, no published source
+TEST(RemainingLife, NeverAboveHorizonAndFallsWithDp) {
+  fa::RemainingLifeOptions o;
+  o.horizon_years = 40;
+  std::optional<double> previous;
+  for (double dp = 1000; dp >= 150; dp -= 25) {
+    auto a = unit20();
+    a.paper.dp_estimate = dp;
+    a.thermal.equivalent_ageing_factor = 0.01;  // young paper, slow thermal ageing
+    fa::estimate_remaining_life(o, a);
+    ASSERT_TRUE(a.remaining_life.years) << dp;
+    EXPECT_LE(*a.remaining_life.years, 40) << dp;
+    EXPECT_LE(*a.remaining_life.high_years, 40) << dp;
+    EXPECT_EQ(a.remaining_life.beyond_horizon, *a.remaining_life.years >= 40) << dp;
+    EXPECT_DOUBLE_EQ(a.remaining_life.horizon_years, 40);
+    if (previous) EXPECT_LE(*a.remaining_life.years, *previous) << dp;
+    previous = a.remaining_life.years;
+  }
+  auto healthy = unit20();
+  healthy.paper.dp_estimate = 990;
+  healthy.thermal.equivalent_ageing_factor = 0.0;
+  healthy.health_index = 99;
+  fa::estimate_remaining_life(o, healthy);
+  EXPECT_TRUE(healthy.remaining_life.beyond_horizon);
+  EXPECT_DOUBLE_EQ(*healthy.remaining_life.years, 40);
 }
 
 TEST(RemainingLife, NothingKnownGivesNoEstimate) {

@@ -13,10 +13,10 @@ LAB = """unit_id,sample_date,h2_ppm,ch4_ppm,c2h6_ppm,c2h4_ppm,c2h2_ppm,co_ppm,co
 T1,2026-03-14,120,50,30,40,<0.5,400,3000,L-1
 T2,2026-03-14,20,5,3,4,<0.5,200,1500,L-2
 """
-# A second sample: T2 now shows acetylene and ethylene (arcing): its
-# remaining life becomes limited by the gases.
-LAB_LATER = """unit_id,sample_date,h2_ppm,ch4_ppm,c2h6_ppm,c2h4_ppm,c2h2_ppm,co_ppm,co2_ppm,lab_ref
-T2,2026-10-01,900,300,40,500,120,300,2000,L-3
+# A second sample: T2 now shows acetylene and ethylene (arcing) and has a
+# furan result: with the paper factor it has enough data for an index.
+LAB_LATER = """unit_id,sample_date,h2_ppm,ch4_ppm,c2h6_ppm,c2h4_ppm,c2h2_ppm,co_ppm,co2_ppm,furan_2fal_ppb,lab_ref
+T2,2026-10-01,900,300,40,500,120,300,2000,1500,L-3
 """
 
 
@@ -49,8 +49,8 @@ class RankCache(SiteTestCase):
         after = self.rank()
         self.assertEqual(after, self.rank("--fresh"))
         t2 = lambda r: next(u for u in r["units"] if u["unit_id"] == "T2")
-        self.assertNotEqual(t2(before)["limiting_factor"], "gases")
-        self.assertEqual(t2(after)["limiting_factor"], "gases")
+        self.assertIsNone(t2(before)["health_index"])
+        self.assertIsNotNone(t2(after)["health_index"])
         with open(self.cache()) as f:
             self.assertNotEqual(json.load(f)["key"], key)
 

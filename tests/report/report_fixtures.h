@@ -202,7 +202,7 @@ inline FleetRanking small_ranking() {
   r.as_of = days_from_civil(2026, 11, 30);
   r.units = {
       {1, false, "T-204", "Kelder Road 132 kV", 45, 57.6, "fair", 11.5, "paper", 0.021, 4, 0.084, "refurbish", 2028, false, ""},
-      {2, false, "T-117", "Northgate", 30, 34.0, "poor", 6.0, "gases", 0.035, 2, 0.070, "replace", 2030, false, ""},
+      {2, false, "T-117", "Northgate", 30, 34.0, "poor", 6.0, "thermal", 0.035, 2, 0.070, "replace", 2030, false, ""},
       {3, false, "T-031", "Harbour West", 60, 81.0, "good", 24.0, "thermal", 0.006, 5, 0.030, "routine", std::nullopt, false, ""},
       {4, true, "T-032", "Harbour West", 60, 88.0, "very good", 30.0, "condition", 0.003, 5, 0.015, "routine", std::nullopt, false, ""},
       {5, true, "T-033", "Harbour East", 20, 86.0, "very good", 28.0, "condition", 0.003, 5, 0.015, "routine", std::nullopt, false, ""},

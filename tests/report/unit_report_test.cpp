@@ -40,6 +40,19 @@ TEST_F(UnitReportTest, FilledUnitShowsEverySectionActionAndKeyNumber) {
   EXPECT_NE(text.find("Health index worse by 5 points"), std::string::npos);  // 63 -> 58
 }
 
+// An estimate at the planning horizon prints as "more than N years", never as
+// a figure the methods cannot support. // common practice, no published source
+TEST_F(UnitReportTest, LifeBeyondHorizonPrintsMoreThan) {
+  auto unit = fixtures::filled_unit();
+  unit.remaining_life.years = unit.remaining_life.low_years = unit.remaining_life.high_years = 40.0;
+  unit.remaining_life.horizon_years = 40;
+  unit.remaining_life.beyond_horizon = true;
+  const std::string path = temp_path("horizon.pdf");
+  render_unit_report(unit, nullptr, {}, fixed_options(), path);
+  const std::string text = squash(pdf_raw_text(path));
+  EXPECT_NE(text.find("Remaining life: more than 40 years"), std::string::npos);
+}
+
 TEST_F(UnitReportTest, SafetyBlockOnFirstAndLastPage) {
   const std::string path = temp_path("safety.pdf");
   render_unit_report(fixtures::filled_unit(), nullptr, {}, fixed_options(), path);
