@@ -65,4 +65,28 @@ RatioCheck check_ratio(double measured, double nameplate, double limit_pct) {
   return c;
 }
 
+RatioTable ratio_table(double hv_kv, double lv_kv, const VectorGroup& group,
+                       const std::optional<TapChanger>& taps, std::optional<int> only_tap,
+                       double limit_pct) {
+  RatioTable table;
+  auto add = [&](std::optional<int> tap) {
+    const double hv = hv_kv_at_tap(hv_kv, taps, tap);
+    const auto r = expected_phase_ratio(hv, lv_kv, group);
+    if (!r.ratio) {
+      table.why = r.why;
+      return false;
+    }
+    table.rows.push_back({tap, hv, *r.ratio, *r.ratio * (1 - limit_pct / 100), *r.ratio * (1 + limit_pct / 100)});
+    return true;
+  };
+  if (only_tap || !taps) {
+    add(only_tap);
+  } else {
+    for (int tap = 1; tap <= taps->positions; ++tap)
+      if (!add(tap)) break;
+  }
+  if (!table.why.empty()) table.rows.clear();
+  return table;
+}
+
 }  // namespace ferrum::analytics::electrical

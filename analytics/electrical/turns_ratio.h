@@ -30,6 +30,7 @@
 #include <optional>
 #include <string>
 #include <string_view>
+#include <vector>
 
 namespace ferrum::analytics::electrical {
 
@@ -74,5 +75,23 @@ struct RatioCheck {
   bool within_limit = true;  // |deviation| ≤ limit
 };
 RatioCheck check_ratio(double measured, double nameplate, double limit_pct = kRatioLimitPct);
+
+// The expected phase ratio at each tap (one row without a tap changer, or
+// only `only_tap` when given), with the band a reading may lie in.
+struct RatioTableRow {
+  std::optional<int> tap;
+  double hv_kv = 0;
+  double ratio = 0;
+  double low = 0;   // ratio·(1 − limit/100)
+  double high = 0;  // ratio·(1 + limit/100)
+};
+struct RatioTable {
+  std::vector<RatioTableRow> rows;
+  std::string why;  // set (and rows empty) when the ratio cannot be computed
+};
+// REQUIRES: hv_kv > 0, lv_kv > 0; taps->positions ≥ 1.
+RatioTable ratio_table(double hv_kv, double lv_kv, const VectorGroup& group,
+                       const std::optional<TapChanger>& taps, std::optional<int> only_tap,
+                       double limit_pct = kRatioLimitPct);
 
 }  // namespace ferrum::analytics::electrical

@@ -174,3 +174,32 @@ TEST(ElectricalLeakageReactance, LimitsBothSides) {
 
 }  // namespace
 }  // namespace ferrum::analytics::electrical
+
+namespace ferrum::analytics::electrical {
+namespace {
+
+// The table `ferrum ratio` prints: one row per tap, each the Dyn phase
+// ratio (√3·U_HV(tap)/U_LV) with the ±0.5 % band of IEEE C57.12.00 (from
+// memory; verify). 132/33 kV Dyn11, 17 taps of 1.25 %, nominal 9.
+TEST(ElectricalTurnsRatio, RatioTablePerTap) {
+  const auto group = *parse_vector_group("Dyn11");
+  const auto t = ratio_table(132, 33, group, TapChanger{17, 9, 1.25}, std::nullopt);
+  ASSERT_EQ(t.rows.size(), 17u);
+  EXPECT_EQ(t.rows[0].tap, 1);
+  EXPECT_NEAR(t.rows[0].ratio, 6.928203230 * 1.1, 1e-9);
+  EXPECT_NEAR(t.rows[8].ratio, 6.928203230, 1e-9);
+  EXPECT_NEAR(t.rows[8].low, 6.928203230 * 0.995, 1e-9);
+  EXPECT_NEAR(t.rows[8].high, 6.928203230 * 1.005, 1e-9);
+  const auto one = ratio_table(132, 33, group, TapChanger{17, 9, 1.25}, 5);
+  ASSERT_EQ(one.rows.size(), 1u);
+  EXPECT_NEAR(one.rows[0].hv_kv, 138.6, 1e-9);  // +5 %
+  const auto none = ratio_table(132, 33, group, std::nullopt, std::nullopt);
+  ASSERT_EQ(none.rows.size(), 1u);
+  EXPECT_FALSE(none.rows[0].tap);
+  const auto z = ratio_table(33, 0.4, *parse_vector_group("Dzn0"), TapChanger{5, 3, 2.5}, std::nullopt);
+  EXPECT_TRUE(z.rows.empty());
+  EXPECT_FALSE(z.why.empty());
+}
+
+}  // namespace
+}  // namespace ferrum::analytics::electrical
