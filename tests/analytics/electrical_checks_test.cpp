@@ -6,6 +6,8 @@
 #include <cmath>
 
 #include "analytics/electrical/bushings.h"
+#include "analytics/electrical/excitation_current.h"
+#include "analytics/electrical/insulation_power_factor.h"
 #include "analytics/electrical/insulation_resistance.h"
 #include "analytics/electrical/leakage_reactance.h"
 #include "analytics/electrical/turns_ratio.h"
@@ -199,6 +201,44 @@ TEST(ElectricalTurnsRatio, RatioTablePerTap) {
   const auto z = ratio_table(33, 0.4, *parse_vector_group("Dzn0"), TapChanger{5, 3, 2.5}, std::nullopt);
   EXPECT_TRUE(z.rows.empty());
   EXPECT_FALSE(z.why.empty());
+}
+
+}  // namespace
+}  // namespace ferrum::analytics::electrical
+
+namespace ferrum::analytics::electrical {
+namespace {
+
+// Service limit 1.0 % at 20 °C, 0.5 % new (IEEE C57.152, from memory;
+// verify): both sides; K is the caller's table factor (here an illustrative
+// 0.8, not a table value).
+TEST(ElectricalInsulationPowerFactor, LimitsAndCorrection) {
+  EXPECT_EQ(check_insulation_pf(0.99, 20, std::nullopt, std::nullopt, std::nullopt).within_limit, true);
+  EXPECT_EQ(check_insulation_pf(1.01, 20, std::nullopt, std::nullopt, std::nullopt).within_limit, false);
+  EXPECT_EQ(check_insulation_pf(0.49, 20, std::nullopt, std::nullopt, std::nullopt, kPfLimitNewPct).within_limit, true);
+  EXPECT_EQ(check_insulation_pf(0.51, 20, std::nullopt, std::nullopt, std::nullopt, kPfLimitNewPct).within_limit, false);
+  // at 30 °C without a factor: not corrected, not judged
+  const auto raw = check_insulation_pf(1.2, 30, std::nullopt, std::nullopt, std::nullopt);
+  EXPECT_FALSE(raw.pf20_pct);
+  EXPECT_FALSE(raw.within_limit);
+  const auto k = check_insulation_pf(1.2, 30, 0.8, 5000, 4800);
+  ASSERT_TRUE(k.pf20_pct);
+  EXPECT_NEAR(*k.pf20_pct, 0.96, 1e-12);
+  EXPECT_TRUE(k.corrected);
+  EXPECT_EQ(k.within_limit, true);
+  EXPECT_NEAR(*k.capacitance_change_pct, 4.1666666667, 1e-9);  // computed: 200/4800
+}
+
+// Outer phases similar and higher than the middle one (IEEE C57.152 pattern,
+// from memory; verify); 10 % similarity is ferrum's own reading.
+TEST(ElectricalExcitationCurrent, CoreFormPattern) {
+  EXPECT_TRUE(check_excitation_pattern(30, 20, 31).expected);
+  EXPECT_TRUE(check_excitation_pattern(30, 20, 27.1).outer_similar);   // 9.67 %
+  EXPECT_FALSE(check_excitation_pattern(30, 20, 26.9).outer_similar);  // 10.3 %
+  EXPECT_FALSE(check_excitation_pattern(30, 32, 31).middle_lowest);
+  EXPECT_FALSE(check_excitation_pattern(30, 32, 31).expected);
+  EXPECT_NEAR(*excitation_change_pct(33, 30), 10.0, 1e-9);
+  EXPECT_FALSE(excitation_change_pct(33, 0));
 }
 
 }  // namespace
