@@ -45,7 +45,7 @@ const OptionDef kOptions[] = {
     {"o2", "PPM", "oxygen, µL/L"},
     {"n2", "PPM", "nitrogen, µL/L"},
     {"age", "YEARS", "age of the unit in years (IEEE C57.104-2019 tables; default: unknown)"},
-    {"hv-kv", "KV", "HV voltage in kV (default 132)"},
+    {"hv-kv", "KV", "HV voltage in kV (dga: default 132; ratio: required)"},
     {"once", nullptr, "serve: process what is waiting, render, and exit (for scripts)"},
     {"fresh", nullptr, "rank: assess every unit anew instead of reusing the last whole-fleet assessment"},
     {"lv-kv", "KV", "LV voltage in kV"},
