@@ -69,6 +69,13 @@ const std::vector<CommandInfo>& commands() {
        "load (per unit), ambient, top-oil and hot-spot temperature (°C), relative ageing rate, and\n"
        "the measured top-oil temperature where one was delivered.",
        {"root", "from", "to", "csv"}},
+      {"ratio", "ferrum ratio --hv-kv KV --lv-kv KV --vector-group GROUP [--tap N ...] [--json]",
+       "print the expected turns ratio per phase and tap, for a crew on site",
+       "No database needed. The phase ratio a turns-ratio test set reads (HV phase winding over LV\n"
+       "phase winding: √3·U_HV/U_LV for Dy, U_HV/(√3·U_LV) for Yd, U_HV/U_LV for Yy, Dd and 1ph)\n"
+       "with the ±0.5 % band. With --tap-positions, --tap-nominal and --tap-step-pct: every tap (position\n"
+       "1 the highest HV voltage), or only --tap N.",
+       {"hv-kv", "lv-kv", "vector-group", "tap", "tap-positions", "tap-nominal", "tap-step-pct", "json"}},
   };
   return all;
 }
@@ -92,6 +99,7 @@ int run_command(const Invocation& inv) {
     if (inv.command == "rank") return cmd_rank(inv);
     if (inv.command == "dga") return cmd_dga(inv);
     if (inv.command == "thermal") return cmd_thermal(inv);
+    if (inv.command == "ratio") return cmd_ratio(inv);
   } catch (const UsageError& e) {
     std::cerr << "ferrum " << inv.command << ": " << e.what() << "\n";
     return kUsage;

@@ -28,5 +28,6 @@ int cmd_assess(const Invocation& inv);
 int cmd_rank(const Invocation& inv);
 int cmd_dga(const Invocation& inv);
 int cmd_thermal(const Invocation& inv);
+int cmd_ratio(const Invocation& inv);
 
 }  // namespace ferrum::app

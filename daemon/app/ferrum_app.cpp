@@ -45,9 +45,15 @@ const OptionDef kOptions[] = {
     {"o2", "PPM", "oxygen, µL/L"},
     {"n2", "PPM", "nitrogen, µL/L"},
     {"age", "YEARS", "age of the unit in years (IEEE C57.104-2019 tables; default: unknown)"},
-    {"hv-kv", "KV", "HV voltage in kV (default 132)"},
+    {"hv-kv", "KV", "HV voltage in kV (dga: default 132; ratio: required)"},
     {"once", nullptr, "serve: process what is waiting, render, and exit (for scripts)"},
     {"fresh", nullptr, "rank: assess every unit anew instead of reusing the last whole-fleet assessment"},
+    {"lv-kv", "KV", "LV voltage in kV"},
+    {"vector-group", "GROUP", "vector group, e.g. Dyn11, YNd1, Yy0, 1ph"},
+    {"tap", "N", "tap position"},
+    {"tap-positions", "N", "number of tap positions"},
+    {"tap-nominal", "N", "the tap position of the nameplate voltage"},
+    {"tap-step-pct", "PCT", "HV voltage step per tap position, % of the nameplate HV voltage"},
 };
 
 bool command_accepts(const CommandInfo& c, const std::string& option) {
