@@ -122,6 +122,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
   ImportResult r;
   CsvReader reader(in);
   if (!reader.read_header(r.problems)) return r;
+  if (reader.delimiter_declared()) r.declared_delimiter = reader.delimiter();
   const KindDetection kind = detect_kind(reader.header());
   if (!kind.recognised) {
     r.problems.add(reader.header_line(), kind.reason_column >= 0 ? reader.header()[kind.reason_column] : "",

@@ -80,6 +80,7 @@ std::string Receipt::to_json() const {
     o->set("already_imported", d);
   }
   if (!utc_offset_note.empty()) o->set("time_note", utc_offset_note);
+  if (!separator_note.empty()) o->set("separator_note", separator_note);
   std::ostringstream out;
   Poco::JSON::Stringifier::stringify(o, out, 2);
   out << "\n";
@@ -106,6 +107,7 @@ Receipt Receipt::from_json(const std::string& json) {
   r.reason = str(o, "reason");
   r.problem_count = o->optValue<long long>("problem_count", 0);
   r.utc_offset_note = str(o, "time_note");
+  r.separator_note = str(o, "separator_note");
   if (auto a = o->getArray("problems")) {
     for (std::size_t i = 0; i < a->size(); ++i) {
       auto p = a->getObject(static_cast<unsigned>(i));
@@ -143,7 +145,7 @@ std::string Receipt::to_text() const {
     if (problem_count > 0) {
       o << problem_count << " problem" << (problem_count == 1 ? "" : "s") << " found";
       if (problem_count > static_cast<long long>(problems.size())) o << " (the first " << problems.size() << " are listed)";
-      o << ". Correct them and drop the whole file again.\n";
+      o << (problem_count == 1 ? ". Correct it" : ". Correct them") << " and drop the whole file again.\n";
     }
   }
   o << "\n  party:       " << party << "\n  received:    " << received_at << " (UTC)\n";
@@ -156,6 +158,7 @@ std::string Receipt::to_text() const {
     o << "\n";
   }
   if (!utc_offset_note.empty()) o << "  times:       " << utc_offset_note << "\n";
+  if (!separator_note.empty()) o << "  separator:   " << separator_note << "\n";
   if (!problems.empty()) {
     o << "\nProblems (line, column: reason [value]):\n";
     for (const auto& p : problems) {
@@ -167,7 +170,10 @@ std::string Receipt::to_text() const {
     }
   }
   if (!warnings.empty()) {
-    o << "\nWarnings (the file was still taken as a whole):\n";
+    // A rejected file was not taken at all: its warnings are what would
+    // still be reported once the problems above are corrected.
+    o << (status == "rejected" ? "\nWarnings (these alone would not stop the file):\n"
+                               : "\nWarnings (the file was still taken as a whole):\n");
     for (const auto& w : warnings) {
       o << "  line " << w.first_line;
       if (!w.column.empty()) o << ", column " << w.column;

@@ -27,6 +27,7 @@ struct Receipt {
   std::string duplicate_of_received_at;  // for duplicates: when the same content was imported
   std::string duplicate_of_stored_as;    // ... and as what
   std::string utc_offset_note;      // "times without an offset were taken as UTC+01:00"
+  std::string separator_note;       // "values separated by ';' as the sep= first line says"
 
   std::string to_json() const;
   std::string to_text() const;

@@ -258,5 +258,49 @@ class Provenance(IngestCase):
         self.assertNotIn("t2-only.csv", text)  # a file about another unit only
 
 
+class ContractorsExports(IngestCase):
+    """Issue 19: receipts keep their history; a sep= first line is honoured."""
+
+    def test_earlier_receipts_of_a_name_are_kept_under_numbers(self):
+        folder = self.path("drop", "planning", "receipts")
+        self.drop("lab.csv", BAD_LAB)
+        self.ingest(expect=4)
+        self.drop("lab.csv", LAB)
+        self.ingest()
+        self.drop("lab.csv", LAB)
+        self.ingest()  # the same content again: a duplicate, and a third receipt
+        names = sorted(n for n in os.listdir(folder) if n.startswith("lab.csv"))
+        self.assertEqual(names, ["lab.csv.1.json", "lab.csv.1.txt", "lab.csv.2.json", "lab.csv.2.txt",
+                                 "lab.csv.json", "lab.csv.txt"])
+        statuses = []
+        for n in ("lab.csv.1.json", "lab.csv.2.json", "lab.csv.json"):
+            with open(os.path.join(folder, n)) as f:
+                statuses.append(json.load(f)["status"])
+        self.assertEqual(statuses, ["rejected", "accepted", "duplicate"])  # oldest first, newest unnumbered
+        with open(os.path.join(folder, "lab.csv.1.txt")) as f:
+            self.assertIn("REJECTED", f.read())
+
+    def test_sep_line_names_the_separator_and_the_receipt_says_so(self):
+        text = "sep=;\nunit_id;sample_date;lab_ref;h2_ppm\nT1;2026-03-14;L-1;12,5\n"
+        self.drop("lab.csv", text)
+        self.ingest()
+        r = self.receipt("lab.csv")
+        self.assertEqual((r["status"], r["rows"]), ("accepted", 1))
+        self.assertIn("sep=", r["separator_note"])
+        with self.db() as c:
+            # The decimal comma of a ';' file, as without the sep= line.
+            self.assertEqual(c.execute("SELECT value FROM oil_values WHERE test = 'h2_ppm'").fetchall(), [(12.5,)])
+        with open(self.path("drop", "planning", "receipts", "lab.csv.txt")) as f:
+            self.assertIn("separator:   values separated by ';'", f.read())
+
+    def test_rejected_receipt_wording(self):
+        self.drop("lab.csv", BAD_LAB)
+        self.ingest(expect=4)
+        with open(self.path("drop", "planning", "receipts", "lab.csv.txt")) as f:
+            text = f.read()
+        self.assertIn("1 problem found. Correct it and drop", text)
+        self.assertNotIn("still taken", text)
+
+
 if __name__ == "__main__":
     unittest.main()

@@ -1,0 +1,66 @@
+// Wording of the receipt a contractor reads (issue 19, item 8). Plumbing
+// only: no engineering value, so no source is checked here.
+#include <gtest/gtest.h>
+
+#include "daemon/pipeline/receipt.h"
+
+namespace ferrum::ingest {
+namespace {
+
+Receipt rejected_with(long long problem_count) {
+  Receipt r;
+  r.file = "lab.csv";
+  r.party = "northlab";
+  r.status = "rejected";
+  r.received_at = "2026-10-05T08:00:00Z";
+  r.stored_as = "quarantine/northlab/lab.csv";
+  for (long long i = 0; i < problem_count; ++i)
+    r.problems.push_back({2 + i, "h2_ppm", 3, "-1", "hydrogen cannot be negative"});
+  r.problem_count = problem_count;
+  r.warnings.push_back({"c2h2_ppm", "value below detection limit", 3, 1});
+  return r;
+}
+
+TEST(ReceiptText, OneProblemIsCorrectedAsIt) {
+  const std::string text = rejected_with(1).to_text();
+  EXPECT_NE(text.find("1 problem found. Correct it and drop the whole file again."), std::string::npos) << text;
+  EXPECT_EQ(text.find("Correct them"), std::string::npos) << text;
+}
+
+TEST(ReceiptText, SeveralProblemsAreCorrectedAsThem) {
+  const std::string text = rejected_with(2).to_text();
+  EXPECT_NE(text.find("2 problems found. Correct them and drop the whole file again."), std::string::npos) << text;
+}
+
+TEST(ReceiptText, RejectedFileDoesNotClaimItWasTaken) {
+  const std::string text = rejected_with(1).to_text();
+  EXPECT_NE(text.find("Warnings ("), std::string::npos) << text;
+  EXPECT_EQ(text.find("still taken"), std::string::npos) << text;
+}
+
+TEST(ReceiptText, AcceptedFileWarningsSayItWasTaken) {
+  Receipt r = rejected_with(0);
+  r.status = "accepted";
+  r.stored_as = "archive/northlab/lab.csv";
+  const std::string text = r.to_text();
+  EXPECT_NE(text.find("Warnings (the file was still taken as a whole):"), std::string::npos) << text;
+}
+
+}  // namespace
+}  // namespace ferrum::ingest
+
+namespace ferrum::ingest {
+namespace {
+
+TEST(ReceiptText, SepLineIsAcknowledgedAndSurvivesJson) {
+  Receipt r = rejected_with(0);
+  r.status = "accepted";
+  r.separator_note = "values separated by ';', as the file's sep= first line says";
+  EXPECT_NE(r.to_text().find("separator:   values separated by ';'"), std::string::npos) << r.to_text();
+  EXPECT_EQ(Receipt::from_json(r.to_json()).separator_note, r.separator_note);
+  r.separator_note.clear();
+  EXPECT_EQ(r.to_json().find("separator_note"), std::string::npos);
+}
+
+}  // namespace
+}  // namespace ferrum::ingest
