@@ -6,6 +6,7 @@
 #include <Poco/JSON/Stringifier.h>
 
 #include <cstdio>
+#include <filesystem>
 #include <sstream>
 
 #include "daemon/ingest/utf8.h"
@@ -73,6 +74,11 @@ std::string Receipt::to_json() const {
   Array::Ptr u = new Array;
   for (const auto& x : units) u->add(x);
   o->set("units", u);
+  if (!unsafe_items.empty()) {
+    Array::Ptr s = new Array;
+    for (const auto& x : unsafe_items) s->add(x);
+    o->set("unsafe_items_reported", s);
+  }
   if (status == "duplicate") {
     Object::Ptr d = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
     d->set("received_at", duplicate_of_received_at);
@@ -124,6 +130,9 @@ Receipt Receipt::from_json(const std::string& json) {
   }
   if (auto a = o->getArray("units"))
     for (std::size_t i = 0; i < a->size(); ++i) r.units.push_back(a->getElement<std::string>(static_cast<unsigned>(i)));
+  if (auto a = o->getArray("unsafe_items_reported"))
+    for (std::size_t i = 0; i < a->size(); ++i)
+      r.unsafe_items.push_back(a->getElement<std::string>(static_cast<unsigned>(i)));
   if (auto d = o->getObject("already_imported")) {
     r.duplicate_of_received_at = str(d, "received_at");
     r.duplicate_of_stored_as = str(d, "stored_as");
@@ -138,7 +147,7 @@ std::string Receipt::to_text() const {
     o << "ACCEPTED: " << rows << " row" << (rows == 1 ? "" : "s") << " of " << kind << " imported.\n";
   } else if (status == "duplicate") {
     o << "ALREADY IMPORTED: the same content was already imported on " << duplicate_of_received_at << " as "
-      << duplicate_of_stored_as << ".\nNothing was changed.\n";
+      << std::filesystem::path(duplicate_of_stored_as).filename().string() << ".\nNothing was changed.\n";
   } else {
     o << "REJECTED: nothing from this file was imported.\n";
     if (!reason.empty()) o << reason << "\n";
@@ -151,7 +160,10 @@ std::string Receipt::to_text() const {
   o << "\n  party:       " << party << "\n  received:    " << received_at << " (UTC)\n";
   if (!kind.empty()) o << "  kind:        " << kind << "\n";
   if (!sha256.empty()) o << "  sha256:      " << sha256 << "\n";
-  o << "  stored as:   " << stored_as << "\n";
+  // The site's own path (archive/..., quarantine/...) means nothing to a
+  // party, who cannot open it: the text names the copy (the JSON keeps the path).
+  o << "  site copy:   " << std::filesystem::path(stored_as).filename().string()
+    << " (kept by the site; quote this name when asking about the file)\n";
   if (!units.empty()) {
     o << "  units:       ";
     for (std::size_t i = 0; i < units.size(); ++i) o << (i ? ", " : "") << units[i];
@@ -159,6 +171,11 @@ std::string Receipt::to_text() const {
   }
   if (!utc_offset_note.empty()) o << "  times:       " << utc_offset_note << "\n";
   if (!separator_note.empty()) o << "  separator:   " << separator_note << "\n";
+  if (!unsafe_items.empty()) {
+    // Confirms to the inspector that the rating did not wait for a report.
+    o << "\nRated UNSAFE, reported to the site's planners at once:\n";
+    for (const auto& item : unsafe_items) o << "  " << item << "\n";
+  }
   if (!problems.empty()) {
     o << "\nProblems (line, column: reason [value]):\n";
     for (const auto& p : problems) {

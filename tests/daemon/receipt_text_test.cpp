@@ -52,6 +52,15 @@ TEST(ReceiptText, AcceptedFileWarningsSayItWasTaken) {
 namespace ferrum::ingest {
 namespace {
 
+TEST(ReceiptText, NamesTheSiteCopyNotAServerPath) {
+  Receipt r = rejected_with(1);
+  r.stored_as = "quarantine/lab.1a2b3c4d.csv";
+  const std::string text = r.to_text();
+  EXPECT_NE(text.find("site copy:   lab.1a2b3c4d.csv (kept by the site"), std::string::npos) << text;
+  EXPECT_EQ(text.find("quarantine/"), std::string::npos) << text;
+  EXPECT_NE(r.to_json().find("\"quarantine/lab.1a2b3c4d.csv\""), std::string::npos);  // machines keep the path
+}
+
 TEST(ReceiptText, SepLineIsAcknowledgedAndSurvivesJson) {
   Receipt r = rejected_with(0);
   r.status = "accepted";

@@ -151,7 +151,8 @@ class Duplicates(IngestCase):
         self.assertEqual(r["already_imported"], {"received_at": first["received_at"], "stored_as": first["stored_as"]})
         with open(self.path("drop", "planning", "receipts", "lab-again.csv.txt")) as f:
             text = f.read()
-        self.assertIn(f"already imported on {first['received_at']} as {first['stored_as']}", text.replace("\n", " "))
+        copy = os.path.basename(first["stored_as"])  # the text names the site's copy, not its server path
+        self.assertIn(f"already imported on {first['received_at']} as {copy}", text.replace("\n", " "))
         self.assertEqual(self.data_rows(), before)
         self.assertFalse(os.path.exists(self.path("drop", "planning", "lab-again.csv")))
         # The duplicate is kept too (nothing is deleted), and never over the original.
@@ -292,6 +293,25 @@ class ContractorsExports(IngestCase):
             self.assertEqual(c.execute("SELECT value FROM oil_values WHERE test = 'h2_ppm'").fetchall(), [(12.5,)])
         with open(self.path("drop", "planning", "receipts", "lab.csv.txt")) as f:
             self.assertIn("separator:   values separated by ';'", f.read())
+
+    def test_rejected_receipt_counts_every_data_row(self):
+        # A bad row first, last, malformed (one value too many) and two good rows.
+        text = ("unit_id,sample_date,lab_ref,h2_ppm\nT1,2026-03-14,L-1,-5\nT1,2026-03-15,L-2,5\n"
+                "T1,2026-03-16,L-3,5,extra\nT2,2026-03-14,L-4,6\n\nT2,2026-03-15,L-5,x\n")
+        self.drop("lab.csv", text)
+        self.ingest(expect=4)
+        r = self.receipt("lab.csv")
+        self.assertEqual((r["status"], r["rows"], r["problem_count"]), ("rejected", 5, 3))
+
+    def test_unsafe_inspection_item_is_confirmed_as_reported(self):
+        self.drop("insp.csv", "unit_id,inspection_date,item,rating\nT1,2026-03-14,bushings,unsafe\n"
+                              "T1,2026-03-14,breather,good\n")
+        self.ingest()
+        r = self.receipt("insp.csv")
+        self.assertEqual(r["unsafe_items_reported"], ["T1: bushings (2026-03-14)"])
+        with open(self.path("drop", "planning", "receipts", "insp.csv.txt")) as f:
+            text = f.read()
+        self.assertIn("reported to the site's planners at once:\n  T1: bushings (2026-03-14)", text)
 
     def test_rejected_receipt_wording(self):
         self.drop("lab.csv", BAD_LAB)
