@@ -56,6 +56,9 @@ std::string Receipt::to_json() const {
     j->set("column", x.column);
     j->set("message", x.message);
     j->set("count", x.count);
+    Array::Ptr lines = new Array;
+    for (const auto n : x.lines) lines->add(n);
+    j->set("lines", lines);
     w->add(j);
   }
   o->set("warnings", w);
@@ -125,7 +128,10 @@ Receipt Receipt::from_json(const std::string& json) {
     for (std::size_t i = 0; i < a->size(); ++i) {
       auto w = a->getObject(static_cast<unsigned>(i));
       r.warnings.push_back({str(w, "column"), str(w, "message"), w->optValue<std::int64_t>("line", 0),
-                            w->optValue<std::int64_t>("count", 1)});
+                            w->optValue<std::int64_t>("count", 1), {}});
+      if (auto lines = w->getArray("lines"))
+        for (std::size_t k = 0; k < lines->size(); ++k)
+          r.warnings.back().lines.push_back(lines->getElement<std::int64_t>(static_cast<unsigned>(k)));
     }
   }
   if (auto a = o->getArray("units"))
@@ -192,7 +198,14 @@ std::string Receipt::to_text() const {
     o << (status == "rejected" ? "\nWarnings (these alone would not stop the file):\n"
                                : "\nWarnings (the file was still taken as a whole):\n");
     for (const auto& w : warnings) {
-      o << "  line " << w.first_line;
+      // The lines it was seen on (the first ones when many), not only the first.
+      if (w.lines.size() > 1) {
+        o << "  lines ";
+        for (std::size_t k = 0; k < w.lines.size(); ++k) o << (k ? ", " : "") << w.lines[k];
+        if (w.count > static_cast<long long>(w.lines.size())) o << ", ...";
+      } else {
+        o << "  line " << w.first_line;
+      }
       if (!w.column.empty()) o << ", column " << w.column;
       o << ": " << w.message;
       if (w.count > 1) o << " (" << w.count << " times)";

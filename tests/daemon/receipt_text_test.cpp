@@ -17,7 +17,7 @@ Receipt rejected_with(long long problem_count) {
   for (long long i = 0; i < problem_count; ++i)
     r.problems.push_back({2 + i, "h2_ppm", 3, "-1", "hydrogen cannot be negative"});
   r.problem_count = problem_count;
-  r.warnings.push_back({"c2h2_ppm", "value below detection limit", 3, 1});
+  r.warnings.push_back({"c2h2_ppm", "value below detection limit", 3, 1, {3}});
   return r;
 }
 
@@ -59,6 +59,25 @@ TEST(ReceiptText, NamesTheSiteCopyNotAServerPath) {
   EXPECT_NE(text.find("site copy:   lab.1a2b3c4d.csv (kept by the site"), std::string::npos) << text;
   EXPECT_EQ(text.find("quarantine/"), std::string::npos) << text;
   EXPECT_NE(r.to_json().find("\"quarantine/lab.1a2b3c4d.csv\""), std::string::npos);  // machines keep the path
+}
+
+TEST(ReceiptText, RepeatedWarningListsItsLines) {
+  WarningLog log;
+  for (std::int64_t line = 2; line < 40; line += 3) log.add(line, "c2h2_ppm", "value below detection limit");
+  Receipt r = rejected_with(0);
+  r.status = "accepted";
+  r.warnings = log.entries();
+  const std::string text = r.to_text();
+  EXPECT_NE(text.find("lines 2, 5, 8, 11, 14, 17, 20, 23, 26, 29, 32, 35, 38, column c2h2_ppm: value below detection "
+                      "limit (13 times)"),
+            std::string::npos)
+      << text;
+  EXPECT_EQ(Receipt::from_json(r.to_json()).warnings.at(0).lines, r.warnings.at(0).lines);
+  for (std::int64_t line = 41; line < 200; ++line) log.add(line, "c2h2_ppm", "value below detection limit");
+  r.warnings = log.entries();
+  EXPECT_EQ(r.warnings.at(0).lines.size(), Warning::kMaxLines);
+  // 13 lines above, then 41..47: more were seen than are listed, so marked.
+  EXPECT_NE(r.to_text().find("38, 41, 42, 43, 44, 45, 46, 47, ..., column c2h2_ppm"), std::string::npos) << r.to_text();
 }
 
 TEST(ReceiptText, SepLineIsAcknowledgedAndSurvivesJson) {
