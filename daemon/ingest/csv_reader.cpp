@@ -311,8 +311,19 @@ bool CsvReader::read_header(ProblemLog& problems) {
     bool at_end = false;
     if (!read_header_line(line, problems, at_end)) return false;
     const std::string_view text = trim_blanks(line);
+    // "sep=X" before the header, as spreadsheet programs write it, names
+    // the delimiter instead of leaving it to detection.
+    if (!declared_delimiter_ && text.size() == 5 && (text.substr(0, 4) == "sep=" || text.substr(0, 4) == "SEP=") &&
+        (text[4] == ',' || text[4] == ';' || text[4] == '\t' || text[4] == '|')) {
+      declared_delimiter_ = text[4];
+      if (at_end) {
+        problems.add(start, "", 0, "", "the file has no header row (only a sep= line)");
+        return false;
+      }
+      continue;
+    }
     if (!text.empty() && text.front() != '#') {
-      delimiter_ = detect_delimiter(line);
+      delimiter_ = declared_delimiter_ ? declared_delimiter_ : detect_delimiter(line);
       for (const char c : {delimiter_, '\n', '\r', '"', '\0'}) special_[static_cast<unsigned char>(c)] = true;
       src_.push_back(line + '\n');
       line_ = start;

@@ -5,7 +5,8 @@
 //  * before the header: blank lines and lines starting with '#' (comments);
 //  * one header row; the delimiter is detected from it: ';' when it has more
 //    semicolons than commas outside quotes (such files may also use a decimal
-//    comma, see decimal_comma()), else ',';
+//    comma, see decimal_comma()), else ','; unless a "sep=X" line (X one of
+//    , ; | or tab) before the header names it;
 //  * records ending in LF, CRLF or a lone CR; quoted fields may hold the
 //    delimiter, doubled quotes and line breaks; spaces around a quoted field
 //    are ignored; blank lines between records are skipped.
@@ -70,6 +71,8 @@ class CsvReader {
   const std::vector<std::string>& header() const { return header_; }
   std::int64_t header_line() const { return header_line_; }
   char delimiter() const { return delimiter_; }
+  // True when a "sep=X" line before the header named the delimiter.
+  bool delimiter_declared() const { return declared_delimiter_ != 0; }
   // True for semicolon-delimited files, where numbers may use a decimal comma.
   bool decimal_comma() const { return delimiter_ == ';'; }
 
@@ -149,6 +152,7 @@ class CsvReader {
   ByteSource src_;
   CsvOptions options_;
   char delimiter_ = ',';
+  char declared_delimiter_ = 0;  // from a "sep=X" line, 0 when none
   std::vector<std::string> header_;
   std::int64_t header_line_ = 0;
   std::int64_t line_ = 1;          // physical line of the next byte

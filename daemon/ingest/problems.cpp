@@ -55,6 +55,7 @@ void WarningLog::add(std::int64_t line, std::string_view column, std::string_vie
   for (auto& w : entries_) {
     if (w.column == column && w.message == message) {
       w.count += count;
+      if (w.lines.size() < Warning::kMaxLines && w.lines.back() != line) w.lines.push_back(line);
       return;
     }
   }
@@ -62,7 +63,7 @@ void WarningLog::add(std::int64_t line, std::string_view column, std::string_vie
     overflow_ += count;
     return;
   }
-  entries_.push_back(Warning{std::string(column), std::string(message), line, count});
+  entries_.push_back(Warning{std::string(column), std::string(message), line, count, {line}});
 }
 
 std::int64_t WarningLog::total() const {

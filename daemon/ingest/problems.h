@@ -63,6 +63,8 @@ struct Warning {
   std::string message;       // e.g. "value below detection limit"
   std::int64_t first_line = 0;
   std::int64_t count = 0;
+  std::vector<std::int64_t> lines;  // the first kMaxLines lines it was seen on, in order
+  static constexpr std::size_t kMaxLines = 20;
 };
 
 class WarningLog {

@@ -77,8 +77,7 @@ class LoadWriter {
  private:
   bool report(std::optional<store::LoadDuplicate> d) {
     if (!d) return true;
-    duplicate_line_ = d->line;
-    --r_.rows;  // counted when it was queued
+    duplicate_line_ = d->line;  // still a data row read: the rejected file's receipt counts it
     r_.problems.add(d->line, column_, column_number_, "",
                     "a second reading for unit " + d->unit_id + " at the same time");
     return false;
@@ -99,19 +98,26 @@ void run_rows(CsvReader& reader, Parser& parser, ImportResult& r, const std::ato
     if (cancel && (n & 4095) == 0 && cancel->load(std::memory_order_relaxed)) throw ImportCancelled();
     const RecordStatus st = reader.next(r.problems);
     if (st == RecordStatus::end) break;
-    if (st == RecordStatus::malformed) continue;
+    // A rejected file's receipt counts every data row read, bad ones too.
+    if (st == RecordStatus::malformed) {
+      ++r.rows;
+      continue;
+    }
     if (is_empty_row(reader.fields())) {
       r.warnings.add(reader.record_line(), "", "row with only empty values ignored");
       continue;
     }
-    if (!parser.parse(reader.fields(), reader.record_line(), row)) continue;
+    if (!parser.parse(reader.fields(), reader.record_line(), row)) {
+      ++r.rows;
+      continue;
+    }
     // Once a file has a problem nothing of it will be kept: stop writing,
     // go on validating to report more problems.
     if (!r.problems.empty()) {
       ++r.rows;
       continue;
     }
-    if (store_row(row)) ++r.rows;
+    if (store_row(row) || !r.problems.empty()) ++r.rows;
   }
   parser.finish();
 }
@@ -122,6 +128,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
   ImportResult r;
   CsvReader reader(in);
   if (!reader.read_header(r.problems)) return r;
+  if (reader.delimiter_declared()) r.declared_delimiter = reader.delimiter();
   const KindDetection kind = detect_kind(reader.header());
   if (!kind.recognised) {
     r.problems.add(reader.header_line(), kind.reason_column >= 0 ? reader.header()[kind.reason_column] : "",

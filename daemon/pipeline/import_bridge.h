@@ -41,6 +41,7 @@ struct ImportResult {
   std::set<std::string> units;   // units touched
   std::vector<std::string> unsafe_items;
   bool offset_assumed = false;   // some times had no UTC offset
+  char declared_delimiter = 0;   // from a "sep=X" first line, 0 when none
   std::string file_reason;       // whole-file reason (e.g. kind not allowed for the party)
 };
 

@@ -99,6 +99,11 @@ void fill_receipt(Receipt& r, const ImportResult& result, const config::SiteConf
   r.problem_count = result.problems.count();
   r.warnings = result.warnings.entries();
   r.reason = result.file_reason;
+  if (result.declared_delimiter == '\t')
+    r.separator_note = "values separated by tabs, as the file's sep= first line says";
+  else if (result.declared_delimiter)
+    r.separator_note = std::string("values separated by '") + result.declared_delimiter +
+                       "', as the file's sep= first line says";
   if (result.offset_assumed)
     r.utc_offset_note = "times without a UTC offset were taken as UTC" + config.utc_offset_text + " (site.utc_offset)";
 }
@@ -301,6 +306,7 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
     if (ok) {
       r.status = "accepted";
       r.units.assign(result.units.begin(), result.units.end());
+      r.unsafe_items = result.unsafe_items;
       r.stored_as = fs::relative(destination("accepted", name, r.sha256, now), root_.root).string();
       rec.kind = r.kind;
       rec.status = "accepted";
@@ -348,9 +354,30 @@ fs::path Pipeline::receipt_dir(const std::string& party) const {
   return root_.drop() / party / "receipts";
 }
 
+// The receipt of an earlier drop under the same name is kept as NAME.N.txt /
+// NAME.N.json (N = 1 for the oldest, then 2, ...), so that the newest is
+// always NAME.txt / NAME.json and no answer a party was given is lost.
+namespace {
+void keep_earlier_receipt(const fs::path& dir, const std::string& name) {
+  std::error_code ec;
+  const fs::path txt = dir / (name + ".txt"), json = dir / (name + ".json");
+  const bool has_txt = fs::exists(txt, ec), has_json = fs::exists(json, ec);
+  if (!has_txt && !has_json) return;
+  for (int n = 1;; ++n) {
+    const std::string base = name + "." + std::to_string(n);
+    const fs::path old_txt = dir / (base + ".txt"), old_json = dir / (base + ".json");
+    if (fs::exists(old_txt, ec) || fs::exists(old_json, ec)) continue;
+    if (has_json) fs::rename(json, old_json);
+    if (has_txt) fs::rename(txt, old_txt);
+    return;
+  }
+}
+}  // namespace
+
 void Pipeline::write_receipt(const Receipt& r) {
   const fs::path dir = receipt_dir(r.party);
   fs::create_directories(dir);
+  keep_earlier_receipt(dir, fit_name(r.file, 240));
   site::write_file_atomically(dir / (fit_name(r.file, 240) + ".txt"), r.to_text());
   site::write_file_atomically(dir / (fit_name(r.file, 240) + ".json"), r.to_json());
 }

@@ -6,6 +6,7 @@
 #include <Poco/JSON/Stringifier.h>
 
 #include <cstdio>
+#include <filesystem>
 #include <sstream>
 
 #include "daemon/ingest/utf8.h"
@@ -55,6 +56,9 @@ std::string Receipt::to_json() const {
     j->set("column", x.column);
     j->set("message", x.message);
     j->set("count", x.count);
+    Array::Ptr lines = new Array;
+    for (const auto n : x.lines) lines->add(n);
+    j->set("lines", lines);
     w->add(j);
   }
   o->set("warnings", w);
@@ -73,6 +77,11 @@ std::string Receipt::to_json() const {
   Array::Ptr u = new Array;
   for (const auto& x : units) u->add(x);
   o->set("units", u);
+  if (!unsafe_items.empty()) {
+    Array::Ptr s = new Array;
+    for (const auto& x : unsafe_items) s->add(x);
+    o->set("unsafe_items_reported", s);
+  }
   if (status == "duplicate") {
     Object::Ptr d = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
     d->set("received_at", duplicate_of_received_at);
@@ -80,6 +89,7 @@ std::string Receipt::to_json() const {
     o->set("already_imported", d);
   }
   if (!utc_offset_note.empty()) o->set("time_note", utc_offset_note);
+  if (!separator_note.empty()) o->set("separator_note", separator_note);
   std::ostringstream out;
   Poco::JSON::Stringifier::stringify(o, out, 2);
   out << "\n";
@@ -106,6 +116,7 @@ Receipt Receipt::from_json(const std::string& json) {
   r.reason = str(o, "reason");
   r.problem_count = o->optValue<long long>("problem_count", 0);
   r.utc_offset_note = str(o, "time_note");
+  r.separator_note = str(o, "separator_note");
   if (auto a = o->getArray("problems")) {
     for (std::size_t i = 0; i < a->size(); ++i) {
       auto p = a->getObject(static_cast<unsigned>(i));
@@ -117,11 +128,17 @@ Receipt Receipt::from_json(const std::string& json) {
     for (std::size_t i = 0; i < a->size(); ++i) {
       auto w = a->getObject(static_cast<unsigned>(i));
       r.warnings.push_back({str(w, "column"), str(w, "message"), w->optValue<std::int64_t>("line", 0),
-                            w->optValue<std::int64_t>("count", 1)});
+                            w->optValue<std::int64_t>("count", 1), {}});
+      if (auto lines = w->getArray("lines"))
+        for (std::size_t k = 0; k < lines->size(); ++k)
+          r.warnings.back().lines.push_back(lines->getElement<std::int64_t>(static_cast<unsigned>(k)));
     }
   }
   if (auto a = o->getArray("units"))
     for (std::size_t i = 0; i < a->size(); ++i) r.units.push_back(a->getElement<std::string>(static_cast<unsigned>(i)));
+  if (auto a = o->getArray("unsafe_items_reported"))
+    for (std::size_t i = 0; i < a->size(); ++i)
+      r.unsafe_items.push_back(a->getElement<std::string>(static_cast<unsigned>(i)));
   if (auto d = o->getObject("already_imported")) {
     r.duplicate_of_received_at = str(d, "received_at");
     r.duplicate_of_stored_as = str(d, "stored_as");
@@ -136,26 +153,35 @@ std::string Receipt::to_text() const {
     o << "ACCEPTED: " << rows << " row" << (rows == 1 ? "" : "s") << " of " << kind << " imported.\n";
   } else if (status == "duplicate") {
     o << "ALREADY IMPORTED: the same content was already imported on " << duplicate_of_received_at << " as "
-      << duplicate_of_stored_as << ".\nNothing was changed.\n";
+      << std::filesystem::path(duplicate_of_stored_as).filename().string() << ".\nNothing was changed.\n";
   } else {
     o << "REJECTED: nothing from this file was imported.\n";
     if (!reason.empty()) o << reason << "\n";
     if (problem_count > 0) {
       o << problem_count << " problem" << (problem_count == 1 ? "" : "s") << " found";
       if (problem_count > static_cast<long long>(problems.size())) o << " (the first " << problems.size() << " are listed)";
-      o << ". Correct them and drop the whole file again.\n";
+      o << (problem_count == 1 ? ". Correct it" : ". Correct them") << " and drop the whole file again.\n";
     }
   }
   o << "\n  party:       " << party << "\n  received:    " << received_at << " (UTC)\n";
   if (!kind.empty()) o << "  kind:        " << kind << "\n";
   if (!sha256.empty()) o << "  sha256:      " << sha256 << "\n";
-  o << "  stored as:   " << stored_as << "\n";
+  // The site's own path (archive/..., quarantine/...) means nothing to a
+  // party, who cannot open it: the text names the copy (the JSON keeps the path).
+  o << "  site copy:   " << std::filesystem::path(stored_as).filename().string()
+    << " (kept by the site; quote this name when asking about the file)\n";
   if (!units.empty()) {
     o << "  units:       ";
     for (std::size_t i = 0; i < units.size(); ++i) o << (i ? ", " : "") << units[i];
     o << "\n";
   }
   if (!utc_offset_note.empty()) o << "  times:       " << utc_offset_note << "\n";
+  if (!separator_note.empty()) o << "  separator:   " << separator_note << "\n";
+  if (!unsafe_items.empty()) {
+    // Confirms to the inspector that the rating did not wait for a report.
+    o << "\nRated UNSAFE, reported to the site's planners at once:\n";
+    for (const auto& item : unsafe_items) o << "  " << item << "\n";
+  }
   if (!problems.empty()) {
     o << "\nProblems (line, column: reason [value]):\n";
     for (const auto& p : problems) {
@@ -167,9 +193,19 @@ std::string Receipt::to_text() const {
     }
   }
   if (!warnings.empty()) {
-    o << "\nWarnings (the file was still taken as a whole):\n";
+    // A rejected file was not taken at all: its warnings are what would
+    // still be reported once the problems above are corrected.
+    o << (status == "rejected" ? "\nWarnings (these alone would not stop the file):\n"
+                               : "\nWarnings (the file was still taken as a whole):\n");
     for (const auto& w : warnings) {
-      o << "  line " << w.first_line;
+      // The lines it was seen on (the first ones when many), not only the first.
+      if (w.lines.size() > 1) {
+        o << "  lines ";
+        for (std::size_t k = 0; k < w.lines.size(); ++k) o << (k ? ", " : "") << w.lines[k];
+        if (w.count > static_cast<long long>(w.lines.size())) o << ", ...";
+      } else {
+        o << "  line " << w.first_line;
+      }
       if (!w.column.empty()) o << ", column " << w.column;
       o << ": " << w.message;
       if (w.count > 1) o << " (" << w.count << " times)";

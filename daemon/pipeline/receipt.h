@@ -16,7 +16,7 @@ struct Receipt {
   std::string sha256;          // empty when the file was refused unread
   std::string status;          // "accepted", "rejected", "duplicate"
   std::string kind;            // file kind, "" when not recognised
-  long long rows = 0;          // rows imported (accepted) or read (rejected)
+  long long rows = 0;          // rows imported (accepted) or every data row read, bad ones too (rejected)
   std::string received_at;     // UTC ISO 8601
   std::string stored_as;       // archive/... or quarantine/..., relative to the site root
   std::string reason;          // file-level reason (permissions, refused unread, ...)
@@ -24,9 +24,11 @@ struct Receipt {
   long long problem_count = 0;
   std::vector<Warning> warnings;
   std::vector<std::string> units;   // units touched (accepted files)
+  std::vector<std::string> unsafe_items;  // "UNIT: item (date)" rated unsafe, reported to the site at once
   std::string duplicate_of_received_at;  // for duplicates: when the same content was imported
   std::string duplicate_of_stored_as;    // ... and as what
   std::string utc_offset_note;      // "times without an offset were taken as UTC+01:00"
+  std::string separator_note;       // "values separated by ';' as the sep= first line says"
 
   std::string to_json() const;
   std::string to_text() const;

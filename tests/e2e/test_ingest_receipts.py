@@ -151,7 +151,8 @@ class Duplicates(IngestCase):
         self.assertEqual(r["already_imported"], {"received_at": first["received_at"], "stored_as": first["stored_as"]})
         with open(self.path("drop", "planning", "receipts", "lab-again.csv.txt")) as f:
             text = f.read()
-        self.assertIn(f"already imported on {first['received_at']} as {first['stored_as']}", text.replace("\n", " "))
+        copy = os.path.basename(first["stored_as"])  # the text names the site's copy, not its server path
+        self.assertIn(f"already imported on {first['received_at']} as {copy}", text.replace("\n", " "))
         self.assertEqual(self.data_rows(), before)
         self.assertFalse(os.path.exists(self.path("drop", "planning", "lab-again.csv")))
         # The duplicate is kept too (nothing is deleted), and never over the original.
@@ -256,6 +257,69 @@ class Provenance(IngestCase):
         for name in ("units.csv", "lab-march.csv", "ir-april.csv"):
             self.assertIn(name, text)
         self.assertNotIn("t2-only.csv", text)  # a file about another unit only
+
+
+class ContractorsExports(IngestCase):
+    """Issue 19: receipts keep their history; a sep= first line is honoured."""
+
+    def test_earlier_receipts_of_a_name_are_kept_under_numbers(self):
+        folder = self.path("drop", "planning", "receipts")
+        self.drop("lab.csv", BAD_LAB)
+        self.ingest(expect=4)
+        self.drop("lab.csv", LAB)
+        self.ingest()
+        self.drop("lab.csv", LAB)
+        self.ingest()  # the same content again: a duplicate, and a third receipt
+        names = sorted(n for n in os.listdir(folder) if n.startswith("lab.csv"))
+        self.assertEqual(names, ["lab.csv.1.json", "lab.csv.1.txt", "lab.csv.2.json", "lab.csv.2.txt",
+                                 "lab.csv.json", "lab.csv.txt"])
+        statuses = []
+        for n in ("lab.csv.1.json", "lab.csv.2.json", "lab.csv.json"):
+            with open(os.path.join(folder, n)) as f:
+                statuses.append(json.load(f)["status"])
+        self.assertEqual(statuses, ["rejected", "accepted", "duplicate"])  # oldest first, newest unnumbered
+        with open(os.path.join(folder, "lab.csv.1.txt")) as f:
+            self.assertIn("REJECTED", f.read())
+
+    def test_sep_line_names_the_separator_and_the_receipt_says_so(self):
+        text = "sep=;\nunit_id;sample_date;lab_ref;h2_ppm\nT1;2026-03-14;L-1;12,5\n"
+        self.drop("lab.csv", text)
+        self.ingest()
+        r = self.receipt("lab.csv")
+        self.assertEqual((r["status"], r["rows"]), ("accepted", 1))
+        self.assertIn("sep=", r["separator_note"])
+        with self.db() as c:
+            # The decimal comma of a ';' file, as without the sep= line.
+            self.assertEqual(c.execute("SELECT value FROM oil_values WHERE test = 'h2_ppm'").fetchall(), [(12.5,)])
+        with open(self.path("drop", "planning", "receipts", "lab.csv.txt")) as f:
+            self.assertIn("separator:   values separated by ';'", f.read())
+
+    def test_rejected_receipt_counts_every_data_row(self):
+        # A bad row first, last, malformed (one value too many) and two good rows.
+        text = ("unit_id,sample_date,lab_ref,h2_ppm\nT1,2026-03-14,L-1,-5\nT1,2026-03-15,L-2,5\n"
+                "T1,2026-03-16,L-3,5,extra\nT2,2026-03-14,L-4,6\n\nT2,2026-03-15,L-5,x\n")
+        self.drop("lab.csv", text)
+        self.ingest(expect=4)
+        r = self.receipt("lab.csv")
+        self.assertEqual((r["status"], r["rows"], r["problem_count"]), ("rejected", 5, 3))
+
+    def test_unsafe_inspection_item_is_confirmed_as_reported(self):
+        self.drop("insp.csv", "unit_id,inspection_date,item,rating\nT1,2026-03-14,bushings,unsafe\n"
+                              "T1,2026-03-14,breather,good\n")
+        self.ingest()
+        r = self.receipt("insp.csv")
+        self.assertEqual(r["unsafe_items_reported"], ["T1: bushings (2026-03-14)"])
+        with open(self.path("drop", "planning", "receipts", "insp.csv.txt")) as f:
+            text = f.read()
+        self.assertIn("reported to the site's planners at once:\n  T1: bushings (2026-03-14)", text)
+
+    def test_rejected_receipt_wording(self):
+        self.drop("lab.csv", BAD_LAB)
+        self.ingest(expect=4)
+        with open(self.path("drop", "planning", "receipts", "lab.csv.txt")) as f:
+            text = f.read()
+        self.assertIn("1 problem found. Correct it and drop", text)
+        self.assertNotIn("still taken", text)
 
 
 if __name__ == "__main__":

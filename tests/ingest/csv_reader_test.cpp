@@ -212,3 +212,45 @@ TEST(CsvReader, SmallChunksGiveTheSameResult) {
 
 }  // namespace
 }  // namespace ferrum::ingest
+
+namespace ferrum::ingest {
+namespace {
+
+// Issue 19, item 4: a "sep=" first line, as spreadsheet programs write it.
+TEST(CsvReaderSepLine, NamesTheDelimiterAndIsNotTheHeader) {
+  const ReadAll r = read_all("sep=;\nunit_id;h2_ppm\nT1;1,5\n");
+  ASSERT_TRUE(r.header_ok);
+  EXPECT_EQ(r.delimiter, ';');
+  EXPECT_EQ(r.header, (std::vector<std::string>{"unit_id", "h2_ppm"}));
+  ASSERT_EQ(r.rows.size(), 1u);
+  EXPECT_EQ(r.rows[0], (std::vector<std::string>{"T1", "1,5"}));
+  EXPECT_EQ(r.lines[0], 3);  // lines keep counting the sep= line
+}
+
+TEST(CsvReaderSepLine, OverridesDetection) {
+  // Detection alone would take ';' (more of them in the header than ',').
+  EXPECT_EQ(read_all("a;b;c,d\n1;2;3,4\n").delimiter, ';');
+  const ReadAll r = read_all("sep=,\na;b;c,d\n1;2;3,4\n");
+  ASSERT_TRUE(r.header_ok);
+  EXPECT_EQ(r.delimiter, ',');
+  EXPECT_EQ(r.header, (std::vector<std::string>{"a;b;c", "d"}));
+}
+
+TEST(CsvReaderSepLine, OnlyASepLineIsNoHeader) {
+  const ReadAll r = read_all("sep=;\n");
+  EXPECT_FALSE(r.header_ok);
+  EXPECT_EQ(r.problems.count(), 1);
+}
+
+TEST(CsvReaderSepLine, ReportsThatItWasDeclared) {
+  std::istringstream with("sep=;\na;b\n"), without("a;b\n");
+  ProblemLog p;
+  CsvReader a(with), b(without);
+  ASSERT_TRUE(a.read_header(p));
+  ASSERT_TRUE(b.read_header(p));
+  EXPECT_TRUE(a.delimiter_declared());
+  EXPECT_FALSE(b.delimiter_declared());
+}
+
+}  // namespace
+}  // namespace ferrum::ingest
