@@ -253,10 +253,13 @@ class Bench:
         subprocess.run([str(self.kernels), f"--benchmark_repetitions={self.args.repeat}",
                         "--benchmark_report_aggregates_only=true", f"--benchmark_out={out_json}",
                         "--benchmark_out_format=json"], check=True, env=env, stdout=sys.stderr)
+        # Google Benchmark writes aggregates (median, ...) only for two or more
+        # repetitions; with --repeat 1 the single run is the median.
         med = {}
-        for b in json.loads(out_json.read_text())["benchmarks"]:
-            if b.get("aggregate_name") == "median":
-                med[b["run_name"]] = b
+        rows = json.loads(out_json.read_text())["benchmarks"]
+        for b in rows:
+            if b.get("aggregate_name") == "median" or (self.args.repeat == 1 and b.get("run_type") == "iteration"):
+                med[b.get("run_name", b["name"])] = b
         th = med["BM_ThermalUnitYear"]
         ms = th["real_time"]
         self.add(f"thermal kernel: 525,600 one-minute steps (n={self.args.repeat})", f"{ms:.1f}", "ms", "", "",
