@@ -13,6 +13,7 @@
 #include "daemon/assess/ranking_cache.h"
 #include "daemon/ingest/field_parsers.h"
 #include "report/fleet_report.h"
+#include "report/safety_text.h"
 
 namespace ferrum::app {
 namespace {
@@ -42,6 +43,12 @@ void print_assessment_text(const analytics::UnitAssessment& a) {
   for (const auto& m : a.missing) std::cout << "  missing: " << m << "\n";
 }
 
+// A JSON document with the one-line caution under "caution" (report/safety_text.h).
+std::string with_caution(Poco::JSON::Object::Ptr doc) {
+  doc->set("caution", report::one_line_caution());
+  return assess::stringify(doc);
+}
+
 }  // namespace
 
 int cmd_assess(const Invocation& inv) {
@@ -68,10 +75,11 @@ int cmd_assess(const Invocation& inv) {
                                 [&](analytics::UnitAssessment&& a) {
                                   if (whole_fleet) ranking_inputs.push_back(analytics::ranking_fields(a));
                                   if (!json) return print_assessment_text(a);
-                                  std::cout << (first ? "\n" : ",\n") << assess::stringify(assess::to_json(a));
+                                  std::cout << (first ? "\n" : ",\n") << with_caution(assess::to_json(a));
                                   first = false;
                                 });
   if (json) std::cout << (first ? "]\n" : "\n]\n");
+  else std::cout << "\n" << report::one_line_caution() << "\n";
   if (whole_fleet) assess::write_ranking_cache(site->root, cache_key, ranking_inputs);
   return kOk;
 }
@@ -92,7 +100,7 @@ int cmd_rank(const Invocation& inv) {
   }
   const auto ranking = analytics::rank_fleet(*units, as_of, assess::ranking_options_from_config(site->config));
   if (inv.has("json")) {
-    std::cout << assess::stringify(assess::to_json(ranking)) << "\n";
+    std::cout << with_caution(assess::to_json(ranking)) << "\n";
     return kOk;
   }
   if (inv.has("csv")) {
@@ -114,7 +122,7 @@ int cmd_rank(const Invocation& inv) {
   }
   std::cout << "\nrated MVA due per year:";
   for (const auto& y : ranking.mva_due_by_year) std::cout << "  " << y.year << ": " << fmt(y.mva, 0);
-  std::cout << "\n";
+  std::cout << "\n\n" << report::one_line_caution() << "\n";
   return kOk;
 }
 
@@ -147,7 +155,7 @@ int cmd_dga(const Invocation& inv) {
   if (inv.has("age")) unit.year_built = analytics::civil_from_days(today_day).year - std::stoi(inv.get("age"));
   const auto d = analytics::interpret_dga_sample(s, unit, today_day, analytics::OilOptions{});
   if (inv.has("json")) {
-    std::cout << assess::stringify(assess::to_json(d)) << "\n";
+    std::cout << with_caution(assess::to_json(d)) << "\n";
     return kOk;
   }
   std::cout << "TDCG                     " << fmt(d.tdcg_ppm, 0, " ppm") << "\n"
@@ -161,8 +169,8 @@ int cmd_dga(const Invocation& inv) {
             << "CO2/CO                   " << fmt(d.co2_co_ratio, 1) << "  " << d.co2_co_reading << "\n";
   if (!d.c57104_2008_interval.empty())
     std::cout << "sampling (C57.104-2008)  " << d.c57104_2008_interval << "; " << d.c57104_2008_action << "\n";
-  std::cout << "\nDecision support only: a qualified engineer decides. Do not re-energise a unit with signs of\n"
-               "active arcing before an engineer has evaluated it.\n";
+  std::cout << "\nDo not re-energise a unit with signs of active arcing before an engineer has evaluated it.\n"
+            << report::one_line_caution() << "\n";
   return kOk;
 }
 
@@ -192,6 +200,8 @@ int cmd_thermal(const Invocation& inv) {
     if (!std::isnan(p.measured_top_oil_c)) std::cout << std::setprecision(1) << p.measured_top_oil_c;
     std::cout << "\n";
   }
+  // A comment line, so that the series still reads as CSV/TSV.
+  std::cout << report::csv_caution_line() << "\n";
   return kOk;
 }
 

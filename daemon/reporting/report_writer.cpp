@@ -11,6 +11,7 @@
 #include "daemon/site/atomic_file.h"
 #include "report/alert_report.h"
 #include "report/fleet_report.h"
+#include "report/safety_text.h"
 #include "report/unit_report.h"
 
 namespace fs = std::filesystem;
@@ -172,7 +173,8 @@ fs::path ReportWriter::alert(const std::string& unit_id, const std::string& kind
   const fs::path csv = root_.alerts() / "alerts.csv";
   const bool fresh = !fs::exists(csv);
   std::ofstream out(csv, std::ios::app);
-  if (fresh) out << "raised_at,unit_id,site,kind,text,first_step,pdf\n";
+  // The file grows by appending, so its caution is a comment line at its top.
+  if (fresh) out << report::csv_caution_line() << "\nraised_at,unit_id,site,kind,text,first_step,pdf\n";
   out << csv_field(raised_at) << "," << csv_field(unit_id) << "," << csv_field(info.site) << "," << csv_field(kind)
       << "," << csv_field(text) << "," << csv_field(first_step) << "," << csv_field(pdf.filename().string()) << "\n";
   out.flush();

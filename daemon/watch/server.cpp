@@ -275,8 +275,10 @@ struct Server::Impl {
       writer->alert(unit, "acetylene",
                     before.c2h2 <= 0 ? "acetylene appeared: " + std::to_string(static_cast<int>(now.c2h2 + 0.5)) + " ppm"
                                      : "acetylene rising: " + std::to_string(before.c2h2) + " -> " + std::to_string(now.c2h2) + " ppm",
-                    "Resample the oil at once to confirm; an engineer decides whether the unit stays energised. "
-                    "Do not re-energise after a trip before that evaluation.",
+                    "Resample the oil at once to confirm, with the responsible engineer's permission: the unit "
+                    "may be gassing while energised, so keep the time at the unit short and consider sampling "
+                    "after de-energising. An engineer decides whether the unit stays energised. Do not "
+                    "re-energise after a trip before that evaluation.",
                     at);
     if (now.condition > before.condition && before.condition > 0)
       writer->alert(unit, "gas_condition",
