@@ -7,6 +7,7 @@
 #include "analytics/oil_assessment.h"
 #include "analytics/thermal_assessment.h"
 #include "daemon/app/commands_impl.h"
+#include "daemon/app/progress_display.h"
 #include "daemon/app/site_context.h"
 #include "daemon/assess/assessment_json.h"
 #include "daemon/assess/assessment_service.h"
@@ -71,8 +72,13 @@ int cmd_assess(const Invocation& inv) {
   const bool json = inv.has("json");
   bool first = true;
   if (json) std::cout << "[";
+  // Progress on a terminal only; with text on the same terminal it would
+  // interleave, so only while the output goes elsewhere (--json or a pipe).
+  ProgressDisplay progress("assessing", "units", inv.has("quiet") || (!json && is_terminal(1)));
+  std::size_t done = 0;
   assess::assess_units_parallel(site->root.database().string(), ids, as_of, options, 0,
                                 [&](analytics::UnitAssessment&& a) {
+                                  progress.update(static_cast<double>(++done), static_cast<double>(ids.size()));
                                   if (whole_fleet) ranking_inputs.push_back(analytics::ranking_fields(a));
                                   if (!json) return print_assessment_text(a);
                                   std::cout << (first ? "\n" : ",\n") << with_caution(assess::to_json(a));
@@ -92,8 +98,13 @@ int cmd_rank(const Invocation& inv) {
   const std::string cache_key = assess::ranking_cache_key(site->root, *site->store, as_of);
   auto units = inv.has("fresh") ? std::nullopt : assess::read_ranking_cache(site->root, cache_key);
   if (!units) {
+    ProgressDisplay progress("assessing", "units", inv.has("quiet"));
     units = assess::assess_fleet_parallel(*site->store, site->root.database().string(), as_of,
-                                          assess::options_from_config(site->config, &site->root));
+                                          assess::options_from_config(site->config, &site->root),
+                                          [&](const char*, std::size_t done, std::size_t total) {
+                                            progress.update(static_cast<double>(done), static_cast<double>(total));
+                                          });
+    progress.finish();
     std::vector<analytics::UnitAssessment> inputs;
     for (const auto& a : *units) inputs.push_back(analytics::ranking_fields(a));
     assess::write_ranking_cache(site->root, cache_key, inputs);

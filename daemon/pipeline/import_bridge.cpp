@@ -101,11 +101,14 @@ class LoadWriter {
 };
 
 template <class Parser, class Row, class Store>
-void run_rows(CsvReader& reader, Parser& parser, ImportResult& r, const std::atomic<bool>* cancel,
+void run_rows(CsvReader& reader, Parser& parser, ImportResult& r, const ImportSettings& settings,
               Store&& store_row) {
   Row row;
   for (std::uint64_t n = 1;; ++n) {
-    if (cancel && (n & 4095) == 0 && cancel->load(std::memory_order_relaxed)) throw ImportCancelled();
+    if ((n & 4095) == 0) {
+      if (settings.cancel && settings.cancel->load(std::memory_order_relaxed)) throw ImportCancelled();
+      if (settings.tick) settings.tick();
+    }
     const RecordStatus st = reader.next(r.problems);
     if (st == RecordStatus::end) break;
     // A rejected file's receipt counts every data row read, bad ones too.
@@ -169,7 +172,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
   switch (kind.kind) {
     case FileKind::units_register: {
       UnitRowParser p(kind.columns, po, comma, r.problems, r.warnings);
-      run_rows<UnitRowParser, UnitRow>(reader, p, r, s.cancel, [&](const UnitRow& row) {
+      run_rows<UnitRowParser, UnitRow>(reader, p, r, s, [&](const UnitRow& row) {
         if (!site_allowed(s, row.unit.unit_id, row.unit.site, row.line, r.problems)) return false;
         if (store.upsert_unit(row.unit, s.file_id, static_cast<int>(row.line))) r.units.insert(row.unit.unit_id);
         return true;
@@ -178,7 +181,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
     }
     case FileKind::oil_lab: {
       OilRowParser p(kind.columns, po, comma, r.problems, r.warnings);
-      run_rows<OilRowParser, OilRow>(reader, p, r, s.cancel, [&](const OilRow& row) {
+      run_rows<OilRowParser, OilRow>(reader, p, r, s, [&](const OilRow& row) {
         const auto* u = units.find(row.unit_id);
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;  // `ferrum check` away from a site
@@ -190,7 +193,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
     }
     case FileKind::infrared: {
       InfraredRowParser p(kind.columns, po, comma, r.problems, r.warnings);
-      run_rows<InfraredRowParser, InfraredRow>(reader, p, r, s.cancel, [&](const InfraredRow& row) {
+      run_rows<InfraredRowParser, InfraredRow>(reader, p, r, s, [&](const InfraredRow& row) {
         const auto* u = units.find(row.unit_id);
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;
@@ -202,7 +205,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
     }
     case FileKind::inspection: {
       InspectionRowParser p(kind.columns, po, comma, r.problems, r.warnings);
-      run_rows<InspectionRowParser, InspectionRow>(reader, p, r, s.cancel, [&](const InspectionRow& row) {
+      run_rows<InspectionRowParser, InspectionRow>(reader, p, r, s, [&](const InspectionRow& row) {
         const auto* u = units.find(row.unit_id);
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;
@@ -222,7 +225,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
       LoadWriter writer(store, r, std::string(reader.column_name(static_cast<std::size_t>(ts_index))), ts_index + 1);
       std::string last_checked;
       const analytics::UnitInfo* u = nullptr;
-      run_rows<LoadRowParser, LoadRow>(reader, p, r, s.cancel, [&](const LoadRow& row) {
+      run_rows<LoadRowParser, LoadRow>(reader, p, r, s, [&](const LoadRow& row) {
         if (row.unit_id != last_checked) {  // a new run of rows of one unit
           UnitCache::Entry& e = units.entry(row.unit_id);
           u = e.info.get();

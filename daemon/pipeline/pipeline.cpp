@@ -296,7 +296,16 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
     settings.file_id = rec.id;
     std::ifstream in(claimed, std::ios::binary);
     if (!in) throw std::runtime_error("cannot open the claimed file " + claimed.string());
+    if (progress_) {
+      std::error_code ec;
+      const std::uint64_t total = fs::file_size(claimed, ec);
+      settings.tick = [&] {
+        const auto at = in.tellg();
+        progress_(name, at < 0 ? total : static_cast<std::uint64_t>(at), total);
+      };
+    }
     result = import_stream(in, settings, store_);
+    if (settings.tick) progress_(name, 0, 0);  // the end of the file's progress
     fill_receipt(r, result, config_);
     // A writer still holding the file open may have appended to it while it
     // was hashed and parsed: the rows would not be those of the stored bytes.

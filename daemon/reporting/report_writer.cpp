@@ -112,7 +112,7 @@ fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as
 }
 
 ReportWriter::FleetFiles ReportWriter::fleet_report(analytics::Day as_of, const fs::path& out_dir) {
-  const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_);
+  const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_, progress_);
   return fleet_files(units, rank(units, as_of), as_of, out_dir);
 }
 
@@ -144,12 +144,14 @@ fs::path ReportWriter::weekly_bundle(analytics::Day as_of) {
   fs::remove_all(scratch);
   fs::create_directories(scratch);
   std::vector<std::pair<std::string, std::string>> unit_files;
-  for (const auto& u : store_.units()) {
+  const auto register_units = store_.units();
+  for (const auto& u : register_units) {
     const fs::path p = unit_report(u.unit_id, as_of, scratch);
     unit_files.emplace_back(u.unit_id, p.filename().string());
+    if (progress_) progress_("unit reports", unit_files.size(), register_units.size());
   }
   // One fleet assessment serves the fleet report and the index.
-  const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_);
+  const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_, progress_);
   const auto ranking = rank(units, as_of);
   fleet_files(units, ranking, as_of, scratch);
   report::render_weekly_index(label, ranking, unit_files, report_options(config_), (scratch / "index.pdf").string());
