@@ -16,10 +16,10 @@ constexpr const char* kSource =
 
 const char* neta_text(int priority) {
   switch (priority) {
-    case 1: return "NETA priority 1: major discrepancy, repair immediately";
-    case 2: return "NETA priority 2: monitor until corrective measures can be taken";
-    case 3: return "NETA priority 3: probable deficiency, repair as time permits";
-    case 4: return "NETA priority 4: possible deficiency, investigate";
+    case 1: return "priority 1: repair immediately (major discrepancy)";
+    case 2: return "priority 2: monitor until corrective measures are taken";
+    case 3: return "priority 3: repair as time permits (probable deficiency)";
+    case 4: return "priority 4: investigate (possible deficiency)";
   }
   return "no deficiency (rise below 1 °C)";
 }

@@ -9,11 +9,14 @@
 //   ferrum_bench_gen lab COUNT UNITS DIR          COUNT one-sample oil-lab files (lab-NNN.csv) for
 //                                                 units 1..UNITS in turn, dated 2026 after the history
 #include <charconv>
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <filesystem>
+#include <random>
 #include <stdexcept>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "bench/fleet_model.h"
@@ -89,26 +92,53 @@ void write_register(int units, const fs::path& path) {
   out.close();
 }
 
+void write_load_point(CsvOut& out, const std::string& id, const analytics::LoadPoint& p) {
+  // "2026-01-01T05:00Z": minutes only, as many SCADA exports write it
+  out.text(id).sep().text(analytics::format_utc(p.t).substr(0, 16)).text("Z").sep().num(p.load_pu).sep()
+      .num(p.ambient_c).sep().num(p.top_oil_c);
+  out.end_row();
+}
+
 void write_load_rows(CsvOut& out, int n, analytics::Timestamp start, int count) {
   const std::string id = bench::unit_id(n);
-  for (const auto& p : bench::load_series(n, start, count, 3600)) {
-    // "2026-01-01T05:00Z": minutes only, as many SCADA exports write it
-    out.text(id).sep().text(analytics::format_utc(p.t).substr(0, 16)).text("Z").sep().num(p.load_pu).sep()
-        .num(p.ambient_c).sep().num(p.top_oil_c);
-    out.end_row();
-  }
+  for (const auto& p : bench::load_series(n, start, count, 3600)) write_load_point(out, id, p);
 }
 
 constexpr const char* kLoadHeader = "unit_id,timestamp,load_pu,ambient_c,top_oil_c";
 
-void write_load(long rows, int units, const fs::path& path) {
+// The same rows in one of three orders: "unit-major" (each unit's series in
+// turn, as one meter exports them), "time-major" (every unit at one time,
+// then every unit at the next, as a control-room historian exports them) or
+// "shuffled" (a fixed pseudo-random permutation).
+void write_load(long rows, int units, const fs::path& path, const std::string& order) {
   CsvOut out(path);
   out.text(kLoadHeader).end_row();
   const analytics::Timestamp start = analytics::start_of(analytics::days_from_civil(2026, 1, 1));
-  for (int n = 1; n <= units; ++n) {
-    const long begin = rows * (n - 1) / units, end = rows * n / units;
-    write_load_rows(out, n, start, static_cast<int>(end - begin));
+  auto count = [&](int n) { return static_cast<int>(rows * n / units - rows * (n - 1) / units); };
+  if (order == "unit-major") {
+    for (int n = 1; n <= units; ++n) write_load_rows(out, n, start, count(n));
+    out.close();
+    return;
   }
+  if (order != "time-major" && order != "shuffled") throw std::runtime_error("unknown order " + order);
+  std::vector<std::vector<analytics::LoadPoint>> series(static_cast<std::size_t>(units));
+  std::vector<std::string> ids(static_cast<std::size_t>(units));
+  int longest = 0;
+  for (int n = 1; n <= units; ++n) {
+    series[n - 1] = bench::load_series(n, start, count(n), 3600);
+    ids[n - 1] = bench::unit_id(n);
+    longest = std::max(longest, count(n));
+  }
+  std::vector<std::pair<int, int>> cells;  // (unit index, point index)
+  cells.reserve(static_cast<std::size_t>(rows));
+  for (int i = 0; i < longest; ++i)
+    for (int u = 0; u < units; ++u)
+      if (i < count(u + 1)) cells.emplace_back(u, i);
+  if (order == "shuffled") {
+    std::mt19937_64 random(20261202);  // Fisher-Yates with a fixed seed: the same file every run
+    for (std::size_t i = cells.size() - 1; i > 0; --i) std::swap(cells[i], cells[random() % (i + 1)]);
+  }
+  for (const auto& [u, i] : cells) write_load_point(out, ids[u], series[u][i]);
   out.close();
 }
 
@@ -183,7 +213,8 @@ void write_lab_drops(int count, int units, const fs::path& dir) {
 }
 
 int usage() {
-  std::fputs("usage: ferrum_bench_gen register UNITS FILE | load ROWS UNITS FILE | fleet UNITS DIR |"
+  std::fputs("usage: ferrum_bench_gen register UNITS FILE | load ROWS UNITS [unit-major|time-major|shuffled] FILE |"
+             " fleet UNITS DIR |"
              " lab COUNT UNITS DIR\n", stderr);
   return 2;
 }
@@ -194,7 +225,8 @@ int main(int argc, char** argv) {
   const std::vector<std::string> a(argv + 1, argv + argc);
   try {
     if (a.size() == 3 && a[0] == "register") write_register(std::stoi(a[1]), a[2]);
-    else if (a.size() == 4 && a[0] == "load") write_load(std::stol(a[1]), std::stoi(a[2]), a[3]);
+    else if (a.size() == 4 && a[0] == "load") write_load(std::stol(a[1]), std::stoi(a[2]), a[3], "unit-major");
+    else if (a.size() == 5 && a[0] == "load") write_load(std::stol(a[1]), std::stoi(a[2]), a[4], a[3]);
     else if (a.size() == 3 && a[0] == "fleet") write_fleet(std::stoi(a[1]), a[2]);
     else if (a.size() == 4 && a[0] == "lab") write_lab_drops(std::stoi(a[1]), std::stoi(a[2]), a[3]);
     else return usage();

@@ -30,7 +30,9 @@ from pathlib import Path
 
 AS_OF = "2026-12-01"
 FLEET_UNITS = 5000
+FLEET_CURVE = [1000, 5000, 20000]
 INGEST_UNITS = 5000
+LOAD_ORDERS = ["unit-major", "time-major", "shuffled"]
 LATENCY_UNITS = 50
 LATENCY_DROPS = 50
 
@@ -62,6 +64,16 @@ class Bench:
         self.ferrum = self.build / "daemon" / "ferrum"
         self.gen = self.build / "bench" / "ferrum_bench_gen"
         self.kernels = self.build / "bench" / "ferrum_bench_kernels"
+        # Sizes: the targets' sizes, or tiny ones for --smoke (ctest label
+        # smoke: the harness runs end to end in seconds, so it cannot rot).
+        smoke = args.smoke
+        self.ingest_units = 20 if smoke else INGEST_UNITS
+        self.ingest_rows = 2000 if smoke else 1_000_000
+        self.big_rows = 20_000 if smoke else 10_000_000
+        self.fleet_sizes = [10, 20, 40] if smoke else FLEET_CURVE
+        self.fleet_units = 20 if smoke else FLEET_UNITS
+        self.latency_units = 5 if smoke else LATENCY_UNITS
+        self.latency_drops = 3 if smoke else LATENCY_DROPS
         self.data = self.work / "data"
         self.data.mkdir(parents=True, exist_ok=True)
         self.rows = []      # result table rows
@@ -140,15 +152,21 @@ class Bench:
     # ------------------------------------------------------------ 1. ingest
     def bench_ingest(self):
         self.section("ingest")
-        register = self.generated(f"units-{INGEST_UNITS}.csv", "register", INGEST_UNITS)
-        sizes = [1_000_000] + ([10_000_000] if self.args.with_10m else [])
+        register = self.generated(f"units-{self.ingest_units}.csv", "register", self.ingest_units)
+        one, big = self.ingest_rows, self.big_rows
+        sizes = [one] + ([big] if self.args.with_10m or self.args.smoke else [])
         if self.args.only_10m:
-            sizes = [10_000_000]
+            sizes = [big]
         results = {}
-        for rows in sizes:
-            data = self.generated(f"load-{rows}.csv", "load", rows, INGEST_UNITS)
-            reps = self.args.repeat if rows == 1_000_000 else 1
-            label = f"{rows // 1_000_000}M"
+        # The same rows in three orders (bench/generate.cpp): the 1M file in
+        # each, the 10M one time-major (the order that once thrashed SQLite's
+        # page cache) for peak memory.
+        runs = [(rows, order) for rows in sizes
+                for order in (LOAD_ORDERS if rows == one else ["time-major"])]
+        for rows, order in runs:
+            data = self.generated(f"load-{rows}-{order}.csv", "load", rows, self.ingest_units, order)
+            reps = self.args.repeat if rows == one else 1
+            label = (f"{rows // 1_000_000}M" if rows >= 1_000_000 else f"{rows}-row") + f" {order}"
             f_wall, f_rss, s_wall, s_rss, f_cpu, s_cpu = [], [], [], [], [], []
             for i in range(reps):
                 root = self.new_root(f"ingest-root-{label}")
@@ -172,7 +190,7 @@ class Bench:
                 self.log(f"ingest {rows} rows #{i + 1}: ferrum {f_wall[-1]:.2f} s {f_rss[-1]:.0f} MiB,"
                          f" sqlite3 shell {s_wall[-1]:.2f} s  (load {self.loadavg()})")
             fw, sw = statistics.median(f_wall), statistics.median(s_wall)
-            results[rows] = statistics.median(f_rss)
+            results[(rows, order)] = statistics.median(f_rss)
             ratio = sw / fw
             self.add(f"ingest {label} load rows: `ferrum ingest` (n={reps})", f"{rows / fw / 1e3:.0f}k",
                      "rows/s", f"{rows / sw / 1e3:.0f}k (sqlite3 .import)", f"{ratio:.2f}×", "≥ 1.0×",
@@ -181,22 +199,24 @@ class Bench:
             fc, sc = statistics.median(f_cpu), statistics.median(s_cpu)
             self.add(f"ingest {label}: CPU time (user + sys) ferrum / sqlite3 shell", f"{fc:.2f}", "s", f"{sc:.2f}",
                      f"{sc / fc:.2f}×", "≥ 1.0×", "yes" if sc >= fc else "no")
-            self.add(f"ingest {label}: peak RSS ferrum / sqlite3 shell", f"{results[rows]:.0f}", "MiB",
+            self.add(f"ingest {label}: peak RSS ferrum / sqlite3 shell", f"{results[(rows, order)]:.0f}", "MiB",
                      f"{statistics.median(s_rss):.0f}", "", "", "")
-        if 10_000_000 in results and 1_000_000 in results:
-            growth = results[10_000_000] / results[1_000_000]
-            self.add("ingest peak RSS 10M / 1M rows", f"{growth:.2f}", "×", "1M run", f"{growth:.2f}×", "≤ 1.2×",
+        big, small = (big, "time-major"), (one, "time-major")
+        if big in results and small in results:
+            growth = results[big] / results[small]
+            self.add(f"ingest peak RSS {big[0]:,} / {one:,} rows, time-major", f"{growth:.2f}", "×", "1M run", f"{growth:.2f}×",
+                     "≤ 1.2×",
                      "yes" if growth <= 1.2 else "no")
 
     # ------------------------------------------------------------ 2. fleet
-    def fleet_root(self):
-        """The 5,000-unit site, ingested once and kept (its data is deterministic)."""
-        files = self.generated(f"fleet-{FLEET_UNITS}", "fleet", FLEET_UNITS)
-        root = self.work / "fleet-root"
+    def fleet_root(self, units):
+        """A site of `units` units, ingested once and kept (its data is deterministic)."""
+        files = self.generated(f"fleet-{units}", "fleet", units)
+        root = self.work / f"fleet-root-{units}"
         if (root / ".complete").exists():
             return root
         self.log("ingesting the fleet (once; kept in the work folder)")
-        root = self.new_root("fleet-root")
+        root = self.new_root(f"fleet-root-{units}")
         t0 = time.perf_counter()
         self.ingest(root, self.drop(root, files / "units.csv"))
         others = ["oil.csv", "infrared.csv", "inspection.csv"] + sorted(
@@ -206,7 +226,8 @@ class Bench:
         return root
 
     def bench_fleet(self):
-        root = self.fleet_root()
+        """The fleet at the target size (fleet_units), then the cost curve."""
+        root = self.fleet_root(self.fleet_units)
         self.section("fleet")
         db = root / "ferrum.db"
         counts = {}
@@ -220,7 +241,7 @@ class Bench:
             wall, a_rss, out = self.timed([self.ferrum, "assess", "--root", root, "--json", "--as-of", AS_OF],
                                           stdout=subprocess.PIPE)
             assess_t.append(wall)
-            if len(json.loads(out)) != FLEET_UNITS:
+            if len(json.loads(out)) != self.fleet_units:
                 raise RuntimeError("assess --json did not list every unit")
             wall, r_rss, out = self.timed([self.ferrum, "rank", "--root", root, "--as-of", AS_OF])
             rank_t.append(wall)
@@ -242,6 +263,47 @@ class Bench:
                  f"{rf / f:.2f}×", "", "")
         self.add("fleet: peak RSS `assess --json` / `rank --fresh`", f"{a_rss:.0f}", "MiB", f"{f_rss:.0f}", "", "", "")
         self.notes.append("- fleet rows: " + ", ".join(f"{t} {c:,}" for t, c in counts.items()))
+        self.fleet_curve()
+        self.weekly_bundle(root)
+
+    def fleet_curve(self):
+        """`assess --json` + `rank --fresh` per unit and peak memory at each fleet size: time per
+        unit should stay flat within 20 %, peak memory should not grow with the fleet."""
+        per_unit, peak = {}, {}
+        for units in self.fleet_sizes:
+            root = self.fleet_root(units)
+            times, rss = [], []
+            for _ in range(self.args.repeat):
+                wall_a, rss_a, _ = self.timed([self.ferrum, "assess", "--root", root, "--json", "--as-of", AS_OF,
+                                               "--quiet"], stdout=subprocess.DEVNULL)
+                wall_r, rss_r, _ = self.timed([self.ferrum, "rank", "--root", root, "--as-of", AS_OF, "--fresh",
+                                               "--quiet"])
+                times.append((wall_a + wall_r) / units)
+                rss.append(max(rss_a, rss_r))
+            per_unit[units], peak[units] = statistics.median(times), statistics.median(rss)
+            self.log(f"curve {units} units: {per_unit[units] * 1e3:.2f} ms/unit, {peak[units]:.0f} MiB"
+                     f"  (load {self.loadavg()})")
+        small, large = min(per_unit), max(per_unit)
+        for units in sorted(per_unit):
+            self.add(f"curve: `assess --json` + `rank --fresh`, {units:,} units", f"{per_unit[units] * 1e3:.2f}",
+                     "ms/unit", f"{per_unit[small] * 1e3:.2f} ({small:,} units)",
+                     f"{per_unit[units] / per_unit[small]:.2f}×", "≤ 1.2×",
+                     "yes" if per_unit[units] <= 1.2 * per_unit[small] else "no")
+        self.add(f"curve: peak RSS {large:,} / {small:,} units", f"{peak[large]:.0f}", "MiB", f"{peak[small]:.0f}",
+                 f"{peak[large] / peak[small]:.2f}×", "≤ 1.2×", "yes" if peak[large] <= 1.2 * peak[small] else "no")
+        # A small chart of the curve for results.md (text: the file is read in a terminal too).
+        top = max(per_unit.values())
+        for units in sorted(per_unit):
+            bar = "#" * max(1, round(40 * per_unit[units] / top))
+            self.notes.append(f"    {units:>6,} units {bar} {per_unit[units] * 1e3:.2f} ms/unit")
+
+    def weekly_bundle(self, root):
+        """The weekly bundle (every unit PDF, the fleet report, the index) of the target fleet."""
+        shutil.rmtree(root / "reports", ignore_errors=True)
+        wall, rss, _ = self.timed([self.ferrum, "report", "--root", root, "--weekly", "--as-of", AS_OF, "--quiet"])
+        target = 180 * self.fleet_units / FLEET_UNITS
+        self.add(f"weekly bundle, {self.fleet_units:,} units", f"{wall:.1f}", "s", f"CPU {self.cpu:.1f} s", "",
+                 f"≤ {target:.0f} s", "yes" if wall <= target else "no")
 
     # ------------------------------------------------------------ 3+4. kernels
     def bench_kernels(self):
@@ -281,8 +343,8 @@ class Bench:
 
     # ------------------------------------------------------------ 5. latency
     def bench_latency(self):
-        files = self.generated(f"fleet-{LATENCY_UNITS}", "fleet", LATENCY_UNITS)
-        drops = self.generated(f"lab-drops-{LATENCY_DROPS}", "lab", LATENCY_DROPS, LATENCY_UNITS)
+        files = self.generated(f"fleet-{self.latency_units}", "fleet", self.latency_units)
+        drops = self.generated(f"lab-drops-{self.latency_drops}", "lab", self.latency_drops, self.latency_units)
         root = self.new_root("latency-root", settle=0, debounce=0)
         self.ingest(root, self.drop(root, files / "units.csv"))
         self.ingest(root, *[self.drop(root, files / n) for n in
@@ -382,10 +444,17 @@ def main():
     ap.add_argument("--only-10m", action="store_true", help="ingest only the 10,000,000-row file")
     ap.add_argument("--only", action="append", choices=["ingest", "fleet", "kernels", "latency"])
     ap.add_argument("--results", help="results.md to update (only by a run of every section)")
+    ap.add_argument("--smoke", action="store_true",
+                    help="tiny sizes, repeat 1, no results written: checks that the harness runs (ctest label smoke)")
     args = ap.parse_args()
+    if args.smoke:
+        args.repeat, args.results = 1, None
     b = Bench(args)
     started = datetime.datetime.now(datetime.timezone.utc).strftime("%Y-%m-%d %H:%M")
-    for name in args.only or ["ingest", "fleet", "kernels", "latency"]:
+    sections = args.only or ["ingest", "fleet", "kernels", "latency"]
+    if args.smoke and not b.kernels.exists():
+        sections = [s for s in sections if s != "kernels"]  # Google Benchmark kernels: bench/run only
+    for name in sections:
         getattr(b, "bench_" + name)()
     b.write(started)
 

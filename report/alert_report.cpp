@@ -1,5 +1,8 @@
 #include "report/alert_report.h"
 
+#include <cctype>
+#include <utility>
+
 #include "report/page_flow.h"
 #include "report/pdf_document.h"
 #include "report/report_format.h"
@@ -11,12 +14,30 @@ namespace {
 std::string or_dash(const std::string& s) { return s.empty() ? std::string(kNoValue) : s; }
 }  // namespace
 
+std::string alert_title(const std::string& kind) {
+  static const std::pair<const char*, const char*> titles[] = {
+      {"acetylene", "Acetylene appeared or rising"},
+      {"gas_condition", "Gas condition worse (IEEE C57.104-2008)"},
+      {"dga_status", "DGA status worse (IEEE C57.104-2019)"},
+      {"hot_spot", "Hot spot above the emergency limit"},
+      {"unsafe_inspection", "Unsafe item found at inspection"},
+  };
+  for (const auto& [k, title] : titles)
+    if (kind == k) return title;
+  if (kind.empty()) return "Condition alert";
+  std::string words = kind;
+  for (char& c : words)
+    if (c == '_') c = ' ';
+  words[0] = static_cast<char>(std::toupper(static_cast<unsigned char>(words[0])));
+  return words;
+}
+
 void render_alert(const AlertInfo& alert, const ReportOptions& options, const std::string& path) {
-  const std::string title = "Alert: " + or_dash(alert.kind) + " on " + or_dash(alert.unit_id);
+  const std::string title = alert_title(alert.kind) + " on " + or_dash(alert.unit_id);
   PdfDocument doc(options, title, "Condition alert");
   PageFlow flow(doc, title);
   draw_title_block(flow, options, "Condition alert", title, "raised " + or_dash(alert.raised_at));
-  flow.key_values({{"Unit", or_dash(alert.unit_id)}, {"Site", or_dash(alert.site)}, {"Alert", or_dash(alert.kind)},
+  flow.key_values({{"Unit", or_dash(alert.unit_id)}, {"Site", or_dash(alert.site)}, {"Alert", alert_title(alert.kind)},
                    {"Raised", or_dash(alert.raised_at)}},
                   4);
   flow.section("What happened", 30);

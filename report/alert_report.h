@@ -17,6 +17,11 @@ struct AlertInfo {
   std::string first_step;  // what to do first
 };
 
+// The alert's title in words, e.g. "Unsafe item found at inspection" for the
+// kind "unsafe_inspection"; an unknown kind is spelled out with spaces. The
+// kind itself stays in file names and in CSV/JSON keys.
+std::string alert_title(const std::string& kind);
+
 // Written atomically; throws RenderError.
 void render_alert(const AlertInfo& alert, const ReportOptions& options, const std::string& path);
 

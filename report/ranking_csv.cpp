@@ -3,6 +3,7 @@
 #include <optional>
 
 #include "report/fleet_report.h"
+#include "report/safety_text.h"
 
 namespace ferrum::report {
 namespace {
@@ -49,7 +50,9 @@ std::string fleet_ranking_csv(const analytics::FleetRanking& ranking) {
     }
     csv += '\n';
   }
-  return csv;
+  // The caution as a final comment line (spreadsheets show it; CSV readers
+  // told to skip comments ignore it).
+  return csv + csv_caution_line() + "\n";
 }
 
 }  // namespace ferrum::report

@@ -24,43 +24,6 @@ double line_height() { return kSize * 1.25; }
 
 }  // namespace
 
-const std::string& safety_heading() {
-  static const std::string heading = "SAFETY — read before acting on this document";
-  return heading;
-}
-
-const std::vector<Caution>& safety_cautions() {
-  static const std::vector<Caution> cautions = {
-      {"Qualified persons only.",
-       "Work on or near energised equipment (sampling, infrared surveys, inspections) only by qualified "
-       "persons under the applicable electrical-safety rules, e.g. NFPA 70E, OSHA 29 CFR 1910.269, "
-       "EN 50110-1, or the local equivalent; keep minimum approach distances and hold a job briefing."},
-      {"Isolate before contact.",
-       "Isolate, lock out and tag out, verify absence of voltage and apply working earths before any "
-       "contact; treat bushings and cables as live until discharged and earthed."},
-      {"Arc flash.",
-       "Assess the arc-flash hazard (incident energy) and wear arc-rated protective equipment; opening "
-       "covers for thermography is an exposure."},
-      {"Oil sampling.",
-       "Sample only under the site's procedure, by trained personnel; never where the valve is under "
-       "negative pressure. Hot oil and pressurised tanks can burn or spray."},
-      {"Active arcing.",
-       "Do not energise or re-energise a unit with signs of active arcing (acetylene appearing or rising, "
-       "gas-relay operation) until an engineer has evaluated it."},
-      {"Oil handling and PCB.",
-       "Wear gloves and eye protection and contain spills. Oil in old units (built before 1979) may contain "
-       "PCB: treat it as PCB-contaminated until tested, and follow the applicable disposal rules."},
-      {"Combustible gases.",
-       "Gas-relay and headspace gas can be flammable (H₂, C₂H₂): exclude ignition sources and use "
-       "instruments rated for the atmosphere. A drained tank is a confined space: entry only under permit."},
-      {"Decision support only.",
-       "This document supports decisions; it gives no switching or entry instructions. Findings must be "
-       "confirmed by qualified personnel, and local codes, the employer's safety rules and licensed "
-       "engineering practice govern."},
-  };
-  return cautions;
-}
-
 double safety_block_height(PageFlow& flow) {
   const double inner = flow.width() - 2 * kPad - 4;
   double h = kPad + kHeadingSize * 1.5 + kPad;

@@ -1,25 +1,15 @@
-// The safety cautions printed on the first and last page of every unit
-// report and on every alert. The wording is fixed in code on purpose: no
-// option, argument or configuration key can remove or shorten it.
-// Content: general
-// cautions that defer to local codes, employer rules and licensed practice.
+// The safety block printed on the first and last page of every unit and
+// fleet report, on the weekly cover and on every alert. Its text comes from
+// report/safety_text.h, the one source of ferrum's cautions.
 #pragma once
 
 #include <string>
 #include <vector>
 
 #include "report/page_flow.h"
+#include "report/safety_text.h"
 
 namespace ferrum::report {
-
-struct Caution {
-  std::string lead;  // printed in bold, e.g. "Energised equipment."
-  std::string text;
-};
-
-// Heading of the block; contains the word "SAFETY".
-const std::string& safety_heading();
-const std::vector<Caution>& safety_cautions();
 
 // Height the block needs at the flow's width.
 double safety_block_height(PageFlow& flow);

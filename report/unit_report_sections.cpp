@@ -271,10 +271,11 @@ void findings_section(PageFlow& flow, const UnitAssessment& a) {
     Table t;
     t.font_size = 7.6;
     t.columns = {{"Date", 1.0}, {"Component", 1.6}, {"ΔT to reference", 0.95, Align::right}, {"ΔT to ambient", 0.95, Align::right},
-                 {"At rated load", 0.95, Align::right}, {"Severity (4 = worst)", 2.6}};
+                 {"At rated load", 0.95, Align::right}, {"Priority (1 = most urgent)", 2.6}};
+    // The maintenance-testing priority, spelled out, is the only label here:
+    // ferrum's severity number (4 = worst, the other way round) stays in JSON.
     for (const auto& f : a.infrared) {
-      std::string sev = f.severity ? std::to_string(*f.severity) + " of 4" : std::string(kNoValue);
-      if (!f.severity_text.empty()) sev += ": " + f.severity_text;
+      std::string sev = f.severity_text.empty() ? std::string(kNoValue) : f.severity_text;
       if (f.low_load) sev += " (scan at low load: correction unreliable)";
       t.rows.push_back({analytics::format_day(f.date), f.component, fmt_number(f.rise_over_reference_k, 1, "K"),
                         fmt_number(f.rise_over_ambient_k, 1, "K"), fmt_number(f.corrected_rise_k, 1, "K"), sev});

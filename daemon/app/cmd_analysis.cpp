@@ -7,12 +7,14 @@
 #include "analytics/oil_assessment.h"
 #include "analytics/thermal_assessment.h"
 #include "daemon/app/commands_impl.h"
+#include "daemon/app/progress_display.h"
 #include "daemon/app/site_context.h"
 #include "daemon/assess/assessment_json.h"
 #include "daemon/assess/assessment_service.h"
 #include "daemon/assess/ranking_cache.h"
 #include "daemon/ingest/field_parsers.h"
 #include "report/fleet_report.h"
+#include "report/safety_text.h"
 
 namespace ferrum::app {
 namespace {
@@ -42,6 +44,12 @@ void print_assessment_text(const analytics::UnitAssessment& a) {
   for (const auto& m : a.missing) std::cout << "  missing: " << m << "\n";
 }
 
+// A JSON document with the one-line caution under "caution" (report/safety_text.h).
+std::string with_caution(Poco::JSON::Object::Ptr doc) {
+  doc->set("caution", report::one_line_caution());
+  return assess::stringify(doc);
+}
+
 }  // namespace
 
 int cmd_assess(const Invocation& inv) {
@@ -64,14 +72,20 @@ int cmd_assess(const Invocation& inv) {
   const bool json = inv.has("json");
   bool first = true;
   if (json) std::cout << "[";
+  // Progress on a terminal only; with text on the same terminal it would
+  // interleave, so only while the output goes elsewhere (--json or a pipe).
+  ProgressDisplay progress("assessing", "units", inv.has("quiet") || (!json && is_terminal(1)));
+  std::size_t done = 0;
   assess::assess_units_parallel(site->root.database().string(), ids, as_of, options, 0,
                                 [&](analytics::UnitAssessment&& a) {
+                                  progress.update(static_cast<double>(++done), static_cast<double>(ids.size()));
                                   if (whole_fleet) ranking_inputs.push_back(analytics::ranking_fields(a));
                                   if (!json) return print_assessment_text(a);
-                                  std::cout << (first ? "\n" : ",\n") << assess::stringify(assess::to_json(a));
+                                  std::cout << (first ? "\n" : ",\n") << with_caution(assess::to_json(a));
                                   first = false;
                                 });
   if (json) std::cout << (first ? "]\n" : "\n]\n");
+  else std::cout << "\n" << report::one_line_caution() << "\n";
   if (whole_fleet) assess::write_ranking_cache(site->root, cache_key, ranking_inputs);
   return kOk;
 }
@@ -84,15 +98,20 @@ int cmd_rank(const Invocation& inv) {
   const std::string cache_key = assess::ranking_cache_key(site->root, *site->store, as_of);
   auto units = inv.has("fresh") ? std::nullopt : assess::read_ranking_cache(site->root, cache_key);
   if (!units) {
+    ProgressDisplay progress("assessing", "units", inv.has("quiet"));
     units = assess::assess_fleet_parallel(*site->store, site->root.database().string(), as_of,
-                                          assess::options_from_config(site->config, &site->root));
+                                          assess::options_from_config(site->config, &site->root),
+                                          [&](const char*, std::size_t done, std::size_t total) {
+                                            progress.update(static_cast<double>(done), static_cast<double>(total));
+                                          });
+    progress.finish();
     std::vector<analytics::UnitAssessment> inputs;
     for (const auto& a : *units) inputs.push_back(analytics::ranking_fields(a));
     assess::write_ranking_cache(site->root, cache_key, inputs);
   }
   const auto ranking = analytics::rank_fleet(*units, as_of, assess::ranking_options_from_config(site->config));
   if (inv.has("json")) {
-    std::cout << assess::stringify(assess::to_json(ranking)) << "\n";
+    std::cout << with_caution(assess::to_json(ranking)) << "\n";
     return kOk;
   }
   if (inv.has("csv")) {
@@ -114,7 +133,7 @@ int cmd_rank(const Invocation& inv) {
   }
   std::cout << "\nrated MVA due per year:";
   for (const auto& y : ranking.mva_due_by_year) std::cout << "  " << y.year << ": " << fmt(y.mva, 0);
-  std::cout << "\n";
+  std::cout << "\n\n" << report::one_line_caution() << "\n";
   return kOk;
 }
 
@@ -147,7 +166,7 @@ int cmd_dga(const Invocation& inv) {
   if (inv.has("age")) unit.year_built = analytics::civil_from_days(today_day).year - std::stoi(inv.get("age"));
   const auto d = analytics::interpret_dga_sample(s, unit, today_day, analytics::OilOptions{});
   if (inv.has("json")) {
-    std::cout << assess::stringify(assess::to_json(d)) << "\n";
+    std::cout << with_caution(assess::to_json(d)) << "\n";
     return kOk;
   }
   std::cout << "TDCG                     " << fmt(d.tdcg_ppm, 0, " ppm") << "\n"
@@ -161,8 +180,8 @@ int cmd_dga(const Invocation& inv) {
             << "CO2/CO                   " << fmt(d.co2_co_ratio, 1) << "  " << d.co2_co_reading << "\n";
   if (!d.c57104_2008_interval.empty())
     std::cout << "sampling (C57.104-2008)  " << d.c57104_2008_interval << "; " << d.c57104_2008_action << "\n";
-  std::cout << "\nDecision support only: a qualified engineer decides. Do not re-energise a unit with signs of\n"
-               "active arcing before an engineer has evaluated it.\n";
+  std::cout << "\nDo not re-energise a unit with signs of active arcing before an engineer has evaluated it.\n"
+            << report::one_line_caution() << "\n";
   return kOk;
 }
 
@@ -192,6 +211,8 @@ int cmd_thermal(const Invocation& inv) {
     if (!std::isnan(p.measured_top_oil_c)) std::cout << std::setprecision(1) << p.measured_top_oil_c;
     std::cout << "\n";
   }
+  // A comment line, so that the series still reads as CSV/TSV.
+  std::cout << report::csv_caution_line() << "\n";
   return kOk;
 }
 

@@ -3,6 +3,7 @@
 #include <iostream>
 
 #include "daemon/app/commands_impl.h"
+#include "daemon/app/progress_display.h"
 #include "daemon/app/site_context.h"
 #include "daemon/pipeline/pipeline.h"
 #include "daemon/site/site_root.h"
@@ -30,6 +31,13 @@ void print_outcome(const ingest::FileOutcome& o) {
 int cmd_ingest(const Invocation& inv) {
   auto site = open_site(inv, Access::write);
   ingest::Pipeline pipeline(site->root, site->config, *site->store);
+  ProgressDisplay progress("", "MB", inv.has("quiet"));
+  if (progress.active())
+    pipeline.set_progress([&](const std::string& name, std::uint64_t done, std::uint64_t total) {
+      if (total == 0) return progress.finish();  // read to its end: the outcome is logged next
+      progress.set_what(name);
+      progress.update(static_cast<double>(done) / 1e6, static_cast<double>(total) / 1e6);
+    });
   bool any_rejected = false;
   for (const auto& o : pipeline.recover()) {
     print_outcome(o);
@@ -49,6 +57,7 @@ int cmd_ingest(const Invocation& inv) {
   }
   for (const auto& f : files) {
     auto o = pipeline.process(f);
+    progress.finish();
     if (!o) continue;
     print_outcome(*o);
     any_rejected |= o->receipt.status == "rejected";

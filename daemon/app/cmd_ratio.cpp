@@ -10,6 +10,7 @@
 #include "analytics/electrical/turns_ratio.h"
 #include "daemon/app/commands_impl.h"
 #include "daemon/assess/assessment_json.h"
+#include "report/safety_text.h"
 
 namespace ferrum::app {
 namespace {
@@ -78,6 +79,7 @@ int cmd_ratio(const Invocation& inv) {
       rows->add(o);
     }
     doc->set("taps", rows);
+    doc->set("caution", report::one_line_caution());
     std::cout << assess::stringify(doc) << "\n";
     return kOk;
   }
@@ -92,7 +94,7 @@ int cmd_ratio(const Invocation& inv) {
   std::cout << "\nSource: " << kTurnsRatioSource << ".\n"
             << "Taps are numbered so that position 1 gives the highest HV voltage; check the nameplate.\n"
             << "Test only a de-energised unit, isolated and earthed; test voltages are hazardous.\n"
-            << "Decision support only: a qualified engineer decides, under local codes and licensed practice.\n";
+            << report::one_line_caution() << "\n";
   return kOk;
 }
 

@@ -1,6 +1,7 @@
 #include <iostream>
 
 #include "daemon/app/commands_impl.h"
+#include "daemon/app/progress_display.h"
 #include "daemon/app/site_context.h"
 #include "daemon/reporting/report_writer.h"
 
@@ -15,6 +16,12 @@ int cmd_report(const Invocation& inv) {
   auto site = open_site(inv, Access::read);
   const analytics::Day as_of = today(inv, site->config);
   reporting::ReportWriter writer(site->root, site->config, *site->store);
+  ProgressDisplay progress("", "units", inv.has("quiet"));
+  writer.set_progress([&](const char* stage, std::size_t done, std::size_t total) {
+    progress.set_what(stage);
+    progress.update(static_cast<double>(done), static_cast<double>(total));
+    if (done == total) progress.finish();  // each stage on its own line
+  });
   const fs::path out = inv.has("out") ? fs::absolute(inv.get("out")) : site->root.reports();
   if (inv.has("weekly")) {
     std::cout << writer.weekly_bundle(as_of).string() << "\n";

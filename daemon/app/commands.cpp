@@ -19,12 +19,13 @@ const std::vector<CommandInfo>& commands() {
        "the database ferrum.db, and ferrum.ini with one party, 'planning', allowed every file kind and\n"
        "every site. An existing ferrum.ini is left untouched.",
        {"root"}},
-      {"ingest", "ferrum ingest --root DIR [FILE...]", "process the dropped files once and exit",
+      {"ingest", "ferrum ingest --root DIR [FILE...] [--quiet]", "process the dropped files once and exit",
        "Takes every file waiting in drop/PARTY/ (or the FILEs named, which must be inside a party\n"
        "folder), imports it whole or rejects it whole, moves it to archive/ or quarantine/ and writes\n"
        "its receipt into drop/PARTY/receipts/. Exit status 0 when every file was accepted, 4 when\n"
-       "some were rejected, 1 on failure.",
-       {"root"}},
+       "some were rejected, 1 on failure. On a terminal, a large file shows its progress on\n"
+       "standard error (--quiet: none).",
+       {"root", "quiet"}},
       {"check", "ferrum check [--root DIR] [--party NAME] FILE...",
        "validate files without importing them and print their receipts",
        "For contractors before they drop a file. With a site root, unit ids are checked against\n"
@@ -36,8 +37,9 @@ const std::vector<CommandInfo>& commands() {
        "write PDF reports",
        "UNIT...: one PDF per unit (file name ferrum-UNIT-DATE.pdf). --fleet: the fleet report\n"
        "(PDF and CSV). --weekly: every unit report and the fleet report into reports/YYYY-Www/ with\n"
-       "an index page, leaving earlier weeks untouched. Default folder: ROOT/reports/.",
-       {"root", "out", "fleet", "weekly", "as-of"}},
+       "an index page, leaving earlier weeks untouched. Default folder: ROOT/reports/. On a\n"
+       "terminal, --fleet and --weekly show their progress on standard error (--quiet: none).",
+       {"root", "out", "fleet", "weekly", "as-of", "quiet"}},
       {"serve", "ferrum serve --root DIR [--daemon --pidfile FILE]",
        "watch the drop folders, ingest, alert and report until stopped",
        "Runs in the foreground (or as a daemon with --daemon). Watches every party folder, takes\n"
@@ -51,13 +53,15 @@ const std::vector<CommandInfo>& commands() {
       {"assess", "ferrum assess --root DIR [UNIT...] [--json]", "print the assessment of units",
        "One assessment document per unit (all units when none is named): health index, factors,\n"
        "remaining life, gases, oil, paper, thermal, infrared, inspection, actions, missing data.\n"
-       "--json prints a JSON array (schema in README.md).",
-       {"root", "json", "as-of"}},
+       "--json prints a JSON array (schema in README.md). With --json or a piped output, progress\n"
+       "shows on standard error when it is a terminal (--quiet: none).",
+       {"root", "json", "as-of", "quiet"}},
       {"rank", "ferrum rank --root DIR [--json | --csv] [--fresh]", "rank the fleet by risk",
        "Every unit with rank, site, health index, band, remaining life and limiting factor, risk,\n"
        "recommended action and year, and the rated MVA due per year for ten years. Reuses the last\n"
-       "whole-fleet assessment (ROOT/cache/) when nothing changed since; --fresh assesses anew.",
-       {"root", "json", "csv", "as-of", "fresh"}},
+       "whole-fleet assessment (ROOT/cache/) when nothing changed since; --fresh assesses anew,\n"
+       "with its progress on standard error when that is a terminal (--quiet: none).",
+       {"root", "json", "csv", "as-of", "fresh", "quiet"}},
       {"dga", "ferrum dga --h2 PPM --ch4 PPM ... [--json]", "interpret one gas sample typed on the command line",
        "No database needed. Gases in µL/L (ppm): --h2 --ch4 --c2h6 --c2h4 --c2h2 --co --co2 --o2 --n2.\n"
        "A value written <N or ND means below the detection limit. --age YEARS selects the IEEE\n"

@@ -48,6 +48,7 @@ const OptionDef kOptions[] = {
     {"hv-kv", "KV", "HV voltage in kV (dga: default 132; ratio: required)"},
     {"once", nullptr, "serve: process what is waiting, render, and exit (for scripts)"},
     {"fresh", nullptr, "rank: assess every unit anew instead of reusing the last whole-fleet assessment"},
+    {"quiet", nullptr, "show no progress line on a terminal (ingest, assess, rank, report)"},
     {"lv-kv", "KV", "LV voltage in kV"},
     {"vector-group", "GROUP", "vector group, e.g. Dyn11, YNd1, Yy0, 1ph"},
     {"tap", "N", "tap position"},

@@ -168,13 +168,15 @@ void assess_units_parallel(const std::string& database, const std::vector<std::s
 
 std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store, const std::string& database,
                                                              analytics::Day as_of,
-                                                             const analytics::AssessmentOptions& options) {
+                                                             const analytics::AssessmentOptions& options,
+                                                             const FleetProgress& progress) {
   std::vector<std::string> ids;
   for (const auto& u : store.units()) ids.push_back(u.unit_id);
   std::vector<analytics::UnitAssessment> out;
   out.reserve(ids.size());
   assess_units_parallel(database, ids, as_of, options, 0, [&](analytics::UnitAssessment&& a) {
     out.push_back(std::move(a));
+    if (progress) progress("assessing", out.size(), ids.size());
   });
   return out;
 }

@@ -38,10 +38,15 @@ void assess_units_parallel(const std::string& database, const std::vector<std::s
                            const analytics::AssessmentOptions& options, unsigned workers,
                            const std::function<void(analytics::UnitAssessment&&)>& emit);
 
+// Progress of a whole-fleet task: what it is doing ("assessing", "unit
+// reports"), how many of how many are done. Called on the calling thread.
+using FleetProgress = std::function<void(const char* stage, std::size_t done, std::size_t total)>;
+
 // Every unit in the register, in unit_id order, assessed in parallel.
 std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store, const std::string& database,
                                                              analytics::Day as_of,
-                                                             const analytics::AssessmentOptions& options);
+                                                             const analytics::AssessmentOptions& options,
+                                                             const FleetProgress& progress = {});
 
 analytics::RankingOptions ranking_options_from_config(const config::SiteConfig& config);
 

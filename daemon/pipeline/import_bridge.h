@@ -4,6 +4,7 @@
 #pragma once
 
 #include <atomic>
+#include <functional>
 #include <istream>
 #include <stdexcept>
 #include <set>
@@ -26,6 +27,8 @@ struct ImportSettings {
   // throwing ImportCancelled, the caller rolls back and the file stays in
   // work/ to be imported whole at the next start.
   const std::atomic<bool>* cancel = nullptr;
+  // Called every 4,096 rows (progress of a long file); may be empty.
+  std::function<void()> tick;
 };
 
 class ImportCancelled : public std::runtime_error {

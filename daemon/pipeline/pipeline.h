@@ -76,6 +76,11 @@ class Pipeline {
   // The daemon's stop flag: an import in progress is rolled back when it is
   // set, and the file stays in work/ (recover() imports it at the next start).
   void set_cancel_flag(const std::atomic<bool>* flag) { cancel_ = flag; }
+  // Told, every 4,096 rows of a file being imported, how many of its bytes
+  // were read (progress of `ingest` on a terminal, the daemon's log), and
+  // (0, 0) when the file was read to its end.
+  using FileProgress = std::function<void(const std::string& name, std::uint64_t done, std::uint64_t total)>;
+  void set_progress(FileProgress progress) { progress_ = std::move(progress); }
 
   // Every file waiting in the party folders (and stray files in drop/),
   // oldest first per party.
@@ -105,6 +110,7 @@ class Pipeline {
   Clock clock_;
   bool units_must_exist_ = true;
   const std::atomic<bool>* cancel_ = nullptr;
+  FileProgress progress_;
 };
 
 // SHA-256 of a file's content, lower-case hex. Throws std::runtime_error.

@@ -11,6 +11,7 @@
 #include "daemon/site/atomic_file.h"
 #include "report/alert_report.h"
 #include "report/fleet_report.h"
+#include "report/safety_text.h"
 #include "report/unit_report.h"
 
 namespace fs = std::filesystem;
@@ -111,7 +112,7 @@ fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as
 }
 
 ReportWriter::FleetFiles ReportWriter::fleet_report(analytics::Day as_of, const fs::path& out_dir) {
-  const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_);
+  const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_, progress_);
   return fleet_files(units, rank(units, as_of), as_of, out_dir);
 }
 
@@ -143,12 +144,14 @@ fs::path ReportWriter::weekly_bundle(analytics::Day as_of) {
   fs::remove_all(scratch);
   fs::create_directories(scratch);
   std::vector<std::pair<std::string, std::string>> unit_files;
-  for (const auto& u : store_.units()) {
+  const auto register_units = store_.units();
+  for (const auto& u : register_units) {
     const fs::path p = unit_report(u.unit_id, as_of, scratch);
     unit_files.emplace_back(u.unit_id, p.filename().string());
+    if (progress_) progress_("unit reports", unit_files.size(), register_units.size());
   }
   // One fleet assessment serves the fleet report and the index.
-  const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_);
+  const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_, progress_);
   const auto ranking = rank(units, as_of);
   fleet_files(units, ranking, as_of, scratch);
   report::render_weekly_index(label, ranking, unit_files, report_options(config_), (scratch / "index.pdf").string());
@@ -172,7 +175,8 @@ fs::path ReportWriter::alert(const std::string& unit_id, const std::string& kind
   const fs::path csv = root_.alerts() / "alerts.csv";
   const bool fresh = !fs::exists(csv);
   std::ofstream out(csv, std::ios::app);
-  if (fresh) out << "raised_at,unit_id,site,kind,text,first_step,pdf\n";
+  // The file grows by appending, so its caution is a comment line at its top.
+  if (fresh) out << report::csv_caution_line() << "\nraised_at,unit_id,site,kind,text,first_step,pdf\n";
   out << csv_field(raised_at) << "," << csv_field(unit_id) << "," << csv_field(info.site) << "," << csv_field(kind)
       << "," << csv_field(text) << "," << csv_field(first_step) << "," << csv_field(pdf.filename().string()) << "\n";
   out.flush();

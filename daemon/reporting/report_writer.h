@@ -11,6 +11,7 @@
 #include "analytics/assessment.h"
 #include "analytics/assess_unit.h"
 #include "analytics/fleet_ranking.h"
+#include "daemon/assess/assessment_service.h"
 #include "daemon/config/site_config.h"
 #include "daemon/site/site_root.h"
 #include "schema/store.h"
@@ -20,6 +21,9 @@ namespace ferrum::reporting {
 class ReportWriter {
  public:
   ReportWriter(const site::SiteRoot& root, const config::SiteConfig& config, store::Store& store);
+
+  // Told how far fleet_report and weekly_bundle are (assessing, unit reports).
+  void set_progress(assess::FleetProgress progress) { progress_ = std::move(progress); }
 
   // One unit's PDF in `out_dir` (ferrum-UNIT-YYYY-MM-DD.pdf). The "what
   // changed" part compares with the unit's data as it stood at its previous
@@ -54,6 +58,7 @@ class ReportWriter {
   config::SiteConfig config_;
   store::Store& store_;
   analytics::AssessmentOptions options_;
+  assess::FleetProgress progress_;
 };
 
 // UnitData as it stood at the end of `day` (later records dropped).

@@ -8,6 +8,7 @@
 #include <spdlog/spdlog.h>
 #include <unistd.h>
 
+#include <chrono>
 #include <sstream>
 #include <thread>
 
@@ -118,6 +119,9 @@ struct Server::Impl {
   std::chrono::seconds backoff{1};
   std::chrono::steady_clock::time_point weekly_retry_at{};  // after a failed bundle
   std::vector<fs::path> retry;  // files whose import failed for a reason not theirs
+  std::string progress_file;    // the file whose import progress is being timed
+  std::uint64_t progress_done = 0;
+  std::chrono::steady_clock::time_point progress_started, progress_logged;
   std::string last_import, last_import_party, last_import_at;
   std::vector<std::string> recent_rejections;
   std::string last_status_text;
@@ -127,6 +131,26 @@ struct Server::Impl {
   void rebuild() {
     pipeline = std::make_unique<ingest::Pipeline>(root, config, *store);
     pipeline->set_cancel_flag(&Server::stop_requested);
+    // A file that takes longer than 10 s is logged every 10 s while it is read.
+    pipeline->set_progress([this](const std::string& name, std::uint64_t done, std::uint64_t total) {
+      const auto now = std::chrono::steady_clock::now();
+      if (total == 0) {  // read to its end
+        progress_file.clear();
+        return;
+      }
+      if (name != progress_file || done < progress_done) {  // another file, or the same name again
+        progress_file = name;
+        progress_done = done;
+        progress_started = progress_logged = now;
+        return;
+      }
+      progress_done = done;
+      if (now - progress_logged < std::chrono::seconds(10)) return;
+      progress_logged = now;
+      spdlog::info("file {}: {:.1f} of {:.1f} MB read after {:.0f} s", name, static_cast<double>(done) / 1e6,
+                   static_cast<double>(total) / 1e6,
+                   std::chrono::duration<double>(now - progress_started).count());
+    });
     writer = std::make_unique<reporting::ReportWriter>(root, config, *store);
     std::vector<std::string> parties;
     for (const auto& [name, p] : config.parties) parties.push_back(name);
@@ -275,8 +299,10 @@ struct Server::Impl {
       writer->alert(unit, "acetylene",
                     before.c2h2 <= 0 ? "acetylene appeared: " + std::to_string(static_cast<int>(now.c2h2 + 0.5)) + " ppm"
                                      : "acetylene rising: " + std::to_string(before.c2h2) + " -> " + std::to_string(now.c2h2) + " ppm",
-                    "Resample the oil at once to confirm; an engineer decides whether the unit stays energised. "
-                    "Do not re-energise after a trip before that evaluation.",
+                    "Resample the oil at once to confirm, with the responsible engineer's permission: the unit "
+                    "may be gassing while energised, so keep the time at the unit short and consider sampling "
+                    "after de-energising. An engineer decides whether the unit stays energised. Do not "
+                    "re-energise after a trip before that evaluation.",
                     at);
     if (now.condition > before.condition && before.condition > 0)
       writer->alert(unit, "gas_condition",

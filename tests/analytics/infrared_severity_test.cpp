@@ -53,6 +53,11 @@ TEST(InfraredSeverity, SimilarComponentDecidesAmbientOnlyWithoutOne) {
   EXPECT_EQ(*f.rise_over_ambient_k, 15);
   EXPECT_EQ(*f.corrected_rise_k, 40);
   EXPECT_EQ(*f.severity, 4);
+  // The label people read is the maintenance priority, spelled out; the
+  // severity number stays in JSON (ANSI/NETA MTS thermographic table: "major
+  // discrepancy, repair immediately").
+  EXPECT_EQ(f.severity_text.rfind("priority 1: repair immediately", 0), 0u) << f.severity_text;
+  EXPECT_EQ(f.severity_text.find("severity"), std::string::npos);
   EXPECT_FALSE(f.low_load);
   // At rated load 10 K over a similar component is NETA 3 (4-15 °C) -> severity 2.
   s.load_pct = 100;

@@ -32,8 +32,8 @@ def qpdf_check(path):
 
 
 REGISTER = """unit_id,site,rated_mva,hv_kv,lv_kv,cooling,year_built,vector_group,criticality
-T1,Northfield,40,132,33,ONAF,1985,Dyn11,4
-T2,Northfield,10,33,11,ONAN,2015,Dyn11,2
+T1,Quillmere,40,132,33,ONAF,1985,Dyn11,4
+T2,Quillmere,10,33,11,ONAN,2015,Dyn11,2
 """
 
 

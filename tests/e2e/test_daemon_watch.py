@@ -91,7 +91,7 @@ class DaemonCase(SiteTestCase):
         if not os.path.exists(path):
             return []
         with open(path, newline="") as f:
-            return list(csv.DictReader(f))
+            return list(csv.DictReader(line for line in f if not line.startswith("#")))
 
     def has_receipt(self, name, party=None):
         return os.path.exists(self.path("drop", party or self.party, "receipts", name + ".json"))

@@ -92,7 +92,7 @@ class CheckWithSite(IngestCase):
         self.assertIn("ALREADY IMPORTED", p.stdout)
 
     def test_party_permissions(self):
-        self.add_party("lab", "oil_lab", "Northfield")
+        self.add_party("lab", "oil_lab", "Quillmere")
         self.check("--party", "lab", self.f("good.csv"), expect=0)
         register = self.f("units.csv")
         with open(register, "w") as f:

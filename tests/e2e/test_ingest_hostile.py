@@ -163,7 +163,7 @@ class HostileNames(NestedRoot):
 
     def test_hostile_unit_ids_cannot_name_a_path_outside(self):
         ids = ["../../escape", "..", "/etc/passwd", "a/b/c", "x" * 250, "dot.", "\u00e9\u00e9"]
-        rows = "".join(f'"{u}",Northfield,40,132,33,ONAN,2000\n' for u in ids)
+        rows = "".join(f'"{u}",Quillmere,40,132,33,ONAN,2000\n' for u in ids)
         self.drop("evil-units.csv", "unit_id,site,rated_mva,hv_kv,lv_kv,cooling,year_built\n" + rows)
         self.ingest_bounded(0)
         out = os.path.join(self.root, "out")

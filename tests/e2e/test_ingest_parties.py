@@ -28,7 +28,7 @@ class DefaultConfiguration(IngestCase):
 
     def test_default_party_may_deliver_every_kind_for_every_site(self):
         from ingest_fixtures import example
-        self.drop("register.csv", example("units_register.csv"))  # sites Northfield 132 kV and River Road
+        self.drop("register.csv", example("units_register.csv"))  # sites Quillmere 132 kV and Ostrand Yard
         self.ingest()
         for k in KINDS[1:]:
             self.drop(k + ".csv", example(k + ".csv"))
@@ -41,12 +41,12 @@ class DefaultConfiguration(IngestCase):
 class Permissions(IngestCase):
     def setUp(self):
         super().setUp()
-        self.add_party("lab", "oil_lab", "Northfield")
-        self.add_party("thermo", "infrared, inspection", "northfield, River Road")
+        self.add_party("lab", "oil_lab", "Quillmere")
+        self.add_party("thermo", "infrared, inspection", "quillmere, Ostrand Yard")
 
     def test_kind_the_party_may_not_deliver_is_rejected_whole(self):
         self.drop("units.csv", "unit_id,site,rated_mva,hv_kv,lv_kv,cooling,year_built\n"
-                               "T9,Northfield,40,132,33,ONAN,2000\n", party="lab")
+                               "T9,Quillmere,40,132,33,ONAN,2000\n", party="lab")
         self.drop("ir.csv", "unit_id,survey_date,component,spot_c,ambient_c\nT1,2026-04-02,clamp,50,20\n",
                   party="lab")
         self.ingest(expect=4)
@@ -59,7 +59,7 @@ class Permissions(IngestCase):
         self.assertEqual(self.count("infrared_scans"), 0)
 
     def test_unit_outside_the_party_sites_rejects_the_whole_file(self):
-        # T1 (Northfield) is fine; S1 (River Road) is not the lab's site; T1 again after it.
+        # T1 (Quillmere) is fine; S1 (Ostrand Yard) is not the lab's site; T1 again after it.
         self.drop("lab.csv", "unit_id,sample_date,lab_ref,h2_ppm\n"
                              "T1,2026-03-14,L-1,10\nS1,2026-03-14,L-2,11\nT2,2026-03-14,L-3,12\n", party="lab")
         self.ingest(expect=4)
@@ -67,7 +67,7 @@ class Permissions(IngestCase):
         self.assertEqual(r["status"], "rejected")
         self.assertEqual(r["problem_count"], 1, r["problems"])
         self.assert_problem(r, 3, "does not serve")
-        self.assertIn("River Road", r["problems"][0]["reason"])
+        self.assertIn("Ostrand Yard", r["problems"][0]["reason"])
         self.assertEqual(self.count("oil_samples"), 0)
 
     def test_sites_compare_without_case_and_lists_allow_several(self):
@@ -81,9 +81,9 @@ class Permissions(IngestCase):
         self.assertEqual(self.count("infrared_scans"), 2)
 
     def test_register_for_a_site_the_party_does_not_serve(self):
-        self.add_party("north_planner", "units_register", "Northfield")
+        self.add_party("north_planner", "units_register", "Quillmere")
         self.drop("units.csv", "unit_id,site,rated_mva,hv_kv,lv_kv,cooling,year_built\n"
-                               "T8,Northfield,40,132,33,ONAN,2000\nT9,Elsewhere,40,132,33,ONAN,2000\n",
+                               "T8,Quillmere,40,132,33,ONAN,2000\nT9,Elsewhere,40,132,33,ONAN,2000\n",
                   party="north_planner")
         self.ingest(expect=4)
         r = self.receipt("units.csv", party="north_planner")

@@ -202,10 +202,10 @@ class History(IngestCase):
             self.assertEqual(c.execute("SELECT count(*) FROM oil_samples WHERE superseded_by IS NOT NULL").fetchone()[0], 0)
 
     def test_redropped_register_updates_units_and_keeps_history(self):
-        changed = REGISTER.replace("T1,Northfield,40,132,33,ONAN/ONAF,1998,3,Dyn11,4",
-                                   "T1,Northfield,45,132,33,ONAN/ONAF,1998,3,Dyn11,5")
+        changed = REGISTER.replace("T1,Quillmere,40,132,33,ONAN/ONAF,1998,3,Dyn11,4",
+                                   "T1,Quillmere,45,132,33,ONAN/ONAF,1998,3,Dyn11,5")
         self.assertNotEqual(changed, REGISTER)
-        changed += "T4,Northfield,63,132,11,ONAF,2020,3,YNd1,3\n"
+        changed += "T4,Quillmere,63,132,11,ONAF,2020,3,YNd1,3\n"
         self.drop("units-v2.csv", changed)
         self.ingest()
         r = self.receipt("units-v2.csv")

@@ -1,4 +1,5 @@
 #include "report/fleet_report.h"
+#include "report/safety_text.h"
 
 #include <gtest/gtest.h>
 
@@ -88,12 +89,15 @@ TEST(RankingCsv, HeaderRowsQuotingAndEmptyFields) {
   // Insufficient data: no rank, empty fields for absent values, the note quoted (it holds commas).
   EXPECT_NE(csv.find("\n,no,T-990,Marsh Lane,0,,,,,,3,,,,yes,\"no oil, load or inspection data\"\n"), std::string::npos)
       << csv;
-  EXPECT_EQ(std::count(csv.begin(), csv.end(), '\n'), 7);  // header + 6 units
+  EXPECT_EQ(std::count(csv.begin(), csv.end(), '\n'), 8);  // header + 6 units + caution
+  // The caution is the last line, a comment (report/safety_text.h).
+  EXPECT_EQ(csv.substr(csv.size() - csv_caution_line().size() - 1), csv_caution_line() + "\n");
 }
 
-TEST(RankingCsv, EmptyRankingIsHeaderOnly) {
+TEST(RankingCsv, EmptyRankingIsHeaderAndCaution) {
   const std::string csv = fleet_ranking_csv({});
-  EXPECT_EQ(std::count(csv.begin(), csv.end(), '\n'), 1);
+  EXPECT_EQ(std::count(csv.begin(), csv.end(), '\n'), 2);  // header + caution
+  EXPECT_NE(csv.find("\n# SAFETY: "), std::string::npos);
 }
 
 }  // namespace

@@ -3,7 +3,10 @@
 // point at a time, whatever the batch boundaries.
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
+#include <cstdint>
+#include <tuple>
 #include <optional>
 #include <vector>
 
@@ -14,11 +17,15 @@ using namespace ferrum;
 
 namespace {
 
+// Small batches, so that few rows cross batch boundaries; the store's own
+// batch size only changes when they are crossed.
+constexpr int kBatch = 256;
+
 class LoadQueueTest : public ferrum::testing::StoreFixture {
  protected:
   void SetUp() override {
     StoreFixture::SetUp();
-    s_ = store::open_sqlite_store(db_);
+    s_ = store::open_sqlite_store(db_, kBatch);
     f1_ = file(*s_, "a");
     f2_ = file(*s_, "b");
     s_->upsert_unit(unit("T1"), f1_, 2);
@@ -53,7 +60,7 @@ class LoadQueueTest : public ferrum::testing::StoreFixture {
 };
 
 TEST_F(LoadQueueTest, ManyBatchesAndARestAreAllWritten) {
-  constexpr int n = 3 * store::kSqliteLoadBatch + 40;  // three full batches and a rest
+  constexpr int n = 3 * kBatch + 40;  // three full batches and a rest
   EXPECT_TRUE(queue("T1", hourly(n), f1_).empty());
   EXPECT_EQ(s_->count_rows("load_points"), n);
   const auto pts = s_->load_points("T1", 0, 3600LL * (n - 1));
@@ -63,7 +70,7 @@ TEST_F(LoadQueueTest, ManyBatchesAndARestAreAllWritten) {
 }
 
 TEST_F(LoadQueueTest, DuplicateAgainstAnEarlierBatchIsReportedAtItsLine) {
-  constexpr int b = store::kSqliteLoadBatch;
+  constexpr int b = kBatch;
   auto t = hourly(4 * b);
   t[2 * b + 5] = t[10];  // repeats the time of line 12, two batches later
   const auto d = queue("T1", t, f1_);
@@ -73,7 +80,7 @@ TEST_F(LoadQueueTest, DuplicateAgainstAnEarlierBatchIsReportedAtItsLine) {
 }
 
 TEST_F(LoadQueueTest, FirstOfSeveralDuplicatesInOneBatchIsReported) {
-  auto t = hourly(store::kSqliteLoadBatch);  // exactly one full batch
+  auto t = hourly(kBatch);  // exactly one full batch
   t[40] = t[39];
   t[50] = t[3];
   const auto d = queue("T1", t, f1_);
@@ -82,7 +89,7 @@ TEST_F(LoadQueueTest, FirstOfSeveralDuplicatesInOneBatchIsReported) {
 }
 
 TEST_F(LoadQueueTest, DuplicateInTheLastShortBatchIsReportedByFlush) {
-  constexpr int n = store::kSqliteLoadBatch + 6;
+  constexpr int n = kBatch + 6;
   auto t = hourly(n);
   t[n - 1] = t[n - 4];
   const auto d = queue("T1", t, f1_);
@@ -92,16 +99,16 @@ TEST_F(LoadQueueTest, DuplicateInTheLastShortBatchIsReportedByFlush) {
 
 TEST_F(LoadQueueTest, SameTimeOfAnotherUnitIsNoDuplicate) {
   // Both units' points in one batch.
-  for (int i = 0; i < store::kSqliteLoadBatch; ++i) {
+  for (int i = 0; i < kBatch; ++i) {
     analytics::LoadPoint p{3600LL * (i / 2), 0.5};
     EXPECT_FALSE(s_->queue_load_point(i % 2 ? "T2" : "T1", p, f1_, 2 + i));
   }
   EXPECT_FALSE(s_->flush_load_points());
-  EXPECT_EQ(s_->count_rows("load_points"), store::kSqliteLoadBatch);
+  EXPECT_EQ(s_->count_rows("load_points"), kBatch);
 }
 
 TEST_F(LoadQueueTest, AnEarlierFilesPointsAreReplaced) {
-  constexpr int n = 2 * store::kSqliteLoadBatch + 10;  // full batches and a rest
+  constexpr int n = 2 * kBatch + 10;  // full batches and a rest
   EXPECT_TRUE(queue("T1", hourly(n), f1_, 0.5).empty());
   EXPECT_TRUE(queue("T1", hourly(n), f2_, 0.7).empty());
   const auto pts = s_->load_points("T1", 0, 3600LL * (n - 1));
@@ -136,6 +143,94 @@ TEST_F(LoadQueueTest, ReportedDuplicateIsReturnedOnce) {
   ASSERT_TRUE(d);
   EXPECT_EQ(d->line, 3);
   EXPECT_FALSE(s_->flush_load_points());
+}
+
+// Rows of many units in time-major order (every unit at one time, then every
+// unit at the next) and shuffled: the same rows, and the same first duplicate
+// by line, as unit by unit.
+class LoadOrderTest : public LoadQueueTest {
+ protected:
+  static constexpr int kUnits = 40;
+  static constexpr int kTimes = 2000;  // 80,000 points: many batches
+  struct Row {
+    int unit;
+    long long t;
+    std::int64_t line;
+  };
+  void SetUp() override {
+    LoadQueueTest::SetUp();
+    for (int u = 0; u < kUnits; ++u) s_->upsert_unit(unit("U" + std::to_string(u)), f1_, 10 + u);
+  }
+  // Queues the rows in the given order; lines are the rows' positions + 2.
+  std::vector<store::LoadDuplicate> queue_rows(std::vector<Row>& rows) {
+    std::vector<store::LoadDuplicate> found;
+    for (std::size_t i = 0; i < rows.size(); ++i) {
+      rows[i].line = static_cast<std::int64_t>(2 + i);
+      analytics::LoadPoint p{rows[i].t, 0.01 * rows[i].unit + 1e-6 * static_cast<double>(rows[i].line)};
+      if (auto d = s_->queue_load_point("U" + std::to_string(rows[i].unit), p, f1_, rows[i].line))
+        found.push_back(*d);
+    }
+    if (auto d = s_->flush_load_points()) found.push_back(*d);
+    return found;
+  }
+  // Every stored point as (unit, time, load).
+  std::vector<std::tuple<int, long long, double>> stored() {
+    std::vector<std::tuple<int, long long, double>> out;
+    for (int u = 0; u < kUnits; ++u)
+      for (const auto& p : s_->load_points("U" + std::to_string(u), INT64_MIN / 2, INT64_MAX / 2))
+        out.emplace_back(u, p.t, p.load_pu);
+    return out;
+  }
+  static std::vector<Row> time_major() {
+    std::vector<Row> rows;
+    for (int t = 0; t < kTimes; ++t)
+      for (int u = 0; u < kUnits; ++u) rows.push_back({u, 600LL * t, 0});
+    return rows;
+  }
+};
+
+TEST_F(LoadOrderTest, TimeMajorAndShuffledStoreWhatUnitMajorStores) {
+  auto rows = time_major();
+  EXPECT_TRUE(queue_rows(rows).empty());
+  EXPECT_EQ(s_->count_rows("load_points"), kUnits * kTimes);
+  // The stored load carries its line: compare with the rows themselves.
+  const auto got = stored();
+  std::vector<std::tuple<int, long long, double>> want;
+  std::vector<Row> by_unit = rows;
+  std::stable_sort(by_unit.begin(), by_unit.end(),
+                   [](const Row& a, const Row& b) { return a.unit != b.unit ? a.unit < b.unit : a.t < b.t; });
+  for (const auto& r : by_unit) want.emplace_back(r.unit, r.t, 0.01 * r.unit + 1e-6 * static_cast<double>(r.line));
+  EXPECT_EQ(got, want);
+
+  // Shuffled, written over the first file's points by a second file: all replaced.
+  std::vector<Row> shuffled = time_major();
+  std::uint64_t x = 88172645463325252ULL;  // xorshift64, a fixed shuffle
+  for (std::size_t i = shuffled.size() - 1; i > 0; --i) {
+    x ^= x << 13, x ^= x >> 7, x ^= x << 17;
+    std::swap(shuffled[i], shuffled[x % (i + 1)]);
+  }
+  for (std::size_t i = 0; i < shuffled.size(); ++i) {
+    analytics::LoadPoint p{shuffled[i].t, 0.25};
+    EXPECT_FALSE(s_->queue_load_point("U" + std::to_string(shuffled[i].unit), p, f2_, static_cast<std::int64_t>(2 + i)));
+  }
+  EXPECT_FALSE(s_->flush_load_points());
+  EXPECT_EQ(s_->count_rows("load_points"), kUnits * kTimes);
+  for (const auto& [u, t, load] : stored()) EXPECT_DOUBLE_EQ(load, 0.25);
+}
+
+TEST_F(LoadOrderTest, FirstDuplicateByLineWhateverTheOrder) {
+  // Three duplicates: the reported one is the smallest line that repeats an
+  // earlier row, as a row-by-row import would report, although sorting puts
+  // the others first.
+  auto rows = time_major();
+  rows[70000] = rows[69000];  // line 70,002 repeats line 69,002 (unit 0), in a later batch
+  rows[50000] = rows[10];     // line 50,002 repeats line 12 (unit 10, time 0), many batches earlier
+  rows[50120] = rows[50080];  // same batch as line 50,002 (lines 49,922-50,177): unit 0 sorts first
+  static_assert(kBatch == 256, "the batch of line 50,002 is lines 49,922-50,177");
+  const auto d = queue_rows(rows);
+  ASSERT_GE(d.size(), 1u);  // the caller rejects the file at the first
+  EXPECT_EQ(d[0].line, 50002);
+  EXPECT_EQ(d[0].unit_id, "U10");
 }
 
 TEST_F(LoadQueueTest, RollbackDiscardsTheQueue) {

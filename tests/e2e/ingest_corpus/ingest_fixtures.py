@@ -20,9 +20,9 @@ CORPUS = os.path.join(SOURCE, "tests", "corpus", "broken")
 # T3: a unit at a third site, for party permissions.
 REGISTER = """# units register for the ingestion tests
 unit_id,site,rated_mva,hv_kv,lv_kv,cooling,year_built,phases,vector_group,criticality
-T1,Northfield,40,132,33,ONAN/ONAF,1998,3,Dyn11,4
-T2,Northfield,40,132,33,ONAF,1998,3,Dyn11,3
-S1,River Road,10,66,11,ONAN,2011,1,Ii0,2
+T1,Quillmere,40,132,33,ONAN/ONAF,1998,3,Dyn11,4
+T2,Quillmere,40,132,33,ONAF,1998,3,Dyn11,3
+S1,Ostrand Yard,10,66,11,ONAN,2011,1,Ii0,2
 T3,Southgate,20,66,11,ONAN,2005,3,Dyn11,2
 """
 
