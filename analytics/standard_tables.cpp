@@ -584,7 +584,9 @@ std::string TableInfo::status_text() const {
 
 std::string TableInfo::title() const {
   const bool year = edition.size() == 4 && std::isdigit(static_cast<unsigned char>(edition[0]));
-  return (year ? standard + "-" + edition : standard + " (" + edition + ")") + ", " + clause;
+  // IEC writes the edition after a colon (IEC 60076-7:2005), IEEE after a dash.
+  const std::string joint = standard.rfind("IEC", 0) == 0 ? ":" : "-";
+  return (year ? standard + joint + edition : standard + " (" + edition + ")") + ", " + clause;
 }
 
 bool StandardTables::any_unverified() const {
