@@ -19,17 +19,12 @@ namespace {
 
 Poco::JSON::Object::Ptr table_json(const analytics::TableInfo& i) {
   Poco::JSON::Object::Ptr o = new Poco::JSON::Object;
-  o->set("file", i.file);
-  o->set("table", i.id);
-  o->set("standard", i.standard);
-  o->set("edition", i.edition);
-  o->set("clause", i.clause);
-  o->set("status", i.status);
-  auto text_or_null = [](const std::string& s) { return s.empty() ? Poco::Dynamic::Var() : Poco::Dynamic::Var(s); };
-  o->set("where", text_or_null(i.where));
-  o->set("by", text_or_null(i.by));
-  o->set("when", text_or_null(i.when));
-  o->set("note", text_or_null(i.note));
+  for (const auto& [key, value] : {std::pair{"file", &i.file}, {"table", &i.id}, {"standard", &i.standard},
+                                   {"edition", &i.edition}, {"clause", &i.clause}, {"status", &i.status}})
+    o->set(key, *value);
+  // Fields a status may leave empty are null.
+  for (const auto& [key, value] : {std::pair{"where", &i.where}, {"by", &i.by}, {"when", &i.when}, {"note", &i.note}})
+    o->set(key, value->empty() ? Poco::Dynamic::Var() : Poco::Dynamic::Var(*value));
   o->set("site_override", i.site_override);
   o->set("source", i.origin);
   return o;
