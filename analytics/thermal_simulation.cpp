@@ -1,7 +1,11 @@
 #include "analytics/thermal_simulation.h"
 
 #include <algorithm>
+#include <array>
 #include <cmath>
+#include <cstdint>
+#include <cstring>
+#include <limits>
 
 #include "analytics/ageing_rate.h"
 
@@ -69,7 +73,7 @@ class Integrator {
       return rate_ * dt_min / 60.0;
     }
     if (!(k == targets_k_)) {
-      targets_ = iec_step_targets(m_.iec, k);
+      targets_ = targets_for(k);
       targets_k_ = k;
     }
     if (!(dt_min == steps_dt_min_)) plan_sub_steps(dt_min);
@@ -99,6 +103,23 @@ class Integrator {
   double rate() const { return rate_; }
 
  private:
+  // The load terms of a step (two powers) for load k, remembered by the exact
+  // value of k in a small direct-mapped table: loads come as a meter or a
+  // historian writes them, to a few decimals, so a year of one-minute steps
+  // holds a few hundred distinct values and most steps find theirs here
+  // (the same numbers, bit for bit). Unrounded loads miss and cost one
+  // comparison more than before.
+  IecStepTargets targets_for(double k) {
+    std::uint64_t bits;
+    std::memcpy(&bits, &k, sizeof bits);
+    auto& e = memo_[((bits ^ (bits >> 29)) * 0x9E3779B97F4A7C15ULL) >> (64 - kMemoBits)];
+    if (!(e.k == k)) {
+      e.k = k;
+      e.targets = iec_step_targets(m_.iec, k);
+    }
+    return e.targets;
+  }
+
   // Sub-steps (see kStepFractionOfLimit) grouped into nodes of
   // kSubStepsPerNode, the last node taking the rest; each node is advanced
   // in one go (iec_steps).
@@ -129,6 +150,12 @@ class Integrator {
   int nodes_ = 1;
   IecStepFactors factors_;
   IecStepDecay node_decay_, last_decay_;
+  static constexpr int kMemoBits = 10;
+  struct Memo {
+    double k = std::numeric_limits<double>::quiet_NaN();  // NaN: empty (equals nothing)
+    IecStepTargets targets;
+  };
+  std::array<Memo, std::size_t{1} << kMemoBits> memo_{};
   double node_h_ = 0, last_node_h_ = 0;
 };
 

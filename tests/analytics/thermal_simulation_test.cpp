@@ -158,3 +158,29 @@ TEST(ThermalSimulation, UpgradedPaperUsesArrhenius) {
 
 }  // namespace
 }  // namespace ferrum::analytics
+
+namespace ferrum::analytics {
+namespace {
+
+// The kernel remembers the load terms of each distinct load value: a series
+// with few distinct loads (rounded, as exports give them, many repeating
+// after other values) gives, bit for bit, what one difference-equation step
+// per point gives (IEC 60076-7:2005 §8.2.3 equations, iec_step, one-minute
+// steps need no sub-steps on this unit). ferrum's own check of its cache.
+TEST(ThermalSimulation, RepeatedLoadValuesGiveTheDirectStepsExactly) {
+  std::vector<LoadPoint> load;
+  for (int i = 0; i < 5000; ++i)
+    load.push_back({kT0 + i * 60, 0.5 + 0.001 * ((i * 37) % 701), 15.0 + (i % 11)});  // 701 values, in no order
+  const auto r = simulate(load);
+  ASSERT_EQ(r.points.size(), load.size());
+  const auto model = resolve_thermal_model(onaf_unit(), ThermalMethod::iec60076_7);
+  IecThermalState s = iec_steady_state(model.iec, load[0].load_pu, load[0].ambient_c);
+  for (std::size_t i = 1; i < load.size(); ++i) {
+    iec_step(model.iec, load[i].load_pu, load[i].ambient_c, 1.0, s);
+    ASSERT_EQ(r.points[i].hot_spot_c, s.hot_spot_c()) << i;
+    ASSERT_EQ(r.points[i].top_oil_c, s.top_oil_c) << i;
+  }
+}
+
+}  // namespace
+}  // namespace ferrum::analytics
