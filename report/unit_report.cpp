@@ -3,6 +3,7 @@
 #include <algorithm>
 
 #include "report/assessment_changes.h"
+#include "report/decision_text.h"
 #include "report/health_ruler.h"
 #include "report/pdf_document.h"
 #include "report/report_format.h"
@@ -97,12 +98,22 @@ void remaining_life_line(PageFlow& flow, const UnitAssessment& a) {
     text += ".";
   } else if (rl.years) {
     text += fmt_years_range(rl.years, rl.low_years, rl.high_years);
-    if (!rl.limiting_factor.empty()) text += ", limited by " + rl.limiting_factor;
+    if (!rl.limiting_factor.empty()) text += ", limited by " + limiting_factor_words(rl.limiting_factor);
     text += ".";
   } else {
     text += "not estimated (not enough data).";
   }
   flow.paragraph(text, 9.2, FontFace::bold);
+  if (rl.years && !rl.beyond_horizon && !rl.range_method.empty())
+    flow.paragraph("Range from the uncertainty of the inputs: " + rl.range_method + ". End-of-life evidence only: "
+                   "correctable defects do not shorten it.", type::small, FontFace::regular, palette::muted);
+  // The one decision, as the fleet ranking shows it.
+  const auto& d = a.decision;
+  if (d.action.empty()) return;
+  flow.paragraph("Recommended: " + action_text(d.action, d.year) + (d.treatment.empty() ? "" : " (" + d.treatment + ")"),
+                 9.2, FontFace::bold);
+  flow.paragraph(d.reason, type::body);
+  if (!d.index_note.empty()) flow.paragraph(d.index_note, type::body);
 }
 
 void actions_table(PageFlow& flow, const UnitAssessment& a) {
