@@ -41,7 +41,7 @@ void ranking_table(PageFlow& flow, const FleetRanking& ranking) {
                  "\"First action\" is the unit's most urgent task.", type::small, FontFace::regular, palette::muted);
   Table t;
   t.font_size = 7.0;
-  t.columns = {{"Rank", 0.42}, {"Unit", 0.72}, {"Site", 0.95}, {"MVA", 0.42, Align::right}, {"HI", 0.36, Align::right},
+  t.columns = {{"Rank", 0.46}, {"Unit", 0.72}, {"Site", 0.85}, {"MVA", 0.42, Align::right}, {"HI", 0.42, Align::right},
                {"Band", 1.12}, {"Life", 0.85, Align::right}, {"Limited by", 0.95}, {"Risk", 0.5, Align::right},
                {"Action", 1.05}, {"First action", 2.2}};
   // Why a unit has too little data can run to many lines: it goes under the
