@@ -36,8 +36,8 @@ void ranking_table(PageFlow& flow, const FleetRanking& ranking) {
   }
   flow.paragraph("Highest risk first; equal risks share a rank (marked =). Risk is the expected number of failures "
                  "per 1,000 unit-years (from the health index) times the unit's consequence rating (0 to 1). The "
-                 "calibration is ferrum's own (" + ranking.risk_calibration + "), not fitted to failure statistics: "
-                 "compare units with it, do not read it as a forecast. Action and year are the unit report's; "
+                 "calibration is ferrum's own (" + ranking.risk_calibration + "): compare units with it, do not "
+                 "read it as a forecast. Action and year are the unit report's; "
                  "\"First action\" is the unit's most urgent task.", type::small, FontFace::regular, palette::muted);
   Table t;
   t.font_size = 7.0;

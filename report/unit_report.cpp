@@ -85,7 +85,13 @@ void health_block(PageFlow& flow, const UnitAssessment& a, const UnitAssessment*
                                                     (a.band.empty() ? "" : ": " + a.band)
                                               : "Health index: not computed";
   y = flow.draw_wrapped(headline, tx, y, tw, 10, FontFace::bold);
-  if (!a.band_expected_life.empty()) y = flow.draw_wrapped("Expected life in this band: " + a.band_expected_life, tx, y, tw, 7.8, FontFace::regular);
+  // A correctable finding holds the index down: the band's expected life would
+  // contradict the remaining life, so the line says what holds it instead.
+  if (!a.decision.index_note.empty())
+    y = flow.draw_wrapped("Held down by a correctable finding (see the recommendation below); the remaining life "
+                          "comes from end-of-life evidence only.", tx, y, tw, 7.8, FontFace::regular);
+  else if (!a.band_expected_life.empty())
+    y = flow.draw_wrapped("Expected life in this band: " + a.band_expected_life, tx, y, tw, 7.8, FontFace::regular);
   if (!a.confidence.empty()) y = flow.draw_wrapped("Basis: " + a.confidence, tx, y, tw, 7.8, FontFace::regular, palette::muted);
   if (previous) flow.draw_wrapped("Hollow marker: previous report (" + fmt_day(previous->as_of) + ")", tx, y, tw, 7, FontFace::regular, palette::muted);
 }
