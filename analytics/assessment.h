@@ -109,6 +109,11 @@ struct PaperSummary {
   std::optional<double> dp_alternative;   // second correlation, for comparison
   std::string dp_alternative_method;
   std::optional<double> life_used_pct;
+  // DP fall per year fitted (least squares, Chendong DP) over the furan
+  // samples since the last oil treatment; null with fewer than 3 samples over
+  // less than 2 years. Feeds the range of the paper life estimate.
+  std::optional<double> dp_fall_per_year_history;
+  int dp_history_samples = 0;
   bool trustworthy = true;
   std::string note;
 };

@@ -80,10 +80,19 @@ LifeEstimate paper_life(const RemainingLifeOptions& o, const UnitAssessment& a) 
     dp_hi = std::max(dp, *p.dp_alternative);
   }
   const double u = std::clamp(o.rate_uncertainty, 0.0, 0.95);
-  e.low_years = clip_years((dp_lo - o.end_of_life_dp) / (rate * (1 + u)), o);
-  e.high_years = clip_years((dp_hi - o.end_of_life_dp) / (rate * (1 - u)), o);
+  // The rate: between the rate used and the DP fall fitted over the furan
+  // samples where that history exists and is positive, else +-u.
+  const auto slope = p.dp_fall_per_year_history;
+  const bool history = slope && std::isfinite(*slope) && *slope > 0;
+  const double rate_hi = history ? std::max(rate, *slope) : rate * (1 + u);
+  const double rate_lo = history ? std::min(rate, *slope) : rate * (1 - u);
+  e.low_years = clip_years((dp_lo - o.end_of_life_dp) / rate_hi, o);
+  e.high_years = clip_years((dp_hi - o.end_of_life_dp) / rate_lo, o);
   e.range = std::string(dp_hi > dp_lo ? "DP from both correlations (Chendong, De Pablo)" : "DP from one correlation") +
-            ", ageing rate +-" + fmt(u * 100, 0) + " %";
+            (history ? ", ageing rate between " + fmt(rate_lo, 1) + " and " + fmt(rate_hi, 1) +
+                           " DP/year (since installation, and fitted over " + std::to_string(p.dp_history_samples) +
+                           " furan samples)"
+                     : ", ageing rate +-" + fmt(u * 100, 0) + " %");
   bool thermal_faster = r_th && *r_th > r_hist;
   e.method = "DP " + fmt(dp, 0) + " to " + fmt(o.end_of_life_dp, 0) + " at " + fmt(rate, 1) + " DP/year (" +
              (thermal_faster ? "recent thermal ageing, F_EQA x (DP0-200)/150 000 h, IEEE C57.91 Table 1"

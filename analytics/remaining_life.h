@@ -35,11 +35,11 @@
 // beyond_horizon ("more than N years").
 //
 // Ranges (low/high, with each estimate's `range` saying how): paper, from the
-// two DP correlations (Chendong, De Pablo) and the ageing rate +-
-// rate_uncertainty (default 30 %); thermal and condition, the rate +-
-// rate_uncertainty; age, the expected life +- expected_life_spread_years. The
-// spread of the rate over the furan sample history is not used yet (the
-// assessment keeps only the latest furan result).
+// two DP correlations (Chendong, De Pablo) and the spread between the rate
+// used and the DP fall fitted over the furan sample history
+// (PaperSummary::dp_fall_per_year_history), or the rate +- rate_uncertainty
+// (default 30 %) without such a history; thermal and condition, the rate +-
+// rate_uncertainty; age, the expected life +- expected_life_spread_years.
 // Inputs: a UnitAssessment with paper, thermal, factors and inspection filled.
 #pragma once
 

@@ -114,6 +114,7 @@ Object::Ptr paper_json(const analytics::PaperSummary& p) {
   o->set("dp_alternative", opt(p.dp_alternative));
   o->set("dp_alternative_method", text_or_null(p.dp_alternative_method));
   o->set("life_used_pct", opt(p.life_used_pct));
+  o->set("dp_fall_per_year_history", opt(p.dp_fall_per_year_history));
   o->set("trustworthy", p.trustworthy);
   o->set("note", text_or_null(p.note));
   return o;

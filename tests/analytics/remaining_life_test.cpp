@@ -181,6 +181,15 @@ TEST(RemainingLife, PaperRangeFromBothCorrelations) {
   EXPECT_NEAR(*e.high_years, 500 / (20 * 0.7), 1e-9);  // rate -30 %, DP 700
   EXPECT_NEAR(*e.low_years, 400 / (20 * 1.3), 1e-9);   // rate +30 %, DP 600
   EXPECT_NE(e.range.find("both correlations"), std::string::npos);
+  // With a furan history falling 10 DP/year, the rate spans 10..20 DP/year:
+  // high end 500/10 = 50 years, limited to the 40-year horizon; low end
+  // 400/20 = 20 years (computed by hand).
+  a.paper.dp_fall_per_year_history = 10;
+  a.paper.dp_history_samples = 6;
+  e = fa::paper_life(fa::RemainingLifeOptions{}, a);
+  EXPECT_NEAR(*e.low_years, 20, 1e-9);
+  EXPECT_NEAR(*e.high_years, 40, 1e-9);
+  EXPECT_NE(e.range.find("6 furan samples"), std::string::npos);
 }
 
 // CNAIM checks (computed by hand; CNAIM formulas from memory):
