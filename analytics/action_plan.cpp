@@ -46,34 +46,6 @@ void add_reason(std::string& reasons, const std::string& r) {
   reasons += (reasons.empty() ? "" : "; ") + r;
 }
 
-void add_health_actions(const ActionPlanOptions& o, UnitAssessment& a) {
-  if (!a.health_index) return;
-  // Correctable findings have their own actions; the replacement advice
-  // follows the condition without them (see UnitAssessment::condition_index).
-  double hi = a.condition_index ? *a.condition_index : *a.health_index;
-  std::string why = hi == *a.health_index
-                        ? "health index " + fmt(hi, 1) + (a.band.empty() ? "" : " (" + a.band + ")")
-                        : "condition index " + fmt(hi, 1) + " without the correctable findings (health index " +
-                              fmt(*a.health_index, 1) + ")";
-  if (hi <= o.replace_below_hi)
-    a.actions.push_back({1, a.as_of + o.replace_due_days, "Plan replacement or rebuild",
-                         why + ": assess risk immediately (Jahromi 2009 HI table)"});
-  else if (hi <= o.plan_below_hi)
-    a.actions.push_back({2, a.as_of + o.plan_due_days, "Start planning replacement or refurbishment",
-                         why + ": plan replacement or rebuild considering risk (Jahromi 2009 HI table)"});
-  else if (hi <= o.monitor_below_hi)
-    a.actions.push_back({3, a.as_of + o.monitor_due_days, "Intensify monitoring and diagnostic testing",
-                         why + ": more diagnostic testing (Jahromi 2009 HI table)"});
-}
-
-void add_life_actions(const ActionPlanOptions& o, UnitAssessment& a) {
-  const auto& rl = a.remaining_life;
-  if (!rl.years || *rl.years >= o.replace_within_years) return;
-  int due = std::min(o.replace_due_days * 4, static_cast<int>(*rl.years * 365.25 / 2));
-  a.actions.push_back({*rl.years < 1 ? 1 : 2, a.as_of + std::max(due, 0), "Plan replacement or rebuild",
-                       "remaining life " + fmt(*rl.years, 1) + " years, limited by " + rl.limiting_factor});
-}
-
 void add_data_actions(const ActionPlanOptions& o, UnitAssessment& a) {
   for (const auto& f : data_freshness(a)) {
     const char* text = nullptr;
@@ -121,10 +93,13 @@ std::vector<Action> merge_actions(const std::vector<Action>& actions) {
 void finalize_actions(UnitAssessment& a) { finalize_actions(ActionPlanOptions{}, a); }
 
 void finalize_actions(const ActionPlanOptions& o, UnitAssessment& a) {
-  add_health_actions(o, a);
-  add_life_actions(o, a);
   add_data_actions(o, a);
+  Decision d = decide(o.decision, a);
+  for (auto& act : decision_actions(o.decision, a, d)) a.actions.push_back(std::move(act));
   a.actions = merge_actions(a.actions);
+  if (!a.actions.empty()) d.first_action = a.actions.front();
+  if (!d.year) d.year = civil_from_days(d.first_action ? d.first_action->due : a.as_of + 365).year;
+  a.decision = std::move(d);
 }
 
 }  // namespace ferrum::analytics

@@ -1,39 +1,33 @@
 // Recommended actions of one assessment: merges the actions that the oil,
-// thermal and other parts appended, adds the actions that the health index,
-// the remaining life and stale data call for, and orders the list.
+// thermal and other parts appended, adds the actions that stale data and the
+// unit's decision (analytics/decision/decision.h: replace, refurbish, repair,
+// investigate, monitor, routine) call for, orders the list and records the
+// decision with the unit's most urgent action.
 //
-// Health-index actions follow the "requirement" column of the HI -> condition
-// table of Jahromi et al., IEEE Electrical Insulation Magazine 25(2), 2009
-// (from memory): below 30 replace or rebuild, 30-50 start
-// planning replacement or rebuild, 50-70 more diagnostic testing. The due
-// dates and the stale-data actions are ferrum's own defaults.
+// The due dates of the stale-data actions are ferrum's own defaults.
 // Order: priority (1 = most urgent), then due date, then text.
 #pragma once
 
 #include "analytics/assessment.h"
+#include "analytics/decision/decision.h"
 
 namespace ferrum::analytics {
 
 struct ActionPlanOptions {
-  // Index at or below which (band edges belong to the worse band, as in
-  // analytics/health_index.h):
-  double replace_below_hi = 30;        // replacement is planned now
-  double plan_below_hi = 50;           // planning of replacement/refurbishment starts
-  double monitor_below_hi = 70;        // monitoring is intensified
-  double replace_within_years = 5;     // remaining life below which replacement is planned
   double stale_after_years = 1.0;      // oil / infrared / inspection data older than this
-  int replace_due_days = 90;
-  int plan_due_days = 365;
-  int monitor_due_days = 180;
   int data_due_days = 90;
+  DecisionOptions decision;
 };
 
 // Same as finalize_actions(ActionPlanOptions{}, a).
 void finalize_actions(UnitAssessment& a);
-// Adds the HI-, life- and data-driven actions, merges actions whose text is
-// the same (ignoring case, spacing and a final full stop: the most urgent
-// priority, the earliest due date and every distinct reason are kept), and
-// sorts by priority, due date, text.
+// Adds the data-driven actions, decides (a.decision), adds the decision's
+// actions, merges actions whose text is the same (ignoring case, spacing and
+// a final full stop: the most urgent priority, the earliest due date and every
+// distinct reason are kept), sorts by priority, due date, text, and sets
+// a.decision.first_action to the first of them and, for every action but a
+// replacement, a.decision.year to the year of that action's due date (the
+// year of next year's routine visit when there is no action).
 void finalize_actions(const ActionPlanOptions& options, UnitAssessment& a);
 
 // The merge and sort step alone.

@@ -14,7 +14,11 @@ UnitAssessment assess_unit(const UnitData& data, Day as_of, const AssessmentOpti
   // The index reads the oil and thermal parts; the life reads the index.
   score_health(options.health, a);
   estimate_remaining_life(options.life, a);
-  finalize_actions(a);
+  ActionPlanOptions actions = options.actions;
+  // One cooling threshold: the one the thermal part uses for its action.
+  actions.decision.cooling_discrepancy_k = options.thermal.discrepancy_threshold_k;
+  actions.decision.chronic_items = options.life.chronic_items;
+  finalize_actions(actions, a);
   for (const TableInfo& t : standard_tables().info)
     a.tables.push_back({t.title(), t.status_text(), t.origin, t.status == kStatusUnverified});
   return a;

@@ -5,9 +5,11 @@
 // The methods and their sources are named in the headers of the steps:
 // analytics/oil_assessment.h, analytics/thermal_assessment.h,
 // analytics/health_index.h, analytics/remaining_life.h,
-// analytics/action_plan.h.
+// analytics/action_plan.h,
+// analytics/decision/decision.h.
 #pragma once
 
+#include "analytics/action_plan.h"
 #include "analytics/assessment.h"
 #include "analytics/health_index.h"
 #include "analytics/oil_assessment.h"
@@ -22,6 +24,7 @@ struct AssessmentOptions {
   ThermalOptions thermal;
   HealthIndexOptions health;
   RemainingLifeOptions life;
+  ActionPlanOptions actions;  // with the decision's thresholds ([ranking] in ferrum.ini)
 };
 
 // Sets unit and as_of, then runs assess_oil, assess_thermal, score_health,

@@ -26,17 +26,19 @@ struct FactorScore {
 };
 
 struct LifeEstimate {
-  std::string basis;  // "paper", "thermal", "condition"
+  std::string basis;  // "paper", "thermal", "age", "condition"
   std::optional<double> years, low_years, high_years;
   std::string method;  // how it was obtained
+  std::string range;   // how low_years/high_years were made
 };
 
 struct RemainingLife {
   std::optional<double> years;
   std::optional<double> low_years;
   std::optional<double> high_years;
-  std::string limiting_factor;          // "paper", "thermal", "condition", or "" when unknown
+  std::string limiting_factor;          // "paper", "thermal", "age", "condition", or "" when unknown
   std::vector<LifeEstimate> estimates;  // every estimate, the limiting one included
+  std::string range_method;             // how low_years/high_years were made, in words
   bool beyond_horizon = false;          // years reached the horizon: "more than horizon_years"
   double horizon_years = 40;            // [ranking] life_horizon_years
 };
@@ -107,6 +109,11 @@ struct PaperSummary {
   std::optional<double> dp_alternative;   // second correlation, for comparison
   std::string dp_alternative_method;
   std::optional<double> life_used_pct;
+  // DP fall per year fitted (least squares, Chendong DP) over the furan
+  // samples since the last oil treatment; null with fewer than 3 samples over
+  // less than 2 years. Feeds the range of the paper life estimate.
+  std::optional<double> dp_fall_per_year_history;
+  int dp_history_samples = 0;
   bool trustworthy = true;
   std::string note;
 };
@@ -170,6 +177,26 @@ struct Action {
   std::string reason;
 };
 
+// One piece of evidence behind a decision, in words. End-of-life kinds:
+// "paper", "thermal", "age", "chronic"; correctable-defect kinds: "gassing",
+// "hot_joint", "oil", "unsafe_item", "cooling", "bushing", "fitting".
+struct Evidence {
+  std::string kind;
+  std::string text;
+};
+
+// The recommended action of one unit (analytics/decision/decision.h).
+struct Decision {
+  std::string action;             // "replace", "refurbish", "repair", "investigate", "monitor", "routine"
+  std::optional<int> year;        // year the action is due (a replacement: in service by)
+  std::string reason;             // in words, for a manager
+  std::string treatment;          // refurbishment scope ("dry out the active part", ...), else ""
+  std::string index_note;         // capped and uncapped index in words, when they differ
+  std::vector<Evidence> end_of_life;
+  std::vector<Evidence> defects;
+  std::optional<Action> first_action;  // the unit's most urgent action
+};
+
 struct DataFreshness {
   std::string kind;                  // "oil", "infrared", "inspection", "load"
   std::optional<Day> latest;
@@ -205,6 +232,7 @@ struct UnitAssessment {
   std::vector<InfraredFinding> infrared;
   std::vector<InspectionFinding> inspection;
   std::vector<Action> actions;
+  Decision decision;
   std::vector<std::string> missing;
   std::vector<DataFreshness> freshness;
   std::vector<std::string> methods;      // every method applied, with its source
@@ -229,12 +257,17 @@ struct RankedUnit {
   std::optional<double> health_index;
   std::string band;
   std::optional<double> remaining_life_years;
+  bool beyond_horizon = false;   // remaining life more than horizon_years
+  double horizon_years = 40;
   std::string limiting_factor;
   std::optional<double> probability_of_failure;  // per year, from the documented mapping
+  std::optional<double> failures_per_1000_unit_years;  // probability_of_failure x 1000
   double consequence = 0;
   std::optional<double> risk;
-  std::string recommended_action;  // "replace", "refurbish", "intensify monitoring", "routine"
+  std::string recommended_action;  // Decision::action
   std::optional<int> action_year;
+  std::string action_reason;       // Decision::reason
+  std::optional<Action> first_action;  // the unit's most urgent action
   bool insufficient_data = false;
   std::string note;
 };
@@ -244,6 +277,18 @@ struct FleetRanking {
   std::vector<RankedUnit> units;              // ranked first, then units without enough data
   struct YearMva { int year = 0; double mva = 0; int units = 0; };
   std::vector<YearMva> mva_due_by_year;       // next ten years
+  // Every unit whose remaining life ends within the outlook (ten years),
+  // soonest first, whatever its action this year.
+  struct LifeEnd {
+    std::string unit_id, site;
+    double rated_mva = 0;
+    double remaining_life_years = 0;
+    int life_ends_year = 0;
+    std::string limiting_factor, action;
+    std::optional<int> action_year;
+  };
+  std::vector<LifeEnd> outlook;
+  std::string risk_calibration;               // how risk is calibrated, in words
 };
 
 }  // namespace ferrum::analytics

@@ -7,31 +7,7 @@ namespace ferrum::analytics {
 
 namespace {
 
-struct Recommendation {
-  std::string action;
-  int year = 0;
-};
-
-Recommendation recommend(const RankingOptions& o, const UnitAssessment& a, int this_year) {
-  // Replacement advice reads the condition without correctable findings: a
-  // stolen earth conductor calls for making safe, not for a new transformer.
-  std::optional<double> hi = a.condition_index ? a.condition_index : a.health_index;
-  std::optional<double> life = a.remaining_life.years;
-  if ((hi && *hi <= o.replace_below_hi) || (life && *life < o.replace_within_years)) {
-    // Replace by the year the limit is reached; a failing index means now.
-    int in = life && !(hi && *hi <= o.replace_below_hi) ? static_cast<int>(std::floor(*life)) : 0;
-    return {"replace", this_year + std::max(in, 0)};
-  }
-  // A correctable finding (gassing fault, unsafe item, hot joint) capped the
-  // index below the condition: the row says so instead of "routine".
-  if (a.health_index && a.condition_index && *a.health_index < *a.condition_index) return {"repair", this_year};
-  if ((hi && *hi <= o.refurbish_below_hi) || (life && *life < o.refurbish_within_years))
-    return {"refurbish", this_year + 1};
-  if (!hi || *hi <= o.monitor_below_hi) return {"intensify monitoring", this_year};
-  return {"routine", this_year + 1};
-}
-
-RankedUnit row_of(const RankingOptions& o, const UnitAssessment& a, int this_year) {
+RankedUnit row_of(const RankingOptions& o, const UnitAssessment& a) {
   RankedUnit r;
   r.unit_id = a.unit.unit_id;
   r.site = a.unit.site;
@@ -39,19 +15,24 @@ RankedUnit row_of(const RankingOptions& o, const UnitAssessment& a, int this_yea
   r.health_index = a.health_index;
   r.band = a.band;
   r.remaining_life_years = a.remaining_life.years;
+  r.beyond_horizon = a.remaining_life.beyond_horizon;
+  r.horizon_years = a.remaining_life.horizon_years;
   r.limiting_factor = a.remaining_life.limiting_factor;
   r.consequence = consequence_of(a.unit, o);
   if (a.health_index && std::isfinite(*a.health_index)) {
     r.probability_of_failure = probability_of_failure(*a.health_index, o);
+    r.failures_per_1000_unit_years = *r.probability_of_failure * 1000;
     r.risk = *r.probability_of_failure * r.consequence;
   } else {
     r.insufficient_data = true;
-    r.note = "insufficient data: " + (a.confidence.empty() ? std::string("no health index") : a.confidence);
+    r.note = a.confidence.empty() ? std::string("no health index") : a.confidence;
     for (const auto& m : a.missing) r.note += "; " + m;
   }
-  auto rec = recommend(o, a, this_year);
-  r.recommended_action = rec.action;
-  r.action_year = rec.year;
+  // The one decision of the assessment (analytics/decision/decision.h).
+  r.recommended_action = a.decision.action;
+  r.action_year = a.decision.year;
+  r.action_reason = a.decision.reason;
+  r.first_action = a.decision.first_action;
   return r;
 }
 
@@ -101,6 +82,12 @@ UnitAssessment ranking_fields(const UnitAssessment& a) {
   r.missing = a.missing;
   r.remaining_life.years = a.remaining_life.years;
   r.remaining_life.limiting_factor = a.remaining_life.limiting_factor;
+  r.remaining_life.beyond_horizon = a.remaining_life.beyond_horizon;
+  r.remaining_life.horizon_years = a.remaining_life.horizon_years;
+  r.decision.action = a.decision.action;
+  r.decision.year = a.decision.year;
+  r.decision.reason = a.decision.reason;
+  r.decision.first_action = a.decision.first_action;
   return r;
 }
 
@@ -124,7 +111,7 @@ FleetRanking rank_fleet(const std::vector<UnitAssessment>& units, Day as_of, con
   int this_year = civil_from_days(as_of).year;
   std::vector<RankedUnit> ranked, unranked;
   for (const auto& a : units) {
-    RankedUnit r = row_of(o, a, this_year);
+    RankedUnit r = row_of(o, a);
     (r.insufficient_data ? unranked : ranked).push_back(std::move(r));
   }
   std::sort(ranked.begin(), ranked.end(), [](const RankedUnit& x, const RankedUnit& y) {
@@ -145,6 +132,16 @@ FleetRanking rank_fleet(const std::vector<UnitAssessment>& units, Day as_of, con
     out.mva_due_by_year[k].mva += r.rated_mva;
     out.mva_due_by_year[k].units += 1;
   }
+  for (const auto& r : out.units) {
+    if (!r.remaining_life_years || r.beyond_horizon || *r.remaining_life_years > o.horizon_years) continue;
+    int ends = civil_from_days(as_of + static_cast<Day>(std::lround(*r.remaining_life_years * 365.25))).year;
+    out.outlook.push_back({r.unit_id, r.site, r.rated_mva, *r.remaining_life_years, ends, r.limiting_factor,
+                           r.recommended_action, r.action_year});
+  }
+  std::stable_sort(out.outlook.begin(), out.outlook.end(), [](const auto& x, const auto& y) {
+    return x.remaining_life_years < y.remaining_life_years;
+  });
+  out.risk_calibration = o.pof_source;
   return out;
 }
 

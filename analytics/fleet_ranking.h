@@ -15,12 +15,14 @@
 // rank (1, 2, 2, 4), is marked tied and is ordered by unit_id with a note.
 // Units without a health index are listed after the ranked ones, by unit_id,
 // with insufficient_data set, rank 0 and a note naming what is missing.
-// Recommended action and year: replace / refurbish / repair / intensify
-// monitoring / routine, from the condition index (without correctable
-// findings) and the remaining life (thresholds in the options; index
-// thresholds from the HI table of Jahromi et al. 2009, from memory). "repair"
-// this year when a correctable finding (gassing fault, unsafe item, hot joint)
-// capped the index below the condition: the row never says "routine" then.
+// Recommended action, year, reason and the unit's most urgent action
+// (first_action): the assessment's one decision (analytics/decision/
+// decision.h), copied, so that the ranking and the unit report agree.
+// Risk for people: probability of failure as expected failures per 1,000
+// unit-years (2 at HI 100 to 200 at HI 0 with the defaults), times the
+// consequence. The calibration is ferrum's own (risk_calibration says so).
+// Ten-year outlook: replacements per year (mva_due_by_year) and every unit
+// whose remaining life ends within the ten years (outlook).
 #pragma once
 
 #include <string>
@@ -35,7 +37,8 @@ struct RankingOptions {
   double pof_as_new = 0.002;   // per year at HI 100 (ferrum default)
   double pof_at_zero = 0.2;    // per year at HI 0 (ferrum default)
   std::string pof_source =
-      "exponential PoF(HI) = P100 (P0/P100)^((100-HI)/100), common practice; defaults are ferrum's own";
+      "exponential PoF(HI) = P100 (P0/P100)^((100-HI)/100), common practice; the defaults (2 failures per "
+      "1,000 unit-years at HI 100, 200 at HI 0) are ferrum's own, not calibrated on failure statistics";
   // Consequence weights and references.
   double weight_criticality = 0.5;
   double weight_customers = 0.3;
@@ -44,13 +47,7 @@ struct RankingOptions {
   double mva_reference = 100;          // MVA at which the component reaches 1
   // Equal risk: |r1 - r2| <= tie_tolerance * max(r1, r2).
   double tie_tolerance = 1e-9;
-  // Actions: index at or below (band edges belong to the worse band).
-  double replace_below_hi = 30;
-  double refurbish_below_hi = 50;
-  double monitor_below_hi = 70;
-  double replace_within_years = 5;     // remaining life
-  double refurbish_within_years = 10;  // remaining life
-  int horizon_years = 10;              // MVA-due summary
+  int horizon_years = 10;              // MVA-due summary and life-end outlook
 };
 
 // Ranks every unit; never drops one. REQUIRES nothing: empty input gives an
@@ -59,7 +56,8 @@ FleetRanking rank_fleet(const std::vector<UnitAssessment>& units, Day as_of, con
 
 // The fields of an assessment that rank_fleet reads, and only those (unit id,
 // site, MVA, criticality, customers; health and condition index, band,
-// confidence, missing data; remaining life and its limiting factor):
+// confidence, missing data; remaining life, its limiting factor and horizon;
+// the decision's action, year, reason and first action):
 // rank_fleet gives the same ranking from them as from the whole assessments
 // (tested). What a stored ranking input keeps (daemon/assess/ranking_cache).
 // Kept beside rank_fleet so that the two change together.

@@ -5,6 +5,8 @@
 #include <cstdio>
 #include <map>
 
+#include "analytics/words.h"
+
 namespace ferrum::analytics {
 
 namespace {
@@ -227,8 +229,8 @@ RawFactor score_inspection(const HealthIndexOptions& o, const UnitAssessment& a)
   for (const auto& [item, fnd] : latest)
     if (!worst || static_cast<int>(fnd->rating) > static_cast<int>(worst->rating)) worst = fnd;
   f.hif = 5 - static_cast<int>(worst->rating);
-  f.detail = std::to_string(latest.size()) + " items, worst " + worst->item + " " +
-             to_string(worst->rating) + " -> " + rating_text(*f.hif);
+  f.detail = std::to_string(latest.size()) + " items, worst " + words(worst->item) + " " +
+             words(to_string(worst->rating)) + " -> " + rating_text(*f.hif);
   return f;
 }
 
@@ -357,8 +359,8 @@ void score_health(const HealthIndexOptions& o, UnitAssessment& a) {
       denom += 4 * f.weight;
       ++scored;
     } else {
-      missing_names += (missing_names.empty() ? "" : ", ") + f.name;
-      a.missing.push_back("health index factor " + f.name + ": " + f.detail);
+      missing_names += (missing_names.empty() ? "" : ", ") + words(f.name);
+      a.missing.push_back("health index factor " + words(f.name) + ": " + f.detail);
     }
   }
   a.factors.clear();

@@ -256,6 +256,23 @@ void assess_paper(const std::vector<OilSample>& samples, const UnitInfo& unit, c
   p.life_used_pct = r.life_used_pct;
   p.trustworthy = r.trustworthy;
   p.note = r.note;
+  // The DP fall over the furan history (a treated oil resets furans: only a
+  // trustworthy latest result has a usable history).
+  std::vector<std::pair<double, double>> pts;  // years since the first sample, DP
+  for (const OilSample& s : samples) {
+    if (!has_furan(s) || s.date > f->date) continue;
+    const PaperDpResult d = estimate_paper_dp(s.furan_2fal_ppb, s.date, unit, o.paper);
+    if (d.dp_chendong && d.trustworthy) pts.push_back({s.date / 365.25, *d.dp_chendong});
+  }
+  if (r.trustworthy && pts.size() >= 3 && pts.back().first - pts.front().first >= 2) {
+    double mx = 0, my = 0;
+    for (auto [x, y] : pts) mx += x, my += y;
+    mx /= pts.size(), my /= pts.size();
+    double sxy = 0, sxx = 0;
+    for (auto [x, y] : pts) sxy += (x - mx) * (y - my), sxx += (x - mx) * (x - mx);
+    if (sxx > 0) p.dp_fall_per_year_history = -sxy / sxx;
+    p.dp_history_samples = static_cast<int>(pts.size());
+  }
   out.methods.push_back(method_line(r.method, r.source));
 }
 

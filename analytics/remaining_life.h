@@ -1,6 +1,7 @@
-// Remaining-life estimate of one transformer, in years, from three separate
-// end-of-life bases reported side by side; the smallest central estimate is the answer and
-// its basis is the limiting factor.
+// Remaining-life estimate of one transformer, in years, from four separate
+// end-of-life bases reported side by side; the smallest central estimate is
+// the answer and its basis is the limiting factor ("paper", "thermal", "age"
+// or "condition").
 //
 //  * "paper": degree of polymerisation (DP) now versus the end-of-life DP 200
 //    (end-of-life DP checked in public sources). The DP drop per
@@ -13,25 +14,33 @@
 //    from memory; configurable) minus the life already consumed, at the
 //    recent equivalent ageing factor F_EQA. Life consumed before the load
 //    record is taken at the same F_EQA (stated in the assumptions).
-//  * "condition": exponential health-index ageing, HI(t) = HI0 e^(B (t - t0))
-//    (CNAIM-style ageing curve). The unit's own rate B = ln(HI/100) / age is limited to
-//    between half and twice the expected rate ln(HI_EOL/100) / L_expected (the
-//    upper limit as in CNAIM v2.1 section 6.1.8, from memory; the lower limit
-//    is ferrum's, so that a pristine index still ages). End of life is the top
-//    of the worst band, HI 30. The weighted score before the worst-indicator
-//    cap is aged: the cap gates one severe finding, which has its own action,
-//    and is not gradual ageing.
+//  * "age": expected life (default 60 years, ferrum's own) minus the years in
+//    service. Statistical, not measured: where a trustworthy paper estimate
+//    exists the age estimate is reported but does not limit.
+//  * "condition": exponential ageing, S(t) = S0 e^(B (t - t0)) (CNAIM-style
+//    ageing curve), of the end-of-life score only: the paper, thermal and age
+//    factors of the health index and the worst chronic inspection item (tank,
+//    radiators). Gases, oil quality, infrared and other inspection items are
+//    correctable defects and are not aged. The unit's own rate B = ln(S/100) /
+//    age is limited to between half and twice the expected rate
+//    ln(S_EOL/100) / L_expected (the upper limit as in CNAIM v2.1 section
+//    6.1.8, from memory; the lower limit is ferrum's). End of life is 30, the
+//    top of the worst band. Needs at least two of those factors.
 //
 // Correctable defects (an active gassing fault, a hot joint, wet oil, an unsafe
 // item) never shorten remaining life: no published method maps a gas level to
 // years of life, and a repaired fault leaves the paper as it was. They raise the
-// probability of failure and produce their own actions (action_plan.h).
+// probability of failure and produce their own actions (analytics/decision/).
 // Estimates beyond the horizon are reported as the horizon, flagged
 // beyond_horizon ("more than N years").
 //
-// Ranges: each estimate's low/high come from its ageing rate raised/lowered by
-// rate_uncertainty (default 30 %), except the gas rules, which carry their own.
-// Inputs: a UnitAssessment with paper, thermal, dga and health_index filled.
+// Ranges (low/high, with each estimate's `range` saying how): paper, from the
+// two DP correlations (Chendong, De Pablo) and the spread between the rate
+// used and the DP fall fitted over the furan sample history
+// (PaperSummary::dp_fall_per_year_history), or the rate +- rate_uncertainty
+// (default 30 %) without such a history; thermal and condition, the rate +-
+// rate_uncertainty; age, the expected life +- expected_life_spread_years.
+// Inputs: a UnitAssessment with paper, thermal, factors and inspection filled.
 #pragma once
 
 #include <optional>
@@ -59,6 +68,10 @@ struct RemainingLifeOptions {
   double min_rate_multiple = 0.5;    // unit rate >= 0.5x expected (ferrum)
   // Range and horizon.
   double rate_uncertainty = 0.3;     // +-30 % on the ageing rate
+  // Age.
+  double expected_life_spread_years = 10;  // range of the age estimate (ferrum default)
+  // Inspection items whose poor state is chronic deterioration (end of life).
+  std::vector<std::string> chronic_items{"main_tank", "radiators"};
   double horizon_years = 40;         // [ranking] life_horizon_years; longer estimates are reported as this
 };
 
@@ -73,6 +86,7 @@ void estimate_remaining_life(const RemainingLifeOptions& options, UnitAssessment
 LifeEstimate paper_life(const RemainingLifeOptions& o, const UnitAssessment& a);
 LifeEstimate thermal_life(const RemainingLifeOptions& o, const UnitAssessment& a);
 LifeEstimate condition_life(const RemainingLifeOptions& o, const UnitAssessment& a);
+LifeEstimate age_life(const RemainingLifeOptions& o, const UnitAssessment& a);
 
 // Time for an exponentially growing (rate > 0) or decaying (rate < 0)
 // quantity to go from `from` to `to`: ln(to/from)/rate. 0 when already past

@@ -5,6 +5,7 @@
 #include <cstdio>
 
 #include "analytics/ageing_rate.h"
+#include "analytics/words.h"
 
 namespace ferrum::analytics {
 namespace {
@@ -174,18 +175,18 @@ void assess_inspections(const UnitData& data, Day as_of, const ThermalOptions& o
   std::vector<Action> urgent;
   for (const auto& f : review.findings) {
     if (f.rating == Rating::unsafe)
-      urgent.push_back(action(1, as_of, "Make safe or take out of service: " + f.item,
-                              "inspection " + format_day(f.date) + " rated " + f.item + " unsafe" +
+      urgent.push_back(action(1, as_of, "Make safe or take out of service: " + words(f.item),
+                              "inspection " + format_day(f.date) + " rated " + words(f.item) + " unsafe" +
                                   (f.note.empty() ? "" : " (" + f.note + ")")));
     else if (f.worse)
-      out.actions.push_back(action(3, as_of + o.worse_item_due_days, "Re-inspect and plan repair of " + f.item,
-                                   f.item + " rated " + to_string(f.rating) + " on " + format_day(f.date) +
-                                       ", previously " + to_string(*f.previous)));
+      out.actions.push_back(action(3, as_of + o.worse_item_due_days, "Re-inspect and plan repair of " + words(f.item),
+                                   words(f.item) + " rated " + words(to_string(f.rating)) + " on " + format_day(f.date) +
+                                       ", previously " + words(to_string(*f.previous))));
   }
   out.actions.insert(out.actions.begin(), urgent.begin(), urgent.end());
   if (!review.overdue_items.empty())
     out.actions.push_back(action(3, as_of + o.overdue_inspection_due_days,
-                                 "Inspect " + join(review.overdue_items),
+                                 "Inspect " + words(join(review.overdue_items)),
                                  "last inspection more than " + std::to_string(o.inspection.interval_days) +
                                      " days before " + format_day(as_of) + " (ferrum inspection interval)"));
 }

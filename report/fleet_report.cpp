@@ -4,6 +4,7 @@
 #include <cctype>
 #include <map>
 
+#include "report/decision_text.h"
 #include "report/health_ruler.h"
 #include "report/pdf_chart.h"
 #include "report/pdf_document.h"
@@ -33,32 +34,30 @@ void ranking_table(PageFlow& flow, const FleetRanking& ranking) {
     flow.paragraph("No units in the ranking.", type::body, FontFace::regular, palette::muted);
     return;
   }
-  flow.paragraph("Highest risk first; equal risks share a rank (marked =). Risk combines the yearly probability "
-                 "of failure from the health index with the unit's consequence rating.", type::small,
-                 FontFace::regular, palette::muted);
+  flow.paragraph("Highest risk first; equal risks share a rank (marked =). Risk is the expected number of failures "
+                 "per 1,000 unit-years (from the health index) times the unit's consequence rating (0 to 1). The "
+                 "calibration is ferrum's own (" + ranking.risk_calibration + "): compare units with it, do not "
+                 "read it as a forecast. Action and year are the unit report's; "
+                 "\"First action\" is the unit's most urgent task.", type::small, FontFace::regular, palette::muted);
   Table t;
-  t.font_size = 7.2;
-  // Band and Action are wide enough for "deteriorating" and "intensify
-  // monitoring" to stay whole words at this size.
-  t.columns = {{"Rank", 0.5},  {"Unit", 0.8}, {"Site", 1.25}, {"MVA", 0.55, Align::right}, {"HI", 0.45, Align::right},
-               {"Band", 1.0},  {"Life, years", 0.65, Align::right}, {"Limited by", 0.8}, {"Risk", 0.6, Align::right},
-               {"Action", 1.15}, {"Year", 0.5, Align::right}};
+  t.font_size = 7.0;
+  t.columns = {{"Rank", 0.46}, {"Unit", 0.72}, {"Site", 0.85}, {"MVA", 0.42, Align::right}, {"HI", 0.42, Align::right},
+               {"Band", 1.12}, {"Life", 0.85, Align::right}, {"Limited by", 0.95}, {"Risk", 0.5, Align::right},
+               {"Action", 1.05}, {"First action", 2.2}};
   // Why a unit has too little data can run to many lines: it goes under the
   // table at full width, not into the narrow Action cell.
   std::vector<std::string> why_insufficient;
   for (const auto& u : ranking.units) {
     std::string action = u.recommended_action;
     if (u.insufficient_data) {
-      action = "insufficient data (see below)";
-      // The ranking's note may already start with "insufficient data".
-      const bool prefixed = u.note.rfind("insufficient data", 0) == 0;
-      why_insufficient.push_back(u.unit_id + ": " + (prefixed ? u.note
-                                                              : "insufficient data" + (u.note.empty() ? "" : ": " + u.note)));
+      action = action_text(u.recommended_action, u.action_year) + " (too little data, see below)";
+      why_insufficient.push_back(u.unit_id + ", too little data: " + (u.note.empty() ? "no health index" : u.note));
     }
+    const std::string first = first_action_text(u.first_action);
     t.rows.push_back({rank_text(u), u.unit_id, u.site, u.rated_mva > 0 ? fmt_number(u.rated_mva, 0) : kNoValue, fmt_health_index(u.health_index),
-                      u.band.empty() ? kNoValue : u.band, fmt_number(u.remaining_life_years, 1),
-                      u.limiting_factor.empty() ? kNoValue : u.limiting_factor, fmt_number(u.risk, 3), action,
-                      u.action_year ? std::to_string(*u.action_year) : kNoValue});
+                      u.band.empty() ? kNoValue : u.band, life_text(u.remaining_life_years, u.beyond_horizon, u.horizon_years),
+                      u.limiting_factor.empty() ? kNoValue : limiting_factor_words(u.limiting_factor), risk_text(u.risk),
+                      u.insufficient_data ? action : action_text(action, u.action_year), first.empty() ? kNoValue : first});
     t.emphasis.push_back(u.recommended_action == "replace");
   }
   flow.table(t);
@@ -94,6 +93,26 @@ BarChart mva_chart(const FleetRanking& ranking) {
   }
   c.y_label = "Rated MVA due for replacement, per year";
   return c;
+}
+
+// Every unit whose remaining life ends within the outlook, whatever its
+// action this year.
+void life_outlook(PageFlow& flow, const FleetRanking& ranking) {
+  flow.section("Remaining life ending within ten years", 40);
+  if (ranking.outlook.empty()) {
+    flow.paragraph("No unit's remaining life ends within the next ten years.", type::body, FontFace::regular,
+                   palette::muted);
+    return;
+  }
+  Table t;
+  t.font_size = 7.4;
+  t.columns = {{"Unit", 0.8}, {"Site", 1.3}, {"MVA", 0.5, Align::right}, {"Life", 0.8, Align::right},
+               {"Ends", 0.5, Align::right}, {"Limited by", 1.2}, {"Action", 1.1}};
+  for (const auto& e : ranking.outlook)
+    t.rows.push_back({e.unit_id, e.site, e.rated_mva > 0 ? fmt_number(e.rated_mva, 0) : kNoValue,
+                      fmt_number(e.remaining_life_years, 1, "years"), std::to_string(e.life_ends_year),
+                      limiting_factor_words(e.limiting_factor), action_text(e.action, e.action_year)});
+  flow.table(t);
 }
 
 void charts(PageFlow& flow, const FleetRanking& ranking) {
@@ -163,6 +182,7 @@ void render_fleet_report(const FleetRanking& ranking, const std::vector<UnitAsse
                    "as of " + fmt_day(ranking.as_of) + " · " + std::to_string(ranking.units.size()) + " units");
   ranking_table(flow, ranking);
   charts(flow, ranking);
+  life_outlook(flow, ranking);
   alerts(flow, open_alerts);
   coverage(flow, units);
   // A one-page report already has the block at its foot; a longer one

@@ -33,14 +33,19 @@ std::string integer(std::optional<int> v) { return v ? std::to_string(*v) : std:
 
 std::string fleet_ranking_csv(const analytics::FleetRanking& ranking) {
   std::string csv =
-      "rank,tied,unit_id,site,rated_mva,health_index,band,remaining_life_years,limiting_factor,"
-      "probability_of_failure,consequence,risk,recommended_action,action_year,insufficient_data,note\n";
+      "rank,tied,unit_id,site,rated_mva,health_index,band,remaining_life_years,beyond_horizon,limiting_factor,"
+      "probability_of_failure,failures_per_1000_unit_years,consequence,risk,recommended_action,action_year,"
+      "first_action_priority,first_action_due,first_action,action_reason,insufficient_data,note\n";
   for (const auto& u : ranking.units) {
     const std::string fields[] = {u.insufficient_data ? "" : std::to_string(u.rank), u.tied ? "yes" : "no",
                                   quote(u.unit_id), quote(u.site), number(u.rated_mva), number(u.health_index),
-                                  quote(u.band), number(u.remaining_life_years), quote(u.limiting_factor),
-                                  number(u.probability_of_failure), number(u.consequence), number(u.risk),
+                                  quote(u.band), number(u.remaining_life_years), u.beyond_horizon ? "yes" : "no",
+                                  quote(u.limiting_factor), number(u.probability_of_failure),
+                                  number(u.failures_per_1000_unit_years), number(u.consequence), number(u.risk),
                                   quote(u.recommended_action), integer(u.action_year),
+                                  u.first_action ? std::to_string(u.first_action->priority) : "",
+                                  u.first_action ? analytics::format_day(u.first_action->due) : "",
+                                  quote(u.first_action ? u.first_action->text : ""), quote(u.action_reason),
                                   u.insufficient_data ? "yes" : "no", quote(u.note)};
     bool first = true;
     for (const auto& f : fields) {

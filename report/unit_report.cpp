@@ -3,6 +3,7 @@
 #include <algorithm>
 
 #include "report/assessment_changes.h"
+#include "report/decision_text.h"
 #include "report/health_ruler.h"
 #include "report/pdf_document.h"
 #include "report/report_format.h"
@@ -85,7 +86,13 @@ void health_block(PageFlow& flow, const UnitAssessment& a, const UnitAssessment*
                                                     (a.band.empty() ? "" : ": " + a.band)
                                               : "Health index: not computed";
   y = flow.draw_wrapped(headline, tx, y, tw, 10, FontFace::bold);
-  if (!a.band_expected_life.empty()) y = flow.draw_wrapped("Expected life in this band: " + a.band_expected_life, tx, y, tw, 7.8, FontFace::regular);
+  // A correctable finding holds the index down: the band's expected life would
+  // contradict the remaining life, so the line says what holds it instead.
+  if (!a.decision.index_note.empty())
+    y = flow.draw_wrapped("Held down by a correctable finding (see the recommendation below); the remaining life "
+                          "comes from end-of-life evidence only.", tx, y, tw, 7.8, FontFace::regular);
+  else if (!a.band_expected_life.empty())
+    y = flow.draw_wrapped("Expected life in this band: " + a.band_expected_life, tx, y, tw, 7.8, FontFace::regular);
   if (!a.confidence.empty()) y = flow.draw_wrapped("Basis: " + a.confidence, tx, y, tw, 7.8, FontFace::regular, palette::muted);
   if (previous) flow.draw_wrapped("Hollow marker: previous report (" + fmt_day(previous->as_of) + ")", tx, y, tw, 7, FontFace::regular, palette::muted);
 }
@@ -98,12 +105,22 @@ void remaining_life_line(PageFlow& flow, const UnitAssessment& a) {
     text += ".";
   } else if (rl.years) {
     text += fmt_years_range(rl.years, rl.low_years, rl.high_years);
-    if (!rl.limiting_factor.empty()) text += ", limited by " + rl.limiting_factor;
+    if (!rl.limiting_factor.empty()) text += ", limited by " + limiting_factor_words(rl.limiting_factor);
     text += ".";
   } else {
     text += "not estimated (not enough data).";
   }
   flow.paragraph(text, 9.2, FontFace::bold);
+  if (rl.years && !rl.beyond_horizon && !rl.range_method.empty())
+    flow.paragraph("Range from the uncertainty of the inputs: " + rl.range_method + ". End-of-life evidence only: "
+                   "correctable defects do not shorten it.", type::small, FontFace::regular, palette::muted);
+  // The one decision, as the fleet ranking shows it.
+  const auto& d = a.decision;
+  if (d.action.empty()) return;
+  flow.paragraph("Recommended: " + action_text(d.action, d.year) + (d.treatment.empty() ? "" : " (" + d.treatment + ")"),
+                 9.2, FontFace::bold);
+  flow.paragraph(d.reason, type::body);
+  if (!d.index_note.empty()) flow.paragraph(d.index_note, type::body);
 }
 
 void actions_table(PageFlow& flow, const UnitAssessment& a) {

@@ -13,6 +13,7 @@
 #include "daemon/assess/assessment_service.h"
 #include "daemon/assess/ranking_cache.h"
 #include "daemon/ingest/field_parsers.h"
+#include "report/decision_text.h"
 #include "report/fleet_report.h"
 #include "report/safety_text.h"
 
@@ -30,9 +31,13 @@ void print_assessment_text(const analytics::UnitAssessment& a) {
   std::cout << a.unit.unit_id << " (" << a.unit.site << ")  as of " << analytics::format_day(a.as_of) << "\n"
             << "  health index " << fmt(a.health_index, 0) << "  " << (a.band.empty() ? "-" : a.band) << "  ("
             << a.confidence << ")\n"
-            << "  remaining life " << fmt(a.remaining_life.years, 0, " years") << " ("
-            << fmt(a.remaining_life.low_years, 0) << "-" << fmt(a.remaining_life.high_years, 0) << "), limited by "
-            << (a.remaining_life.limiting_factor.empty() ? "-" : a.remaining_life.limiting_factor) << "\n";
+            << "  remaining life "
+            << report::life_text(a.remaining_life.years, a.remaining_life.beyond_horizon, a.remaining_life.horizon_years, 0)
+            << " (" << fmt(a.remaining_life.low_years, 0) << "-" << fmt(a.remaining_life.high_years, 0) << "), limited by "
+            << (a.remaining_life.limiting_factor.empty() ? "-" : report::limiting_factor_words(a.remaining_life.limiting_factor))
+            << "\n"
+            << "  recommended: " << report::action_text(a.decision.action, a.decision.year) << ": " << a.decision.reason
+            << "\n";
   if (a.dga.sample_date)
     std::cout << "  gases " << analytics::format_day(*a.dga.sample_date) << ": TDCG " << fmt(a.dga.tdcg_ppm, 0)
               << " ppm, C57.104-2008 condition " << (a.dga.c57104_2008_condition ? std::to_string(*a.dga.c57104_2008_condition) : "-")
@@ -118,18 +123,26 @@ int cmd_rank(const Invocation& inv) {
     std::cout << report::fleet_ranking_csv(ranking);
     return kOk;
   }
-  std::cout << std::left << std::setw(6) << "rank" << std::setw(12) << "unit" << std::setw(16) << "site" << std::setw(7)
-            << "HI" << std::setw(15) << "band" << std::setw(10) << "life" << std::setw(11) << "limit" << std::setw(9)
-            << "risk" << "action\n";
+  std::cout << std::left << std::setw(6) << "rank" << std::setw(9) << "unit" << std::setw(16) << "site"
+            << std::setw(5) << "HI" << std::setw(15) << "band" << std::setw(19) << "remaining life" << std::setw(8)
+            << "risk" << std::setw(18) << "action" << "first action\n";
   for (const auto& u : ranking.units) {
     std::cout << std::left << std::setw(6)
               << (u.insufficient_data ? std::string("-") : std::to_string(u.rank) + (u.tied ? "=" : ""))
-              << std::setw(12) << u.unit_id << std::setw(16) << u.site << std::setw(7) << fmt(u.health_index, 0)
-              << std::setw(15) << (u.band.empty() ? "-" : u.band) << std::setw(10)
-              << fmt(u.remaining_life_years, 0, " y") << std::setw(11)
-              << (u.limiting_factor.empty() ? "-" : u.limiting_factor) << std::setw(9) << fmt(u.risk, 2)
-              << u.recommended_action << (u.action_year ? " " + std::to_string(*u.action_year) : "")
-              << (u.note.empty() ? "" : "  (" + u.note + ")") << "\n";
+              << std::setw(9) << u.unit_id << std::setw(16) << u.site << std::setw(5) << fmt(u.health_index, 0)
+              << std::setw(15) << (u.band.empty() ? "-" : u.band) << std::setw(19)
+              << report::life_text(u.remaining_life_years, u.beyond_horizon, u.horizon_years, 0) << std::setw(8)
+              << report::risk_text(u.risk) << std::setw(18) << report::action_text(u.recommended_action, u.action_year)
+              << report::first_action_text(u.first_action) << "\n";
+    if (u.insufficient_data) std::cout << "      too little data: " << u.note << "\n";
+  }
+  std::cout << "\nrisk: expected failures per 1,000 unit-years x consequence (0-1); calibration: "
+            << ranking.risk_calibration << "\n";
+  if (!ranking.outlook.empty()) {
+    std::cout << "remaining life ending within ten years:";
+    for (const auto& e : ranking.outlook)
+      std::cout << "  " << e.unit_id << " " << e.life_ends_year << " (" << report::limiting_factor_words(e.limiting_factor) << ")";
+    std::cout << "\n";
   }
   std::cout << "\nrated MVA due per year:";
   for (const auto& y : ranking.mva_due_by_year) std::cout << "  " << y.year << ": " << fmt(y.mva, 0);

@@ -64,6 +64,7 @@ Object::Ptr remaining_life_json(const analytics::RemainingLife& r) {
   o->set("limiting_factor", text_or_null(r.limiting_factor));
   o->set("beyond_horizon", r.beyond_horizon);
   o->set("horizon_years", r.horizon_years);
+  o->set("range_method", text_or_null(r.range_method));
   Array::Ptr est = new Array;
   for (const auto& e : r.estimates) {
     Object::Ptr x = new Object;
@@ -72,6 +73,7 @@ Object::Ptr remaining_life_json(const analytics::RemainingLife& r) {
     x->set("low_years", opt(e.low_years));
     x->set("high_years", opt(e.high_years));
     x->set("method", e.method);
+    x->set("range", text_or_null(e.range));
     est->add(x);
   }
   o->set("estimates", est);
@@ -112,6 +114,7 @@ Object::Ptr paper_json(const analytics::PaperSummary& p) {
   o->set("dp_alternative", opt(p.dp_alternative));
   o->set("dp_alternative_method", text_or_null(p.dp_alternative_method));
   o->set("life_used_pct", opt(p.life_used_pct));
+  o->set("dp_fall_per_year_history", opt(p.dp_fall_per_year_history));
   o->set("trustworthy", p.trustworthy);
   o->set("note", text_or_null(p.note));
   return o;
@@ -140,6 +143,39 @@ Object::Ptr thermal_json(const analytics::ThermalSummary& t) {
   o->set("ambient_from_profile", t.ambient_from_profile);
   o->set("parameter_sources", strings(t.parameter_sources));
   o->set("notes", strings(t.notes));
+  return o;
+}
+
+Var action_json(const std::optional<analytics::Action>& a) {
+  if (!a) return Var();
+  Object::Ptr x = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+  x->set("priority", a->priority);
+  x->set("due", analytics::format_day(a->due));
+  x->set("text", a->text);
+  return x;
+}
+
+Array::Ptr evidence_json(const std::vector<analytics::Evidence>& list) {
+  Array::Ptr arr = new Array;
+  for (const auto& e : list) {
+    Object::Ptr x = new Object;
+    x->set("kind", e.kind);
+    x->set("text", e.text);
+    arr->add(x);
+  }
+  return arr;
+}
+
+Object::Ptr decision_json(const analytics::Decision& d) {
+  Object::Ptr o = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+  o->set("action", text_or_null(d.action));
+  o->set("year", opt(d.year));
+  o->set("reason", text_or_null(d.reason));
+  o->set("treatment", text_or_null(d.treatment));
+  o->set("index_note", text_or_null(d.index_note));
+  o->set("first_action", action_json(d.first_action));
+  o->set("end_of_life", evidence_json(d.end_of_life));
+  o->set("defects", evidence_json(d.defects));
   return o;
 }
 
@@ -253,6 +289,7 @@ Object::Ptr to_json(const analytics::UnitAssessment& a) {
     actions->add(x);
   }
   o->set("actions", actions);
+  o->set("decision", decision_json(a.decision));
   o->set("missing", strings(a.missing));
   Array::Ptr fresh = new Array;
   for (const auto& f : a.freshness) {
@@ -284,12 +321,17 @@ Object::Ptr to_json(const analytics::FleetRanking& r) {
     x->set("health_index", opt(u.health_index));
     x->set("band", text_or_null(u.band));
     x->set("remaining_life_years", opt(u.remaining_life_years));
+    x->set("beyond_horizon", u.beyond_horizon);
+    x->set("horizon_years", tidy(u.horizon_years));
     x->set("limiting_factor", text_or_null(u.limiting_factor));
     x->set("probability_of_failure", opt(u.probability_of_failure));
+    x->set("failures_per_1000_unit_years", opt(u.failures_per_1000_unit_years));
     x->set("consequence", tidy(u.consequence));
     x->set("risk", opt(u.risk));
-    x->set("recommended_action", u.recommended_action);
+    x->set("recommended_action", text_or_null(u.recommended_action));
     x->set("action_year", opt(u.action_year));
+    x->set("action_reason", text_or_null(u.action_reason));
+    x->set("first_action", action_json(u.first_action));
     x->set("insufficient_data", u.insufficient_data);
     x->set("note", text_or_null(u.note));
     units->add(x);
@@ -304,6 +346,21 @@ Object::Ptr to_json(const analytics::FleetRanking& r) {
     due->add(x);
   }
   o->set("mva_due_by_year", due);
+  Array::Ptr outlook = new Array;
+  for (const auto& e : r.outlook) {
+    Object::Ptr x = new Object;
+    x->set("unit_id", e.unit_id);
+    x->set("site", e.site);
+    x->set("rated_mva", tidy(e.rated_mva));
+    x->set("remaining_life_years", tidy(e.remaining_life_years));
+    x->set("life_ends_year", e.life_ends_year);
+    x->set("limiting_factor", text_or_null(e.limiting_factor));
+    x->set("recommended_action", text_or_null(e.action));
+    x->set("action_year", opt(e.action_year));
+    outlook->add(x);
+  }
+  o->set("outlook", outlook);
+  o->set("risk_calibration", text_or_null(r.risk_calibration));
   return o;
 }
 

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <atomic>
+#include <cmath>
 #include <cctype>
 #include <condition_variable>
 #include <exception>
@@ -34,8 +35,14 @@ analytics::AssessmentOptions options_from_config(const config::SiteConfig& confi
     else if (factor == "age") h.weight_age = w;
   }
   if (!config.health_weights.empty()) h.source += "; weights overridden in ferrum.ini [health]";
-  if (auto it = config.ranking.find("life_horizon_years"); it != config.ranking.end())
-    o.life.horizon_years = it->second;
+  // The decision's keys of [ranking] (analytics/decision/decision.h).
+  for (const auto& [key, v] : config.ranking) {
+    if (key == "life_horizon_years") o.life.horizon_years = v;
+    else if (key == "expected_life_years") o.life.expected_life_years = v;
+    else if (key == "lead_time_months") o.actions.decision.lead_time_months = static_cast<int>(std::lround(v));
+    else if (key == "replace_within_years") o.actions.decision.replace_within_years = v;
+    else if (key == "planning_window_years") o.actions.decision.planning_window_years = v;
+  }
   auto cuts4 = [](const std::vector<double>& v) { return analytics::RatingCuts{v[0], v[1], v[2], v[3]}; };
   for (const auto& [key, v] : config.health_bands) {
     if (key == "dga_cuts") h.dga_cuts = cuts4(v);
@@ -176,7 +183,6 @@ analytics::RankingOptions ranking_options_from_config(const config::SiteConfig& 
   analytics::RankingOptions o;
   bool overridden = false;
   for (const auto& [key, v] : config.ranking) {
-    overridden = overridden || key != "life_horizon_years";
     if (key == "pof_as_new") o.pof_as_new = v;
     else if (key == "pof_at_zero") o.pof_at_zero = v;
     else if (key == "weight_criticality") o.weight_criticality = v;
@@ -184,6 +190,8 @@ analytics::RankingOptions ranking_options_from_config(const config::SiteConfig& 
     else if (key == "weight_mva") o.weight_mva = v;
     else if (key == "customers_reference") o.customers_reference = v;
     else if (key == "mva_reference") o.mva_reference = v;
+    else continue;  // the decision's keys (options_from_config)
+    overridden = true;
   }
   if (overridden) o.pof_source += "; overridden in ferrum.ini [ranking]";
   return o;

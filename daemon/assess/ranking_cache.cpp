@@ -65,6 +65,19 @@ Object::Ptr unit_to_json(const analytics::UnitAssessment& a) {
   o->set("missing", missing);
   o->set("remaining_life_years", opt(a.remaining_life.years));
   o->set("limiting_factor", a.remaining_life.limiting_factor);
+  o->set("beyond_horizon", a.remaining_life.beyond_horizon);
+  o->set("horizon_years", a.remaining_life.horizon_years);
+  o->set("action", a.decision.action);
+  o->set("action_year", opt(a.decision.year));
+  o->set("action_reason", a.decision.reason);
+  if (const auto& f = a.decision.first_action) {
+    Object::Ptr x = new Object;
+    x->set("priority", f->priority);
+    x->set("due", f->due);
+    x->set("text", f->text);
+    x->set("reason", f->reason);
+    o->set("first_action", x);
+  }
   return o;
 }
 
@@ -83,6 +96,14 @@ analytics::UnitAssessment unit_from_json(const Object::Ptr& o) {
   for (std::size_t i = 0; missing && i < missing->size(); ++i) a.missing.push_back(missing->getElement<std::string>(i));
   a.remaining_life.years = get_opt<double>(o, "remaining_life_years");
   a.remaining_life.limiting_factor = o->getValue<std::string>("limiting_factor");
+  a.remaining_life.beyond_horizon = o->getValue<bool>("beyond_horizon");
+  a.remaining_life.horizon_years = o->getValue<double>("horizon_years");
+  a.decision.action = o->getValue<std::string>("action");
+  a.decision.year = get_opt<int>(o, "action_year");
+  a.decision.reason = o->getValue<std::string>("action_reason");
+  if (const auto x = o->getObject("first_action"))
+    a.decision.first_action = analytics::Action{x->getValue<int>("priority"), x->getValue<analytics::Day>("due"),
+                                                x->getValue<std::string>("text"), x->getValue<std::string>("reason")};
   return a;
 }
 

@@ -196,6 +196,12 @@ std::vector<Key> make_keys() {
       {"customers_reference", 1, 1e9, "Customers and MVA at which their part of the consequence reaches 1 (10000, 100)."},
       {"mva_reference", 1, 1e6, ""},
       {"life_horizon_years", 5, 200, "Remaining life beyond this many years is reported as \"more than N years\" (40)."},
+      {"lead_time_months", 0, 120, "Procurement lead time of a replacement transformer: no replacement is planned\n"
+                                   "sooner than this after the assessment day (24)."},
+      {"replace_within_years", 0, 50, "Remaining life (end-of-life evidence only) at or below which a unit is replaced (5)."},
+      {"planning_window_years", 0, 50, "A correctable defect leads to replacement only when the remaining life is\n"
+                                       "within this window; a unit whose life ends within it is planned for replacement (10)."},
+      {"expected_life_years", 10, 150, "Expected life of a transformer, for the age estimate of remaining life (60)."},
   };
   for (const auto& r : kRanking) {
     const std::string name = r.name;

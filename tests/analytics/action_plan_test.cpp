@@ -40,39 +40,17 @@ fa::UnitAssessment fresh_unit(double hi) {
 }
 }  // namespace
 
-TEST(ActionPlan, HealthIndexThresholdsBothSides) {
-  auto a = fresh_unit(30);  // the 30 edge is in the worst band
+// The plan records the decision with the most urgent action first
+// (analytics/decision/decision.h; its rules are tested in decision_test.cpp).
+TEST(ActionPlan, DecisionAndFirstActionRecorded) {
+  auto a = fresh_unit(60);
+  a.actions.push_back({1, 20005, "Make safe or take out of service: grounding", "unsafe"});
   fa::finalize_actions(a);
-  ASSERT_EQ(a.actions.size(), 1u);
-  EXPECT_EQ(a.actions[0].text, "Plan replacement or rebuild");
-  EXPECT_EQ(a.actions[0].priority, 1);
-
-  auto b = fresh_unit(30.1);
-  fa::finalize_actions(b);
-  ASSERT_EQ(b.actions.size(), 1u);
-  EXPECT_EQ(b.actions[0].priority, 2);
-
-  auto c = fresh_unit(70);
-  fa::finalize_actions(c);
-  ASSERT_EQ(c.actions.size(), 1u);
-  EXPECT_EQ(c.actions[0].priority, 3);
-
-  auto d = fresh_unit(70.1);
-  fa::finalize_actions(d);
-  EXPECT_TRUE(d.actions.empty());
-}
-
-TEST(ActionPlan, ShortLifeMergesWithReplacementAction) {
-  auto a = fresh_unit(25);
-  a.remaining_life.years = 0.5;
-  a.remaining_life.limiting_factor = "paper";
-  fa::finalize_actions(a);
-  ASSERT_EQ(a.actions.size(), 1u);
-  // HI 25 asks within 90 days, the half-year life within 91 (half of it): the
-  // merged action keeps the earlier date.
-  EXPECT_EQ(a.actions[0].due, 20000 + 90);
-  EXPECT_NE(a.actions[0].reason.find("limited by paper"), std::string::npos);
-  EXPECT_NE(a.actions[0].reason.find("health index"), std::string::npos);
+  ASSERT_TRUE(a.decision.first_action);
+  EXPECT_EQ(a.decision.first_action->priority, 1);
+  EXPECT_EQ(a.decision.first_action->text, a.actions.front().text);
+  EXPECT_FALSE(a.decision.action.empty());
+  EXPECT_EQ(a.decision.year, fa::civil_from_days(20005).year);
 }
 
 TEST(ActionPlan, StaleAndMissingDataAsked) {

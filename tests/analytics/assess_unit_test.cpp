@@ -56,7 +56,10 @@ TEST(AssessUnit, RunsEveryStepInOrder) {
   for (const auto& f : a.factors) sum += f.contribution;
   EXPECT_NEAR(sum, *a.health_index, 1e-9);
   EXPECT_EQ(a.freshness.size(), 4u);
-  EXPECT_EQ(a.remaining_life.estimates.size(), 3u);  // life step ran after the index
+  EXPECT_EQ(a.remaining_life.estimates.size(), 4u);  // life step ran after the index
+  EXPECT_FALSE(a.decision.action.empty());           // and the decision after the actions
+  ASSERT_TRUE(a.decision.first_action);
+  EXPECT_EQ(a.decision.first_action->text, a.actions.front().text);
   for (std::size_t k = 1; k < a.actions.size(); ++k) {
     const auto& p = a.actions[k - 1];
     const auto& q = a.actions[k];

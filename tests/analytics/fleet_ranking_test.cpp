@@ -3,6 +3,8 @@
 
 #include <gtest/gtest.h>
 
+#include "analytics/action_plan.h"
+
 #include <cmath>
 #include <tuple>
 
@@ -54,8 +56,9 @@ TEST(FleetRanking, OrderTiesAndInsufficientData) {
   std::vector<fa::UnitAssessment> fleet{unit("F", std::nullopt, 5, 10), unit("C", 60, 3, 40),
                                         unit("D", 90, 3, 40),           unit("E", std::nullopt, 1, 5),
                                         unit("B", 60, 3, 40),           unit("A", 20, 5, 80)};
-  fleet[0].confidence = "2 of 7 factors (no oil_quality, paper, thermal, infrared, inspection): too few";
-  fleet[0].missing = {"health index factor oil_quality: no scorable oil-quality test"};
+  fleet[0].confidence = "2 of 7 factors (no oil quality, paper, thermal, infrared, inspection): too few";
+  fleet[0].missing = {"health index factor oil quality: no scorable oil-quality test"};
+  for (auto& a : fleet) fa::finalize_actions(a);
   auto r = fa::rank_fleet(fleet, fleet[0].as_of, fa::RankingOptions{});
   ASSERT_EQ(r.units.size(), 6u);
   std::vector<std::string> ids;
@@ -74,13 +77,15 @@ TEST(FleetRanking, OrderTiesAndInsufficientData) {
     EXPECT_TRUE(r.units[k].insufficient_data);
     EXPECT_EQ(r.units[k].rank, 0);
     EXPECT_FALSE(r.units[k].risk);
-    EXPECT_NE(r.units[k].note.find("insufficient data"), std::string::npos);
+    EXPECT_EQ(r.units[k].note.find("insufficient data"), std::string::npos);  // said once, by the reader
+    EXPECT_EQ(r.units[k].recommended_action, "investigate");
   }
-  EXPECT_NE(r.units[5].note.find("oil_quality"), std::string::npos);
-  EXPECT_EQ(r.units[0].recommended_action, "replace");
-  EXPECT_EQ(*r.units[0].action_year, 2024);
-  EXPECT_EQ(r.units[1].recommended_action, "intensify monitoring");
+  EXPECT_NE(r.units[5].note.find("oil quality"), std::string::npos);
+  // The row copies the assessment's decision (analytics/decision/decision.h).
+  EXPECT_EQ(r.units[0].recommended_action, fleet[5].decision.action);
+  EXPECT_EQ(r.units[1].recommended_action, "monitor");
   EXPECT_EQ(r.units[3].recommended_action, "routine");
+  EXPECT_FALSE(r.risk_calibration.empty());
 }
 
 // Risk order follows PoF x consequence, not the index alone: a critical unit
@@ -92,66 +97,50 @@ TEST(FleetRanking, ConsequenceChangesOrder) {
   EXPECT_GT(*r.units[0].risk, *r.units[1].risk);
 }
 
+// Replacement years with the 24-month lead time (ferrum default): life 1 year
+// -> 2026, 3.7 and 3.6 years from mid-2024 -> 2028; 8 years -> replacement
+// planned for 2032; 20 years: none. The outlook lists every life ending
+// within ten years (all but E), soonest first.
 TEST(FleetRanking, MvaDueByYearFromReplacementYears) {
-  auto a = unit("A", 20, 5, 80);          // replace now: 2024
-  auto b = unit("B", 60, 3, 40);          // life 3.5 years: replace in 2027
-  b.remaining_life.years = 3.5;
+  auto a = unit("A", 40, 5, 80);
+  a.remaining_life.years = 1;
+  auto b = unit("B", 60, 3, 40);
+  b.remaining_life.years = 3.7;
   auto c = unit("C", 60, 3, 25);
-  c.remaining_life.years = 3.2;           // 2027 too
-  auto d = unit("D", 45, 3, 60);          // refurbish: not counted
-  auto r = fa::rank_fleet({a, b, c, d}, a.as_of, fa::RankingOptions{});
+  c.remaining_life.years = 3.6;
+  auto d = unit("D", 60, 3, 60);
+  d.remaining_life.years = 8;
+  auto e = unit("E", 60, 3, 10);
+  e.remaining_life.years = 20;
+  std::vector<fa::UnitAssessment> fleet{a, b, c, d, e};
+  for (auto& u : fleet) fa::finalize_actions(u);
+  auto r = fa::rank_fleet(fleet, a.as_of, fa::RankingOptions{});
   ASSERT_EQ(r.mva_due_by_year.size(), 10u);
-  EXPECT_EQ(r.mva_due_by_year[0].year, 2024);
-  EXPECT_DOUBLE_EQ(r.mva_due_by_year[0].mva, 80);
-  EXPECT_EQ(r.mva_due_by_year[3].year, 2027);
-  EXPECT_DOUBLE_EQ(r.mva_due_by_year[3].mva, 65);
-  EXPECT_EQ(r.mva_due_by_year[3].units, 2);
-  double total = 0;
-  for (const auto& y : r.mva_due_by_year) total += y.mva;
-  EXPECT_DOUBLE_EQ(total, 145);
+  EXPECT_EQ(r.mva_due_by_year[2].year, 2026);
+  EXPECT_DOUBLE_EQ(r.mva_due_by_year[2].mva, 80);
+  EXPECT_DOUBLE_EQ(r.mva_due_by_year[4].mva, 65);
+  EXPECT_EQ(r.mva_due_by_year[4].units, 2);
+  EXPECT_DOUBLE_EQ(r.mva_due_by_year[8].mva, 60);
+  EXPECT_DOUBLE_EQ(r.mva_due_by_year[0].mva, 0);  // nothing inside the lead time
+  ASSERT_EQ(r.outlook.size(), 4u);
+  EXPECT_EQ(r.outlook[0].unit_id, "A");
+  EXPECT_EQ(r.outlook[0].life_ends_year, 2025);
+  EXPECT_EQ(r.outlook[3].unit_id, "D");
+}
+
+// Risk for people: failures per 1,000 unit-years, never zero (ferrum's own
+// calibration, 2 at HI 100).
+TEST(FleetRanking, FailuresPerThousandUnitYears) {
+  auto a = unit("A", 100, 1, 5);
+  fa::finalize_actions(a);
+  auto r = fa::rank_fleet({a}, a.as_of, fa::RankingOptions{});
+  EXPECT_NEAR(*r.units[0].failures_per_1000_unit_years, 2.0, 1e-9);
 }
 
 TEST(FleetRanking, EmptyFleet) {
   auto r = fa::rank_fleet({}, fa::days_from_civil(2024, 1, 1), fa::RankingOptions{});
   EXPECT_TRUE(r.units.empty());
   EXPECT_EQ(r.mva_due_by_year.size(), 10u);
-}
-
-// Action thresholds at the band edges (Jahromi 2009 HI table, from memory;
-// each edge belongs to the worse band): 30 replace, 30.1 refurbish, 50
-// refurbish, 70 intensify monitoring, 70.1 routine.
-TEST(FleetRanking, ActionThresholdsBothSides) {
-  std::vector<fa::UnitAssessment> fleet{unit("a", 30, 3, 10), unit("b", 30.1, 3, 10), unit("c", 50, 3, 10),
-                                        unit("d", 70, 3, 10), unit("e", 70.1, 3, 10)};
-  auto r = fa::rank_fleet(fleet, fleet[0].as_of, fa::RankingOptions{});
-  std::vector<std::string> got;
-  for (const auto& u : r.units) got.push_back(u.unit_id + ":" + u.recommended_action);
-  EXPECT_EQ(got, (std::vector<std::string>{"a:replace", "b:refurbish", "c:refurbish", "d:intensify monitoring",
-                                           "e:routine"}));
-}
-
-// A correctable finding (unsafe item, hot connection) caps the index, so the
-// unit ranks high on risk, but the replacement advice follows the condition
-// without it: the row says "repair" this year, never "routine" (ferrum's
-// reading of CIGRE TB 761 gating; common practice, no published source for
-// the split).
-TEST(FleetRanking, CorrectableFindingRaisesRiskNotReplacement) {
-  auto capped = unit("T-UNSAFE", 30, 3, 40);
-  capped.condition_index = 82;
-  capped.remaining_life.years = 40;
-  auto worn = unit("T-WORN", 30, 3, 40);
-  worn.remaining_life.years = 40;
-  const auto r = fa::rank_fleet({capped, worn}, capped.as_of, {});
-  ASSERT_EQ(r.units.size(), 2u);
-  EXPECT_TRUE(r.units[0].tied);  // same risk: both at index 30
-  for (const auto& u : r.units) {
-    if (u.unit_id == "T-UNSAFE") {
-      EXPECT_EQ(u.recommended_action, "repair");
-      EXPECT_EQ(u.action_year, fa::civil_from_days(capped.as_of).year);
-    } else {
-      EXPECT_EQ(u.recommended_action, "replace");
-    }
-  }
 }
 
 // The ranking from ranking_fields equals the ranking from whole assessments,
@@ -172,8 +161,8 @@ TEST(FleetRanking, RankingFieldsGiveTheSameRanking) {
   fleet[3].unit.site = "South";
   for (auto& a : fleet) {  // fields the ranking does not read
     a.methods = {"a method"};
-    a.actions.push_back({});
     a.dga.tdcg_ppm = 500;
+    fa::finalize_actions(a);
   }
   fa::RankingOptions o;
   o.weight_customers = 0.5;
@@ -187,10 +176,12 @@ TEST(FleetRanking, RankingFieldsGiveTheSameRanking) {
     const auto &x = whole.units[i], &y = from_fields.units[i];
     EXPECT_EQ(std::tie(x.rank, x.tied, x.unit_id, x.site, x.rated_mva, x.health_index, x.band, x.remaining_life_years,
                        x.limiting_factor, x.probability_of_failure, x.consequence, x.risk, x.recommended_action,
-                       x.action_year, x.insufficient_data, x.note),
+                       x.action_year, x.insufficient_data, x.note, x.beyond_horizon, x.action_reason,
+                       x.first_action ? x.first_action->text : ""),
               std::tie(y.rank, y.tied, y.unit_id, y.site, y.rated_mva, y.health_index, y.band, y.remaining_life_years,
                        y.limiting_factor, y.probability_of_failure, y.consequence, y.risk, y.recommended_action,
-                       y.action_year, y.insufficient_data, y.note))
+                       y.action_year, y.insufficient_data, y.note, y.beyond_horizon, y.action_reason,
+                       y.first_action ? y.first_action->text : ""))
         << x.unit_id;
   }
   ASSERT_EQ(whole.mva_due_by_year.size(), from_fields.mva_due_by_year.size());

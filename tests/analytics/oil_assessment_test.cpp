@@ -3,6 +3,7 @@
 #include <gtest/gtest.h>
 
 #include <algorithm>
+#include <cmath>
 
 #include "dga_test_sample.h"
 
@@ -92,6 +93,30 @@ TEST(OilAssessment, OilQualityMoistureAndPaper) {
   EXPECT_NEAR(*out.paper.dp_estimate, 431.4, 0.5);  // Chendong 1991, 1 ppm
   EXPECT_FALSE(out.paper.trustworthy);              // sampled after the oil treatment
   EXPECT_TRUE(has_text(out.missing, "DGA"));
+}
+
+// The DP fall over the furan history: 2-FAL chosen so that Chendong (1991,
+// log10(2FAL ppm) = 1.51 - 0.0035 DP) gives DP 500, 480 and 460 two years
+// apart: a fall of 10 DP per year (computed by hand); two samples are too few.
+TEST(OilAssessment, DpFallFittedOverTheFuranHistory) {
+  UnitData d = unit_132kv();
+  const int years[] = {2020, 2022, 2024};
+  const double dps[] = {500, 480, 460};
+  for (int k = 0; k < 3; ++k) {
+    OilSample s;
+    s.date = days_from_civil(years[k], 1, 1);
+    s.furan_2fal_ppb = LabValue::measured(1000 * std::pow(10.0, 1.51 - 0.0035 * dps[k]));
+    d.oil_samples.push_back(s);
+  }
+  UnitAssessment out;
+  assess_oil(d, days_from_civil(2024, 6, 1), {}, out);
+  ASSERT_TRUE(out.paper.dp_fall_per_year_history);
+  EXPECT_NEAR(*out.paper.dp_fall_per_year_history, 10, 0.02);
+  EXPECT_EQ(out.paper.dp_history_samples, 3);
+  d.oil_samples.pop_back();
+  UnitAssessment two;
+  assess_oil(d, days_from_civil(2024, 6, 1), {}, two);
+  EXPECT_FALSE(two.paper.dp_fall_per_year_history);
 }
 
 TEST(OilAssessment, FullQualityTestsFromTheirSampleWaterFromANewerOne) {

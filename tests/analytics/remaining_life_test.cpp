@@ -87,43 +87,109 @@ TEST(RemainingLife, ThermalAtConstantAgeing) {
   EXPECT_NEAR(*fa::thermal_life(fa::RemainingLifeOptions{}, a).years, 180000.0 / 4383 - 21, 1e-9);
 }
 
-// Condition: HI(t) = 100 e^(B t) (exponential ageing curve). HI 60 at 20 years gives
-// B = ln(0.6)/20 = -0.025541/yr, inside [2, 0.5] x ln(0.3)/60; HI 30 is then
-// reached at t = 20 ln(0.3)/ln(0.6) = 47.138 years, i.e. 27.138 years from now.
+namespace {
+// End-of-life factors paper (weight 5) and thermal (weight 10) both at
+// `score`: the end-of-life score is 100 x score / 4.
+void eol_factors(fa::UnitAssessment& a, double score) {
+  a.factors.clear();
+  for (auto [name, w] : {std::pair{"paper", 5.0}, std::pair{"thermal", 10.0}}) {
+    fa::FactorScore f;
+    f.name = name;
+    f.score = score;
+    f.weight = w;
+    a.factors.push_back(f);
+  }
+}
+}  // namespace
+
+// Condition: S(t) = 100 e^(B t) (exponential ageing curve) of the end-of-life
+// score. S 60 at 20 years gives B = ln(0.6)/20 = -0.025541/yr, inside [2, 0.5]
+// x ln(0.3)/60; 30 is then reached at t = 20 ln(0.3)/ln(0.6) = 47.138 years,
+// i.e. 27.138 years from now.
 TEST(RemainingLife, ConditionExponentialOwnRate) {
   auto a = unit20();
-  a.health_index = 60;
+  eol_factors(a, 2.4);
   auto e = fa::condition_life(fa::RemainingLifeOptions{}, a);
   ASSERT_TRUE(e.years);
   EXPECT_NEAR(*e.years, 20 * std::log(0.3) / std::log(0.6) - 20, 1e-9);
+  EXPECT_FALSE(e.range.empty());
 }
 
 // The own rate is limited to twice the expected rate (CNAIM v2.1 6.1.8 form,
-// from memory): HI 40 at 20 years would give ln(0.4)/20 = -0.0458 < 2 x
+// from memory): S 40 at 20 years would give ln(0.4)/20 = -0.0458 < 2 x
 // ln(0.3)/60 = -0.04013; limited, ln(40/30)/0.04013 = 7.168 years.
 TEST(RemainingLife, ConditionRateLimited) {
   auto a = unit20();
-  a.health_index = 40;
+  eol_factors(a, 1.6);
   auto e = fa::condition_life(fa::RemainingLifeOptions{}, a);
+  ASSERT_TRUE(e.years);
   EXPECT_NEAR(*e.years, std::log(40.0 / 30) / (-2 * std::log(0.3) / 60), 1e-9);
-  a.health_index = 30;  // at the end-of-life index
+  eol_factors(a, 1.2);  // at the end-of-life score
+  ASSERT_TRUE(fa::condition_life(fa::RemainingLifeOptions{}, a).years);
   EXPECT_DOUBLE_EQ(*fa::condition_life(fa::RemainingLifeOptions{}, a).years, 0);
 }
 
-// A capped index (e.g. 30 for DGA condition 4) is not aged as such: the
-// weighted score of the factors (here 100 x 10 x 2.4 / 40 = 60) is, giving the
-// 27.138 years of the case above.
-TEST(RemainingLife, ConditionUsesScoreBeforeCap) {
+// Only end-of-life evidence is aged: a dissolved-gas factor at the bottom
+// (rating E) or a capped index changes nothing; with a single end-of-life
+// factor there is no condition estimate (ferrum's rule, common practice).
+TEST(RemainingLife, ConditionAgesEndOfLifeEvidenceOnly) {
   auto a = unit20();
+  eol_factors(a, 2.4);
   a.health_index = 30;
-  fa::FactorScore f;
-  f.name = "dga";
-  f.score = 2.4;
-  f.weight = 10;
-  f.contribution = 30;
-  a.factors.push_back(f);
+  fa::FactorScore dga;
+  dga.name = "dga";
+  dga.score = 0;
+  dga.weight = 10;
+  a.factors.push_back(dga);
   auto e = fa::condition_life(fa::RemainingLifeOptions{}, a);
+  ASSERT_TRUE(e.years);
   EXPECT_NEAR(*e.years, 20 * std::log(0.3) / std::log(0.6) - 20, 1e-9);
+  a.factors.erase(a.factors.begin() + 1);  // paper only, and the dga factor
+  EXPECT_FALSE(fa::condition_life(fa::RemainingLifeOptions{}, a).years);
+}
+
+// Age: expected life 60 years (ferrum default) minus 20 years in service = 40,
+// range +-10 years; not limiting where the paper DP is measured.
+TEST(RemainingLife, AgeAgainstExpectedLife) {
+  auto a = unit20();
+  fa::RemainingLifeOptions o;
+  o.horizon_years = 100;
+  auto e = fa::age_life(o, a);
+  ASSERT_TRUE(e.years);
+  EXPECT_NEAR(*e.years, 40, 1e-6);
+  EXPECT_NEAR(*e.low_years, 30, 1e-6);
+  EXPECT_NEAR(*e.high_years, 50, 1e-6);
+  o.expected_life_years = 25;  // 5 years left by age
+  a.paper.dp_estimate = 600;   // 20 years by paper: the measured evidence limits
+  fa::estimate_remaining_life(o, a);
+  EXPECT_EQ(a.remaining_life.limiting_factor, "paper");
+  a.paper.dp_estimate.reset();  // without a DP, age limits
+  fa::estimate_remaining_life(o, a);
+  EXPECT_EQ(a.remaining_life.limiting_factor, "age");
+  EXPECT_NEAR(*a.remaining_life.years, 5, 1e-6);
+}
+
+// The paper range comes from the two DP correlations: a De Pablo DP above the
+// Chendong one widens the high end, and the range method says so.
+TEST(RemainingLife, PaperRangeFromBothCorrelations) {
+  auto a = unit20();
+  a.paper.dp_estimate = 600;    // 400 DP over 20 years: 20 DP/year, 20 years left
+  a.paper.dp_alternative = 700;
+  auto e = fa::paper_life(fa::RemainingLifeOptions{}, a);
+  ASSERT_TRUE(e.years && e.high_years && e.low_years);
+  EXPECT_NEAR(*e.years, 20, 1e-9);
+  EXPECT_NEAR(*e.high_years, 500 / (20 * 0.7), 1e-9);  // rate -30 %, DP 700
+  EXPECT_NEAR(*e.low_years, 400 / (20 * 1.3), 1e-9);   // rate +30 %, DP 600
+  EXPECT_NE(e.range.find("both correlations"), std::string::npos);
+  // With a furan history falling 10 DP/year, the rate spans 10..20 DP/year:
+  // high end 500/10 = 50 years, limited to the 40-year horizon; low end
+  // 400/20 = 20 years (computed by hand).
+  a.paper.dp_fall_per_year_history = 10;
+  a.paper.dp_history_samples = 6;
+  e = fa::paper_life(fa::RemainingLifeOptions{}, a);
+  EXPECT_NEAR(*e.low_years, 20, 1e-9);
+  EXPECT_NEAR(*e.high_years, 40, 1e-9);
+  EXPECT_NE(e.range.find("6 furan samples"), std::string::npos);
 }
 
 // CNAIM checks (computed by hand; CNAIM formulas from memory):
@@ -146,11 +212,11 @@ TEST(RemainingLife, SmallestEstimateLimitsAndOthersAreKept) {
   auto a = unit20();
   a.paper.dp_estimate = 600;                 // 20 years
   a.thermal.equivalent_ageing_factor = 0.1;  // thermal: far longer
-  a.health_index = 60;                       // 27.1 years
+  eol_factors(a, 2.4);                       // 27.1 years
   fa::estimate_remaining_life(fa::RemainingLifeOptions{}, a);
   EXPECT_EQ(a.remaining_life.limiting_factor, "paper");
   EXPECT_NEAR(*a.remaining_life.years, 20, 1e-9);
-  EXPECT_EQ(a.remaining_life.estimates.size(), 3u);
+  EXPECT_EQ(a.remaining_life.estimates.size(), 4u);  // paper, thermal, age, condition
   EXPECT_FALSE(a.remaining_life.beyond_horizon);
 }
 

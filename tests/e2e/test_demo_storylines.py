@@ -63,12 +63,13 @@ def derived(doc, row, path):
     if path == "inspection.worst":
         ratings = [f["rating"] for f in doc["inspection"]]
         return max(ratings, key=RATING_ORDER.index) if ratings else None
-    if path == "missing.count":
-        return len(doc["missing"])
-    if path.startswith("ranking."):
-        return row[path.split(".", 1)[1]]
+    if path.endswith(".count"):
+        return len(derived(doc, row, path[: -len(".count")]))
     value = doc
-    for part in path.split("."):
+    parts = path.split(".")
+    if parts[0] == "ranking":
+        value, parts = row, parts[1:]
+    for part in parts:
         value = value[part]
     return value
 
@@ -210,9 +211,11 @@ class DemoStorylines(unittest.TestCase):
         # investigate the fault).
         self.assertIn(doc["remaining_life"]["limiting_factor"], {"paper", "thermal", "age", "condition"})
         self.assertTrue(any(a["priority"] == 1 for a in doc["actions"]))
-        # Repair, not replace: the paper is sound (common practice, no published source
-        # for the ranking wording; IEEE C57.104-2019 operating procedures for the gassing).
-        self.assertEqual(self.rows["VNM-T1"]["recommended_action"], "repair")
+        # Investigate (find and repair the fault), not replace: the paper is sound
+        # (IEEE C57.104-2019 operating procedures for the gassing).
+        self.assertEqual(self.rows["VNM-T1"]["recommended_action"], "investigate")
+        self.assertEqual(self.rows["VNM-T1"]["first_action"]["priority"], 1)
+        self.assertEqual([d["kind"] for d in doc["decision"]["defects"]], ["gassing"])
         # The gas story puts it right behind the old unit, ahead of every background unit.
         self.assertEqual(self.rows["VNM-T1"]["rank"], 2)
 
@@ -224,7 +227,9 @@ class DemoStorylines(unittest.TestCase):
         self.assertIn(doc["remaining_life"]["limiting_factor"], {"paper", "thermal", "age", "condition"})
         # A hot thermal fault in oil is investigated and repaired, not a reason to
         # replace a unit with sound paper (IEEE C57.104-2019 operating procedures).
-        self.assertEqual(self.rows["OSB-T1"]["recommended_action"], "repair")
+        self.assertEqual(self.rows["OSB-T1"]["recommended_action"], "investigate")
+        # Duval T3 in words (IEC 60599:2022 Table 1: thermal fault above 700 °C).
+        self.assertIn("above 700", " ".join(d["text"] for d in doc["decision"]["defects"]))
 
     def test_wet_unit(self):
         checks = {c["test"]: c for c in self.docs["PLW-T1"]["oil"]["checks"]}
@@ -239,6 +244,34 @@ class DemoStorylines(unittest.TestCase):
         self.assertEqual(doc["remaining_life"]["limiting_factor"], "paper")
         row = self.rows["CRW-T1"]
         self.assertEqual((row["rank"], row["tied"], row["recommended_action"]), (1, False, "replace"))
+        # The replacement respects the 24-month procurement lead time (ferrum
+        # default, common practice) and the unit report gives the same year.
+        self.assertEqual(row["action_year"], 2028)
+        self.assertEqual(doc["decision"]["year"], row["action_year"])
+        self.assertIn("CRW-T1", [u["unit_id"] for u in self.ranking["outlook"]])
+
+    def test_ranking_and_assessment_tell_one_story(self):
+        # Every unit: same action and year in the ranking and the assessment;
+        # the ranking's first action is the assessment's most urgent action;
+        # no column of zeros for risk; words, not identifiers (common practice).
+        for unit, doc in self.docs.items():
+            with self.subTest(unit=unit):
+                row = self.rows[unit]
+                self.assertIn(row["recommended_action"],
+                              {"replace", "refurbish", "repair", "investigate", "monitor", "routine"})
+                self.assertEqual((row["recommended_action"], row["action_year"]),
+                                 (doc["decision"]["action"], doc["decision"]["year"]))
+                if doc["actions"]:
+                    self.assertEqual(row["first_action"]["priority"], doc["actions"][0]["priority"])
+                    self.assertEqual(row["first_action"]["text"], doc["actions"][0]["text"])
+                if row["risk"] is not None:
+                    self.assertGreater(row["failures_per_1000_unit_years"], 1)
+                for text in [row["note"] or "", row["action_reason"] or ""] + [a["text"] for a in doc["actions"]]:
+                    for ident in ("oil_quality", "control_cabinet", "dga_condition_4", "insufficient data: insufficient"):
+                        self.assertNotIn(ident, text)
+                life = doc["remaining_life"]
+                if life["years"] is not None and life["years"] <= 10:
+                    self.assertIn(unit, [u["unit_id"] for u in self.ranking["outlook"]])
 
     def test_overloaded_unit_tells_a_heat_story(self):
         doc = self.docs["PLW-T2"]

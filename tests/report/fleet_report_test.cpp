@@ -25,7 +25,9 @@ TEST_F(FleetReportTest, RankingChartsAlertsAndCoverage) {
   for (const char* s : {"Ranking by risk", "Condition bands and replacement outlook", "Units with open alerts",
                         "Data coverage", "SAFETY", "T-204", "T-117", "T-031", "T-990", "Kelder Road 132 kV",
                         "acetylene rising", "Rated MVA due for replacement", "2030", "refurbish",
-                        "insufficient data: no oil, load or inspection data"})
+                        "too little data: no oil, load or inspection data", "more than",
+                        "P1 by 2026-12-07: Make safe or take out of service: grounding",
+                        "Remaining life ending within ten years", "failures per 1,000 unit-years"})
     EXPECT_NE(text.find(s), std::string::npos) << s;
   // Ranking order is kept: T-204 (rank 1) is listed before T-117 (rank 2) and T-031 (rank 3).
   EXPECT_LT(text.find("T-204"), text.find("T-117"));
@@ -79,15 +81,18 @@ TEST(RankingCsv, HeaderRowsQuotingAndEmptyFields) {
   ranking.units[1].site = "Northgate, \"old\" yard";
   const std::string csv = fleet_ranking_csv(ranking);
   const std::string header =
-      "rank,tied,unit_id,site,rated_mva,health_index,band,remaining_life_years,limiting_factor,"
-      "probability_of_failure,consequence,risk,recommended_action,action_year,insufficient_data,note\n";
+      "rank,tied,unit_id,site,rated_mva,health_index,band,remaining_life_years,beyond_horizon,limiting_factor,"
+      "probability_of_failure,failures_per_1000_unit_years,consequence,risk,recommended_action,action_year,"
+      "first_action_priority,first_action_due,first_action,action_reason,insufficient_data,note\n";
   ASSERT_EQ(csv.substr(0, header.size()), header);
-  EXPECT_NE(csv.find("1,no,T-204,Kelder Road 132 kV,45,57.6,fair,11.5,paper,0.021,4,0.084,refurbish,2028,no,\n"),
+  EXPECT_NE(csv.find("1,no,T-204,Kelder Road 132 kV,45,57.6,fair,11.5,no,paper,0.021,21,4,0.084,refurbish,2028,1,"
+                     "2026-12-07,Make safe or take out of service: grounding,,no,\n"),
             std::string::npos) << csv;
+  EXPECT_NE(csv.find("T-031,Harbour West,60,81,good,40,yes,"), std::string::npos) << csv;
   EXPECT_NE(csv.find("\"Northgate, \"\"old\"\" yard\""), std::string::npos);
   EXPECT_NE(csv.find("4,yes,T-032"), std::string::npos);
   // Insufficient data: no rank, empty fields for absent values, the note quoted (it holds commas).
-  EXPECT_NE(csv.find("\n,no,T-990,Marsh Lane,0,,,,,,3,,,,yes,\"no oil, load or inspection data\"\n"), std::string::npos)
+  EXPECT_NE(csv.find("\n,no,T-990,Marsh Lane,0,,,,no,,,,3,,,,,,,,yes,\"no oil, load or inspection data\"\n"), std::string::npos)
       << csv;
   EXPECT_EQ(std::count(csv.begin(), csv.end(), '\n'), 8);  // header + 6 units + caution
   // The caution is the last line, a comment (report/safety_text.h).

@@ -197,17 +197,49 @@ inline std::vector<SourceFile> source_files() {
           {"Operations", "load_T-204_2025-12_2026-11.csv", "load", "2026-11-30 00:10 UTC", 35040}};
 }
 
+// One ranking row from its printed fields (named, so that new fields of
+// RankedUnit keep their defaults).
+inline RankedUnit ranked_row(int rank, bool tied, std::string id, std::string site, double mva, std::optional<double> hi,
+                             std::string band, std::optional<double> life, std::string limit, std::optional<double> pof,
+                             double consequence, std::optional<double> risk, std::string action,
+                             std::optional<int> year, bool insufficient, std::string note) {
+  RankedUnit u;
+  u.rank = rank;
+  u.tied = tied;
+  u.unit_id = std::move(id);
+  u.site = std::move(site);
+  u.rated_mva = mva;
+  u.health_index = hi;
+  u.band = std::move(band);
+  u.remaining_life_years = life;
+  u.limiting_factor = std::move(limit);
+  u.probability_of_failure = pof;
+  if (pof) u.failures_per_1000_unit_years = *pof * 1000;
+  u.consequence = consequence;
+  u.risk = risk;
+  u.recommended_action = std::move(action);
+  u.action_year = year;
+  u.insufficient_data = insufficient;
+  u.note = std::move(note);
+  return u;
+}
+
 inline FleetRanking small_ranking() {
   FleetRanking r;
   r.as_of = days_from_civil(2026, 11, 30);
   r.units = {
-      {1, false, "T-204", "Kelder Road 132 kV", 45, 57.6, "fair", 11.5, "paper", 0.021, 4, 0.084, "refurbish", 2028, false, ""},
-      {2, false, "T-117", "Northgate", 30, 34.0, "poor", 6.0, "thermal", 0.035, 2, 0.070, "replace", 2030, false, ""},
-      {3, false, "T-031", "Harbour West", 60, 81.0, "good", 24.0, "thermal", 0.006, 5, 0.030, "routine", std::nullopt, false, ""},
-      {4, true, "T-032", "Harbour West", 60, 88.0, "very good", 30.0, "condition", 0.003, 5, 0.015, "routine", std::nullopt, false, ""},
-      {5, true, "T-033", "Harbour East", 20, 86.0, "very good", 28.0, "condition", 0.003, 5, 0.015, "routine", std::nullopt, false, ""},
-      {0, false, "T-990", "Marsh Lane", 0, std::nullopt, "", std::nullopt, "", std::nullopt, 3, std::nullopt, "", std::nullopt, true,
-       "no oil, load or inspection data"}};
+      ranked_row(1, false, "T-204", "Kelder Road 132 kV", 45, 57.6, "fair", 11.5, "paper", 0.021, 4, 0.084, "refurbish", 2028, false, ""),
+      ranked_row(2, false, "T-117", "Northgate", 30, 34.0, "poor", 6.0, "thermal", 0.035, 2, 0.070, "replace", 2030, false, ""),
+      ranked_row(3, false, "T-031", "Harbour West", 60, 81.0, "good", 24.0, "thermal", 0.006, 5, 0.030, "routine", std::nullopt, false, ""),
+      ranked_row(4, true, "T-032", "Harbour West", 60, 88.0, "very good", 30.0, "condition", 0.003, 5, 0.015, "routine", std::nullopt, false, ""),
+      ranked_row(5, true, "T-033", "Harbour East", 20, 86.0, "very good", 28.0, "condition", 0.003, 5, 0.015, "routine", std::nullopt, false, ""),
+      ranked_row(0, false, "T-990", "Marsh Lane", 0, std::nullopt, "", std::nullopt, "", std::nullopt, 3, std::nullopt, "", std::nullopt, true,
+                 "no oil, load or inspection data")};
+  r.units[0].first_action = Action{1, days_from_civil(2026, 12, 7), "Make safe or take out of service: grounding", "unsafe"};
+  r.units[2].beyond_horizon = true;
+  r.units[2].remaining_life_years = 40;
+  r.outlook.push_back({"T-117", "Northgate", 30, 6.0, 2032, "thermal", "replace", 2030});
+  r.risk_calibration = "ferrum's own defaults";
   for (int y = 2027; y <= 2036; ++y) {
     FleetRanking::YearMva m{y, 0, 0};
     if (y == 2028) m = {y, 45, 1};
