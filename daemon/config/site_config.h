@@ -14,6 +14,9 @@
 #include <string>
 #include <vector>
 
+#include "daemon/ingest/field_parsers.h"
+#include "daemon/ingest/header_map.h"
+
 namespace ferrum::config {
 
 // A configuration that cannot be used; the message names the key and why.
@@ -26,6 +29,12 @@ struct Party {
   std::string name;                 // folder name under drop/
   std::set<std::string> kinds;      // file kinds it may deliver
   std::set<std::string> sites;      // sites it serves; contains "*" for all
+  // How its own exports are written (party_formats.h): ROOT/columns/NAME.csv,
+  // date_format and decimal.
+  ingest::HeaderMap columns;
+  std::string date_format = "YYYY-MM-DD";  // as configured
+  ingest::DateOrder date_order = ingest::DateOrder::iso;
+  ingest::DecimalMark decimal = ingest::DecimalMark::automatic;
   bool may_deliver(const std::string& kind) const { return kinds.count(kind) > 0; }
   // Site names compare without regard to case.
   bool serves(const std::string& site) const {

@@ -6,6 +6,7 @@
 #include "daemon/ingest/check_stream.h"
 #include "daemon/ingest/csv_reader.h"
 #include "daemon/ingest/file_kinds.h"
+#include "daemon/ingest/open_source.h"
 #include "daemon/ingest/row_parsers.h"
 
 namespace ferrum::ingest {
@@ -91,7 +92,7 @@ class LoadWriter {
 };
 
 template <class Parser, class Row, class Store>
-void run_rows(CsvReader& reader, Parser& parser, ImportResult& r, const std::atomic<bool>* cancel,
+void run_rows(RecordSource& reader, Parser& parser, ImportResult& r, const std::atomic<bool>* cancel,
               Store&& store_row) {
   Row row;
   for (std::uint64_t n = 1;; ++n) {
@@ -124,23 +125,65 @@ void run_rows(CsvReader& reader, Parser& parser, ImportResult& r, const std::ato
 
 }  // namespace
 
+namespace {
+
+// What of the party's own conventions was applied, for the receipt.
+std::string describe_formats(const config::Party& p, std::span<const std::string> header) {
+  int renamed = 0;
+  for (const auto& name : header) renamed += !p.columns.ferrum_name(name).empty();
+  std::string out;
+  if (renamed > 0)
+    out = "your column map (columns/" + p.name + ".csv) named " + std::to_string(renamed) + " of your columns";
+  if (p.date_order != DateOrder::iso)
+    out += (out.empty() ? "" : "; ") + std::string("dates read as ") + p.date_format + " (ISO 8601 also accepted)";
+  if (p.decimal != DecimalMark::automatic)
+    out += (out.empty() ? "" : "; ") + std::string("decimal ") + (p.decimal == DecimalMark::comma ? "comma" : "point");
+  return out;
+}
+
+void import_source(RecordSource& reader, const ImportSettings& s, store::Store& store, ImportResult& r);
+
+}  // namespace
+
 ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Store& store) {
   ImportResult r;
-  CsvReader reader(in);
-  if (!reader.read_header(r.problems)) return r;
-  if (reader.delimiter_declared()) r.declared_delimiter = reader.delimiter();
-  const KindDetection kind = detect_kind(reader.header());
+  SourceOptions options;
+  // A workbook's sheet named after a kind the party delivers is preferred.
+  if (s.party) options.workbook.preferred_sheets.assign(s.party->kinds.begin(), s.party->kinds.end());
+  else options.workbook.preferred_sheets = kind_sheet_names();
+  const std::unique_ptr<RecordSource> source = open_record_source(in, options);
+  RecordSource& reader = *source;
+  r.problems.set_locator([&reader](std::int64_t line, int column) { return reader.locate(line, column); });
+  try {
+    import_source(reader, s, store, r);
+  } catch (...) {
+    r.problems.set_locator(nullptr);
+    throw;
+  }
+  r.problems.set_locator(nullptr);  // the source ends here
+  return r;
+}
+
+namespace {
+
+void import_source(RecordSource& reader, const ImportSettings& s, store::Store& store, ImportResult& r) {
+  if (!reader.read_header(r.problems)) return;
+  r.declared_delimiter = reader.declared_delimiter();
+  r.source_note = describe_source(reader);
+  static const HeaderMap kNoMap;
+  const KindDetection kind = detect_kind(reader.header(), s.party ? s.party->columns : kNoMap);
   if (!kind.recognised) {
     r.problems.add(reader.header_line(), kind.reason_column >= 0 ? reader.header()[kind.reason_column] : "",
                    kind.reason_column + 1, "", kind.reason);
-    return r;
+    return;
   }
   r.kind = to_string(kind.kind);
   if (s.party && !s.party->may_deliver(r.kind)) {
     r.file_reason = "party '" + s.party->name + "' may not deliver " + describe(kind.kind) +
                     " files (ferrum.ini [party." + s.party->name + "] kinds)";
-    return r;
+    return;
   }
+  if (s.party) r.format_note = describe_formats(*s.party, reader.header());
   for (int c : kind.unknown_columns)
     r.warnings.add(reader.header_line(), reader.header()[c], "unknown column, ignored");
   if (s.file_id)
@@ -154,7 +197,8 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
   if (s.units_must_exist) po.lookup_unit = [&units](std::string_view id) { return units.find(id); };
   if (s.config)
     for (const auto& item : s.config->extra_inspection_items) po.inspection_items.push_back(item);
-  const bool comma = reader.decimal_comma();
+  po.date_order = s.party ? s.party->date_order : DateOrder::iso;
+  const bool comma = uses_decimal_comma(s.party ? s.party->decimal : DecimalMark::automatic, reader.decimal_comma());
 
   switch (kind.kind) {
     case FileKind::units_register: {
@@ -235,7 +279,8 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
   }
   if (!r.problems.empty()) r.units.clear();
   if (r.rows == 0 && r.problems.empty()) r.file_reason = "the file has a header but no data rows";
-  return r;
 }
+
+}  // namespace
 
 }  // namespace ferrum::ingest

@@ -42,6 +42,8 @@ struct ImportResult {
   std::vector<std::string> unsafe_items;
   bool offset_assumed = false;   // some times had no UTC offset
   char declared_delimiter = 0;   // from a "sep=X" first line, 0 when none
+  std::string source_note;       // the worksheet and date system of a workbook, "" for a CSV
+  std::string format_note;       // the party's column map and formats that were applied, "" when none
   std::string file_reason;       // whole-file reason (e.g. kind not allowed for the party)
 };
 

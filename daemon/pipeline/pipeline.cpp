@@ -104,6 +104,8 @@ void fill_receipt(Receipt& r, const ImportResult& result, const config::SiteConf
   else if (result.declared_delimiter)
     r.separator_note = std::string("values separated by '") + result.declared_delimiter +
                        "', as the file's sep= first line says";
+  r.source_note = result.source_note;
+  r.format_note = result.format_note;
   if (result.offset_assumed)
     r.utc_offset_note = "times without a UTC offset were taken as UTC" + config.utc_offset_text + " (site.utc_offset)";
 }

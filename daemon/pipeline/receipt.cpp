@@ -70,6 +70,7 @@ std::string Receipt::to_json() const {
     j->set("column_number", x.column_number);
     j->set("value", x.value);
     j->set("reason", x.reason);
+    if (!x.location.empty()) j->set("location", x.location);
     p->add(j);
   }
   o->set("problems", p);
@@ -90,6 +91,8 @@ std::string Receipt::to_json() const {
   }
   if (!utc_offset_note.empty()) o->set("time_note", utc_offset_note);
   if (!separator_note.empty()) o->set("separator_note", separator_note);
+  if (!source_note.empty()) o->set("source_note", source_note);
+  if (!format_note.empty()) o->set("format_note", format_note);
   std::ostringstream out;
   Poco::JSON::Stringifier::stringify(o, out, 2);
   out << "\n";
@@ -117,11 +120,13 @@ Receipt Receipt::from_json(const std::string& json) {
   r.problem_count = o->optValue<long long>("problem_count", 0);
   r.utc_offset_note = str(o, "time_note");
   r.separator_note = str(o, "separator_note");
+  r.source_note = str(o, "source_note");
+  r.format_note = str(o, "format_note");
   if (auto a = o->getArray("problems")) {
     for (std::size_t i = 0; i < a->size(); ++i) {
       auto p = a->getObject(static_cast<unsigned>(i));
       r.problems.push_back({p->optValue<std::int64_t>("line", 0), str(p, "column"), p->optValue<int>("column_number", 0),
-                            str(p, "value"), str(p, "reason")});
+                            str(p, "value"), str(p, "reason"), str(p, "location")});
     }
   }
   if (auto a = o->getArray("warnings")) {
@@ -177,6 +182,8 @@ std::string Receipt::to_text() const {
   }
   if (!utc_offset_note.empty()) o << "  times:       " << utc_offset_note << "\n";
   if (!separator_note.empty()) o << "  separator:   " << separator_note << "\n";
+  if (!source_note.empty()) o << "  read from:   " << source_note << "\n";
+  if (!format_note.empty()) o << "  your format: " << format_note << "\n";
   if (!unsafe_items.empty()) {
     // Confirms to the inspector that the rating did not wait for a report.
     o << "\nRated UNSAFE, reported to the site's planners at once:\n";
@@ -185,8 +192,13 @@ std::string Receipt::to_text() const {
   if (!problems.empty()) {
     o << "\nProblems (line, column: reason [value]):\n";
     for (const auto& p : problems) {
-      o << "  line " << p.line;
-      if (!p.column.empty()) o << ", column " << p.column << " (" << p.column_number << ")";
+      if (!p.location.empty()) {
+        o << "  " << p.location;  // a workbook: row and cell
+        if (!p.column.empty()) o << " (" << p.column << ")";
+      } else {
+        o << "  line " << p.line;
+        if (!p.column.empty()) o << ", column " << p.column << " (" << p.column_number << ")";
+      }
       o << ": " << p.reason;
       if (!p.value.empty()) o << " [" << p.value << "]";
       o << "\n";
