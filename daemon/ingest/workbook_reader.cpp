@@ -9,6 +9,7 @@
 
 #include <algorithm>
 #include <charconv>
+#include <cctype>
 #include <cmath>
 #include <functional>
 #include <map>
@@ -462,6 +463,19 @@ class SheetReader {
   std::string text_;
 };
 
+// A unit written under a column name ("ppm", "(°C)", "[kV]"): the mark of
+// a header split over two rows.
+bool is_unit_label(std::string_view text) {
+  std::string t;
+  for (char c : trim(text)) {
+    if (c != '(' && c != ')' && c != '[' && c != ']' && c != ' ') t += static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+  }
+  static constexpr std::string_view kUnits[] = {"ppm",   "ppb",    "°c",   "degc", "°f",    "degf",  "%",
+                                                "kv",    "mva",    "kva",  "a",    "k",     "mg/kg", "µl/l",
+                                                "ul/l",  "mgkoh/g", "mn/m", "l",    "pu",    "p.u."};
+  return std::find(std::begin(kUnits), std::end(kUnits), t) != std::end(kUnits);
+}
+
 }  // namespace
 
 std::string column_letters(int column) {
@@ -543,13 +557,14 @@ bool WorkbookReader::read_header(ProblemLog& problems) {
   // column without a name (names split over two rows) or naming units.
   if (rows_.size() > 1) {
     const Row& second = rows_[1];
-    bool all_text = true, under_gap = false;
+    bool all_text = true, second_line = false;
     for (const Cell& c : second.cells) {
       all_text &= c.is_text;
       const int k = c.column - first_column_;
-      under_gap |= k >= 0 && k < static_cast<int>(header_.size()) && header_[static_cast<std::size_t>(k)].empty();
+      second_line |= k < 0 || k >= static_cast<int>(header_.size()) || header_[static_cast<std::size_t>(k)].empty() ||
+                     is_unit_label(c.text);
     }
-    if (all_text && under_gap) {
+    if (all_text && second_line) {
       problems.add(second.number, "", 0, "",
                    "a second header row (row " + std::to_string(second.number) +
                        " holds only names): keep one header row with one name per column, e.g. 'H2 (ppm)'");
