@@ -102,13 +102,26 @@ def _sheet_xml(rows, strings, shared, merged, first_row, first_col):
     return "".join(out)
 
 
+class _Zip(zipfile.ZipFile):
+    """Deflated entries with a fixed time, so that a workbook's bytes depend
+    on its content only (fixtures regenerate identically)."""
+
+    def __init__(self, buf):
+        super().__init__(buf, "w", zipfile.ZIP_DEFLATED)
+
+    def writestr(self, name, data):
+        info = zipfile.ZipInfo(name, date_time=(2026, 1, 1, 0, 0, 0))
+        info.compress_type = zipfile.ZIP_DEFLATED
+        super().writestr(info, data)
+
+
 def workbook(sheets, shared=True, date1904=False, merged=None, first_row=1, first_col=1):
     """sheets: [(name, rows)]; returns the .xlsx bytes."""
     strings = []
     sheet_xml = [_sheet_xml(rows, strings, shared, merged if k == 0 else None, first_row, first_col)
                  for k, (_, rows) in enumerate(sheets)]
     buf = io.BytesIO()
-    with zipfile.ZipFile(buf, "w", zipfile.ZIP_DEFLATED) as z:
+    with _Zip(buf) as z:
         z.writestr("[Content_Types].xml",
                    '<?xml version="1.0" encoding="UTF-8"?><Types xmlns="http://schemas.openxmlformats.org/'
                    'package/2006/content-types"><Default Extension="xml" ContentType="application/xml"/>'
