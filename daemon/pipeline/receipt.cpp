@@ -92,6 +92,7 @@ std::string Receipt::to_json() const {
   if (!utc_offset_note.empty()) o->set("time_note", utc_offset_note);
   if (!separator_note.empty()) o->set("separator_note", separator_note);
   if (!source_note.empty()) o->set("source_note", source_note);
+  if (!subfolder.empty()) o->set("subfolder", json_text(subfolder));
   if (!format_note.empty()) o->set("format_note", format_note);
   std::ostringstream out;
   Poco::JSON::Stringifier::stringify(o, out, 2);
@@ -121,6 +122,7 @@ Receipt Receipt::from_json(const std::string& json) {
   r.utc_offset_note = str(o, "time_note");
   r.separator_note = str(o, "separator_note");
   r.source_note = str(o, "source_note");
+  r.subfolder = str(o, "subfolder");
   r.format_note = str(o, "format_note");
   if (auto a = o->getArray("problems")) {
     for (std::size_t i = 0; i < a->size(); ++i) {
@@ -182,6 +184,8 @@ std::string Receipt::to_text() const {
   }
   if (!utc_offset_note.empty()) o << "  times:       " << utc_offset_note << "\n";
   if (!separator_note.empty()) o << "  separator:   " << separator_note << "\n";
+  if (!subfolder.empty())
+    o << "  dropped in:  " << subfolder << " (a sub-folder of your folder; taken under the name " << file << ")\n";
   if (!source_note.empty()) o << "  read from:   " << source_note << "\n";
   if (!format_note.empty()) o << "  your format: " << format_note << "\n";
   if (!unsafe_items.empty()) {

@@ -29,6 +29,7 @@ struct Receipt {
   std::string duplicate_of_stored_as;    // ... and as what
   std::string utc_offset_note;      // "times without an offset were taken as UTC+01:00"
   std::string separator_note;       // "values separated by ';' as the sep= first line says"
+  std::string subfolder;            // "2026-10/" when dropped in a sub-folder of the party folder
   std::string source_note;          // "worksheet 'Results' of an .xlsx workbook; ..."
   std::string format_note;          // the party's column map / date format / decimal that were applied
 

@@ -147,7 +147,49 @@ class ContractorExports(IngestCase):
         self.assertIn("party.northlab.date_format", p.stderr)
 
 
+class Subfolders(IngestCase):
+    def test_file_in_a_subfolder_is_taken_with_its_subpath(self):
+        folder = self.path("drop", self.party, "2026-10", "week 1")
+        os.makedirs(folder)
+        with open(os.path.join(folder, "inspection.csv"), "w") as f:
+            f.write("unit_id,inspection_date,item,rating\nT1,2026-02-20,bushings,good\n")
+        self.ingest()
+        r = self.receipt("2026-10_week 1_inspection.csv")
+        self.assertEqual(r["status"], "accepted", r)
+        self.assertEqual(r["subfolder"], "2026-10/week 1/")
+        self.assertIn("2026-10_week 1_inspection.", r["stored_as"])
+        self.assertTrue(r["stored_as"].startswith("archive/"))
+        self.assertEqual(os.listdir(folder), [])  # taken; the folder itself is left alone
+        with open(self.path("drop", self.party, "receipts", "2026-10_week 1_inspection.csv.txt")) as f:
+            self.assertIn("dropped in:  2026-10/week 1/", f.read())
+
+    def test_receipts_and_hidden_folders_are_not_drop_folders(self):
+        for sub in ("receipts", ".sync"):
+            with open(self.path("drop", self.party, sub, "x.csv") if sub == "receipts" else
+                      self._mk(sub, "x.csv"), "w") as f:
+                f.write("unit_id,inspection_date,item,rating\nT1,2026-02-20,bushings,good\n")
+        self.ingest()
+        self.assertTrue(os.path.exists(self.path("drop", self.party, "receipts", "x.csv")))
+        self.assertTrue(os.path.exists(self.path("drop", self.party, ".sync", "x.csv")))
+        self.assertEqual(self.count("inspections"), 0)
+
+    def _mk(self, sub, name):
+        os.makedirs(self.path("drop", self.party, sub), exist_ok=True)
+        return self.path("drop", self.party, sub, name)
+
+
 class MapReload(DaemonCase):
+    def test_daemon_takes_a_file_from_a_subfolder_at_its_rescan(self):
+        self.start_daemon()
+        folder = self.path("drop", self.party, "2026-10")
+        os.makedirs(folder)
+        with open(os.path.join(folder, ".lab.csv.part"), "w") as f:
+            f.write("unit_id,inspection_date,item,rating\nT1,2026-02-20,bushings,good\n")
+        os.rename(os.path.join(folder, ".lab.csv.part"), os.path.join(folder, "lab.csv"))
+        self.wait_for(lambda: self.has_receipt("2026-10_lab.csv"), timeout=20, what="receipt of the sub-folder file")
+        self.assertEqual(self.receipt("2026-10_lab.csv")["status"], "accepted")
+        self.assertEqual(self.stop_daemon(), 0)
+
     def test_sighup_with_a_broken_map_keeps_the_old_map(self):
         with open(self.path("ferrum.ini"), "a") as f:
             f.write("\n[party.northlab]\nkinds = oil_lab\nsites = *\ndate_format = DD/MM/YYYY\n")
