@@ -362,6 +362,9 @@ std::string default_site_config_text() {
   o << "\n; Parties: one section per party, named after its folder under drop/.\n"
        "; kinds: file kinds it may deliver (units_register, oil_lab, infrared, load_series,\n"
        ";        inspection, or * for all); sites: sites it serves (* for all).\n"
+       "; Optional: date_format (YYYY-MM-DD, DD/MM/YYYY, MM/DD/YYYY or DD.MM.YYYY, then\n"
+       ";        optionally HH:MM[:SS]), decimal (point, comma or auto); the party's own\n"
+       ";        column names are mapped in ROOT/columns/NAME.csv (their_column,ferrum_column).\n"
        "[party.planning]\n"
        "kinds = *\n"
        "sites = *\n";
