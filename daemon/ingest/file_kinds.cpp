@@ -273,6 +273,16 @@ bool is_known_column(std::string_view name) {
   return false;
 }
 
+std::string describe_required_columns(std::span<const FileKind> kinds) {
+  std::string out;
+  for (const KindSpec& spec : kKinds) {
+    if (std::find(kinds.begin(), kinds.end(), spec.kind) == kinds.end()) continue;
+    if (!out.empty()) out += "; ";
+    out += std::string(describe(spec.kind)) + " needs " + needs_of(spec);
+  }
+  return out;
+}
+
 std::string describe_required_columns() {
   std::string out;
   for (const KindSpec& spec : kKinds) {

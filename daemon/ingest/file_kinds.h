@@ -80,6 +80,8 @@ KindDetection detect_kind(std::span<const std::string> header);
 
 // The rejection text listing the columns each kind needs.
 std::string describe_required_columns();
+// The same for the given kinds only (e.g. those a party delivers).
+std::string describe_required_columns(std::span<const FileKind> kinds);
 
 // Every kind, in the order of the kind table.
 std::vector<FileKind> all_kinds();

@@ -106,4 +106,29 @@ KindDetection detect_kind(std::span<const std::string> header, const HeaderMap& 
   return d;
 }
 
+std::string describe_unmatched_header(std::span<const std::string> header, const HeaderMap& map,
+                                      std::span<const FileKind> kinds, const std::string& party,
+                                      const std::string& closest) {
+  std::string known, unknown;
+  for (const std::string& name : header) {
+    if (trim(name).empty()) continue;
+    const std::string_view mapped = map.ferrum_name(name);
+    const std::string ferrum = mapped.empty() ? normalise_column_name(name) : std::string(mapped);
+    std::string& list = is_known_column(ferrum) ? known : unknown;
+    if (!list.empty()) list += ", ";
+    list += "'" + name + "'";
+    if (&list == &known && ferrum != name) list += " (" + ferrum + ")";
+  }
+  std::string kinds_text;
+  for (std::size_t i = 0; i < kinds.size(); ++i) kinds_text += (i ? ", " : "") + std::string(describe(kinds[i]));
+  std::string out = "the header matches no kind of file party '" + party + "' delivers (" + kinds_text + ")";
+  if (!closest.empty()) out += " " + closest;
+  out += ". Recognised: " + (known.empty() ? std::string("none") : known) + ".";
+  if (!unknown.empty()) out += " Not recognised: " + unknown + ".";
+  out += " " + describe_required_columns(kinds) +
+         ". The columns are listed in the site's drop-file contract (schema/drop-files.md, \"The five kinds\"); "
+         "the site can map your own column names (columns/" + party + ".csv).";
+  return out;
+}
+
 }  // namespace ferrum::ingest

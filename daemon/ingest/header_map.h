@@ -74,4 +74,12 @@ class HeaderMap {
 // and reason naming the file's own columns again.
 KindDetection detect_kind(std::span<const std::string> header, const HeaderMap& map);
 
+// Why a header that fits no kind was rejected, for a party that delivers
+// `kinds`: which of its own columns were recognised (and as what), which
+// were not, what the kinds it delivers need, and where the columns are
+// listed. `closest` is detect_kind's "(closest: ..., missing ...)" note, or "".
+std::string describe_unmatched_header(std::span<const std::string> header, const HeaderMap& map,
+                                      std::span<const FileKind> kinds, const std::string& party,
+                                      const std::string& closest);
+
 }  // namespace ferrum::ingest

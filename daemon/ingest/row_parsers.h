@@ -123,6 +123,9 @@ class RowChecker {
              ProblemLog& problems, WarningLog& warnings);
   virtual ~RowChecker() = default;
 
+  // 0-based column of unit_id in the file, -1 when it has none.
+  int unit_column() const { return columns_["unit_id"].index; }
+
  protected:
   // A closed or half-open range in the field's unit; `unit` for messages.
   struct Range {

@@ -91,10 +91,17 @@ class LoadWriter {
   std::int64_t first_offset_line_ = 0, duplicate_line_ = 0;
 };
 
+void note_day(ImportResult& r, analytics::Day d) {
+  if (!r.first_day || d < *r.first_day) r.first_day = d;
+  if (!r.last_day || d > *r.last_day) r.last_day = d;
+}
+
 template <class Parser, class Row, class Store>
 void run_rows(RecordSource& reader, Parser& parser, ImportResult& r, const std::atomic<bool>* cancel,
               Store&& store_row) {
   Row row;
+  std::string last_unit;
+  const int unit_index = parser.unit_column();
   for (std::uint64_t n = 1;; ++n) {
     if (cancel && (n & 4095) == 0 && cancel->load(std::memory_order_relaxed)) throw ImportCancelled();
     const RecordStatus st = reader.next(r.problems);
@@ -107,6 +114,13 @@ void run_rows(RecordSource& reader, Parser& parser, ImportResult& r, const std::
     if (is_empty_row(reader.fields())) {
       r.warnings.add(reader.record_line(), "", "row with only empty values ignored");
       continue;
+    }
+    if (unit_index >= 0 && static_cast<std::size_t>(unit_index) < reader.fields().size()) {
+      const std::string_view id = trim(reader.fields()[static_cast<std::size_t>(unit_index)]);
+      if (!id.empty() && id != last_unit) {  // rows come in runs of one unit
+        last_unit = id;
+        if (r.named_units.size() < ImportResult::kMaxNamedUnits) r.named_units.insert(last_unit);
+      }
     }
     if (!parser.parse(reader.fields(), reader.record_line(), row)) {
       ++r.rows;
@@ -173,8 +187,18 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
   static const HeaderMap kNoMap;
   const KindDetection kind = detect_kind(reader.header(), s.party ? s.party->columns : kNoMap);
   if (!kind.recognised) {
+    std::string reason = kind.reason;
+    if (s.party && reason.starts_with("the header matches no kind of file")) {
+      // Only the kinds this party delivers, what of its own header was recognised, and where to look.
+      std::vector<FileKind> kinds;
+      for (FileKind k : all_kinds())
+        if (s.party->may_deliver(to_string(k))) kinds.push_back(k);
+      const auto open = reason.find(" (closest: "), close = reason.find(')', open);
+      const std::string closest = open == std::string::npos ? "" : reason.substr(open + 1, close - open);
+      reason = describe_unmatched_header(reader.header(), s.party->columns, kinds, s.party->name, closest);
+    }
     r.problems.add(reader.header_line(), kind.reason_column >= 0 ? reader.header()[kind.reason_column] : "",
-                   kind.reason_column + 1, "", kind.reason);
+                   kind.reason_column + 1, "", reason);
     return;
   }
   r.kind = to_string(kind.kind);
@@ -217,6 +241,7 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;  // `ferrum check` away from a site
         store.add_oil_sample(row.unit_id, row.sample, s.file_id, static_cast<int>(row.line));
+        note_day(r, row.sample.date);
         r.units.insert(row.unit_id);
         return true;
       });
@@ -229,6 +254,7 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;
         store.add_infrared(row.unit_id, row.scan, s.file_id, static_cast<int>(row.line));
+        note_day(r, row.scan.date);
         r.units.insert(row.unit_id);
         return true;
       });
@@ -241,6 +267,7 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;
         store.add_inspection(row.unit_id, row.record, s.file_id, static_cast<int>(row.line));
+        note_day(r, row.record.date);
         r.units.insert(row.unit_id);
         if (row.record.rating == analytics::Rating::unsafe)
           r.unsafe_items.push_back(row.unit_id + ": " + row.record.item + " (" +
@@ -270,7 +297,10 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
           r.units.insert(row.unit_id);
         }
         if (row.offset_assumed) writer.note_offset_assumed(row.line);
-        if (u) writer.add(row, s.file_id);
+        if (u) {
+          writer.add(row, s.file_id);
+          note_day(r, analytics::day_of(row.point.t));
+        }
         return true;
       });
       writer.finish();

@@ -5,6 +5,7 @@
 
 #include <atomic>
 #include <istream>
+#include <optional>
 #include <stdexcept>
 #include <set>
 #include <string>
@@ -39,6 +40,11 @@ struct ImportResult {
   ProblemLog problems{100};
   WarningLog warnings;
   std::set<std::string> units;   // units touched
+  // Units the file's rows name (good rows and rows with a problem), at most
+  // kMaxNamedUnits: whose results a rejected file holds up.
+  std::set<std::string> named_units;
+  static constexpr std::size_t kMaxNamedUnits = 200;
+  std::optional<std::int64_t> first_day, last_day;  // date range of the rows taken (days since 1970-01-01)
   std::vector<std::string> unsafe_items;
   bool offset_assumed = false;   // some times had no UTC offset
   char declared_delimiter = 0;   // from a "sep=X" first line, 0 when none

@@ -105,6 +105,10 @@ void fill_receipt(Receipt& r, const ImportResult& result, const config::SiteConf
     r.separator_note = std::string("values separated by '") + result.declared_delimiter +
                        "', as the file's sep= first line says";
   r.source_note = result.source_note;
+  if (result.first_day) {
+    r.data_from = analytics::format_day(*result.first_day);
+    r.data_to = analytics::format_day(*result.last_day);
+  }
   r.format_note = result.format_note;
   if (result.offset_assumed)
     r.utc_offset_note = "times without a UTC offset were taken as UTC" + config.utc_offset_text + " (site.utc_offset)";
@@ -364,7 +368,9 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
   }
   if (r.status != "accepted") {
     r.status = "rejected";
-    r.units.clear();
+    r.units.assign(result.named_units.begin(), result.named_units.end());  // whose results are held up
+    r.data_from.clear();  // nothing was taken
+    r.data_to.clear();
     if (r.reason.empty() && r.problem_count == 0) r.reason = "the file has no usable content";
     r.stored_as = fs::relative(destination("rejected", name, r.sha256, now), root_.root).string();
     store_.add_file({0, r.sha256, party, name, r.kind, "rejected", r.rows, r.problem_count, received_at, r.stored_as,
@@ -594,6 +600,11 @@ Receipt Pipeline::check(const fs::path& file, const std::string& party) {
   fill_receipt(r, result, config_);
   r.units.assign(result.units.begin(), result.units.end());
   if (result.problems.empty() && result.file_reason.empty() && !result.kind.empty()) r.status = "accepted";
+  if (r.status == "rejected") {
+    r.units.assign(result.named_units.begin(), result.named_units.end());
+    r.data_from.clear();
+    r.data_to.clear();
+  }
   r.stored_as = "(check only: nothing stored)";
   return r;
 }

@@ -78,6 +78,12 @@ std::string Receipt::to_json() const {
   Array::Ptr u = new Array;
   for (const auto& x : units) u->add(x);
   o->set("units", u);
+  if (!data_from.empty()) {
+    Object::Ptr d = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+    d->set("from", data_from);
+    d->set("to", data_to);
+    o->set("dates", d);
+  }
   if (!unsafe_items.empty()) {
     Array::Ptr s = new Array;
     for (const auto& x : unsafe_items) s->add(x);
@@ -146,6 +152,10 @@ Receipt Receipt::from_json(const std::string& json) {
   if (auto a = o->getArray("unsafe_items_reported"))
     for (std::size_t i = 0; i < a->size(); ++i)
       r.unsafe_items.push_back(a->getElement<std::string>(static_cast<unsigned>(i)));
+  if (auto d = o->getObject("dates")) {
+    r.data_from = str(d, "from");
+    r.data_to = str(d, "to");
+  }
   if (auto d = o->getObject("already_imported")) {
     r.duplicate_of_received_at = str(d, "received_at");
     r.duplicate_of_stored_as = str(d, "stored_as");
@@ -178,10 +188,13 @@ std::string Receipt::to_text() const {
   o << "  site copy:   " << std::filesystem::path(stored_as).filename().string()
     << " (kept by the site; quote this name when asking about the file)\n";
   if (!units.empty()) {
-    o << "  units:       ";
+    // A rejected file's units: whose results wait until it is corrected.
+    o << (status == "rejected" ? "  units held:  " : "  units:       ");
     for (std::size_t i = 0; i < units.size(); ++i) o << (i ? ", " : "") << units[i];
-    o << "\n";
+    o << (status == "rejected" ? " (their results in this file are held up until it is corrected)\n" : "\n");
   }
+  if (!data_from.empty())
+    o << "  dates:       " << data_from << (data_to != data_from ? " to " + data_to : std::string()) << "\n";
   if (!utc_offset_note.empty()) o << "  times:       " << utc_offset_note << "\n";
   if (!separator_note.empty()) o << "  separator:   " << separator_note << "\n";
   if (!subfolder.empty())

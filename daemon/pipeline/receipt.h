@@ -23,7 +23,8 @@ struct Receipt {
   std::vector<Problem> problems;    // first 100
   long long problem_count = 0;
   std::vector<Warning> warnings;
-  std::vector<std::string> units;   // units touched (accepted files)
+  std::vector<std::string> units;   // units touched (accepted); units the rows name, held up (rejected)
+  std::string data_from, data_to;   // date range of the rows taken (YYYY-MM-DD), "" when none
   std::vector<std::string> unsafe_items;  // "UNIT: item (date)" rated unsafe, reported to the site at once
   std::string duplicate_of_received_at;  // for duplicates: when the same content was imported
   std::string duplicate_of_stored_as;    // ... and as what

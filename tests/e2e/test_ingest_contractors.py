@@ -147,6 +147,38 @@ class ContractorExports(IngestCase):
         self.assertIn("party.northlab.date_format", p.stderr)
 
 
+class ReceiptsContractorsUnderstand(IngestCase):
+    setUp = ContractorExports.setUp  # the same party, map and date format
+
+    def test_accepted_receipt_gives_the_date_range(self):
+        self.drop("lab.csv", LAB_EXPORT, party="northlab")
+        self.ingest()
+        r = self.receipt("lab.csv", party="northlab")
+        self.assertEqual(r["dates"], {"from": "2025-10-05", "to": "2025-10-06"})
+        with open(self.path("drop", "northlab", "receipts", "lab.csv.txt")) as f:
+            self.assertIn("dates:       2025-10-05 to 2025-10-06", f.read())
+
+    def test_rejected_receipt_names_the_units_held_up(self):
+        self.drop("bad.csv", LAB_EXPORT.replace(",42,", ",-42,"), party="northlab")
+        self.ingest(expect=4)
+        r = self.receipt("bad.csv", party="northlab")
+        self.assertEqual(r["status"], "rejected")
+        self.assertEqual(sorted(r["units"]), ["T1", "T2"])
+        self.assertNotIn("dates", r)
+        with open(self.path("drop", "northlab", "receipts", "bad.csv.txt")) as f:
+            self.assertIn("units held:  T1, T2 (their results in this file are held up", f.read())
+
+    def test_unmatched_header_speaks_of_the_partys_kinds_and_its_own_columns(self):
+        self.drop("odd.csv", "Transformer,Taken on,H2 (ppm),Colour code\nT1,x,1,2\n", party="northlab")
+        self.ingest(expect=4)
+        reason = self.receipt("odd.csv", party="northlab")["problems"][0]["reason"]
+        self.assertIn("party 'northlab' delivers (oil-lab results)", reason)
+        self.assertIn("Recognised: 'Transformer' (unit_id), 'H2 (ppm)' (h2_ppm).", reason)
+        self.assertIn("Not recognised: 'Taken on', 'Colour code'.", reason)
+        self.assertNotIn("load series", reason)  # a kind this party does not deliver
+        self.assertIn("schema/drop-files.md", reason)
+
+
 class Subfolders(IngestCase):
     def test_file_in_a_subfolder_is_taken_with_its_subpath(self):
         folder = self.path("drop", self.party, "2026-10", "week 1")
