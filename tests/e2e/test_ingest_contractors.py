@@ -39,7 +39,9 @@ def sample_days(root):
                          "FROM oil_samples s JOIN units u USING (unit_key) ORDER BY 1").fetchall()
 
 
-class ContractorExports(IngestCase):
+class NorthlabCase(IngestCase):
+    """The test register, and a laboratory party with its column map and date format."""
+
     def setUp(self):
         super().setUp()
         self.write_config("[party.northlab]\nkinds = oil_lab\nsites = *\ndate_format = DD/MM/YYYY\n")
@@ -48,6 +50,8 @@ class ContractorExports(IngestCase):
         with open(self.path("columns", "northlab.csv"), "w") as f:
             f.write(MAP)
 
+
+class ContractorExports(NorthlabCase):
     def test_mapped_export_with_regional_dates_is_taken_as_it_is(self):
         self.drop("lab.csv", LAB_EXPORT, party="northlab")
         self.ingest()
@@ -147,9 +151,7 @@ class ContractorExports(IngestCase):
         self.assertIn("party.northlab.date_format", p.stderr)
 
 
-class ReceiptsContractorsUnderstand(IngestCase):
-    setUp = ContractorExports.setUp  # the same party, map and date format
-
+class ReceiptsContractorsUnderstand(NorthlabCase):
     def test_accepted_receipt_gives_the_date_range(self):
         self.drop("lab.csv", LAB_EXPORT, party="northlab")
         self.ingest()
