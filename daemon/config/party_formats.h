@@ -17,11 +17,11 @@
 
 namespace ferrum::config {
 
-// Fills party.columns, date_format, date_order and decimal. Throws ConfigError.
-void load_party_formats(const Poco::Util::AbstractConfiguration& ini, const std::filesystem::path& columns_dir,
-                        Party& party);
+// The formats of party `name`. Throws ConfigError.
+PartyFormats load_party_formats(const Poco::Util::AbstractConfiguration& ini, const std::filesystem::path& columns_dir,
+                                const std::string& name);
 
-// True when both parties read files the same way (map, date format, decimal).
-bool same_formats(const Party& a, const Party& b);
+// True when both read files the same way (map, date format, decimal).
+bool same_formats(const PartyFormats& a, const PartyFormats& b);
 
 }  // namespace ferrum::config

@@ -275,7 +275,7 @@ void load_party(const Poco::Util::AbstractConfiguration& ini, const std::string&
   }
   if (p.kinds.empty()) throw ConfigError("party." + name + ".kinds: list at least one file kind");
   for (const auto& s : split_list(ini.getString("party." + name + ".sites", "*"))) p.sites.insert(s);
-  load_party_formats(ini, std::filesystem::path(path).parent_path() / "columns", p);
+  c.party_formats[name] = load_party_formats(ini, std::filesystem::path(path).parent_path() / "columns", name);
   c.parties[name] = std::move(p);
 }
 
@@ -400,7 +400,8 @@ std::vector<std::string> describe_changes(const SiteConfig& a, const SiteConfig&
     auto it = a.parties.find(name);
     if (it == a.parties.end()) out.push_back("party " + name + " added");
     else if (it->second.kinds != p.kinds || it->second.sites != p.sites) out.push_back("party " + name + " changed");
-    else if (!same_formats(it->second, p)) out.push_back("party " + name + " column map or formats changed");
+    else if (!same_formats(a.formats_of(name), b.formats_of(name)))
+      out.push_back("party " + name + " column map or formats changed");
   }
   for (const auto& [name, p] : a.parties)
     if (!b.parties.count(name)) out.push_back("party " + name + " removed");

@@ -142,12 +142,13 @@ void run_rows(RecordSource& reader, Parser& parser, ImportResult& r, const std::
 namespace {
 
 // What of the party's own conventions was applied, for the receipt.
-std::string describe_formats(const config::Party& p, std::span<const std::string> header) {
+std::string describe_formats(const config::Party& party, const config::PartyFormats& p,
+                             std::span<const std::string> header) {
   int renamed = 0;
   for (const auto& name : header) renamed += !p.columns.ferrum_name(name).empty();
   std::string out;
   if (renamed > 0)
-    out = "your column map (columns/" + p.name + ".csv) named " + std::to_string(renamed) + " of your columns";
+    out = "your column map (columns/" + party.name + ".csv) named " + std::to_string(renamed) + " of your columns";
   if (p.date_order != DateOrder::iso)
     out += (out.empty() ? "" : "; ") + std::string("dates read as ") + p.date_format + " (ISO 8601 also accepted)";
   if (p.decimal != DecimalMark::automatic)
@@ -184,8 +185,9 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
   if (!reader.read_header(r.problems)) return;
   r.declared_delimiter = reader.declared_delimiter();
   r.source_note = describe_source(reader);
-  static const HeaderMap kNoMap;
-  const KindDetection kind = detect_kind(reader.header(), s.party ? s.party->columns : kNoMap);
+  static const config::PartyFormats kNone;
+  const config::PartyFormats& formats = s.party && s.config ? s.config->formats_of(s.party->name) : kNone;
+  const KindDetection kind = detect_kind(reader.header(), formats.columns);
   if (!kind.recognised) {
     std::string reason = kind.reason;
     if (s.party && reason.starts_with("the header matches no kind of file")) {
@@ -195,7 +197,7 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
         if (s.party->may_deliver(to_string(k))) kinds.push_back(k);
       const auto open = reason.find(" (closest: "), close = reason.find(')', open);
       const std::string closest = open == std::string::npos ? "" : reason.substr(open + 1, close - open);
-      reason = describe_unmatched_header(reader.header(), s.party->columns, kinds, s.party->name, closest);
+      reason = describe_unmatched_header(reader.header(), formats.columns, kinds, s.party->name, closest);
     }
     r.problems.add(reader.header_line(), kind.reason_column >= 0 ? reader.header()[kind.reason_column] : "",
                    kind.reason_column + 1, "", reason);
@@ -207,7 +209,7 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
                     " files (ferrum.ini [party." + s.party->name + "] kinds)";
     return;
   }
-  if (s.party) r.format_note = describe_formats(*s.party, reader.header());
+  if (s.party) r.format_note = describe_formats(*s.party, formats, reader.header());
   for (int c : kind.unknown_columns)
     r.warnings.add(reader.header_line(), reader.header()[c], "unknown column, ignored");
   if (s.file_id)
@@ -221,8 +223,8 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
   if (s.units_must_exist) po.lookup_unit = [&units](std::string_view id) { return units.find(id); };
   if (s.config)
     for (const auto& item : s.config->extra_inspection_items) po.inspection_items.push_back(item);
-  po.date_order = s.party ? s.party->date_order : DateOrder::iso;
-  const bool comma = uses_decimal_comma(s.party ? s.party->decimal : DecimalMark::automatic, reader.decimal_comma());
+  po.date_order = formats.date_order;
+  const bool comma = uses_decimal_comma(formats.decimal, reader.decimal_comma());
 
   switch (kind.kind) {
     case FileKind::units_register: {
