@@ -1,6 +1,8 @@
 #include "daemon/ingest/open_source.h"
 
+#include <algorithm>
 #include <array>
+#include <cctype>
 #include <cstring>
 
 #include "daemon/ingest/file_kinds.h"
@@ -45,6 +47,18 @@ std::unique_ptr<RecordSource> open_record_source(std::istream& in, const SourceO
   }
   if (n >= 4 && head[0] == 'P' && head[1] == 'K' && (head[2] == 3 || head[2] == 5) && (head[3] == 4 || head[3] == 6)) {
     return std::make_unique<WorkbookReader>(in, options.workbook);
+  }
+  std::string ext = options.file_name.substr(std::min(options.file_name.size(), options.file_name.rfind('.')));
+  for (char& c : ext) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+  if (ext == ".xlsx" || ext == ".xlsm") {
+    return std::make_unique<RefusedSource>(
+        "the file is named " + ext + " but is not a workbook (its content is not the ZIP container an .xlsx "
+        "is stored in): open it in its spreadsheet program and save it again as .xlsx, or as CSV");
+  }
+  if (ext == ".xls") {
+    return std::make_unique<RefusedSource>(
+        "the file is named .xls but is not a spreadsheet workbook (often a web page or text saved under that "
+        "name): save it as .xlsx or as CSV");
   }
   return std::make_unique<CsvReader>(in, options.csv);
 }

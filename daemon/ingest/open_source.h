@@ -17,6 +17,10 @@ namespace ferrum::ingest {
 struct SourceOptions {
   CsvOptions csv;
   WorkbookOptions workbook;
+  // The dropped file's name, only to explain a refusal: a file named .xlsx
+  // or .xls whose content is no workbook is refused instead of being read
+  // as text. "" when unknown.
+  std::string file_name;
 };
 
 // REQUIRES: `in` is seekable (a file or a string stream) and outlives the source.

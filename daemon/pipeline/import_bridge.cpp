@@ -163,6 +163,7 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
 ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Store& store) {
   ImportResult r;
   SourceOptions options;
+  options.file_name = s.file_name;
   // A workbook's sheet named after a kind the party delivers is preferred.
   if (s.party) options.workbook.preferred_sheets.assign(s.party->kinds.begin(), s.party->kinds.end());
   else options.workbook.preferred_sheets = kind_sheet_names();

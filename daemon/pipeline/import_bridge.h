@@ -23,6 +23,7 @@ struct ImportSettings {
   std::int64_t now = 0;                    // UTC seconds, for "date in the future"
   std::int64_t file_id = 0;                // provenance of every row
   bool units_must_exist = true;            // false: `ferrum check` without a site database
+  std::string file_name;                   // as dropped, to explain a misnamed workbook
   // Set by the daemon's stop request: the import stops between rows by
   // throwing ImportCancelled, the caller rolls back and the file stays in
   // work/ to be imported whole at the next start.

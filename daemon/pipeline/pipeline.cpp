@@ -329,6 +329,7 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
   settings.config = &config_;
   settings.now = now;
   settings.cancel = cancel_;
+  settings.file_name = name;
   ImportResult result;
   store_.begin();
   try {
@@ -583,6 +584,7 @@ Receipt Pipeline::check(const fs::path& file, const std::string& party) {
   settings.config = &config_;
   settings.now = clock_();
   settings.units_must_exist = units_must_exist_;
+  settings.file_name = r.file;
   // The same import as a real drop, in a transaction that is always rolled
   // back: the answer is exactly the receipt the file would get.
   ImportResult result;

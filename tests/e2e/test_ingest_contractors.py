@@ -119,6 +119,13 @@ class ContractorExports(NorthlabCase):
         self.ingest(expect=4)
         self.assert_problem(self.receipt("old.xls", party="northlab"), 1, "save it as .xlsx")
 
+    def test_misnamed_workbooks_are_refused_with_a_plain_reason(self):
+        self.drop("export.xlsx", LAB_EXPORT, party="northlab")
+        self.drop("report.xls", "<html><table><tr><td>T1</td></tr></table></html>\n", party="northlab")
+        self.ingest(expect=4)
+        self.assert_problem(self.receipt("export.xlsx", party="northlab"), 1, "named .xlsx but is not a workbook")
+        self.assert_problem(self.receipt("report.xls", party="northlab"), 1, "save it as .xlsx or as CSV")
+
     def test_check_with_party_applies_its_map_and_formats(self):
         path = os.path.join(self.root, "precheck.csv")
         with open(path, "w") as f:
