@@ -1,5 +1,7 @@
 #include "daemon/config/site_config.h"
 
+#include "daemon/config/party_formats.h"
+
 #include <Poco/AutoPtr.h>
 #include <Poco/Exception.h>
 #include <Poco/String.h>
@@ -8,6 +10,7 @@
 
 #include <algorithm>
 #include <cctype>
+#include <filesystem>
 #include <fstream>
 #include <functional>
 #include <sstream>
@@ -255,7 +258,8 @@ void check_syntax(const std::string& path) {
   }
 }
 
-void load_party(const Poco::Util::AbstractConfiguration& ini, const std::string& name, SiteConfig& c) {
+void load_party(const Poco::Util::AbstractConfiguration& ini, const std::string& name, SiteConfig& c,
+                const std::string& path) {
   if (name.empty() || name.find_first_of("/\\.") != std::string::npos || name == "receipts")
     throw ConfigError("party." + name + ": a party name must be a plain folder name");
   Party p;
@@ -263,7 +267,8 @@ void load_party(const Poco::Util::AbstractConfiguration& ini, const std::string&
   Poco::Util::AbstractConfiguration::Keys ks;
   ini.keys("party." + name, ks);
   for (const auto& k : ks)
-    if (k != "kinds" && k != "sites") throw ConfigError("party." + name + "." + k + ": unknown key (kinds, sites)");
+    if (k != "kinds" && k != "sites" && k != "date_format" && k != "decimal")
+      throw ConfigError("party." + name + "." + k + ": unknown key (kinds, sites, date_format, decimal)");
   for (const auto& kind : split_list(ini.getString("party." + name + ".kinds", ""))) {
     const auto& all = file_kind_names();
     if (kind == "*") {
@@ -276,6 +281,7 @@ void load_party(const Poco::Util::AbstractConfiguration& ini, const std::string&
   }
   if (p.kinds.empty()) throw ConfigError("party." + name + ".kinds: list at least one file kind");
   for (const auto& s : split_list(ini.getString("party." + name + ".sites", "*"))) p.sites.insert(s);
+  c.party_formats[name] = load_party_formats(ini, std::filesystem::path(path).parent_path() / "columns", name);
   c.parties[name] = std::move(p);
 }
 
@@ -321,7 +327,7 @@ SiteConfig load_site_config(const std::string& path) {
     if (s == "party") {
       Poco::Util::AbstractConfiguration::Keys names;
       ini->keys("party", names);
-      for (const auto& n : names) load_party(*ini, n, c);
+      for (const auto& n : names) load_party(*ini, n, c, path);
       continue;
     }
     Poco::Util::AbstractConfiguration::Keys ks;
@@ -362,6 +368,9 @@ std::string default_site_config_text() {
   o << "\n; Parties: one section per party, named after its folder under drop/.\n"
        "; kinds: file kinds it may deliver (units_register, oil_lab, infrared, load_series,\n"
        ";        inspection, or * for all); sites: sites it serves (* for all).\n"
+       "; Optional: date_format (YYYY-MM-DD, DD/MM/YYYY, MM/DD/YYYY or DD.MM.YYYY, then\n"
+       ";        optionally HH:MM[:SS]), decimal (point, comma or auto); the party's own\n"
+       ";        column names are mapped in ROOT/columns/NAME.csv (their_column,ferrum_column).\n"
        "[party.planning]\n"
        "kinds = *\n"
        "sites = *\n";
@@ -397,6 +406,8 @@ std::vector<std::string> describe_changes(const SiteConfig& a, const SiteConfig&
     auto it = a.parties.find(name);
     if (it == a.parties.end()) out.push_back("party " + name + " added");
     else if (it->second.kinds != p.kinds || it->second.sites != p.sites) out.push_back("party " + name + " changed");
+    else if (!same_formats(a.formats_of(name), b.formats_of(name)))
+      out.push_back("party " + name + " column map or formats changed");
   }
   for (const auto& [name, p] : a.parties)
     if (!b.parties.count(name)) out.push_back("party " + name + " removed");

@@ -14,6 +14,9 @@
 #include <string>
 #include <vector>
 
+#include "daemon/ingest/field_parsers.h"
+#include "daemon/ingest/header_map.h"
+
 namespace ferrum::config {
 
 // A configuration that cannot be used; the message names the key and why.
@@ -33,6 +36,15 @@ struct Party {
     for (char& c : lower) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
     return sites.count("*") > 0 || sites.count(lower) > 0;
   }
+};
+
+// How a party's own exports are written (party_formats.h): its column map
+// ROOT/columns/NAME.csv, and date_format and decimal in [party.NAME].
+struct PartyFormats {
+  ingest::HeaderMap columns;
+  std::string date_format = "YYYY-MM-DD";  // as configured
+  ingest::DateOrder date_order = ingest::DateOrder::iso;
+  ingest::DecimalMark decimal = ingest::DecimalMark::automatic;
 };
 
 struct SiteConfig {
@@ -64,9 +76,17 @@ struct SiteConfig {
   // [party.*]
   std::map<std::string, Party> parties;
 
+  // party name -> its formats (the defaults when it has none)
+  std::map<std::string, PartyFormats> party_formats;
+
   const Party* party(const std::string& name) const {
     auto it = parties.find(name);
     return it == parties.end() ? nullptr : &it->second;
+  }
+  const PartyFormats& formats_of(const std::string& party) const {
+    static const PartyFormats kDefaults;
+    auto it = party_formats.find(party);
+    return it == party_formats.end() ? kDefaults : it->second;
   }
 };
 

@@ -9,9 +9,9 @@ namespace {
 // Reads every record, parses it with `parser` into `row` and hands good rows
 // to `deliver`.
 template <class Parser, class Row, class Deliver>
-void run_rows(CsvReader& reader, const KindDetection& detection, const CheckOptions& options,
+void run_rows(RecordSource& reader, const KindDetection& detection, const CheckOptions& options,
               CheckSummary& summary, Deliver deliver) {
-  Parser parser(detection.columns, options.parse, reader.decimal_comma(), summary.problems,
+  Parser parser(detection.columns, options.parse, summary.decimal_comma, summary.problems,
                 summary.warnings);
   Row row;
   for (;;) {
@@ -32,7 +32,7 @@ void run_rows(CsvReader& reader, const KindDetection& detection, const CheckOpti
   parser.finish();
 }
 
-void note_unknown_columns(const CsvReader& reader, const KindDetection& d, CheckSummary& summary) {
+void note_unknown_columns(const RecordSource& reader, const KindDetection& d, CheckSummary& summary) {
   for (int i : d.unknown_columns) {
     const std::string& name = reader.header()[i];
     summary.warnings.add(reader.header_line(), name,
@@ -41,7 +41,7 @@ void note_unknown_columns(const CsvReader& reader, const KindDetection& d, Check
   }
 }
 
-void run_kind(CsvReader& reader, const KindDetection& d, const CheckOptions& options,
+void run_kind(RecordSource& reader, const KindDetection& d, const CheckOptions& options,
               CheckSummary& summary, RowSink& sink) {
   switch (d.kind) {
     case FileKind::units_register:
@@ -98,25 +98,26 @@ std::vector<ConversionNote> stored_conversions(const KindDetection& d) {
   return notes;
 }
 
-CheckSummary check_stream(std::istream& in, const CheckOptions& options, RowSink& sink) {
-  CheckSummary summary(options.max_problems_kept, options.max_distinct_warnings);
-  CsvReader reader(in, options.csv);
+namespace {
+
+void check_source(RecordSource& reader, const CheckOptions& options, RowSink& sink, CheckSummary& summary) {
   if (!reader.read_header(summary.problems)) {
     summary.rejection = summary.problems.kept().empty() ? "no usable header row"
                                                         : summary.problems.kept().front().reason;
-    return summary;
+    return;
   }
   summary.header_line = reader.header_line();
-  summary.delimiter = reader.delimiter();
-  summary.decimal_comma = reader.decimal_comma();
+  if (const auto* csv = dynamic_cast<const CsvReader*>(&reader)) summary.delimiter = csv->delimiter();
+  summary.decimal_comma = uses_decimal_comma(options.decimal, reader.decimal_comma());
+  summary.source_note = describe_source(reader);
 
-  const KindDetection detection = detect_kind(reader.header());
+  const KindDetection detection = detect_kind(reader.header(), options.columns);
   if (!detection.recognised) {
     summary.rejection = detection.reason;
     const int col = detection.reason_column;
     summary.problems.add(reader.header_line(), col >= 0 ? reader.header()[col] : std::string(),
                          col + 1, col >= 0 ? reader.header()[col] : std::string(), detection.reason);
-    return summary;
+    return;
   }
   summary.recognised = true;
   summary.kind = detection.kind;
@@ -124,9 +125,20 @@ CheckSummary check_stream(std::istream& in, const CheckOptions& options, RowSink
   note_unknown_columns(reader, detection, summary);
   if (!sink.begin(detection)) {
     summary.stopped_by_sink = true;
-    return summary;
+    return;
   }
   run_kind(reader, detection, options, summary, sink);
+}
+
+}  // namespace
+
+CheckSummary check_stream(std::istream& in, const CheckOptions& options, RowSink& sink) {
+  CheckSummary summary(options.max_problems_kept, options.max_distinct_warnings);
+  const std::unique_ptr<RecordSource> source = open_record_source(in, {options.csv, options.workbook});
+  RecordSource& reader = *source;
+  summary.problems.set_locator([&reader](std::int64_t line, int column) { return reader.locate(line, column); });
+  check_source(reader, options, sink, summary);
+  summary.problems.set_locator(nullptr);  // the source ends here
   return summary;
 }
 

@@ -1,5 +1,5 @@
-// The whole parse of one drop file: CSV reader -> kind detection -> row
-// parser, streaming good rows to a sink as they are read so the pipeline can
+// The whole parse of one drop file: record source (CSV or .xlsx workbook,
+// open_source.h) -> the party's column map -> kind detection -> row parser, streaming good rows to a sink as they are read so the pipeline can
 // insert them inside its transaction without holding the file in memory.
 //
 // The outcome is a CheckSummary: the kind, row counts, the first problems
@@ -18,6 +18,8 @@
 #include <vector>
 
 #include "daemon/ingest/csv_reader.h"
+#include "daemon/ingest/header_map.h"
+#include "daemon/ingest/open_source.h"
 #include "daemon/ingest/file_kinds.h"
 #include "daemon/ingest/problems.h"
 #include "daemon/ingest/row_parsers.h"
@@ -43,6 +45,9 @@ class RowSink {
 struct CheckOptions {
   ParseOptions parse;                     // now, site offset, unit lookup, limits
   CsvOptions csv;                         // record length limit, read size
+  WorkbookOptions workbook;               // preferred sheets, unpacked size limit
+  HeaderMap columns;                      // the party's column map; empty: ferrum's names only
+  DecimalMark decimal = DecimalMark::automatic;  // the party's decimal separator
   std::size_t max_problems_kept = 100;    // all are counted; this many are kept
   std::size_t max_distinct_warnings = 100;
 };
@@ -60,6 +65,7 @@ struct CheckSummary {
   std::int64_t header_line = 0;
   char delimiter = ',';
   bool decimal_comma = false;
+  std::string source_note;      // what was read when not a plain CSV (open_source.h, describe_source)
   std::int64_t rows_read = 0;   // data records, malformed ones included; blank lines not
   std::int64_t rows_good = 0;   // rows handed to the sink
   std::int64_t offset_assumed_rows = 0;  // load rows whose time had no UTC offset

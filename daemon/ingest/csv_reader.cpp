@@ -52,10 +52,6 @@ bool CsvReader::ByteSource::refill() {
 CsvReader::CsvReader(std::istream& in, CsvOptions options)
     : src_(in, std::max<std::size_t>(options.chunk_bytes, 16)), options_(options) {}
 
-std::string_view CsvReader::column_name(std::size_t index) const {
-  return index < header_.size() ? std::string_view(header_[index]) : std::string_view();
-}
-
 void CsvReader::fail(Scan& scan, std::string reason) {
   if (scan.failed) return;  // one problem per record: the first explains the rest
   scan.failed = true;

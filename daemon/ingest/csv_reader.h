@@ -34,6 +34,7 @@
 #include <vector>
 
 #include "daemon/ingest/problems.h"
+#include "daemon/ingest/record_source.h"
 
 namespace ferrum::ingest {
 
@@ -46,13 +47,7 @@ struct CsvOptions {
   std::size_t chunk_bytes = std::size_t{64} << 10;
 };
 
-enum class RecordStatus {
-  ok,         // fields() holds a well-formed record with as many fields as the header
-  malformed,  // one problem was logged for this record; fields() is empty
-  end,        // no more records
-};
-
-class CsvReader {
+class CsvReader : public RecordSource {
  public:
   explicit CsvReader(std::istream& in, CsvOptions options = {});
 
@@ -65,29 +60,28 @@ class CsvReader {
   // is no usable header: empty file, UTF-16, NUL bytes, invalid UTF-8,
   // unbalanced quotes, or a header longer than max_record_bytes.
   // REQUIRES: called once, before next().
-  bool read_header(ProblemLog& problems);
+  bool read_header(ProblemLog& problems) override;
 
   // Header names, trimmed of surrounding spaces, as written (case kept).
-  const std::vector<std::string>& header() const { return header_; }
-  std::int64_t header_line() const { return header_line_; }
+  const std::vector<std::string>& header() const override { return header_; }
+  std::int64_t header_line() const override { return header_line_; }
   char delimiter() const { return delimiter_; }
   // True when a "sep=X" line before the header named the delimiter.
   bool delimiter_declared() const { return declared_delimiter_ != 0; }
   // True for semicolon-delimited files, where numbers may use a decimal comma.
-  bool decimal_comma() const { return delimiter_ == ';'; }
+  bool decimal_comma() const override { return delimiter_ == ';'; }
+  char declared_delimiter() const override { return declared_delimiter_; }
 
   // Reads the next record. On `malformed` one problem was logged to
   // `problems` and the reader is positioned at the following record.
   // REQUIRES: read_header() returned true.
-  RecordStatus next(ProblemLog& problems);
+  RecordStatus next(ProblemLog& problems) override;
 
   // The fields of the last record read with `ok`, unquoted and unescaped but
   // not trimmed. Views are valid until the next call to next().
-  std::span<const std::string_view> fields() const { return views_; }
+  std::span<const std::string_view> fields() const override { return views_; }
   // 1-based physical line where the last record started.
-  std::int64_t record_line() const { return record_line_; }
-  // Header name of the 0-based column `index`, or "" past the header.
-  std::string_view column_name(std::size_t index) const;
+  std::int64_t record_line() const override { return record_line_; }
 
  private:
   // Bytes of the stream with a small push-back area in front (used to

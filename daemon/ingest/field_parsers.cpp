@@ -43,6 +43,7 @@ int read_digits(std::string_view s, std::size_t pos, std::size_t n) {
 }
 
 constexpr const char* kBadDate = "not a date: write dates as YYYY-MM-DD, e.g. 2026-03-14";
+constexpr const char* kNoSuchDate = "no such calendar date (check month and day)";
 
 // The date part of a date or timestamp: YYYY-MM-DD at the start of `s`.
 Parsed<Day> parse_date_prefix(std::string_view s) {
@@ -50,7 +51,7 @@ Parsed<Day> parse_date_prefix(std::string_view s) {
   const int y = read_digits(s, 0, 4), m = read_digits(s, 5, 2), d = read_digits(s, 8, 2);
   if (y < 0 || m < 0 || d < 0) return failure<Day>(kBadDate);
   if (!analytics::is_valid_date(y, m, d)) {
-    return failure<Day>("no such calendar date (check month and day)");
+    return failure<Day>(kNoSuchDate);
   }
   return success<Day>(analytics::days_from_civil(y, m, d));
 }
@@ -141,7 +142,8 @@ Parsed<double> parse_number(std::string_view text, bool decimal_comma) {
     if (c == '+' && i == 0) continue;  // from_chars takes no leading '+'
     if (c == ',') {
       if (!decimal_comma) {
-        return failure<double>("a comma is not a decimal separator in a comma-separated file: use a point");
+        return failure<double>("a comma is not a decimal separator in this file (comma-separated, or the party's decimal "
+            "is point): use a point");
       }
       ++commas;
       c = '.';
@@ -172,38 +174,154 @@ Parsed<std::int64_t> parse_integer(std::string_view text) {
   return success(v);
 }
 
-Parsed<Day> parse_date(std::string_view text) {
-  text = trim(text);
-  if (text.size() != 10) return failure<Day>(kBadDate);
-  return parse_date_prefix(text);
+namespace {
+
+constexpr const char* kBadRegionalDate[] = {
+    kBadDate,
+    "not a date: this party writes dates as DD/MM/YYYY (e.g. 14/03/2026); YYYY-MM-DD is also accepted",
+    "not a date: this party writes dates as MM/DD/YYYY (e.g. 03/14/2026); YYYY-MM-DD is also accepted",
+    "not a date: this party writes dates as DD.MM.YYYY (e.g. 14.03.2026); YYYY-MM-DD is also accepted",
+};
+
+constexpr const char* kBadRegionalTime[] = {
+    nullptr,
+    "not a timestamp: this party writes DD/MM/YYYY hh:mm[:ss] (e.g. 14/03/2026 06:15), optionally "
+    "followed by Z or +hh:mm; ISO 8601 (2026-03-14T06:15+01:00) is also accepted",
+    "not a timestamp: this party writes MM/DD/YYYY hh:mm[:ss] (e.g. 03/14/2026 06:15), optionally "
+    "followed by Z or +hh:mm; ISO 8601 (2026-03-14T06:15+01:00) is also accepted",
+    "not a timestamp: this party writes DD.MM.YYYY hh:mm[:ss] (e.g. 14.03.2026 06:15), optionally "
+    "followed by Z or +hh:mm; ISO 8601 (2026-03-14T06:15+01:00) is also accepted",
+};
+
+// One or two digits at s[pos]; advances pos. -1 when there is no digit.
+int read_one_or_two(std::string_view s, std::size_t& pos) {
+  if (pos >= s.size() || !is_digit(s[pos])) return -1;
+  int v = s[pos++] - '0';
+  if (pos < s.size() && is_digit(s[pos])) v = v * 10 + (s[pos++] - '0');
+  return v;
 }
 
-Parsed<TimeValue> parse_timestamp(std::string_view text, int site_utc_offset_min) {
-  constexpr const char* kBad =
-      "not a timestamp: write YYYY-MM-DDThh:mm[:ss] with optional Z or +hh:mm, e.g. "
-      "2026-03-14T06:15+01:00";
-  text = trim(text);
-  const Parsed<Day> day = parse_date_prefix(text);
-  if (!day.ok()) return failure<TimeValue>(day.error == kBadDate ? kBad : day.error);
-  if (text.size() < 16 || (text[10] != 'T' && text[10] != 't' && text[10] != ' ') ||
-      text[13] != ':') {
-    return failure<TimeValue>(kBad);
-  }
-  const int h = read_digits(text, 11, 2), mi = read_digits(text, 14, 2);
-  int s = 0;
-  std::size_t pos = 16;
-  if (pos < text.size() && text[pos] == ':') {
-    s = read_digits(text, pos + 1, 2);
+// A regional date (order != iso) at the start of `s`; `end` is set past it.
+Parsed<Day> parse_regional_prefix(std::string_view s, DateOrder order, std::size_t& end) {
+  const char* bad = kBadRegionalDate[static_cast<int>(order)];
+  const char sep = order == DateOrder::dmy_dot ? '.' : '/';
+  std::size_t pos = 0;
+  const int a = read_one_or_two(s, pos);
+  if (a < 0 || pos >= s.size() || s[pos++] != sep) return failure<Day>(bad);
+  const int b = read_one_or_two(s, pos);
+  if (b < 0 || pos >= s.size() || s[pos++] != sep) return failure<Day>(bad);
+  const int y = read_digits(s, pos, 4);
+  if (y < 0 || (pos + 4 < s.size() && is_digit(s[pos + 4]))) return failure<Day>(bad);
+  end = pos + 4;
+  const int d = order == DateOrder::mdy_slash ? b : a;
+  const int m = order == DateOrder::mdy_slash ? a : b;
+  if (!analytics::is_valid_date(y, m, d)) return failure<Day>(kNoSuchDate);
+  return success<Day>(analytics::days_from_civil(y, m, d));
+}
+
+// h:mm or hh:mm, optional :ss and a fraction (dropped), at s[pos]; advances
+// pos. False when the text is not a clock time.
+bool read_clock(std::string_view s, std::size_t& pos, int& h, int& mi, int& sec) {
+  h = read_one_or_two(s, pos);
+  if (h < 0 || pos >= s.size() || s[pos++] != ':') return false;
+  mi = read_digits(s, pos, 2);
+  if (mi < 0) return false;
+  pos += 2;
+  sec = 0;
+  if (pos < s.size() && s[pos] == ':') {
+    sec = read_digits(s, pos + 1, 2);
+    if (sec < 0) return false;
     pos += 3;
-    if (pos < text.size() && (text[pos] == '.' || text[pos] == ',')) {  // fraction: dropped
-      ++pos;
-      const std::size_t digits_start = pos;
-      while (pos < text.size() && is_digit(text[pos])) ++pos;
-      if (pos == digits_start) return failure<TimeValue>(kBad);
+    if (pos < s.size() && (s[pos] == '.' || s[pos] == ',')) {
+      const std::size_t start = ++pos;
+      while (pos < s.size() && is_digit(s[pos])) ++pos;
+      if (pos == start) return false;
     }
   }
-  if (h < 0 || mi < 0 || s < 0) return failure<TimeValue>(kBad);
-  if (h > 23 || mi > 59 || s > 59) return failure<TimeValue>("no such time of day (hh 00-23, mm and ss 00-59)");
+  return true;
+}
+
+constexpr const char* kNoSuchTime = "no such time of day (hh 00-23, mm and ss 00-59)";
+
+}  // namespace
+
+bool parse_date_format(std::string_view text, DateOrder& order, bool& with_time) {
+  std::string u;
+  for (char c : trim(text)) u += upper(c);
+  with_time = false;
+  for (std::string_view time : {" HH:MM:SS", " HH:MM"}) {
+    if (u.size() > time.size() && std::string_view(u).ends_with(time)) {
+      u.resize(u.size() - time.size());
+      with_time = true;
+      break;
+    }
+  }
+  for (DateOrder o : {DateOrder::iso, DateOrder::dmy_slash, DateOrder::mdy_slash, DateOrder::dmy_dot}) {
+    if (u == date_format_name(o)) {
+      order = o;
+      return true;
+    }
+  }
+  return false;
+}
+
+bool parse_decimal_mark(std::string_view text, DecimalMark& mark) {
+  text = trim(text);
+  if (iequals(text, "auto")) mark = DecimalMark::automatic;
+  else if (iequals(text, "point")) mark = DecimalMark::point;
+  else if (iequals(text, "comma")) mark = DecimalMark::comma;
+  else return false;
+  return true;
+}
+
+const char* date_format_name(DateOrder order) {
+  switch (order) {
+    case DateOrder::iso: return "YYYY-MM-DD";
+    case DateOrder::dmy_slash: return "DD/MM/YYYY";
+    case DateOrder::mdy_slash: return "MM/DD/YYYY";
+    case DateOrder::dmy_dot: return "DD.MM.YYYY";
+  }
+  return "YYYY-MM-DD";
+}
+
+Parsed<Day> parse_date(std::string_view text, DateOrder order) {
+  text = trim(text);
+  if (text.size() == 10 && text[4] == '-') return parse_date_prefix(text);
+  if (order == DateOrder::iso) return failure<Day>(kBadDate);
+  std::size_t end = 0;
+  const Parsed<Day> day = parse_regional_prefix(text, order, end);
+  if (!day.ok() || end == text.size()) return day;
+  // A time of day after the date: checked, then ignored by a date column.
+  std::size_t pos = end + 1;
+  int h = 0, mi = 0, sec = 0;
+  if ((text[end] != ' ' && text[end] != 'T') || !read_clock(text, pos, h, mi, sec) || pos != text.size()) {
+    return failure<Day>(kBadRegionalDate[static_cast<int>(order)]);
+  }
+  if (h > 23 || mi > 59 || sec > 59) return failure<Day>(kNoSuchTime);
+  return day;
+}
+
+Parsed<TimeValue> parse_timestamp(std::string_view text, int site_utc_offset_min, DateOrder order) {
+  constexpr const char* kBadIso =
+      "not a timestamp: write YYYY-MM-DDThh:mm[:ss] with optional Z or +hh:mm, e.g. "
+      "2026-03-14T06:15+01:00";
+  const char* kBad = order == DateOrder::iso ? kBadIso : kBadRegionalTime[static_cast<int>(order)];
+  text = trim(text);
+  const bool iso = text.size() >= 10 && text[4] == '-';
+  std::size_t end = 10;
+  const Parsed<Day> day = iso || order == DateOrder::iso ? parse_date_prefix(text)
+                                                         : parse_regional_prefix(text, order, end);
+  if (!day.ok()) return failure<TimeValue>(day.error == kNoSuchDate ? day.error : kBad);
+  if (text.size() <= end + 1 || (text[end] != 'T' && text[end] != 't' && text[end] != ' ')) {
+    return failure<TimeValue>(kBad);
+  }
+  std::size_t pos = end + 1;
+  int h = 0, mi = 0, s = 0;
+  // ISO 8601 wants two-digit hours; a regional format takes 6:15 too.
+  if ((iso && (text.size() < end + 3 || !is_digit(text[end + 2]))) || !read_clock(text, pos, h, mi, s)) {
+    return failure<TimeValue>(kBad);
+  }
+  if (h > 23 || mi > 59 || s > 59) return failure<TimeValue>(kNoSuchTime);
   TimeValue out;
   std::string_view zone = trim(text.substr(pos));
   int offset = site_utc_offset_min;

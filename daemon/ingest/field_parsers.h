@@ -11,11 +11,15 @@
 //    with std::from_chars). In a decimal-comma file (semicolon-delimited)
 //    one ',' is the decimal separator; a '.' is also accepted there.
 //    Thousands separators, "inf" and "nan" are rejected.
-//  * dates: ISO 8601 calendar dates YYYY-MM-DD.
+//  * dates: ISO 8601 calendar dates YYYY-MM-DD, always; and, for a party
+//    whose date_format says so, DD/MM/YYYY, MM/DD/YYYY or DD.MM.YYYY (day
+//    and month of one or two digits, a four-digit year), optionally followed
+//    by a time of day, which a date column ignores.
 //  * timestamps: YYYY-MM-DD, 'T' or one space, hh:mm, optional :ss and
 //    fraction of a second (dropped), then optional 'Z' or an offset ±hh:mm,
 //    ±hhmm or ±hh. Without an offset the site's UTC offset is applied and
-//    the result says it was assumed.
+//    the result says it was assumed. With a party's date_format: its date,
+//    one space, h:mm or hh:mm, optional :ss, then the same optional offset.
 //  * lab values: empty = not measured; `<number` = below that detection
 //    limit; `ND` or `<ND` (any case) = below an unstated limit.
 #pragma once
@@ -51,7 +55,33 @@ Parsed<double> parse_number(std::string_view text, bool decimal_comma);
 // Whole numbers only ("3", not "3.0").
 Parsed<std::int64_t> parse_integer(std::string_view text);
 
-Parsed<analytics::Day> parse_date(std::string_view text);
+// The order of day, month and year a party writes dates in
+// ([party.NAME] date_format). ISO 8601 is accepted whatever the order.
+enum class DateOrder {
+  iso,        // YYYY-MM-DD (default)
+  dmy_slash,  // DD/MM/YYYY
+  mdy_slash,  // MM/DD/YYYY
+  dmy_dot,    // DD.MM.YYYY
+};
+
+// A date_format value ("DD/MM/YYYY", "DD/MM/YYYY HH:MM", "YYYY-MM-DD
+// HH:MM:SS", ...; case-insensitive); false when it is none of them.
+// `with_time` says whether the value named a time part.
+bool parse_date_format(std::string_view text, DateOrder& order, bool& with_time);
+// "YYYY-MM-DD", "DD/MM/YYYY", "MM/DD/YYYY", "DD.MM.YYYY".
+const char* date_format_name(DateOrder order);
+
+Parsed<analytics::Day> parse_date(std::string_view text, DateOrder order = DateOrder::iso);
+
+// The decimal separator a party writes ([party.NAME] decimal): `automatic`
+// follows the file (a comma in semicolon-separated files, else a point).
+enum class DecimalMark { automatic, point, comma };
+// "point", "comma" or "auto"; false for anything else.
+bool parse_decimal_mark(std::string_view text, DecimalMark& mark);
+// Whether numbers are read with a decimal comma, given the file's own convention.
+inline bool uses_decimal_comma(DecimalMark mark, bool file_convention) {
+  return mark == DecimalMark::automatic ? file_convention : mark == DecimalMark::comma;
+}
 
 struct TimeValue {
   analytics::Timestamp utc = 0;   // UTC seconds
@@ -60,7 +90,8 @@ struct TimeValue {
 
 // `site_utc_offset_min`: minutes east of UTC used when the text has no offset
 // (e.g. +60 for UTC+01:00).
-Parsed<TimeValue> parse_timestamp(std::string_view text, int site_utc_offset_min);
+Parsed<TimeValue> parse_timestamp(std::string_view text, int site_utc_offset_min,
+                                  DateOrder order = DateOrder::iso);
 
 // Empty text gives LabValue::missing (not measured), never an error.
 Parsed<analytics::LabValue> parse_lab_value(std::string_view text, bool decimal_comma);

@@ -257,6 +257,32 @@ void ColumnMap::set(std::string_view name, ColumnBinding binding) {
 
 std::string normalise_column_name(std::string_view name) { return to_snake_case(trim(name)); }
 
+std::vector<FileKind> all_kinds() {
+  std::vector<FileKind> out;
+  for (const KindSpec& spec : kKinds) out.push_back(spec.kind);
+  return out;
+}
+
+bool is_known_column(std::string_view name) {
+  const std::string column = normalise_column_name(name);
+  for (const KindSpec& spec : kKinds) {
+    Conversion conversion;
+    std::string_view unit;
+    if (!column.empty() && match_field(spec, column, conversion, unit) != nullptr) return true;
+  }
+  return false;
+}
+
+std::string describe_required_columns(std::span<const FileKind> kinds) {
+  std::string out;
+  for (const KindSpec& spec : kKinds) {
+    if (std::find(kinds.begin(), kinds.end(), spec.kind) == kinds.end()) continue;
+    if (!out.empty()) out += "; ";
+    out += std::string(describe(spec.kind)) + " needs " + needs_of(spec);
+  }
+  return out;
+}
+
 std::string describe_required_columns() {
   std::string out;
   for (const KindSpec& spec : kKinds) {

@@ -80,6 +80,16 @@ KindDetection detect_kind(std::span<const std::string> header);
 
 // The rejection text listing the columns each kind needs.
 std::string describe_required_columns();
+// The same for the given kinds only (e.g. those a party delivers).
+std::string describe_required_columns(std::span<const FileKind> kinds);
+
+// Every kind, in the order of the kind table.
+std::vector<FileKind> all_kinds();
+
+// True when `name` (normalised) is a column of some kind, or one of its
+// alternative-unit columns (X_f, furan_2fal_ppm, load_kva): what a party's
+// column map may point to.
+bool is_known_column(std::string_view name);
 
 // Canonical form of a header name: trimmed, lower case, spaces and hyphens
 // as underscores.

@@ -94,7 +94,7 @@ bool LoadRowParser::parse(std::span<const std::string_view> fields, std::int64_t
   }
   TimeValue when;
   const std::string_view ts = cell(timestamp_);
-  const Parsed<TimeValue> t = parse_timestamp(ts, options_.site_utc_offset_min);
+  const Parsed<TimeValue> t = parse_timestamp(ts, options_.site_utc_offset_min, options_.date_order);
   if (ts.empty()) {
     report(timestamp_, "timestamp is missing");
   } else if (!t.ok()) {

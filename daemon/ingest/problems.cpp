@@ -46,7 +46,7 @@ void ProblemLog::add(std::int64_t line, std::string_view column, int column_numb
   ++count_;
   if (kept_.size() >= keep_) return;
   kept_.push_back(Problem{line, std::string(column), column_number, display_value(raw_value),
-                          std::move(reason)});
+                          std::move(reason), locator_ ? locator_(line, column_number) : std::string()});
 }
 
 void WarningLog::add(std::int64_t line, std::string_view column, std::string_view message,

@@ -28,6 +28,9 @@ struct Problem {
   int column_number = 0;    // 1-based; 0 for whole row / file
   std::string value;        // offending cell: at most 80 bytes, non-printable bytes escaped
   std::string reason;       // plain language, e.g. "hydrogen cannot be negative"
+  // Where it is in the file's own terms when line and column do not say it
+  // (a workbook: "row 7, cell C7"); "" for a CSV.
+  std::string location;
 };
 
 // Keeps the first `keep` problems and counts all of them.
@@ -49,9 +52,14 @@ class ProblemLog {
   // problem of a later row. The hook may log problems itself.
   void before_first_problem(std::function<void()> hook) { before_first_ = std::move(hook); }
 
+  // Fills Problem::location of every later problem from its line and
+  // column number (RecordSource::locate); nullptr removes it.
+  void set_locator(std::function<std::string(std::int64_t, int)> locator) { locator_ = std::move(locator); }
+
  private:
   std::size_t keep_;
   std::function<void()> before_first_;
+  std::function<std::string(std::int64_t, int)> locator_;
   std::vector<Problem> kept_;
   std::int64_t count_ = 0;
 };

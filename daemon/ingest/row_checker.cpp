@@ -147,7 +147,7 @@ std::optional<Day> RowChecker::date(const ColumnBinding& b, bool required) {
     if (required) report(b, b.header_name + " is missing");
     return std::nullopt;
   }
-  const Parsed<Day> p = parse_date(text);
+  const Parsed<Day> p = parse_date(text, options_.date_order);
   if (!p.ok()) {
     report(b, p.error);
     return std::nullopt;

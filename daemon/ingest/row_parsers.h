@@ -42,6 +42,7 @@
 #include <vector>
 
 #include "analytics/unit_data.h"
+#include "daemon/ingest/field_parsers.h"
 #include "daemon/ingest/file_kinds.h"
 #include "daemon/ingest/problems.h"
 
@@ -75,6 +76,8 @@ struct ParseOptions {
   analytics::Timestamp now = 0;
   // Minutes east of UTC used for times written without an offset (default 0).
   int site_utc_offset_min = 0;
+  // How the party writes dates and times besides ISO 8601 ([party.NAME] date_format).
+  DateOrder date_order = DateOrder::iso;
   // Unit id -> register entry. Empty (default): ids are not checked, and a
   // load in MVA or A cannot be converted to per unit (a problem per row).
   UnitLookup lookup_unit;
@@ -119,6 +122,9 @@ class RowChecker {
   RowChecker(const ColumnMap& columns, const ParseOptions& options, bool decimal_comma,
              ProblemLog& problems, WarningLog& warnings);
   virtual ~RowChecker() = default;
+
+  // 0-based column of unit_id in the file, -1 when it has none.
+  int unit_column() const { return columns_["unit_id"].index; }
 
  protected:
   // A closed or half-open range in the field's unit; `unit` for messages.

@@ -6,6 +6,7 @@
 #include "daemon/ingest/check_stream.h"
 #include "daemon/ingest/csv_reader.h"
 #include "daemon/ingest/file_kinds.h"
+#include "daemon/ingest/open_source.h"
 #include "daemon/ingest/row_parsers.h"
 
 namespace ferrum::ingest {
@@ -100,10 +101,17 @@ class LoadWriter {
   std::int64_t first_offset_line_ = 0, duplicate_line_ = 0;
 };
 
+void note_day(ImportResult& r, analytics::Day d) {
+  if (!r.first_day || d < *r.first_day) r.first_day = d;
+  if (!r.last_day || d > *r.last_day) r.last_day = d;
+}
+
 template <class Parser, class Row, class Store>
-void run_rows(CsvReader& reader, Parser& parser, ImportResult& r, const ImportSettings& settings,
+void run_rows(RecordSource& reader, Parser& parser, ImportResult& r, const ImportSettings& settings,
               Store&& store_row) {
   Row row;
+  std::string last_unit;
+  const int unit_index = parser.unit_column();
   for (std::uint64_t n = 1;; ++n) {
     if ((n & 4095) == 0) {
       if (settings.cancel && settings.cancel->load(std::memory_order_relaxed)) throw ImportCancelled();
@@ -119,6 +127,13 @@ void run_rows(CsvReader& reader, Parser& parser, ImportResult& r, const ImportSe
     if (is_empty_row(reader.fields())) {
       r.warnings.add(reader.record_line(), "", "row with only empty values ignored");
       continue;
+    }
+    if (unit_index >= 0 && static_cast<std::size_t>(unit_index) < reader.fields().size()) {
+      const std::string_view id = trim(reader.fields()[static_cast<std::size_t>(unit_index)]);
+      if (!id.empty() && id != last_unit) {  // rows come in runs of one unit
+        last_unit = id;
+        if (r.named_units.size() < ImportResult::kMaxNamedUnits) r.named_units.insert(last_unit);
+      }
     }
     if (!parser.parse(reader.fields(), reader.record_line(), row)) {
       ++r.rows;
@@ -137,23 +152,78 @@ void run_rows(CsvReader& reader, Parser& parser, ImportResult& r, const ImportSe
 
 }  // namespace
 
+namespace {
+
+// What of the party's own conventions was applied, for the receipt.
+std::string describe_formats(const config::Party& party, const config::PartyFormats& p,
+                             std::span<const std::string> header) {
+  int renamed = 0;
+  for (const auto& name : header) renamed += !p.columns.ferrum_name(name).empty();
+  std::string out;
+  if (renamed > 0)
+    out = "your column map (columns/" + party.name + ".csv) named " + std::to_string(renamed) + " of your columns";
+  if (p.date_order != DateOrder::iso)
+    out += (out.empty() ? "" : "; ") + std::string("dates read as ") + p.date_format + " (ISO 8601 also accepted)";
+  if (p.decimal != DecimalMark::automatic)
+    out += (out.empty() ? "" : "; ") + std::string("decimal ") + (p.decimal == DecimalMark::comma ? "comma" : "point");
+  return out;
+}
+
+void import_source(RecordSource& reader, const ImportSettings& s, store::Store& store, ImportResult& r);
+
+}  // namespace
+
 ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Store& store) {
   ImportResult r;
-  CsvReader reader(in);
-  if (!reader.read_header(r.problems)) return r;
-  if (reader.delimiter_declared()) r.declared_delimiter = reader.delimiter();
-  const KindDetection kind = detect_kind(reader.header());
+  SourceOptions options;
+  options.file_name = s.file_name;
+  // A workbook's sheet named after a kind the party delivers is preferred.
+  if (s.party) options.workbook.preferred_sheets.assign(s.party->kinds.begin(), s.party->kinds.end());
+  else options.workbook.preferred_sheets = kind_sheet_names();
+  const std::unique_ptr<RecordSource> source = open_record_source(in, options);
+  RecordSource& reader = *source;
+  r.problems.set_locator([&reader](std::int64_t line, int column) { return reader.locate(line, column); });
+  try {
+    import_source(reader, s, store, r);
+  } catch (...) {
+    r.problems.set_locator(nullptr);
+    throw;
+  }
+  r.problems.set_locator(nullptr);  // the source ends here
+  return r;
+}
+
+namespace {
+
+void import_source(RecordSource& reader, const ImportSettings& s, store::Store& store, ImportResult& r) {
+  if (!reader.read_header(r.problems)) return;
+  r.declared_delimiter = reader.declared_delimiter();
+  r.source_note = describe_source(reader);
+  static const config::PartyFormats kNone;
+  const config::PartyFormats& formats = s.party && s.config ? s.config->formats_of(s.party->name) : kNone;
+  const KindDetection kind = detect_kind(reader.header(), formats.columns);
   if (!kind.recognised) {
+    std::string reason = kind.reason;
+    if (s.party && reason.starts_with("the header matches no kind of file")) {
+      // Only the kinds this party delivers, what of its own header was recognised, and where to look.
+      std::vector<FileKind> kinds;
+      for (FileKind k : all_kinds())
+        if (s.party->may_deliver(to_string(k))) kinds.push_back(k);
+      const auto open = reason.find(" (closest: "), close = reason.find(')', open);
+      const std::string closest = open == std::string::npos ? "" : reason.substr(open + 1, close - open);
+      reason = describe_unmatched_header(reader.header(), formats.columns, kinds, s.party->name, closest);
+    }
     r.problems.add(reader.header_line(), kind.reason_column >= 0 ? reader.header()[kind.reason_column] : "",
-                   kind.reason_column + 1, "", kind.reason);
-    return r;
+                   kind.reason_column + 1, "", reason);
+    return;
   }
   r.kind = to_string(kind.kind);
   if (s.party && !s.party->may_deliver(r.kind)) {
     r.file_reason = "party '" + s.party->name + "' may not deliver " + describe(kind.kind) +
                     " files (ferrum.ini [party." + s.party->name + "] kinds)";
-    return r;
+    return;
   }
+  if (s.party) r.format_note = describe_formats(*s.party, formats, reader.header());
   for (int c : kind.unknown_columns)
     r.warnings.add(reader.header_line(), reader.header()[c], "unknown column, ignored");
   if (s.file_id)
@@ -167,7 +237,8 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
   if (s.units_must_exist) po.lookup_unit = [&units](std::string_view id) { return units.find(id); };
   if (s.config)
     for (const auto& item : s.config->extra_inspection_items) po.inspection_items.push_back(item);
-  const bool comma = reader.decimal_comma();
+  po.date_order = formats.date_order;
+  const bool comma = uses_decimal_comma(formats.decimal, reader.decimal_comma());
 
   switch (kind.kind) {
     case FileKind::units_register: {
@@ -186,6 +257,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;  // `ferrum check` away from a site
         store.add_oil_sample(row.unit_id, row.sample, s.file_id, static_cast<int>(row.line));
+        note_day(r, row.sample.date);
         r.units.insert(row.unit_id);
         return true;
       });
@@ -198,6 +270,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;
         store.add_infrared(row.unit_id, row.scan, s.file_id, static_cast<int>(row.line));
+        note_day(r, row.scan.date);
         r.units.insert(row.unit_id);
         return true;
       });
@@ -210,6 +283,7 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;
         store.add_inspection(row.unit_id, row.record, s.file_id, static_cast<int>(row.line));
+        note_day(r, row.record.date);
         r.units.insert(row.unit_id);
         if (row.record.rating == analytics::Rating::unsafe)
           r.unsafe_items.push_back(row.unit_id + ": " + row.record.item + " (" +
@@ -243,7 +317,10 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
           }
         }
         if (row.offset_assumed) writer.note_offset_assumed(row.line);
-        if (u) writer.add(row, s.file_id);
+        if (u) {
+          writer.add(row, s.file_id);
+          note_day(r, analytics::day_of(row.point.t));
+        }
         return true;
       });
       writer.finish();
@@ -252,7 +329,8 @@ ImportResult import_stream(std::istream& in, const ImportSettings& s, store::Sto
   }
   if (!r.problems.empty()) r.units.clear();
   if (r.rows == 0 && r.problems.empty()) r.file_reason = "the file has a header but no data rows";
-  return r;
 }
+
+}  // namespace
 
 }  // namespace ferrum::ingest

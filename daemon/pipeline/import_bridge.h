@@ -6,6 +6,7 @@
 #include <atomic>
 #include <functional>
 #include <istream>
+#include <optional>
 #include <stdexcept>
 #include <set>
 #include <string>
@@ -23,6 +24,7 @@ struct ImportSettings {
   std::int64_t now = 0;                    // UTC seconds, for "date in the future"
   std::int64_t file_id = 0;                // provenance of every row
   bool units_must_exist = true;            // false: `ferrum check` without a site database
+  std::string file_name;                   // as dropped, to explain a misnamed workbook
   // Set by the daemon's stop request: the import stops between rows by
   // throwing ImportCancelled, the caller rolls back and the file stays in
   // work/ to be imported whole at the next start.
@@ -42,9 +44,16 @@ struct ImportResult {
   ProblemLog problems{100};
   WarningLog warnings;
   std::set<std::string> units;   // units touched
+  // Units the file's rows name (good rows and rows with a problem), at most
+  // kMaxNamedUnits: whose results a rejected file holds up.
+  std::set<std::string> named_units;
+  static constexpr std::size_t kMaxNamedUnits = 200;
+  std::optional<std::int64_t> first_day, last_day;  // date range of the rows taken (days since 1970-01-01)
   std::vector<std::string> unsafe_items;
   bool offset_assumed = false;   // some times had no UTC offset
   char declared_delimiter = 0;   // from a "sep=X" first line, 0 when none
+  std::string source_note;       // the worksheet and date system of a workbook, "" for a CSV
+  std::string format_note;       // the party's column map and formats that were applied, "" when none
   std::string file_reason;       // whole-file reason (e.g. kind not allowed for the party)
 };
 

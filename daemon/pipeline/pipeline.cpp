@@ -104,6 +104,12 @@ void fill_receipt(Receipt& r, const ImportResult& result, const config::SiteConf
   else if (result.declared_delimiter)
     r.separator_note = std::string("values separated by '") + result.declared_delimiter +
                        "', as the file's sep= first line says";
+  r.source_note = result.source_note;
+  if (result.first_day) {
+    r.data_from = analytics::format_day(*result.first_day);
+    r.data_to = analytics::format_day(*result.last_day);
+  }
+  r.format_note = result.format_note;
   if (result.offset_assumed)
     r.utc_offset_note = "times without a UTC offset were taken as UTC" + config.utc_offset_text + " (site.utc_offset)";
 }
@@ -190,25 +196,62 @@ std::vector<fs::path> Pipeline::waiting_files() const {
                              : fs::last_write_time(f.path(), tec),
                          f.path());
     }
+    add_subfolder_files(e.path(), files);
     std::sort(files.begin(), files.end());
     for (auto& [t, p] : files) out.push_back(p);
   }
   return out;
 }
 
+void Pipeline::add_subfolder_files(const fs::path& party_dir,
+                                   std::vector<std::pair<fs::file_time_type, fs::path>>& out) {
+  std::error_code ec;
+  for (const auto& sub : fs::directory_iterator(party_dir, ec)) {
+    if (sub.symlink_status(ec).type() != fs::file_type::directory || is_ignored_name(sub.path().filename().string()))
+      continue;
+    for (auto it = fs::recursive_directory_iterator(sub.path(), ec); !ec && it != fs::recursive_directory_iterator();
+         it.increment(ec)) {
+      const std::string leaf = it->path().filename().string();
+      const bool folder = it->symlink_status(ec).type() == fs::file_type::directory;
+      if (is_ignored_name(leaf) || (folder && it.depth() + 2 > kMaxSubfolderDepth)) {
+        if (folder) it.disable_recursion_pending();
+        continue;
+      }
+      if (folder) continue;
+      std::error_code tec;
+      out.emplace_back(fs::last_write_time(it->path(), tec), it->path());
+    }
+  }
+}
+
 std::optional<FileOutcome> Pipeline::process(const fs::path& dropped) {
   const auto started = std::chrono::steady_clock::now();
-  const std::string name = dropped.filename().string();
+  std::string name = dropped.filename().string();
   if (is_ignored_name(name)) return std::nullopt;
   struct stat st {};
   if (::lstat(dropped.c_str(), &st) != 0) return std::nullopt;  // gone already
   if (S_ISDIR(st.st_mode)) return std::nullopt;                  // party folders, receipts/: never files
 
-  const fs::path parent = dropped.parent_path();
-  const bool in_drop_root = fs::equivalent(parent, root_.drop());
-  const std::string party = in_drop_root ? std::string() : parent.filename().string();
-  if (!in_drop_root && !fs::equivalent(parent.parent_path(), root_.drop()))
-    return std::nullopt;  // deeper folders (receipts/) are not drop folders
+  // Where it is: drop/NAME, drop/PARTY/NAME, or a sub-folder of a party
+  // folder (drop/PARTY/SUB/.../NAME: taken under the name SUB_..._NAME).
+  fs::path parent = dropped.parent_path();
+  std::vector<std::string> folders;
+  while (!fs::equivalent(parent, root_.drop())) {
+    const std::string folder = parent.filename().string();
+    if (folders.size() >= kMaxSubfolderDepth || parent == parent.parent_path() || is_ignored_name(folder))
+      return std::nullopt;  // receipts/, hidden folders, or not under drop/ at all
+    folders.insert(folders.begin(), folder);
+    parent = parent.parent_path();
+  }
+  const bool in_drop_root = folders.empty();
+  const std::string party = in_drop_root ? std::string() : folders.front();
+  std::string subfolder;
+  for (std::size_t i = 1; i < folders.size(); ++i) subfolder += folders[i] + "/";
+  if (!subfolder.empty()) {
+    std::string flat = subfolder;
+    std::replace(flat.begin(), flat.end(), '/', '_');
+    name = flat + name;
+  }
   std::optional<FileOutcome> out;
   if (const std::string reason = unread_refusal(st, party); !reason.empty()) {
     out = refuse(dropped, party, name, reason, true);
@@ -221,7 +264,7 @@ std::optional<FileOutcome> Pipeline::process(const fs::path& dropped) {
       claimed = work_dir / (name + "." + std::to_string(clock_()) + ".claim");
       if (!site::move_no_replace(dropped, claimed)) return std::nullopt;
     }
-    out = import_claimed(claimed, party, name, now_text());
+    out = import_claimed(claimed, party, name, now_text(), subfolder);
   }
   out->seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
   spdlog::info("file {}/{}: {} {} rows={} problems={} in {:.3f}s", party.empty() ? "drop" : party, loggable(name),
@@ -261,11 +304,12 @@ FileOutcome Pipeline::refuse(const fs::path& path, const std::string& party, con
 }
 
 FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string& party, const std::string& name,
-                                     const std::string& received_at) {
+                                     const std::string& received_at, const std::string& subfolder) {
   FileOutcome out;
   Receipt& r = out.receipt;
   r.file = name;
   r.party = party;
+  r.subfolder = subfolder;
   r.received_at = received_at;
   const FileStamp before = FileStamp::of(claimed);
   r.sha256 = sha256_of_file(claimed);
@@ -288,6 +332,7 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
   settings.config = &config_;
   settings.now = now;
   settings.cancel = cancel_;
+  settings.file_name = name;
   ImportResult result;
   store_.begin();
   try {
@@ -336,7 +381,9 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
   }
   if (r.status != "accepted") {
     r.status = "rejected";
-    r.units.clear();
+    r.units.assign(result.named_units.begin(), result.named_units.end());  // whose results are held up
+    r.data_from.clear();  // nothing was taken
+    r.data_to.clear();
     if (r.reason.empty() && r.problem_count == 0) r.reason = "the file has no usable content";
     r.stored_as = fs::relative(destination("rejected", name, r.sha256, now), root_.root).string();
     store_.add_file({0, r.sha256, party, name, r.kind, "rejected", r.rows, r.problem_count, received_at, r.stored_as,
@@ -549,6 +596,7 @@ Receipt Pipeline::check(const fs::path& file, const std::string& party) {
   settings.config = &config_;
   settings.now = clock_();
   settings.units_must_exist = units_must_exist_;
+  settings.file_name = r.file;
   // The same import as a real drop, in a transaction that is always rolled
   // back: the answer is exactly the receipt the file would get.
   ImportResult result;
@@ -566,6 +614,11 @@ Receipt Pipeline::check(const fs::path& file, const std::string& party) {
   fill_receipt(r, result, config_);
   r.units.assign(result.units.begin(), result.units.end());
   if (result.problems.empty() && result.file_reason.empty() && !result.kind.empty()) r.status = "accepted";
+  if (r.status == "rejected") {
+    r.units.assign(result.named_units.begin(), result.named_units.end());
+    r.data_from.clear();
+    r.data_to.clear();
+  }
   r.stored_as = "(check only: nothing stored)";
   return r;
 }

@@ -86,9 +86,19 @@ class Pipeline {
   // oldest first per party.
   std::vector<std::filesystem::path> waiting_files() const;
 
+  // Files in the sub-folders of a party folder (drop/PARTY/2026-10/lab.csv,
+  // as shared-drive habits go), at most kMaxSubfolderDepth folders deep;
+  // receipts/, ignored names and links to folders are not entered. They are
+  // taken like files in the party folder itself, under a name that keeps
+  // their sub-path ("2026-10_lab.csv"); the receipt says where they were.
+  static constexpr int kMaxSubfolderDepth = 4;
+  static void add_subfolder_files(const std::filesystem::path& party_dir,
+                                  std::vector<std::pair<std::filesystem::file_time_type, std::filesystem::path>>& out);
+
  private:
   FileOutcome import_claimed(const std::filesystem::path& claimed, const std::string& party,
-                             const std::string& name, const std::string& received_at);
+                             const std::string& name, const std::string& received_at,
+                             const std::string& subfolder = "");
   FileOutcome refuse(const std::filesystem::path& path, const std::string& party, const std::string& name,
                      const std::string& reason, bool unread);
   // Why a dropped file (lstat `st`; `party` empty directly in drop/) is

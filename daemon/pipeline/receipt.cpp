@@ -70,6 +70,7 @@ std::string Receipt::to_json() const {
     j->set("column_number", x.column_number);
     j->set("value", x.value);
     j->set("reason", x.reason);
+    if (!x.location.empty()) j->set("location", x.location);
     p->add(j);
   }
   o->set("problems", p);
@@ -77,6 +78,12 @@ std::string Receipt::to_json() const {
   Array::Ptr u = new Array;
   for (const auto& x : units) u->add(x);
   o->set("units", u);
+  if (!data_from.empty()) {
+    Object::Ptr d = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+    d->set("from", data_from);
+    d->set("to", data_to);
+    o->set("dates", d);
+  }
   if (!unsafe_items.empty()) {
     Array::Ptr s = new Array;
     for (const auto& x : unsafe_items) s->add(x);
@@ -90,6 +97,9 @@ std::string Receipt::to_json() const {
   }
   if (!utc_offset_note.empty()) o->set("time_note", utc_offset_note);
   if (!separator_note.empty()) o->set("separator_note", separator_note);
+  if (!source_note.empty()) o->set("source_note", source_note);
+  if (!subfolder.empty()) o->set("subfolder", json_text(subfolder));
+  if (!format_note.empty()) o->set("format_note", format_note);
   std::ostringstream out;
   Poco::JSON::Stringifier::stringify(o, out, 2);
   out << "\n";
@@ -117,11 +127,14 @@ Receipt Receipt::from_json(const std::string& json) {
   r.problem_count = o->optValue<long long>("problem_count", 0);
   r.utc_offset_note = str(o, "time_note");
   r.separator_note = str(o, "separator_note");
+  r.source_note = str(o, "source_note");
+  r.subfolder = str(o, "subfolder");
+  r.format_note = str(o, "format_note");
   if (auto a = o->getArray("problems")) {
     for (std::size_t i = 0; i < a->size(); ++i) {
       auto p = a->getObject(static_cast<unsigned>(i));
       r.problems.push_back({p->optValue<std::int64_t>("line", 0), str(p, "column"), p->optValue<int>("column_number", 0),
-                            str(p, "value"), str(p, "reason")});
+                            str(p, "value"), str(p, "reason"), str(p, "location")});
     }
   }
   if (auto a = o->getArray("warnings")) {
@@ -139,6 +152,10 @@ Receipt Receipt::from_json(const std::string& json) {
   if (auto a = o->getArray("unsafe_items_reported"))
     for (std::size_t i = 0; i < a->size(); ++i)
       r.unsafe_items.push_back(a->getElement<std::string>(static_cast<unsigned>(i)));
+  if (auto d = o->getObject("dates")) {
+    r.data_from = str(d, "from");
+    r.data_to = str(d, "to");
+  }
   if (auto d = o->getObject("already_imported")) {
     r.duplicate_of_received_at = str(d, "received_at");
     r.duplicate_of_stored_as = str(d, "stored_as");
@@ -171,12 +188,19 @@ std::string Receipt::to_text() const {
   o << "  site copy:   " << std::filesystem::path(stored_as).filename().string()
     << " (kept by the site; quote this name when asking about the file)\n";
   if (!units.empty()) {
-    o << "  units:       ";
+    // A rejected file's units: whose results wait until it is corrected.
+    o << (status == "rejected" ? "  units held:  " : "  units:       ");
     for (std::size_t i = 0; i < units.size(); ++i) o << (i ? ", " : "") << units[i];
-    o << "\n";
+    o << (status == "rejected" ? " (their results in this file are held up until it is corrected)\n" : "\n");
   }
+  if (!data_from.empty())
+    o << "  dates:       " << data_from << (data_to != data_from ? " to " + data_to : std::string()) << "\n";
   if (!utc_offset_note.empty()) o << "  times:       " << utc_offset_note << "\n";
   if (!separator_note.empty()) o << "  separator:   " << separator_note << "\n";
+  if (!subfolder.empty())
+    o << "  dropped in:  " << subfolder << " (a sub-folder of your folder; taken under the name " << file << ")\n";
+  if (!source_note.empty()) o << "  read from:   " << source_note << "\n";
+  if (!format_note.empty()) o << "  your format: " << format_note << "\n";
   if (!unsafe_items.empty()) {
     // Confirms to the inspector that the rating did not wait for a report.
     o << "\nRated UNSAFE, reported to the site's planners at once:\n";
@@ -185,8 +209,13 @@ std::string Receipt::to_text() const {
   if (!problems.empty()) {
     o << "\nProblems (line, column: reason [value]):\n";
     for (const auto& p : problems) {
-      o << "  line " << p.line;
-      if (!p.column.empty()) o << ", column " << p.column << " (" << p.column_number << ")";
+      if (!p.location.empty()) {
+        o << "  " << p.location;  // a workbook: row and cell
+        if (!p.column.empty()) o << " (" << p.column << ")";
+      } else {
+        o << "  line " << p.line;
+        if (!p.column.empty()) o << ", column " << p.column << " (" << p.column_number << ")";
+      }
       o << ": " << p.reason;
       if (!p.value.empty()) o << " [" << p.value << "]";
       o << "\n";

@@ -23,12 +23,16 @@ struct Receipt {
   std::vector<Problem> problems;    // first 100
   long long problem_count = 0;
   std::vector<Warning> warnings;
-  std::vector<std::string> units;   // units touched (accepted files)
+  std::vector<std::string> units;   // units touched (accepted); units the rows name, held up (rejected)
+  std::string data_from, data_to;   // date range of the rows taken (YYYY-MM-DD), "" when none
   std::vector<std::string> unsafe_items;  // "UNIT: item (date)" rated unsafe, reported to the site at once
   std::string duplicate_of_received_at;  // for duplicates: when the same content was imported
   std::string duplicate_of_stored_as;    // ... and as what
   std::string utc_offset_note;      // "times without an offset were taken as UTC+01:00"
   std::string separator_note;       // "values separated by ';' as the sep= first line says"
+  std::string subfolder;            // "2026-10/" when dropped in a sub-folder of the party folder
+  std::string source_note;          // "worksheet 'Results' of an .xlsx workbook; ..."
+  std::string format_note;          // the party's column map / date format / decimal that were applied
 
   std::string to_json() const;
   std::string to_text() const;

@@ -113,6 +113,9 @@ void DropWatcher::rescan() {
         std::error_code tec;
         found.emplace_back(fs::last_write_time(f.path(), tec), f.path());
       }
+      // Sub-folders are not watched (one watch per party folder): their
+      // files are found here, at each rescan.
+      ingest::Pipeline::add_subfolder_files(e.path(), found);
     } else {
       std::error_code tec;
       found.emplace_back(fs::last_write_time(e.path(), tec), e.path());

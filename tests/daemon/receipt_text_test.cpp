@@ -15,7 +15,7 @@ Receipt rejected_with(long long problem_count) {
   r.received_at = "2026-10-05T08:00:00Z";
   r.stored_as = "quarantine/northlab/lab.csv";
   for (long long i = 0; i < problem_count; ++i)
-    r.problems.push_back({2 + i, "h2_ppm", 3, "-1", "hydrogen cannot be negative"});
+    r.problems.push_back({2 + i, "h2_ppm", 3, "-1", "hydrogen cannot be negative", ""});
   r.problem_count = problem_count;
   r.warnings.push_back({"c2h2_ppm", "value below detection limit", 3, 1, {3}});
   return r;

@@ -1,8 +1,8 @@
 """The broken-file corpus (tests/corpus/broken, expected problems in
 expected.tsv) through `ferrum ingest` on a site whose register knows T1 and
 T2 (40 MVA, 132/33 kV, as tests/ingest/ingest_test_support.h assumes): every
-file is rejected, quarantined, and its receipt names the expected line,
-column and reason."""
+file (CSV or spreadsheet) is rejected, quarantined, and its receipt names
+the expected line (a workbook's row), column and reason."""
 import csv
 import os
 import shutil
@@ -24,7 +24,7 @@ def expected():
 class BrokenCorpus(IngestCase):
     def test_every_corpus_file_is_rejected_with_the_expected_problem(self):
         exp = expected()
-        files = sorted(n for n in os.listdir(CORPUS) if n.endswith(".csv"))
+        files = sorted(n for n in os.listdir(CORPUS) if n != "expected.tsv")
         self.assertEqual(sorted(exp), files, "expected.tsv and the corpus disagree")
         before = self.data_rows()
         folder = self.path("drop", "planning")
@@ -48,7 +48,9 @@ class BrokenCorpus(IngestCase):
                     self.assert_problem(r, line, reason, column=column)
                 self.assertEqual(r["problem_count"], len(exp[name]), r["problems"])
                 with open(os.path.join(folder, "receipts", name + ".txt")) as f:
-                    self.assertIn(f"line {exp[name][0][0]}", f.read())
+                    # A workbook's problems are located by row (and cell).
+                    where = "row" if r["problems"][0].get("location") else "line"
+                    self.assertIn(f"{where} {exp[name][0][0]}", f.read())
 
 
 if __name__ == "__main__":
