@@ -63,7 +63,34 @@ std::vector<std::string> split_list(const std::string& text) {
 }
 
 const char* const kWeekdays[] = {"monday", "tuesday", "wednesday", "thursday", "friday", "saturday", "sunday"};
-const char* const kHealthFactors[] = {"dga", "oil_quality", "paper", "thermal", "infrared", "inspection", "age"};
+const char* const kHealthFactors[] = {"dga", "oil_quality", "paper", "thermal", "infrared", "inspection", "age",
+                                      // electrical field tests (analytics/data/health_index_electrical.csv)
+                                      "insulation_power_factor", "turns_ratio", "leakage_reactance",
+                                      "winding_resistance", "bushings", "insulation_resistance"};
+
+// [electrical]: the electrical field tests (issue 18).
+void add_electrical_keys(std::vector<Key>& k) {
+  k.push_back({"electrical", "reference_c", Type::number, "75", true,
+               "Reference temperature of the winding-resistance correction, degC (IEEE C57.12.90 form).",
+               [](SiteConfig& c, const std::string& v) { c.electrical_reference_c = parse_number("electrical.reference_c", v, 0, 200); }});
+  k.push_back({"electrical", "pf_correction", Type::list, "", true,
+               "Insulation power-factor correction factors K (PF20 = PF x K) by test temperature,\n"
+               "as temp:K pairs, e.g. 10:1.25, 20:1.0, 30:0.8, from a table the site trusts (ferrum\n"
+               "ships no verified table). Empty: readings are judged only when tested at 20 degC.",
+               [](SiteConfig& c, const std::string& v) {
+                 c.pf_correction.clear();
+                 for (const auto& part : split_list(v)) {
+                   const auto colon = part.find(':');
+                   if (colon == std::string::npos)
+                     throw ConfigError("electrical.pf_correction: '" + part + "' must be temp:K");
+                   const double t = parse_number("electrical.pf_correction", Poco::trim(part.substr(0, colon)), -40, 120);
+                   const double f = parse_number("electrical.pf_correction", Poco::trim(part.substr(colon + 1)), 0.01, 100);
+                   if (!c.pf_correction.empty() && !(t > c.pf_correction.back().first))
+                     throw ConfigError("electrical.pf_correction: temperatures must be increasing");
+                   c.pf_correction.emplace_back(t, f);
+                 }
+               }});
+}
 
 std::vector<Key> make_keys() {
   std::vector<Key> k;
@@ -213,6 +240,7 @@ std::vector<Key> make_keys() {
                    throw ConfigError("log.level: '" + v + "' is not a log level");
                  c.log_level = l;
                }});
+  add_electrical_keys(k);
   k.push_back({"log", "file_mb", Type::integer, "10", false, "Size of one log file before it rotates.",
                [](SiteConfig& c, const std::string& v) { c.log_file_mb = static_cast<int>(parse_int("log.file_mb", v, 1, 1024)); }});
   k.push_back({"log", "files", Type::integer, "5", false, "Rotated log files kept.",
@@ -276,7 +304,8 @@ void load_party(const Poco::Util::AbstractConfiguration& ini, const std::string&
 }  // namespace
 
 const std::vector<std::string>& file_kind_names() {
-  static const std::vector<std::string> k = {"units_register", "oil_lab", "infrared", "load_series", "inspection"};
+  static const std::vector<std::string> k = {"units_register", "oil_lab",    "infrared",
+                                             "load_series",    "inspection", "electrical_tests"};
   return k;
 }
 
@@ -355,7 +384,7 @@ std::string default_site_config_text() {
   }
   o << "\n; Parties: one section per party, named after its folder under drop/.\n"
        "; kinds: file kinds it may deliver (units_register, oil_lab, infrared, load_series,\n"
-       ";        inspection, or * for all); sites: sites it serves (* for all).\n"
+       ";        inspection, electrical_tests, or * for all); sites: sites it serves (* for all).\n"
        "[party.planning]\n"
        "kinds = *\n"
        "sites = *\n";

@@ -1,0 +1,34 @@
+// Names of the electrical field tests (analytics/unit_data.h), as written in
+// the `test` column of an electrical tests file and in the JSON.
+#include <array>
+#include <utility>
+
+#include "analytics/unit_data.h"
+
+namespace ferrum::analytics {
+
+namespace {
+constexpr std::array<std::pair<ElectricalTestKind, const char*>, 7> kNames = {{
+    {ElectricalTestKind::turns_ratio, "turns_ratio"},
+    {ElectricalTestKind::winding_resistance, "winding_resistance"},
+    {ElectricalTestKind::insulation_power_factor, "insulation_power_factor"},
+    {ElectricalTestKind::bushing_power_factor, "bushing_power_factor"},
+    {ElectricalTestKind::insulation_resistance, "insulation_resistance"},
+    {ElectricalTestKind::excitation_current, "excitation_current"},
+    {ElectricalTestKind::leakage_reactance, "leakage_reactance"},
+}};
+}  // namespace
+
+const char* to_string(ElectricalTestKind k) {
+  for (const auto& [kind, name] : kNames)
+    if (kind == k) return name;
+  return "?";
+}
+
+std::optional<ElectricalTestKind> electrical_test_from(const std::string& name) {
+  for (const auto& [kind, name_of] : kNames)
+    if (name == name_of) return kind;
+  return std::nullopt;
+}
+
+}  // namespace ferrum::analytics
