@@ -17,6 +17,10 @@ struct Caution {
   std::string text;
 };
 
+// Cautions of the electrical field tests, printed with their section of the
+// unit report (the general block above is printed as well).
+const std::vector<Caution>& electrical_test_cautions();
+
 // Heading of the block; contains the word "SAFETY".
 const std::string& safety_heading();
 const std::vector<Caution>& safety_cautions();
