@@ -54,11 +54,12 @@ std::span<const std::string_view> value_columns_of(ElectricalTestKind k) {
   return {};
 }
 
-std::string join(std::span<const std::string_view> names, std::string_view sep) {
+// "a", "a or b", "a, b or c".
+std::string join_or(std::span<const std::string_view> names) {
   std::string out;
-  for (std::string_view n : names) {
-    if (!out.empty()) out += sep;
-    out += n;
+  for (std::size_t i = 0; i < names.size(); ++i) {
+    if (i) out += i + 1 == names.size() ? " or " : ", ";
+    out += names[i];
   }
   return out;
 }
@@ -131,7 +132,7 @@ void ElectricalRowParser::parse_values(analytics::ElectricalTest& t) {
     for (std::string_view w : wanted) allowed = allowed || w == v.name;
     if (!allowed) {
       report(b, std::string(v.name) + " is not a value of a " + test_name + " test (it takes " +
-                    join(wanted, " or ") + "): one test result per row, leave it empty");
+                    join_or(wanted) + "): one test result per row, leave it empty");
       continue;
     }
     got[i] = number(b, v.label, {v.min, v.max, v.unit, v.min_exclusive});
@@ -174,7 +175,7 @@ std::string ElectricalRowParser::code(std::string_view name, std::string_view la
   const std::vector<std::string_view> list(allowed);
   for (std::string_view a : allowed)
     if (text == a) return text;
-  report(b, std::string(label) + " must be " + join(list, ", "));
+  report(b, std::string(label) + " must be " + join_or(list));
   return {};
 }
 
