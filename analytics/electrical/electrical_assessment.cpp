@@ -58,7 +58,10 @@ void check_turns_ratio(const UnitData& d, ElectricalSummary& s) {
       r.nameplate = *t->nameplate_value;
       r.nameplate_basis = "nameplate_value of the row";
     } else if (!group) {
-      r.note = "no nameplate ratio: the register has no vector group (give vector_group or nameplate_value)";
+      r.note = u.vector_group.empty()
+                   ? "no nameplate ratio: the register has no vector group (give vector_group or nameplate_value)"
+                   : "no nameplate ratio for vector group " + u.vector_group +
+                         " (three-winding or not handled): give nameplate_value";
     } else if (u.hv_kv <= 0 || u.lv_kv <= 0) {
       r.note = "no nameplate ratio: hv_kv or lv_kv missing in the register";
     } else if (t->tap && !taps) {

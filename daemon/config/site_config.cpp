@@ -232,6 +232,7 @@ std::vector<Key> make_keys() {
                    c.ranking[name] = parse_number("ranking." + name, v, lo, hi);
                  }});
   }
+  add_electrical_keys(k);
   k.push_back({"log", "level", Type::text, "info", true, "trace, debug, info, warn, error.",
                [](SiteConfig& c, const std::string& v) {
                  const std::string l = Poco::toLower(v);
@@ -240,7 +241,6 @@ std::vector<Key> make_keys() {
                    throw ConfigError("log.level: '" + v + "' is not a log level");
                  c.log_level = l;
                }});
-  add_electrical_keys(k);
   k.push_back({"log", "file_mb", Type::integer, "10", false, "Size of one log file before it rotates.",
                [](SiteConfig& c, const std::string& v) { c.log_file_mb = static_cast<int>(parse_int("log.file_mb", v, 1, 1024)); }});
   k.push_back({"log", "files", Type::integer, "5", false, "Rotated log files kept.",
