@@ -75,8 +75,8 @@ void add_electrical_keys(std::vector<Key>& k) {
                [](SiteConfig& c, const std::string& v) { c.electrical_reference_c = parse_number("electrical.reference_c", v, 0, 200); }});
   k.push_back({"electrical", "pf_correction", Type::list, "", true,
                "Insulation power-factor correction factors K (PF20 = PF x K) by test temperature,\n"
-               "as temp:K pairs, e.g. 10:1.25, 20:1.0, 30:0.8, from a table the site trusts (ferrum\n"
-               "ships no verified table). Empty: readings are judged only when tested at 20 degC.",
+               "as temp:K pairs from a table the site trusts, e.g. 15:1.1, 20:1.0, 25:0.9 (illustrative\n"
+               "numbers, not a standard's table; ferrum ships none). Empty: only readings at 20 degC are judged.",
                [](SiteConfig& c, const std::string& v) {
                  c.pf_correction.clear();
                  for (const auto& part : split_list(v)) {
