@@ -333,17 +333,6 @@ void check_leakage_reactance(const UnitData& d, ElectricalSummary& s) {
 
 // ----------------------------------------------------------------- actions
 
-// The results of the newest date of a list.
-template <class R>
-std::vector<const R*> latest_of(const std::vector<R>& list) {
-  std::vector<const R*> out;
-  if (list.empty()) return out;
-  Day last = list.front().date;
-  for (const auto& r : list) last = std::max(last, r.date);
-  for (const auto& r : list)
-    if (r.date == last) out.push_back(&r);
-  return out;
-}
 
 void add_actions(const ElectricalSummary& s, UnitAssessment& a) {
   const Day today = a.as_of;

@@ -42,16 +42,6 @@ double cell_number(std::string_view cell, int line) {
   return v;
 }
 
-template <class R>
-std::vector<const R*> latest_of(const std::vector<R>& list) {
-  std::vector<const R*> out;
-  if (list.empty()) return out;
-  Day last = list.front().date;
-  for (const auto& r : list) last = std::max(last, r.date);
-  for (const auto& r : list)
-    if (r.date == last) out.push_back(&r);
-  return out;
-}
 
 // The worst measure of a factor and what gave it; nullopt without results.
 struct Measure {

@@ -123,4 +123,16 @@ struct ElectricalSummary {
   std::vector<std::string> notes;  // assumptions: conductor assumed copper, no PF table, ...
 };
 
+// The results of the newest date of one list (the latest test).
+template <class R>
+std::vector<const R*> latest_of(const std::vector<R>& list) {
+  std::vector<const R*> out;
+  if (list.empty()) return out;
+  Day last = list.front().date;
+  for (const auto& r : list) last = r.date > last ? r.date : last;
+  for (const auto& r : list)
+    if (r.date == last) out.push_back(&r);
+  return out;
+}
+
 }  // namespace ferrum::analytics
