@@ -11,6 +11,7 @@
 
 #include "analytics/action_plan.h"
 #include "analytics/assessment.h"
+#include "analytics/electrical/electrical_assessment.h"
 #include "analytics/health_index.h"
 #include "analytics/oil_assessment.h"
 #include "analytics/remaining_life.h"
@@ -22,12 +23,13 @@ namespace ferrum::analytics {
 struct AssessmentOptions {
   OilOptions oil;
   ThermalOptions thermal;
+  ElectricalOptions electrical;
   HealthIndexOptions health;
   RemainingLifeOptions life;
   ActionPlanOptions actions;  // with the decision's thresholds ([ranking] in ferrum.ini)
 };
 
-// Sets unit and as_of, then runs assess_oil, assess_thermal, score_health,
+// Sets unit and as_of, then runs assess_oil, assess_thermal, assess_electrical, score_health,
 // estimate_remaining_life and finalize_actions. Never throws on odd data: each
 // step records what it could not do in `missing` / `assumptions`.
 UnitAssessment assess_unit(const UnitData& data, Day as_of, const AssessmentOptions& options);

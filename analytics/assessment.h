@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "analytics/calendar.h"
+#include "analytics/electrical/electrical_results.h"
 #include "analytics/unit_data.h"
 
 namespace ferrum::analytics {
@@ -231,6 +232,7 @@ struct UnitAssessment {
   ThermalSummary thermal;
   std::vector<InfraredFinding> infrared;
   std::vector<InspectionFinding> inspection;
+  std::optional<ElectricalSummary> electrical;  // null when the unit has no electrical tests
   std::vector<Action> actions;
   Decision decision;
   std::vector<std::string> missing;

@@ -11,7 +11,6 @@ namespace ferrum::analytics {
 
 namespace {
 
-constexpr int kFactorCount = 7;
 constexpr const char* kLetters = "EDCBA";  // HIF 0..4 -> rating letter
 
 // One factor before weighting: its HIF (0..4) or why it has none.
@@ -351,13 +350,21 @@ void score_health(const HealthIndexOptions& o, UnitAssessment& a) {
   std::vector<RawFactor> raw{score_dga(o, a),     score_oil(o, a),        score_paper(o, a),
                              score_thermal(o, a), score_infrared(o, a),   score_inspection(o, a),
                              score_age(o, a)};
+  for (auto& e : score_electrical_factors(o.electrical_factors, a))
+    raw.push_back({e.name, e.weight, e.hif, e.detail, e.source});
   double denom = 0;  // sum of 4*K_j over scored factors
   int scored = 0;
   std::string missing_names;
+  bool no_electrical_named = false;
   for (const auto& f : raw) {
     if (f.hif && f.weight > 0) {
       denom += 4 * f.weight;
       ++scored;
+    } else if (f.detail == kNoElectricalTests) {  // one mention for all electrical factors
+      if (no_electrical_named) continue;
+      no_electrical_named = true;
+      missing_names += (missing_names.empty() ? "" : ", ") + std::string("electrical tests");
+      a.missing.push_back("health index factors from electrical tests: no electrical tests on record");
     } else {
       missing_names += (missing_names.empty() ? "" : ", ") + words(f.name);
       a.missing.push_back("health index factor " + words(f.name) + ": " + f.detail);
@@ -377,7 +384,7 @@ void score_health(const HealthIndexOptions& o, UnitAssessment& a) {
   }
   a.methods.push_back("health index: " + o.source);
 
-  std::string count = std::to_string(scored) + " of " + std::to_string(kFactorCount) + " factors";
+  std::string count = std::to_string(scored) + " of " + std::to_string(raw.size()) + " factors";
   if (!missing_names.empty()) count += " (no " + missing_names + ")";
   if (scored < o.min_factors || denom <= 0) {
     a.health_index.reset();

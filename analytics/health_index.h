@@ -40,6 +40,7 @@
 #include <vector>
 
 #include "analytics/assessment.h"
+#include "analytics/electrical/electrical_health.h"
 
 namespace ferrum::analytics {
 
@@ -149,6 +150,10 @@ struct HealthIndexOptions {
 
   // Inspection (ferrum's own mapping): worst item rating good/fair/poor/
   // very_poor/unsafe -> A/B/C/D/E.
+
+  // Factors from the electrical field tests: weights, cuts and sources in
+  // analytics/data/health_index_electrical.csv (analytics/electrical/electrical_health.h).
+  std::vector<ElectricalFactorSpec> electrical_factors = default_electrical_factors();
 
   // Age (ferrum's own bands, years): A < 20, B < 35, C < 45, D < 55, E above.
   RatingCuts age_cuts = health_index_cuts("age");

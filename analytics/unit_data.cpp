@@ -1,5 +1,8 @@
 #include "analytics/unit_data.h"
 
+#include <array>
+#include <utility>
+
 namespace ferrum::analytics {
 
 const char* to_string(Rating r) {
@@ -15,5 +18,31 @@ const char* to_string(Rating r) {
 
 const char* to_string(PaperType p) { return p == PaperType::kraft ? "kraft" : "upgraded"; }
 const char* to_string(OilType o) { return o == OilType::mineral ? "mineral" : "ester"; }
+
+// Names of the electrical field tests, as written in the `test` column of an
+// electrical tests file and in the JSON.
+namespace {
+constexpr std::array<std::pair<ElectricalTestKind, const char*>, 7> kNames = {{
+    {ElectricalTestKind::turns_ratio, "turns_ratio"},
+    {ElectricalTestKind::winding_resistance, "winding_resistance"},
+    {ElectricalTestKind::insulation_power_factor, "insulation_power_factor"},
+    {ElectricalTestKind::bushing_power_factor, "bushing_power_factor"},
+    {ElectricalTestKind::insulation_resistance, "insulation_resistance"},
+    {ElectricalTestKind::excitation_current, "excitation_current"},
+    {ElectricalTestKind::leakage_reactance, "leakage_reactance"},
+}};
+}  // namespace
+
+const char* to_string(ElectricalTestKind k) {
+  for (const auto& [kind, name] : kNames)
+    if (kind == k) return name;
+  return "?";
+}
+
+std::optional<ElectricalTestKind> electrical_test_from(const std::string& name) {
+  for (const auto& [kind, name_of] : kNames)
+    if (name == name_of) return kind;
+  return std::nullopt;
+}
 
 }  // namespace ferrum::analytics

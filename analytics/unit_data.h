@@ -40,6 +40,12 @@ struct UnitInfo {
   std::optional<double> load_loss_ratio;      // load losses at rated current / no-load losses
   // Last oil change or regeneration (resets furans), when recorded.
   std::optional<Day> oil_treated;
+  // For the electrical field tests (all optional).
+  std::string conductor;                 // winding conductor: "cu", "al", or "" (unknown)
+  std::optional<int> tap_positions;      // HV tap changer: number of positions
+  std::optional<int> tap_nominal;        // position giving the nameplate HV voltage
+  std::optional<double> tap_step_pct;    // HV voltage change per position, % of U_HV
+  std::optional<double> impedance_pct;   // nameplate short-circuit impedance, % on rating
 };
 
 // One oil-lab sample (main tank unless sample_point says otherwise).
@@ -92,6 +98,43 @@ struct InspectionRecord {
   std::string inspector;
 };
 
+// One electrical field test result (electrical tests file). Tap positions
+// are numbered so that position 1 gives the highest HV voltage.
+enum class ElectricalTestKind {
+  turns_ratio,
+  winding_resistance,
+  insulation_power_factor,
+  bushing_power_factor,
+  insulation_resistance,
+  excitation_current,
+  leakage_reactance,
+};
+
+struct ElectricalTest {
+  Day date = 0;
+  ElectricalTestKind test = ElectricalTestKind::turns_ratio;
+  std::string phase;                  // "A", "B", "C", or "" (three-phase / not given)
+  std::optional<int> tap;
+  std::string winding;                // "HV", "LV", "TV" (winding resistance)
+  std::optional<double> temp_c;       // winding or insulation temperature, °C
+  std::string insulation;             // "CH", "CL", "CHL"; bushings "C1", "C2"; "HV-LV", ...
+  std::optional<double> test_kv;
+  std::string bushing;                // "H1", "X2", ...
+  std::optional<int> minutes;         // insulation resistance: 1 or 10
+  // The test's value column: ratio, resistance_ohm, power_factor_pct,
+  // resistance_megohm, current_ma or impedance_pct. A bushing row may have
+  // only a capacitance (then this is empty).
+  std::optional<double> value;
+  std::optional<double> capacitance_pf;
+  std::optional<double> nameplate_value;  // nameplate/factory value of the same quantity
+  std::string note;
+  std::string crew;
+};
+
+const char* to_string(ElectricalTestKind k);
+// "turns_ratio", ... (snake_case); nullopt for other text.
+std::optional<ElectricalTestKind> electrical_test_from(const std::string& name);
+
 // Everything known about one unit; series sorted by time.
 struct UnitData {
   UnitInfo info;
@@ -99,6 +142,7 @@ struct UnitData {
   std::vector<LoadPoint> load;
   std::vector<InfraredScan> infrared;
   std::vector<InspectionRecord> inspections;
+  std::vector<ElectricalTest> electrical;  // sorted by date
 };
 
 const char* to_string(Rating r);

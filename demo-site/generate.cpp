@@ -8,6 +8,7 @@
 //   lanterfield_thermo/ three infrared surveys, one file per survey
 //   brevitt_field/      yearly inspections 2018-2026, one file per site and year
 //   teb_planning/       one year of 15-minute load per unit (35 040 rows each)
+//   kelby_testing/      electrical field tests of 2016, 2021, 2026 (generate_electrical.cpp)
 // The units register, the sparse unit's single sample, the follow-up files and
 // the deliberately broken files are committed under demo-site/drops/ instead.
 //
@@ -816,6 +817,9 @@ bool make_dir(const fs::path& p) {
 
 }  // namespace
 
+// Electrical field tests (generate_electrical.cpp).
+bool write_electrical_tests(const fs::path& dir);
+
 int main(int argc, char** argv) {
   if (argc != 2) {
     std::fprintf(stderr, "usage: ferrum_demo_gen OUTDIR\n");
@@ -823,8 +827,9 @@ int main(int argc, char** argv) {
   }
   const fs::path out = argv[1];
   const fs::path lab = out / "quorlan_labs", ir = out / "lanterfield_thermo",
-                 field = out / "brevitt_field", planning = out / "teb_planning";
-  for (const fs::path& p : {lab, ir, field, planning}) {
+                 field = out / "brevitt_field", planning = out / "teb_planning",
+                 testing = out / "kelby_testing";
+  for (const fs::path& p : {lab, ir, field, planning, testing}) {
     if (!make_dir(p)) {
       std::fprintf(stderr, "ferrum_demo_gen: cannot create %s\n", p.c_str());
       return 1;
@@ -834,6 +839,7 @@ int main(int argc, char** argv) {
   for (const Unit& u : fleet()) ok = write_oil_history(u, lab) && ok;
   ok = write_infrared_surveys(ir) && ok;
   ok = write_inspections(field) && ok;
+  ok = write_electrical_tests(testing) && ok;
   for (const Site& s : kSites) {
     const std::vector<double> amb = ambient_series(s);
     for (const Unit& u : fleet())

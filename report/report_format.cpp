@@ -66,7 +66,10 @@ std::string factor_title(const std::string& key) {
   static const std::map<std::string, std::string> names = {
       {"dga", "Dissolved gases"}, {"oil_quality", "Oil quality"}, {"paper", "Paper (furans)"},
       {"thermal", "Loading and heat"}, {"infrared", "Infrared"}, {"inspection", "Inspection"},
-      {"age", "Age"}};
+      {"age", "Age"}, {"insulation_power_factor", "Insulation power factor"},
+      {"turns_ratio", "Turns ratio"}, {"leakage_reactance", "Leakage reactance"},
+      {"winding_resistance", "Winding resistance"}, {"bushings", "Bushings"},
+      {"insulation_resistance", "Insulation resistance"}};
   return lookup(names, key);
 }
 

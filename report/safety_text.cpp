@@ -59,6 +59,23 @@ const std::vector<Caution>& safety_cautions() {
   return cautions;
 }
 
+const std::vector<Caution>& electrical_test_cautions() {
+  static const std::vector<Caution> cautions = {
+      {"De-energised, isolated and earthed.",
+       "Electrical field tests are made only on a unit that is de-energised, isolated from every source, "
+       "locked out and earthed, under the site's switching and permit procedure; remove the working earths "
+       "only as the test procedure requires and only for the test."},
+      {"Test voltages are hazardous.",
+       "Test sets apply hazardous AC and DC voltages (up to several kV) to the windings and bushings; keep "
+       "everyone clear of the unit, its leads and connected equipment while a test runs."},
+      {"Discharge after DC tests.",
+       "Windings hold a dangerous charge after insulation-resistance, winding-resistance and other DC "
+       "tests: discharge and earth them (for at least as long as the test voltage was applied) before "
+       "touching any lead or terminal."},
+  };
+  return cautions;
+}
+
 const std::string& one_line_caution() {
   static const std::string line =
       "SAFETY: decision support only; a qualified engineer decides. Energised equipment, arc flash, "

@@ -26,6 +26,9 @@ struct Caution {
 const std::string& safety_heading();
 // Every caution, in the order printed.
 const std::vector<Caution>& safety_cautions();
+// Cautions of the electrical field tests, printed with their section of the
+// unit report (the general block is printed as well).
+const std::vector<Caution>& electrical_test_cautions();
 // The caution of outputs that have room for one line only (CSV, console,
 // JSON): starts with "SAFETY:", names the deference to qualified persons and
 // local codes, and points to the full cautions.

@@ -204,6 +204,7 @@ void render_unit_report(const UnitAssessment& current, const UnitAssessment* pre
   oil_paper_section(flow, current);
   thermal_section(flow, current);
   findings_section(flow, current);
+  electrical_section(flow, current);
   health_index_section(flow, current);
   sources_section(flow, current, files, options);
 

@@ -15,6 +15,8 @@ void gases_section(PageFlow& flow, const analytics::UnitAssessment& a);
 void oil_paper_section(PageFlow& flow, const analytics::UnitAssessment& a);
 void thermal_section(PageFlow& flow, const analytics::UnitAssessment& a);
 void findings_section(PageFlow& flow, const analytics::UnitAssessment& a);
+// Electrical field tests, with their own cautions (report/electrical_section.cpp).
+void electrical_section(PageFlow& flow, const analytics::UnitAssessment& a);
 void health_index_section(PageFlow& flow, const analytics::UnitAssessment& a);
 void sources_section(PageFlow& flow, const analytics::UnitAssessment& a, const std::vector<SourceFile>& files,
                      const ReportOptions& options);

@@ -21,7 +21,7 @@ namespace {
 #define UNIT_COLUMNS                                                                                           \
   "unit_id, site, serial, rated_mva, hv_kv, lv_kv, cooling, year_built, phases, vector_group, oil_type, paper," \
   " oil_volume_l, criticality, customers_served, top_oil_rise_k, hot_spot_gradient_k, load_loss_ratio,"       \
-  " oil_treated_day"
+  " oil_treated_day, conductor, tap_positions, tap_nominal, tap_step_pct, impedance_pct"
 
 
 using analytics::LabValue;
@@ -281,6 +281,7 @@ class SqliteStore final : public Store {
         " UNION SELECT s.file_id FROM oil_samples s JOIN units u USING(unit_key) WHERE u.unit_id=?1"
         " UNION SELECT i.file_id FROM infrared_scans i JOIN units u USING(unit_key) WHERE u.unit_id=?1"
         " UNION SELECT n.file_id FROM inspections n JOIN units u USING(unit_key) WHERE u.unit_id=?1"
+        " UNION SELECT e.file_id FROM electrical_tests e JOIN units u USING(unit_key) WHERE u.unit_id=?1"
         " UNION SELECT DISTINCT l.file_id FROM load_points l JOIN units u USING(unit_key) WHERE u.unit_id=?1"
         ") ORDER BY id");
     s.bind(1, unit_id);
@@ -294,6 +295,7 @@ class SqliteStore final : public Store {
         " UNION SELECT u.unit_id FROM oil_samples s JOIN units u USING(unit_key) WHERE s.file_id=?1"
         " UNION SELECT u.unit_id FROM infrared_scans i JOIN units u USING(unit_key) WHERE i.file_id=?1"
         " UNION SELECT u.unit_id FROM inspections n JOIN units u USING(unit_key) WHERE n.file_id=?1"
+        " UNION SELECT u.unit_id FROM electrical_tests e JOIN units u USING(unit_key) WHERE e.file_id=?1"
         " UNION SELECT u.unit_id FROM units u WHERE EXISTS (SELECT 1 FROM load_points l"
         "   WHERE l.unit_key = u.unit_key AND l.file_id=?1)"
         " ORDER BY 1");
@@ -347,6 +349,11 @@ class SqliteStore final : public Store {
         .bind(15, u.customers_served).bind(16, u.top_oil_rise_k).bind(17, u.hot_spot_gradient_k)
         .bind(18, u.load_loss_ratio).bind(19, u.oil_treated).bind(20, file_id).bind(21, line);
     s.run();
+    auto& e = stmt("UPDATE units SET conductor=?, tap_positions=?, tap_nominal=?, tap_step_pct=?, impedance_pct=?"
+                   " WHERE unit_id=?");
+    e.bind_text_or_null(1, u.conductor).bind(2, u.tap_positions).bind(3, u.tap_nominal).bind(4, u.tap_step_pct)
+        .bind(5, u.impedance_pct).bind(6, u.unit_id);
+    e.run();
     unit_keys_.erase(u.unit_id);
     last_unit_key_ = 0;
     return true;
@@ -441,6 +448,24 @@ class SqliteStore final : public Store {
     s.run();
   }
 
+  void add_electrical_test(const std::string& unit_id, const analytics::ElectricalTest& t, std::int64_t file_id,
+                           int line) override {
+    const std::int64_t key = unit_key(unit_id);
+    auto& del = stmt("DELETE FROM electrical_tests WHERE unit_key=? AND test_day=? AND test=? AND phase=?"
+                     " AND tap IS ? AND winding=? AND insulation=? AND bushing=? AND minutes IS ? AND test_kv IS ?");
+    del.bind(1, key).bind(2, t.date).bind(3, analytics::to_string(t.test)).bind(4, t.phase).bind(5, t.tap)
+        .bind(6, t.winding).bind(7, t.insulation).bind(8, t.bushing).bind(9, t.minutes).bind(10, t.test_kv);
+    del.run();
+    auto& s = stmt("INSERT INTO electrical_tests(unit_key, test_day, test, phase, tap, winding, temp_c, insulation,"
+                   " test_kv, bushing, minutes, value, capacitance_pf, nameplate_value, note, crew, file_id, line)"
+                   " VALUES(?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)");
+    s.bind(1, key).bind(2, t.date).bind(3, analytics::to_string(t.test)).bind(4, t.phase).bind(5, t.tap)
+        .bind(6, t.winding).bind(7, t.temp_c).bind(8, t.insulation).bind(9, t.test_kv).bind(10, t.bushing)
+        .bind(11, t.minutes).bind(12, t.value).bind(13, t.capacitance_pf).bind(14, t.nameplate_value)
+        .bind_text_or_null(15, t.note).bind_text_or_null(16, t.crew).bind(17, file_id).bind(18, line);
+    s.run();
+  }
+
   void add_conversion(std::int64_t file_id, const std::string& column, const std::string& original_unit,
                       const std::string& stored_as) override {
     auto& s = stmt("INSERT OR REPLACE INTO conversions(file_id, column, original_unit, stored_as) VALUES(?,?,?,?)");
@@ -491,6 +516,7 @@ class SqliteStore final : public Store {
       }
       s.reset();
     }
+    read_electrical(key, d.electrical);
     return d;
   }
 
@@ -518,7 +544,8 @@ class SqliteStore final : public Store {
   long count_rows(const std::string& table) override {
     write_queued_load();
     static const char* kTables[] = {"files", "units", "unit_history", "oil_samples", "oil_values", "load_points",
-                                    "infrared_scans", "inspections", "alerts", "conversions"};
+                                    "infrared_scans", "inspections", "alerts", "conversions",
+                                    "electrical_tests"};
     for (const char* t : kTables) {
       if (table == t) {
         Statement s(db_, ("SELECT count(*) FROM " + table).c_str());
@@ -729,6 +756,11 @@ class SqliteStore final : public Store {
     u.hot_spot_gradient_k = s.opt_real(16);
     u.load_loss_ratio = s.opt_real(17);
     if (!s.is_null(18)) u.oil_treated = s.i32(18);
+    u.conductor = s.text(19);
+    if (!s.is_null(20)) u.tap_positions = s.i32(20);
+    if (!s.is_null(21)) u.tap_nominal = s.i32(21);
+    u.tap_step_pct = s.opt_real(22);
+    u.impedance_pct = s.opt_real(23);
     return u;
   }
 
@@ -751,8 +783,39 @@ class SqliteStore final : public Store {
       << ",\"criticality\":" << u.criticality << ",\"customers_served\":" << opt(u.customers_served)
       << ",\"top_oil_rise_k\":" << opt(u.top_oil_rise_k) << ",\"hot_spot_gradient_k\":"
       << opt(u.hot_spot_gradient_k) << ",\"load_loss_ratio\":" << opt(u.load_loss_ratio)
-      << ",\"oil_treated_day\":" << opt(u.oil_treated) << "}";
+      << ",\"oil_treated_day\":" << opt(u.oil_treated) << ",\"conductor\":\"" << json_escape(u.conductor)
+      << "\",\"tap_positions\":" << opt(u.tap_positions) << ",\"tap_nominal\":" << opt(u.tap_nominal)
+      << ",\"tap_step_pct\":" << opt(u.tap_step_pct) << ",\"impedance_pct\":" << opt(u.impedance_pct) << "}";
     return o.str();
+  }
+
+  void read_electrical(std::int64_t key, std::vector<analytics::ElectricalTest>& out) {
+    auto& s = stmt("SELECT test_day, test, phase, tap, winding, temp_c, insulation, test_kv, bushing, minutes, value,"
+                   " capacitance_pf, nameplate_value, note, crew FROM electrical_tests WHERE unit_key=?"
+                   " ORDER BY test_day, id");
+    s.bind(1, key);
+    while (s.step()) {
+      const auto kind = analytics::electrical_test_from(s.text(1));
+      if (!kind) continue;  // written by a newer ferrum
+      analytics::ElectricalTest t;
+      t.date = s.i32(0);
+      t.test = *kind;
+      t.phase = s.text(2);
+      if (!s.is_null(3)) t.tap = s.i32(3);
+      t.winding = s.text(4);
+      t.temp_c = s.opt_real(5);
+      t.insulation = s.text(6);
+      t.test_kv = s.opt_real(7);
+      t.bushing = s.text(8);
+      if (!s.is_null(9)) t.minutes = s.i32(9);
+      t.value = s.opt_real(10);
+      t.capacitance_pf = s.opt_real(11);
+      t.nameplate_value = s.opt_real(12);
+      t.note = s.text(13);
+      t.crew = s.text(14);
+      out.push_back(std::move(t));
+    }
+    s.reset();
   }
 
   void read_oil(std::int64_t key, std::vector<analytics::OilSample>& out) {

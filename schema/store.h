@@ -110,6 +110,10 @@ class Store {
                             std::int64_t file_id, int line) = 0;
   virtual void add_inspection(const std::string& unit_id, const analytics::InspectionRecord& rec,
                               std::int64_t file_id, int line) = 0;
+  // A re-delivered test (same unit, day, test and reading names) replaces
+  // the earlier row.
+  virtual void add_electrical_test(const std::string& unit_id, const analytics::ElectricalTest& test,
+                                   std::int64_t file_id, int line) = 0;
   virtual void add_conversion(std::int64_t file_id, const std::string& column,
                               const std::string& original_unit, const std::string& stored_as) = 0;
 

@@ -5,6 +5,8 @@
 #include <cmath>
 #include <sstream>
 
+#include "daemon/assess/electrical_json.h"
+
 namespace ferrum::assess {
 namespace {
 
@@ -279,6 +281,7 @@ Object::Ptr to_json(const analytics::UnitAssessment& a) {
     insp->add(x);
   }
   o->set("inspection", insp);
+  o->set("electrical", electrical_json(a.electrical));
   Array::Ptr actions = new Array;
   for (const auto& act : a.actions) {
     Object::Ptr x = new Object;

@@ -33,7 +33,12 @@ analytics::AssessmentOptions options_from_config(const config::SiteConfig& confi
     else if (factor == "infrared") h.weight_infrared = w;
     else if (factor == "inspection") h.weight_inspection = w;
     else if (factor == "age") h.weight_age = w;
+    else
+      for (auto& e : h.electrical_factors)
+        if (e.name == factor) e.weight = w;
   }
+  o.electrical.reference_c = config.electrical_reference_c;
+  o.electrical.pf_correction = config.pf_correction;
   if (!config.health_weights.empty()) h.source += "; weights overridden in ferrum.ini [health]";
   // The decision's keys of [ranking] (analytics/decision/decision.h).
   for (const auto& [key, v] : config.ranking) {

@@ -66,7 +66,34 @@ std::vector<std::string> split_list(const std::string& text) {
 }
 
 const char* const kWeekdays[] = {"monday", "tuesday", "wednesday", "thursday", "friday", "saturday", "sunday"};
-const char* const kHealthFactors[] = {"dga", "oil_quality", "paper", "thermal", "infrared", "inspection", "age"};
+const char* const kHealthFactors[] = {"dga", "oil_quality", "paper", "thermal", "infrared", "inspection", "age",
+                                      // electrical field tests (analytics/data/health_index_electrical.csv)
+                                      "insulation_power_factor", "turns_ratio", "leakage_reactance",
+                                      "winding_resistance", "bushings", "insulation_resistance"};
+
+// [electrical]: the electrical field tests (issue 18).
+void add_electrical_keys(std::vector<Key>& k) {
+  k.push_back({"electrical", "reference_c", Type::number, "75", true,
+               "Reference temperature of the winding-resistance correction, degC (IEEE C57.12.90 form).",
+               [](SiteConfig& c, const std::string& v) { c.electrical_reference_c = parse_number("electrical.reference_c", v, 0, 200); }});
+  k.push_back({"electrical", "pf_correction", Type::list, "", true,
+               "Insulation power-factor correction factors K (PF20 = PF x K) by test temperature,\n"
+               "as temp:K pairs from a table the site trusts, e.g. 15:1.1, 20:1.0, 25:0.9 (illustrative\n"
+               "numbers, not a standard's table; ferrum ships none). Empty: only readings at 20 degC are judged.",
+               [](SiteConfig& c, const std::string& v) {
+                 c.pf_correction.clear();
+                 for (const auto& part : split_list(v)) {
+                   const auto colon = part.find(':');
+                   if (colon == std::string::npos)
+                     throw ConfigError("electrical.pf_correction: '" + part + "' must be temp:K");
+                   const double t = parse_number("electrical.pf_correction", Poco::trim(part.substr(0, colon)), -40, 120);
+                   const double f = parse_number("electrical.pf_correction", Poco::trim(part.substr(colon + 1)), 0.01, 100);
+                   if (!c.pf_correction.empty() && !(t > c.pf_correction.back().first))
+                     throw ConfigError("electrical.pf_correction: temperatures must be increasing");
+                   c.pf_correction.emplace_back(t, f);
+                 }
+               }});
+}
 
 std::vector<Key> make_keys() {
   std::vector<Key> k;
@@ -214,6 +241,7 @@ std::vector<Key> make_keys() {
                    c.ranking[name] = parse_number("ranking." + name, v, lo, hi);
                  }});
   }
+  add_electrical_keys(k);
   k.push_back({"log", "level", Type::text, "info", true, "trace, debug, info, warn, error.",
                [](SiteConfig& c, const std::string& v) {
                  const std::string l = Poco::toLower(v);
@@ -288,7 +316,8 @@ void load_party(const Poco::Util::AbstractConfiguration& ini, const std::string&
 }  // namespace
 
 const std::vector<std::string>& file_kind_names() {
-  static const std::vector<std::string> k = {"units_register", "oil_lab", "infrared", "load_series", "inspection"};
+  static const std::vector<std::string> k = {"units_register", "oil_lab",    "infrared",
+                                             "load_series",    "inspection", "electrical_tests"};
   return k;
 }
 
@@ -367,7 +396,7 @@ std::string default_site_config_text() {
   }
   o << "\n; Parties: one section per party, named after its folder under drop/.\n"
        "; kinds: file kinds it may deliver (units_register, oil_lab, infrared, load_series,\n"
-       ";        inspection, or * for all); sites: sites it serves (* for all).\n"
+       ";        inspection, electrical_tests, or * for all); sites: sites it serves (* for all).\n"
        "; Optional: date_format (YYYY-MM-DD, DD/MM/YYYY, MM/DD/YYYY or DD.MM.YYYY, then\n"
        ";        optionally HH:MM[:SS]), decimal (point, comma or auto); the party's own\n"
        ";        column names are mapped in ROOT/columns/NAME.csv (their_column,ferrum_column).\n"

@@ -12,6 +12,7 @@
 #include <set>
 #include <stdexcept>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "daemon/ingest/field_parsers.h"
@@ -67,6 +68,9 @@ struct SiteConfig {
   int inspection_interval_days = 365;
   std::map<std::string, double> health_weights;  // factor name -> weight override
   std::map<std::string, std::vector<double>> health_bands;  // band key -> cut points override
+  // [electrical]
+  double electrical_reference_c = 75;                    // winding-resistance reference, degC
+  std::vector<std::pair<double, double>> pf_correction;  // (test temperature degC, K), increasing
   // [ranking]
   std::map<std::string, double> ranking;         // key -> override of the ranking defaults
   // [log]
@@ -90,7 +94,7 @@ struct SiteConfig {
   }
 };
 
-// The five file kinds, by the names used in the configuration and receipts.
+// The six file kinds, by the names used in the configuration and receipts.
 const std::vector<std::string>& file_kind_names();
 
 // Reads and validates an ini file. Throws ConfigError naming the line or key.

@@ -60,6 +60,10 @@ void run_kind(RecordSource& reader, const KindDetection& d, const CheckOptions& 
       run_rows<InspectionRowParser, InspectionRow>(
           reader, d, options, summary, [&](const InspectionRow& r) { sink.inspection(r); });
       break;
+    case FileKind::electrical_tests:
+      run_rows<ElectricalRowParser, ElectricalRow>(
+          reader, d, options, summary, [&](const ElectricalRow& r) { sink.electrical(r); });
+      break;
     case FileKind::load_series:
       run_rows<LoadRowParser, LoadRow>(reader, d, options, summary, [&](const LoadRow& r) {
         summary.offset_assumed_rows += r.offset_assumed;

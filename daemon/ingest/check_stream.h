@@ -40,6 +40,7 @@ class RowSink {
   virtual void infrared(const InfraredRow& /*row*/) {}
   virtual void inspection(const InspectionRow& /*row*/) {}
   virtual void load_point(const LoadRow& /*row*/) {}
+  virtual void electrical(const ElectricalRow& /*row*/) {}
 };
 
 struct CheckOptions {

@@ -39,6 +39,8 @@ constexpr FieldSpec kRegister[] = {
     {"phases", O},   {"vector_group", O}, {"oil_type", O},       {"paper", O},
     {"oil_volume_l", O}, {"criticality", O}, {"customers_served", O}, {"top_oil_rise_k", O},
     {"hot_spot_gradient_k", O}, {"load_loss_ratio", O}, {"oil_treated_date", O},
+    // For the electrical field tests.
+    {"conductor", O}, {"tap_positions", O}, {"tap_nominal", O}, {"tap_step_pct", O}, {"impedance_pct", O},
 };
 
 constexpr FieldSpec kOilLab[] = {
@@ -66,12 +68,26 @@ constexpr FieldSpec kInspection[] = {
     {"rating", R},  {"note", O},            {"inspector", O},
 };
 
-constexpr std::array<KindSpec, 5> kKinds = {{
+// Electrical field tests: one test result per row, in its test's value
+// column (daemon/ingest/electrical_rows.cpp checks which one).
+constexpr FieldSpec kElectrical[] = {
+    {"unit_id", R},          {"test_date", R},       {"test", R},
+    {"ratio", G},            {"resistance_ohm", G},  {"power_factor_pct", G}, {"capacitance_pf", G},
+    {"resistance_megohm", G}, {"current_ma", G},     {"impedance_pct", G},
+    {"phase", O},            {"tap", O},             {"winding", O},          {"temp_c", O, true},
+    {"insulation", O},       {"test_kv", O},         {"bushing", O},          {"minutes", O},
+    {"nameplate_value", O},  {"note", O},            {"crew", O},
+};
+
+constexpr std::array<KindSpec, 6> kKinds = {{
     {FileKind::units_register, kRegister, GroupRule::none, ""},
     {FileKind::oil_lab, kOilLab, GroupRule::at_least_one, "at least one test column"},
     {FileKind::infrared, kInfrared, GroupRule::at_least_one, "reference_c or ambient_c"},
     {FileKind::load_series, kLoad, GroupRule::exactly_one, "exactly one of"},
     {FileKind::inspection, kInspection, GroupRule::none, ""},
+    {FileKind::electrical_tests, kElectrical, GroupRule::at_least_one,
+     "at least one value column (ratio, resistance_ohm, power_factor_pct, capacitance_pf, "
+     "resistance_megohm, current_ma, impedance_pct)"},
 }};
 
 // Alternative-unit columns other than the automatic X_f for temperatures.
@@ -212,6 +228,7 @@ const char* to_string(FileKind kind) {
     case FileKind::infrared: return "infrared";
     case FileKind::load_series: return "load_series";
     case FileKind::inspection: return "inspection";
+    case FileKind::electrical_tests: return "electrical_tests";
   }
   return "unknown";
 }
@@ -223,6 +240,7 @@ const char* describe(FileKind kind) {
     case FileKind::infrared: return "infrared survey";
     case FileKind::load_series: return "load series";
     case FileKind::inspection: return "field inspection";
+    case FileKind::electrical_tests: return "electrical field tests";
   }
   return "unknown";
 }

@@ -16,7 +16,8 @@
 //    the units register itself;
 //  * duplicate keys within the file: units register (unit_id), oil lab
 //    (unit_id, sample_date, lab_ref, sample_point), infrared (unit_id,
-//    survey_date, component), inspection (unit_id, inspection_date, item).
+//    survey_date, component), inspection (unit_id, inspection_date, item),
+//    electrical tests (unit_id, test_date, test and what names the reading).
 //    Load-series duplicates are left to the store: a file may hold millions.
 // Alternative-unit columns are converted here (file_kinds.h, Conversion);
 // load in MVA or A becomes per unit using the register's rated_mva, hv_kv
@@ -34,6 +35,7 @@
 
 #include <cstdint>
 #include <functional>
+#include <initializer_list>
 #include <optional>
 #include <span>
 #include <string>
@@ -107,6 +109,12 @@ struct InspectionRow {
   std::int64_t line = 0;
   std::string unit_id;
   analytics::InspectionRecord record;
+};
+
+struct ElectricalRow {
+  std::int64_t line = 0;
+  std::string unit_id;
+  analytics::ElectricalTest test;
 };
 
 struct LoadRow {
@@ -194,6 +202,7 @@ class UnitRowParser : public RowChecker {
   void parse_ratings(analytics::UnitInfo& u);
   void parse_construction(analytics::UnitInfo& u);
   void parse_thermal(analytics::UnitInfo& u);
+  void parse_electrical(analytics::UnitInfo& u);
 };
 
 class OilRowParser : public RowChecker {
@@ -219,6 +228,23 @@ class InspectionRowParser : public RowChecker {
   using RowChecker::RowChecker;
   bool parse(std::span<const std::string_view> fields, std::int64_t line, InspectionRow& out);
   void finish() {}
+};
+
+// Electrical field tests: each row holds exactly the value column its
+// `test` needs (a value in another test's column is a problem), and the
+// descriptive columns that test uses (schema/drop-files.md, "Electrical
+// field tests"). Taps are checked against the register's tap_positions.
+class ElectricalRowParser : public RowChecker {
+ public:
+  using RowChecker::RowChecker;
+  bool parse(std::span<const std::string_view> fields, std::int64_t line, ElectricalRow& out);
+  void finish() {}
+
+ private:
+  void parse_values(analytics::ElectricalTest& t);
+  void parse_context(analytics::ElectricalTest& t, const analytics::UnitInfo* unit);
+  std::string code(std::string_view column, std::string_view label,
+                   std::initializer_list<std::string_view> allowed, bool required);
 };
 
 class LoadRowParser : public RowChecker {

@@ -87,6 +87,28 @@ void UnitRowParser::parse_thermal(analytics::UnitInfo& u) {
   u.hot_spot_gradient_k =
       number(column("hot_spot_gradient_k"), "hot-spot gradient", {0, 100, "K", true});
   u.load_loss_ratio = number(column("load_loss_ratio"), "load loss ratio", {0, 100, "", true});
+  parse_electrical(u);
+}
+
+// Register columns read by the electrical field tests.
+void UnitRowParser::parse_electrical(analytics::UnitInfo& u) {
+  const ColumnBinding& conductor = column("conductor");
+  if (const std::string c = to_snake_case(cell(conductor)); !c.empty()) {
+    if (c == "cu" || c == "copper") u.conductor = "cu";
+    else if (c == "al" || c == "aluminium" || c == "aluminum") u.conductor = "al";
+    else report(conductor, "conductor must be cu or al");
+  }
+  const auto positions = integer(column("tap_positions"), "tap positions", {1, 99, ""});
+  if (positions) u.tap_positions = static_cast<int>(*positions);
+  const ColumnBinding& nominal = column("tap_nominal");
+  if (const auto n = integer(nominal, "nominal tap", {1, 99, ""})) {
+    if (positions && *n > *positions)
+      report(nominal, "nominal tap " + std::to_string(*n) + " is beyond tap_positions " + std::to_string(*positions));
+    else
+      u.tap_nominal = static_cast<int>(*n);
+  }
+  u.tap_step_pct = number(column("tap_step_pct"), "tap step", {0, 10, "%", true});
+  u.impedance_pct = number(column("impedance_pct"), "impedance", {0, 100, "%", true});
 }
 
 }  // namespace ferrum::ingest

@@ -293,6 +293,19 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
       });
       break;
     }
+    case FileKind::electrical_tests: {
+      ElectricalRowParser p(kind.columns, po, comma, r.problems, r.warnings);
+      run_rows<ElectricalRowParser, ElectricalRow>(reader, p, r, s, [&](const ElectricalRow& row) {
+        const auto* u = units.find(row.unit_id);
+        if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
+        if (!u) return true;
+        store.add_electrical_test(row.unit_id, row.test, s.file_id, static_cast<int>(row.line));
+        note_day(r, row.test.date);
+        r.units.insert(row.unit_id);
+        return true;
+      });
+      break;
+    }
     case FileKind::load_series: {
       LoadRowParser p(kind.columns, po, comma, r.problems, r.warnings);
       const int ts_index = kind.columns["timestamp"].index;

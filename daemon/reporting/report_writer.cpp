@@ -61,6 +61,8 @@ analytics::UnitData data_as_of(const analytics::UnitData& d, analytics::Day day)
     if (s.date <= day) out.infrared.push_back(s);
   for (const auto& s : d.inspections)
     if (s.date <= day) out.inspections.push_back(s);
+  for (const auto& t : d.electrical)
+    if (t.date <= day) out.electrical.push_back(t);
   return out;
 }
 

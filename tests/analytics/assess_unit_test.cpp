@@ -50,7 +50,7 @@ TEST(AssessUnit, RunsEveryStepInOrder) {
   EXPECT_EQ(a.unit.unit_id, "T7");
   EXPECT_EQ(a.as_of, as_of);
   EXPECT_FALSE(a.dga.gases.empty());       // oil step ran before the index
-  ASSERT_EQ(a.factors.size(), 7u);
+  ASSERT_EQ(a.factors.size(), 13u);  // 7 + 6 electrical-test factors (analytics/data/health_index_electrical.csv)
   ASSERT_TRUE(a.health_index);             // dga, oil, paper, inspection, age at least
   double sum = 0;
   for (const auto& f : a.factors) sum += f.contribution;

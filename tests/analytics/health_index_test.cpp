@@ -144,7 +144,7 @@ TEST(HealthIndex, WorkedExampleByHand) {
   EXPECT_NEAR(factor(a, "dga").contribution, 100.0 * 20 / 196, 1e-9);
   EXPECT_NEAR(factor(a, "thermal").contribution, 100.0 * 40 / 196, 1e-9);
   EXPECT_NEAR(contribution_sum(a), *a.health_index, 1e-9);
-  EXPECT_EQ(a.confidence, "7 of 7 factors");
+  EXPECT_EQ(a.confidence, "7 of 13 factors (no electrical tests)");  // 6 electrical factors, no tests
   ASSERT_EQ(a.freshness.size(), 4u);
   EXPECT_EQ(a.freshness[0].kind, "oil");
 }
@@ -200,9 +200,9 @@ TEST(HealthIndex, MissingFactorsAreLeftOutAndNamed) {
   EXPECT_EQ(factor(a, "thermal").weight, 0);
   EXPECT_FALSE(factor(a, "infrared").score);
   EXPECT_NEAR(contribution_sum(a), *a.health_index, 1e-9);
-  EXPECT_NE(a.confidence.find("5 of 7 factors (no thermal, infrared)"), std::string::npos) << a.confidence;
+  EXPECT_NE(a.confidence.find("5 of 13 factors (no thermal, infrared, electrical tests)"), std::string::npos) << a.confidence;
   EXPECT_NE(a.confidence.find("last oil sample 3.0 years old"), std::string::npos) << a.confidence;
-  EXPECT_EQ(a.missing.size(), 2u);
+  EXPECT_EQ(a.missing.size(), 3u);  // thermal, infrared, and one line for the electrical tests
 }
 
 TEST(HealthIndex, TooFewFactorsGivesNoIndex) {
@@ -213,7 +213,7 @@ TEST(HealthIndex, TooFewFactorsGivesNoIndex) {
   fa::score_health(fa::HealthIndexOptions{}, a);  // dga + age = 2 < 3
   EXPECT_FALSE(a.health_index);
   EXPECT_TRUE(a.band.empty());
-  EXPECT_NE(a.confidence.find("2 of 7 factors"), std::string::npos);
+  EXPECT_NE(a.confidence.find("2 of 13 factors"), std::string::npos);
   EXPECT_NE(a.confidence.find("too few"), std::string::npos);
 }
 

@@ -27,7 +27,8 @@ class EveryKind(IngestCase):
         files = {"b.csv": ("oil_lab.csv", "oil_lab", "oil_samples"),
                  "c.csv": ("infrared.csv", "infrared", "infrared_scans"),
                  "d.csv": ("load_series.csv", "load_series", "load_points"),
-                 "e.csv": ("inspection.csv", "inspection", "inspections")}
+                 "e.csv": ("inspection.csv", "inspection", "inspections"),
+                 "f.csv": ("electrical_tests.csv", "electrical_tests", "electrical_tests")}
         for name, (src, _, _) in files.items():
             self.drop(name, example(src))
         self.ingest()
@@ -54,7 +55,8 @@ class EveryKind(IngestCase):
                       "at least one test column",
                       "infrared survey needs unit_id, survey_date, component, spot_c",
                       "load series needs unit_id, timestamp",
-                      "field inspection needs unit_id, inspection_date, item, rating"):
+                      "field inspection needs unit_id, inspection_date, item, rating",
+                      "electrical field tests needs unit_id, test_date, test and at least one value column"):
             self.assertIn(needs, p["reason"])
         self.assertEqual(self.count("units"), 0)
 

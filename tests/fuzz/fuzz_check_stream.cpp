@@ -71,6 +71,7 @@ struct CountingSink : ingest::RowSink {
   void infrared(const ingest::InfraredRow& r) override { seen(r.line); }
   void inspection(const ingest::InspectionRow& r) override { seen(r.line); }
   void load_point(const ingest::LoadRow& r) override { seen(r.line); }
+  void electrical(const ingest::ElectricalRow& r) override { seen(r.line); }
 };
 
 ingest::CheckOptions fixed_options() {

@@ -88,7 +88,7 @@ TEST(ContractExamples, EachKindHasAValidExample) {
   const std::map<std::string, FileKind> files = {
       {"units_register.csv", FileKind::units_register}, {"oil_lab.csv", FileKind::oil_lab},
       {"infrared.csv", FileKind::infrared},             {"load_series.csv", FileKind::load_series},
-      {"inspection.csv", FileKind::inspection},
+      {"inspection.csv", FileKind::inspection},         {"electrical_tests.csv", FileKind::electrical_tests},
   };
   CheckOptions o = test_options(60);
   for (const auto& [file, kind] : files) {

@@ -60,6 +60,8 @@ struct KeepAll : RowSink {
   std::vector<InfraredRow> ir;
   std::vector<InspectionRow> inspections;
   std::vector<LoadRow> load;
+  std::vector<ElectricalRow> tests;
+  void electrical(const ElectricalRow& r) override { tests.push_back(r); }
   void unit(const UnitRow& r) override { units.push_back(r); }
   void oil_sample(const OilRow& r) override { oil.push_back(r); }
   void infrared(const InfraredRow& r) override { ir.push_back(r); }

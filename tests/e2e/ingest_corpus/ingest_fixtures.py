@@ -68,11 +68,11 @@ class IngestCase(SiteTestCase):
         with self.db() as c:
             return {t: c.execute(f"SELECT * FROM {t} ORDER BY 1, 2").fetchall()
                     for t in ("units", "unit_history", "oil_samples", "oil_values", "load_points",
-                              "infrared_scans", "inspections", "conversions")}
+                              "infrared_scans", "inspections", "conversions", "electrical_tests")}
 
     def measurement_count(self):
         return sum(self.count(t) for t in ("oil_samples", "oil_values", "load_points", "infrared_scans",
-                                           "inspections"))
+                                           "inspections", "electrical_tests"))
 
     def quarantined(self):
         return sorted(os.path.basename(p) for p in glob.glob(self.path("quarantine", "*"))
