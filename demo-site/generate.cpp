@@ -6,9 +6,9 @@
 // this folder). The generator writes, per party folder under OUTDIR:
 //   quorlan_labs/       oil-lab history, one file per unit (10-19 years)
 //   lanterfield_thermo/ three infrared surveys, one file per survey
-//   brevitt_field/      yearly inspections 2018-2026, one file per site and year
+//   orvane_field/      yearly inspections 2018-2026, one file per site and year
 //   teb_planning/       one year of 15-minute load per unit (35 040 rows each)
-//   kelby_testing/      electrical field tests of 2016, 2021, 2026 (generate_electrical.cpp)
+//   vornhal_testing/      electrical field tests of 2016, 2021, 2026 (generate_electrical.cpp)
 // The units register, the sparse unit's single sample, the follow-up files and
 // the deliberately broken files are committed under demo-site/drops/ instead.
 //
@@ -827,8 +827,8 @@ int main(int argc, char** argv) {
   }
   const fs::path out = argv[1];
   const fs::path lab = out / "quorlan_labs", ir = out / "lanterfield_thermo",
-                 field = out / "brevitt_field", planning = out / "teb_planning",
-                 testing = out / "kelby_testing";
+                 field = out / "orvane_field", planning = out / "teb_planning",
+                 testing = out / "vornhal_testing";
   for (const fs::path& p : {lab, ir, field, planning, testing}) {
     if (!make_dir(p)) {
       std::fprintf(stderr, "ferrum_demo_gen: cannot create %s\n", p.c_str());

@@ -1,6 +1,6 @@
 // ferrum_demo_gen, electrical field tests: outage test sets of 2016, 2021
 // and 2026 for every unit of the demo fleet except the sparse TKQ-T3, as
-// the invented testing contractor kelby_testing delivers them (one file per
+// the invented testing contractor vornhal_testing delivers them (one file per
 // site and outage year).
 //
 // Storylines (storylines.tsv, README.md):
@@ -207,7 +207,7 @@ void unit_rows(const ElectricalUnit& u, int year, const std::string& date, std::
 
 }  // namespace
 
-// Writes kelby_testing/electrical-SITE-YEAR.csv files under `dir`.
+// Writes vornhal_testing/electrical-SITE-YEAR.csv files under `dir`.
 bool write_electrical_tests(const fs::path& dir) {
   for (const Outage& o : kOutages) {
     for (int year : kYears) {
