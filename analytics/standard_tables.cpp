@@ -441,6 +441,30 @@ void read_thermography(const DataFile& f, StandardTables& s) {
     refuse(f.last_line, 1, "table 'delta_t' needs rows for both bases, reference and ambient");
 }
 
+void read_health_index_electrical(const DataFile& f, StandardTables& s) {
+  const DataTable& t = table(f, "electrical_factors");
+  expect_columns(t, {"factor", "weight", "cut_a", "cut_b", "cut_c", "cut_d", "source"});
+  const std::vector<std::string> factors = {"insulation_power_factor", "turns_ratio", "leakage_reactance",
+                                            "winding_resistance", "bushings", "insulation_resistance"};
+  Once once(t, factors.size());
+  s.electrical_factors.clear();
+  for (const TableRow& r : t.rows) {
+    const int k = index_of(t, r, 0, factors);
+    once.mark(r, static_cast<std::size_t>(k));
+    ElectricalFactorRow e{r.cells[0], number(t, r, 1, 0, 100), {}, r.cells[6]};
+    // insulation_resistance is rated from its polarization-index reading: no cuts.
+    if (factors[static_cast<std::size_t>(k)] != "insulation_resistance") {
+      for (std::size_t i = 0; i < 4; ++i) {
+        e.cuts[i] = number(t, r, 2 + i, 0, 1000);
+        if (i > 0 && !(e.cuts[i] > e.cuts[i - 1]))
+          refuse(r.line, column_of(2 + i), "table 'electrical_factors': cuts must increase");
+      }
+    }
+    s.electrical_factors.push_back(e);
+  }
+  once.require_all([&](std::size_t k) { return factors[k]; });
+}
+
 struct FileSpec {
   const char* file;
   void (*read)(const DataFile&, StandardTables&);
@@ -451,7 +475,7 @@ const FileSpec kFiles[] = {
     {"iec60599.csv", read_iec60599},            {"duval_triangle1.csv", read_duval},
     {"ieee_c57106.csv", read_c57106},           {"iec60076_7.csv", read_iec60076_7},
     {"ieee_c57_91.csv", read_c57_91},           {"health_index.csv", read_health_index},
-    {"thermography.csv", read_thermography},
+    {"thermography.csv", read_thermography},   {"health_index_electrical.csv", read_health_index_electrical},
 };
 
 std::vector<TableInfo> info_of(const std::string& file, const DataFile& f, const std::string& origin) {

@@ -104,6 +104,14 @@ struct TableInfo {
   std::string title() const;        // "IEEE C57.104-2008 table1: Table 1 (...)"
 };
 
+// One electrical-test factor of the health index (health_index_electrical.csv).
+struct ElectricalFactorRow {
+  std::string name;              // "turns_ratio", ...
+  double weight = 0;             // K_j
+  std::array<double, 4> cuts{};  // measure <= cut: A, B, C, D; else E (unused for insulation_resistance)
+  std::string source;
+};
+
 struct StandardTables {
   C57104_2008Tables c57104_2008;
   C57104_2019Tables c57104_2019;
@@ -116,6 +124,7 @@ struct StandardTables {
   double normal_life_h = 0;
   HealthIndexTables health;
   std::vector<DeltaTRow> delta_t_reference, delta_t_ambient;
+  std::vector<ElectricalFactorRow> electrical_factors;
 
   std::vector<TableInfo> info;  // every table, in file order
   bool any_unverified() const;

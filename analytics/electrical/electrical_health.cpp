@@ -1,5 +1,7 @@
 #include "analytics/electrical/electrical_health.h"
 
+#include "analytics/standard_tables.h"
+
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
@@ -10,7 +12,6 @@
 #include "analytics/electrical/insulation_resistance.h"
 #include "analytics/electrical/turns_ratio.h"
 #include "analytics/electrical/winding_resistance.h"
-#include "analytics/embedded_tables.h"
 
 namespace ferrum::analytics {
 
@@ -22,25 +23,6 @@ std::string fmt(double v, int decimals) {
   return buf;
 }
 
-std::string_view trim(std::string_view s) {
-  while (!s.empty() && (s.front() == ' ' || s.front() == '\t' || s.front() == '\r')) s.remove_prefix(1);
-  while (!s.empty() && (s.back() == ' ' || s.back() == '\t' || s.back() == '\r')) s.remove_suffix(1);
-  return s;
-}
-
-double cell_number(std::string_view cell, int line) {
-  const std::string text(trim(cell));
-  if (text.empty()) return std::nan("");
-  std::size_t pos = 0;
-  double v = 0;
-  try {
-    v = std::stod(text, &pos);
-  } catch (const std::exception&) {
-    pos = 0;
-  }
-  if (pos != text.size()) throw std::invalid_argument("line " + std::to_string(line) + ": '" + text + "' is not a number");
-  return v;
-}
 
 
 // The worst measure of a factor and what gave it; nullopt without results.
@@ -98,45 +80,10 @@ std::optional<Measure> measure_of(const std::string& name, const ElectricalSumma
 
 }  // namespace
 
-std::vector<ElectricalFactorSpec> parse_electrical_factors(std::string_view csv) {
+std::vector<ElectricalFactorSpec> default_electrical_factors() {
   std::vector<ElectricalFactorSpec> out;
-  int line_no = 0;
-  bool header = true;
-  while (!csv.empty()) {
-    const auto nl = csv.find('\n');
-    std::string_view line = trim(csv.substr(0, nl));
-    csv = nl == std::string_view::npos ? std::string_view() : csv.substr(nl + 1);
-    ++line_no;
-    if (line.empty() || line.front() == '#') continue;
-    if (header) {
-      if (line.rfind("factor,weight,", 0) != 0)
-        throw std::invalid_argument("line " + std::to_string(line_no) + ": expected the header factor,weight,...");
-      header = false;
-      continue;
-    }
-    std::vector<std::string_view> cells;
-    for (int i = 0; i < 6; ++i) {
-      const auto comma = line.find(',');
-      if (comma == std::string_view::npos)
-        throw std::invalid_argument("line " + std::to_string(line_no) + ": needs 7 columns");
-      cells.push_back(line.substr(0, comma));
-      line.remove_prefix(comma + 1);
-    }
-    ElectricalFactorSpec f;
-    f.name = std::string(trim(cells[0]));
-    f.weight = cell_number(cells[1], line_no);
-    if (!(f.weight >= 0)) throw std::invalid_argument("line " + std::to_string(line_no) + ": weight must be >= 0");
-    for (int i = 0; i < 4; ++i) f.cuts[i] = cell_number(cells[2 + i], line_no);
-    f.source = std::string(trim(line));
-    out.push_back(std::move(f));
-  }
+  for (const auto& e : standard_tables().electrical_factors) out.push_back({e.name, e.weight, e.cuts, e.source});
   return out;
-}
-
-const std::vector<ElectricalFactorSpec>& default_electrical_factors() {
-  static const std::vector<ElectricalFactorSpec> specs =
-      parse_electrical_factors(embedded_data_file("health_index_electrical.csv"));
-  return specs;
 }
 
 int electrical_hif(double measure, const std::array<double, 4>& cuts) {

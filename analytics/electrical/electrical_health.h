@@ -26,11 +26,9 @@ struct ElectricalFactorSpec {
 // Detail of every electrical factor of a unit without electrical tests.
 inline constexpr const char* kNoElectricalTests = "no electrical tests";
 
-// Parses the CSV text (header factor,weight,cut_a,cut_b,cut_c,cut_d,source;
-// '#' comments). Throws std::invalid_argument naming the line on bad input.
-std::vector<ElectricalFactorSpec> parse_electrical_factors(std::string_view csv);
-// The compiled-in table.
-const std::vector<ElectricalFactorSpec>& default_electrical_factors();
+// The factors of the standard table in force (analytics/data/
+// health_index_electrical.csv, or the site's verified copy: standard_tables.h).
+std::vector<ElectricalFactorSpec> default_electrical_factors();
 
 struct ElectricalFactorScore {
   std::string name;

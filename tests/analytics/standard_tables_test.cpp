@@ -2,6 +2,8 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
+
 #include <filesystem>
 #include <fstream>
 #include <set>
@@ -136,6 +138,35 @@ TEST(StandardTables, ASiteCopyChangesTheResult) {
     EXPECT_EQ(notes[1]->status, kStatusUnverified);  // Table 3 keeps the status the copy gives it
   }
   EXPECT_EQ(c57104_2008_gas_condition(Gas::h2, 150), 2);  // restored
+}
+
+// The electrical-test factors of the health index are a table like the others:
+// a site's copy changes the weight the index uses, and cuts that do not
+// increase are refused at their line and column (ferrum's own format check).
+TEST(StandardTables, ASiteCopyOfTheElectricalFactorsIsUsedOrRefused) {
+  std::string text = source_file("health_index_electrical.csv");
+  const std::string row = "row,turns_ratio,5,";
+  ASSERT_NE(text.find(row), std::string::npos);
+  EXPECT_EQ(HealthIndexOptions{}.electrical_factors[1].weight, 5);  // from memory of Jahromi et al. 2009; verify
+  std::string site = text;
+  site.replace(site.find(row), row.size(), "row,turns_ratio,7,");
+  const TableLoad load = load_standard_tables({{"health_index_electrical.csv", "tables/health_index_electrical.csv", site, ""}});
+  ASSERT_TRUE(load.refused.empty()) << load.refused.front().text();
+  {
+    ScopedStandardTables scope(load.tables);
+    const auto factors = HealthIndexOptions{}.electrical_factors;
+    ASSERT_EQ(factors[1].name, "turns_ratio");
+    EXPECT_EQ(factors[1].weight, 7);
+    EXPECT_TRUE(standard_tables().tables_of("health_index_electrical.csv")[0]->site_override);
+  }
+  std::string bad = text;
+  bad.replace(bad.find(row), row.size() + 16, "row,turns_ratio,5,0.5,1.0,0.9,2.0,");
+  const TableLoad refused = load_standard_tables({{"health_index_electrical.csv", "tables/health_index_electrical.csv", bad, ""}});
+  ASSERT_EQ(refused.refused.size(), 1u);
+  EXPECT_NE(refused.refused[0].text().find("cuts must increase"), std::string::npos) << refused.refused[0].text();
+  const int line = 1 + static_cast<int>(std::count(text.begin(), text.begin() + static_cast<long>(text.find(row)), '\n'));
+  EXPECT_EQ(refused.refused[0].error.line, line) << refused.refused[0].text();
+  EXPECT_GT(refused.refused[0].error.column, 0) << refused.refused[0].text();
 }
 
 TEST(StandardTables, ASiteSetsItsOwnTypicalValues) {
