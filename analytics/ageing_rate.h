@@ -7,7 +7,8 @@
 //   thermally upgraded insulation): F_AA = exp(15000/383 − 15000/(θ_H + 273)),
 //   equivalent ageing F_EQA = Σ F_AA·Δt / Σ Δt, %LOL = F_EQA·t·100 / normal life.
 // Equations from memory, checked against public reproductions. Normal
-// insulation life default 180 000 h: IEEE C57.91-2011 Table 1 (from memory).
+// insulation life default 180 000 h: IEEE C57.91-2011 Table 1, data in
+// analytics/data/ieee_c57_91.csv (checked against a public reproduction).
 //
 // Inputs: θ_h hot-spot temperature in °C; durations in hours. Outputs
 // dimensionless rates (1 = normal ageing at the reference temperature: 98 °C
@@ -51,6 +52,9 @@ inline double mean_ageing_rate(PaperType paper, double theta0, double v0, double
   if (std::abs(ln_ratio) < 1e-6) return 0.5 * (v0 + v1);  // the two means agree to 1e-13 here
   return (v1 - v0) / ln_ratio;
 }
+// Normal insulation life (hours) of IEEE C57.91 Table 1 in the tables in force.
+double c57_91_normal_life_hours();
+
 // Name and source of the rate used for a paper type.
 std::string ageing_rate_source(PaperType paper);
 

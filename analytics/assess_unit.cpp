@@ -1,6 +1,7 @@
 #include "analytics/assess_unit.h"
 
 #include "analytics/action_plan.h"
+#include "analytics/standard_tables.h"
 
 namespace ferrum::analytics {
 
@@ -14,6 +15,8 @@ UnitAssessment assess_unit(const UnitData& data, Day as_of, const AssessmentOpti
   score_health(options.health, a);
   estimate_remaining_life(options.life, a);
   finalize_actions(a);
+  for (const TableInfo& t : standard_tables().info)
+    a.tables.push_back({t.title(), t.status_text(), t.origin, t.status == kStatusUnverified});
   return a;
 }
 

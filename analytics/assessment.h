@@ -176,6 +176,15 @@ struct DataFreshness {
   std::optional<double> age_years;
 };
 
+// A table of a standard behind the assessment, with its audit status
+// (analytics/standard_tables.h).
+struct TableNote {
+  std::string title;   // standard, edition, table or clause
+  std::string status;  // "unverified", "checked against a public reproduction (...)", ...
+  std::string origin;  // "embedded" or the site's copy, e.g. "tables/iec60599.csv"
+  bool unverified = false;
+};
+
 struct UnitAssessment {
   UnitInfo unit;
   Day as_of = 0;
@@ -200,6 +209,7 @@ struct UnitAssessment {
   std::vector<DataFreshness> freshness;
   std::vector<std::string> methods;      // every method applied, with its source
   std::vector<std::string> assumptions;  // defaulted parameters, missing ambient, ...
+  std::vector<TableNote> tables;         // the standard tables in force, with their status
   // Gas history for the trend chart: one entry per sample.
   struct GasHistoryPoint {
     Day date = 0;

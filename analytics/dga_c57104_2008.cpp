@@ -3,21 +3,10 @@
 #include <cmath>
 #include <cstdio>
 
+#include "analytics/standard_tables.h"
+
 namespace ferrum::analytics {
 namespace {
-
-// Upper bounds (ppm) of Conditions 1, 2 and 3 in IEEE C57.104-2008 Table 1,
-// in kAllGases order. Condition 4 is anything above the third bound.
-constexpr std::array<std::array<double, 3>, 7> kGasBounds = {{
-    {100, 700, 1800},     // H2
-    {120, 400, 1000},     // CH4
-    {65, 100, 150},       // C2H6
-    {50, 100, 200},       // C2H4
-    {1, 9, 35},           // C2H2
-    {350, 570, 1400},     // CO
-    {2500, 4000, 10000},  // CO2
-}};
-constexpr std::array<double, 3> kTdcgBounds = {720, 1920, 4630};
 
 int level_of(double ppm, const std::array<double, 3>& bounds) {
   for (int i = 0; i < 3; ++i)
@@ -31,35 +20,13 @@ std::string describe(const char* what, double ppm, int condition) {
   return buf;
 }
 
-struct Table3Row {
-  const char* interval[3];  // rate >30, 10-30, <10
-  int days[3];
-  const char* action_fast;  // rate >30 and 10-30 (the procedure cells span both rows)
-  const char* action_slow;  // rate <10 or unknown
-};
-
-// IEEE C57.104-2008 Table 3, rows for Conditions 1..4 (from memory).
-// The operating-procedure cells span the ">30" and "10-30 ppm/day" rows.
-constexpr Table3Row kTable3[4] = {
-    {{"monthly", "quarterly", "annual"}, {30, 91, 365},
-     "Exercise caution; analyse individual gases for cause; determine load dependence",
-     "Continue normal operation"},
-    {{"monthly", "monthly", "quarterly"}, {30, 30, 91},
-     "Exercise caution; analyse individual gases for cause; determine load dependence",
-     "Exercise caution; analyse individual gases for cause; determine load dependence"},
-    {{"weekly", "weekly", "monthly"}, {7, 7, 30},
-     "Exercise extreme caution; analyse individual gases for cause; plan an outage; advise the manufacturer",
-     "Exercise extreme caution; analyse individual gases for cause; plan an outage; advise the manufacturer"},
-    {{"daily", "daily", "weekly"}, {1, 1, 7},
-     "Consider removal from service; advise the manufacturer",
-     "Exercise extreme caution; analyse individual gases for cause; plan an outage; advise the manufacturer"},
-};
-
 }  // namespace
 
-int c57104_2008_gas_condition(Gas gas, double ppm) { return level_of(ppm, kGasBounds[gas_index(gas)]); }
+int c57104_2008_gas_condition(Gas gas, double ppm) {
+  return level_of(ppm, standard_tables().c57104_2008.gas_bounds[gas_index(gas)]);
+}
 
-int c57104_2008_tdcg_condition(double tdcg) { return level_of(tdcg, kTdcgBounds); }
+int c57104_2008_tdcg_condition(double tdcg) { return level_of(tdcg, standard_tables().c57104_2008.tdcg_bounds); }
 
 std::optional<double> tdcg_ppm(const OilSample& sample) {
   double sum = 0;
@@ -132,10 +99,10 @@ C57104_2008Procedure c57104_2008_table3(int condition, std::optional<double> rat
   } else {
     p.rate_band = "<10";
   }
-  const Table3Row& row = kTable3[condition - 1];
-  p.interval = row.interval[column];
-  p.interval_days = row.days[column];
-  p.action = column <= 1 ? row.action_fast : row.action_slow;
+  const auto& cell = standard_tables().c57104_2008.table3[condition - 1][column];
+  p.interval = cell.interval;
+  p.interval_days = cell.days;
+  p.action = cell.procedure;
   if (condition == 1 && column == 2 && hv_kv >= options.ehv_threshold_kv) {
     p.interval = "6-monthly";
     p.interval_days = 182;

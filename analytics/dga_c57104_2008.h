@@ -26,6 +26,19 @@ namespace ferrum::analytics {
 
 inline constexpr const char* kC57104_2008Source = "IEEE C57.104-2008";
 
+// Tables 1 and 3 as data (analytics/data/ieee_c57104_2008.csv).
+struct C57104_2008Tables {
+  // Upper bounds (ppm) of Conditions 1, 2, 3 per gas (kAllGases order) and for TDCG.
+  std::array<std::array<double, 3>, 7> gas_bounds{};
+  std::array<double, 3> tdcg_bounds{};
+  struct Table3Cell {
+    std::string interval;  // "monthly", ...
+    int days = 0;
+    std::string procedure;
+  };
+  std::array<std::array<Table3Cell, 3>, 4> table3{};  // [condition - 1][rate >30, 10-30, <10]
+};
+
 // Condition (1..4) that a gas concentration reaches in Table 1. A value above
 // the upper bound of a condition falls in the next (e.g. H2 100 → 1, 100.5 → 2).
 int c57104_2008_gas_condition(Gas gas, double ppm);
@@ -73,7 +86,7 @@ struct C57104_2008Procedure {
   int interval_days = 0;   // 1, 7, 30, 91, 182, 365
   std::string action;      // the operating procedure, imperative
   std::string method = "TDCG sampling interval and operating procedure (Table 3)";
-  std::string source = "IEEE C57.104-2008 Table 3 (values from memory; verify)";
+  std::string source = "IEEE C57.104-2008 Table 3";
 };
 
 // Table 3 lookup. `condition` 1..4 (anything else: not applicable). A rate

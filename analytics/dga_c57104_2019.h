@@ -2,8 +2,8 @@
 // Mineral Oil-Immersed Transformers": DGA status 1/2/3 from gas levels
 // against the 90th / 95th percentile tables (chosen by O2/N2 ratio and the
 // unit's age) and from the change between consecutive samples and the rate
-// of change (structure and values from memory; see analytics/data/ieee_c57104_2019_tables.csv
-// for the cells checked against a public reproduction).
+// of change (structure from memory; the tables are data with their audit
+// status in analytics/data/ieee_c57104_2019.csv).
 //   Table 1: 90th-percentile concentrations; Table 2: 95th percentiles;
 //   Table 3: 95th percentile of the change between consecutive samples;
 //   Table 4: 95th percentile of the rate (ppm/year) over 3–6 samples.
@@ -13,9 +13,9 @@
 //   Status 2: a gas above Table 1 (at most Table 2) without change, or at most
 //             Table 1 with a change/rate above Table 3/4;
 //   Status 1: otherwise. Any real C2H2 increase is significant ("any").
-// The tables are data (analytics/data/ieee_c57104_2019_tables.csv, values
-// from memory and unverified, embedded in the binary); a corrected copy can
-// be parsed with parse_c57104_2019_tables. Units: ppm, ppm/year.
+// The tables are data (analytics/data/ieee_c57104_2019.csv, embedded in the
+// binary; a site's corrected copy replaces it, see standard_tables.h).
+// Units: ppm, ppm/year.
 // Validity: mineral-oil main tanks; O2/N2 unknown → the stricter of the two
 // table rows, gas by gas; age unknown → the "unknown age" rows.
 #pragma once
@@ -48,15 +48,15 @@ struct C57104_2019Tables {
 
 struct C57104_2019TablesParse {
   std::optional<C57104_2019Tables> tables;
-  int error_line = 0;  // 1-based line of the first error (0 when fine)
+  int error_line = 0;    // 1-based line of the first error (0 when fine)
+  int error_column = 0;  // 1-based column (field) of the first error
   std::string error;
 };
 
-// Parses the CSV text (comment lines start with '#'; header
-// "table,o2n2,age,H2,CH4,C2H6,C2H4,C2H2,CO,CO2"). Every row of every table
-// must be present exactly once.
+// Parses a whole ieee_c57104_2019.csv in the table-file format
+// (standard_tables.h). Every row of every table must be present exactly once.
 C57104_2019TablesParse parse_c57104_2019_tables(std::string_view text);
-// The text compiled into the binary, and its parsed form.
+// The text compiled into the binary, and the tables in force.
 std::string_view default_c57104_2019_tables_text();
 const C57104_2019Tables& default_c57104_2019_tables();
 
@@ -71,7 +71,7 @@ struct C57104_2019Status {
   std::string o2n2_group;     // "<= 0.2", "> 0.2", "unknown (stricter of both)"
   std::string age_group;      // "unknown", "1-9", "10-30", ">30"
   std::string method = "DGA status from 90th/95th percentile norms and rates";
-  std::string source = "IEEE C57.104-2019 Tables 1-4 (values from memory; verify against a licensed copy)";
+  std::string source = "IEEE C57.104-2019 Tables 1-4";
 };
 
 // `history`: main-tank samples, any order; the latest is assessed, the one

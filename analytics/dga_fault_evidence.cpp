@@ -1,10 +1,19 @@
 #include "analytics/dga_fault_evidence.h"
 
+#include "analytics/standard_tables.h"
+
 #include <cstdio>
 
 #include "analytics/dga_gases.h"
 
 namespace ferrum::analytics {
+
+const TypicalGasSet& typical_gas_set_in_force() {
+  const Iec60599Tables& t = standard_tables().iec60599;
+  for (const TypicalGasSet& s : t.typical_sets)
+    if (s.id == t.typical_in_force) return s;
+  return t.typical_sets.at(0);  // the loader checks that the named set exists
+}
 
 FaultEvidence dga_fault_evidence(const OilSample& sample, const TypicalGasLevels& typical,
                                  bool rising) {

@@ -4,27 +4,39 @@
 // above its typical concentration or the gases are rising.
 //
 // Source: IEC 60599 (2015/2022) clause on the application of ratios, and its
-// Annex A typical (90 %) concentrations for power transformers without a
-// communicating OLTC (IEC 60599:2007 Annex A; values from memory, low
-// confidence). The lower end of each published range is
-// the default, so that a method is applied rather than withheld when in doubt.
+// Annex A typical (90 %) concentrations. Two sets are commonly reproduced;
+// both are data in analytics/data/iec60599.csv with their provenance, the one
+// in force is named there, and a site may set its own (ROOT/tables/). The
+// lower end of each range is the default, so that a method is applied rather
+// than withheld when in doubt.
 // Inputs in µL/L (ppm).
 #pragma once
 
+#include <array>
 #include <string>
 
 #include "analytics/unit_data.h"
 
 namespace ferrum::analytics {
 
+// One set of typical concentrations (ppm), gases in kAllGases order.
+struct TypicalGasSet {
+  std::string id;     // table id in iec60599.csv, e.g. "typical_values_b"
+  std::string label;  // its clause and edition, for sources
+  std::array<double, 7> low{}, high{};
+};
+
+// The set in force (iec60599.csv "typical_values_in_force").
+const TypicalGasSet& typical_gas_set_in_force();
+
 struct TypicalGasLevels {
-  // IEC 60599:2007 Annex A, no OLTC, lower end of the 90 % range (from memory).
-  double h2 = 60;
-  double ch4 = 40;
-  double c2h6 = 50;
-  double c2h4 = 60;
-  double c2h2 = 3;
-  std::string source = "IEC 60599 Annex A typical concentrations (lower end, no OLTC; from memory)";
+  // Lower end of the 90 % range of the set in force.
+  double h2 = typical_gas_set_in_force().low[0];
+  double ch4 = typical_gas_set_in_force().low[1];
+  double c2h6 = typical_gas_set_in_force().low[2];
+  double c2h4 = typical_gas_set_in_force().low[3];
+  double c2h2 = typical_gas_set_in_force().low[4];
+  std::string source = "IEC 60599 typical concentrations, lower end of " + typical_gas_set_in_force().label;
 };
 
 struct FaultEvidence {

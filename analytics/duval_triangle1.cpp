@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <cmath>
 
+#include "analytics/standard_tables.h"
+
 namespace ferrum::analytics {
 namespace {
 
@@ -55,23 +57,6 @@ bool owns_boundary_point(const std::string& code, const TrianglePercent& p) {
   return true;  // DT: everything the others leave
 }
 
-std::vector<DuvalZone> make_zones() {
-  // Vertices (%CH4, %C2H4, %C2H2), Akbari et al., Table II.
-  return {
-      {"PD", "partial discharges", {{98, 2, 0}, {100, 0, 0}, {98, 0, 2}}},
-      {"T3", "thermal fault above 700 °C", {{0, 85, 15}, {0, 100, 0}, {50, 50, 0}, {35, 50, 15}}},
-      {"T2", "thermal fault 300-700 °C", {{46, 50, 4}, {50, 50, 0}, {80, 20, 0}, {76, 20, 4}}},
-      {"D2", "discharges of high energy",
-       {{0, 23, 77}, {0, 71, 29}, {31, 40, 29}, {47, 40, 13}, {64, 23, 13}}},
-      {"T1", "thermal fault below 300 °C",
-       {{76, 20, 4}, {80, 20, 0}, {98, 2, 0}, {98, 0, 2}, {96, 0, 4}}},
-      {"D1", "discharges of low energy", {{0, 0, 100}, {0, 23, 77}, {64, 23, 13}, {87, 0, 13}}},
-      {"DT", "mixture of thermal and electrical faults",
-       {{0, 71, 29}, {0, 85, 15}, {35, 50, 15}, {46, 50, 4}, {96, 0, 4}, {87, 0, 13}, {47, 40, 13},
-        {31, 40, 29}}},
-  };
-}
-
 }  // namespace
 
 PlotPoint duval_triangle_plot_point(const TrianglePercent& p) {
@@ -82,10 +67,7 @@ bool duval_zone_contains(const DuvalZone& zone, const TrianglePercent& p) {
   return contains(zone.vertices, p);
 }
 
-const std::vector<DuvalZone>& duval_triangle1_zones() {
-  static const std::vector<DuvalZone> zones = make_zones();
-  return zones;
-}
+const std::vector<DuvalZone>& duval_triangle1_zones() { return standard_tables().duval_zones; }
 
 std::string duval_triangle1_zone(const TrianglePercent& p) {
   std::vector<const DuvalZone*> candidates;

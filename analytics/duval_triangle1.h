@@ -3,8 +3,7 @@
 //
 // Source: M. Duval; zone vertices as tabulated by Akbari, Setayeshmehr, Borsi,
 // Gockenbach, "Software Implementation of the Duval Triangle", Table II
-// (checked against the published table); the same polygons appear in the IEEE
-// C57.104-2019 annex and IEC 60599 (from memory).
+// (checked against the published table; data in analytics/data/duval_triangle1.csv).
 //
 // Inputs: CH4, C2H4, C2H2 in µL/L (ppm); below-detection-limit gases count as 0.
 // Output: %CH4, %C2H4, %C2H2 of their sum, the Cartesian plotting point
@@ -45,8 +44,8 @@ struct DuvalZone {
   std::vector<TrianglePercent> vertices;  // published vertices, in order
 };
 
-// The seven zone polygons, for drawing and for classification; DT (the
-// remainder) last.
+// The seven zone polygons of the tables in force (standard_tables.h), for
+// drawing and for classification; DT (the remainder) last.
 const std::vector<DuvalZone>& duval_triangle1_zones();
 
 // Closed containment (edges and vertices included) of a point in a zone.

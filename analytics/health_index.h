@@ -19,8 +19,9 @@
 // the top of a band; the contributions are scaled so that they still sum to
 // the index, and the triggering factor's detail says so.
 //
-// Every weight and band below is from memory of the paper (medium/low
-// confidence: verify against the paper before relying on them).
+// The weights and score cuts are data with their audit status
+// (analytics/data/health_index.csv, from memory of the paper: verify against
+// the paper before relying on them).
 // Where the paper has no table for a factor ferrum scores (thermal history,
 // infrared, inspection, age as a separate factor), the default is ferrum's own
 // and its source string says so. A site overrides any value in ferrum.ini.
@@ -33,6 +34,7 @@
 #pragma once
 
 #include <array>
+#include <map>
 #include <optional>
 #include <string>
 #include <vector>
@@ -66,6 +68,19 @@ struct OilScoreBands {
 // higher-is-better values (DP) the comparisons are ">".
 using RatingCuts = std::array<double, 4>;
 
+// The data of analytics/data/health_index.csv; the defaults of
+// HealthIndexOptions are read from the tables in force.
+struct HealthIndexTables {
+  std::map<std::string, double> weights;     // by factor name
+  std::vector<GasScoreBands> gas_bands;
+  std::vector<OilScoreBands> oil_bands;
+  std::map<std::string, RatingCuts> cuts;    // "dga", "oil", "furan_ppm", "dp", "ageing_factor", "age"
+};
+double health_index_weight(const char* factor);
+RatingCuts health_index_cuts(const char* factor);
+const std::vector<GasScoreBands>& health_index_gas_bands();
+const std::vector<OilScoreBands>& health_index_oil_bands();
+
 // A condition band of the index.
 struct HealthBand {
   double lower = 0;            // HI > lower (the bottom band also includes 0). Edges
@@ -85,60 +100,44 @@ struct SevereCap {
 
 struct HealthIndexOptions {
   std::string source =
-      "Jahromi et al., IEEE Electrical Insulation Magazine 25(2), 2009, weighted health index "
-      "(weights and bands from memory, verify against the paper); worst-indicator cap per "
-      "CIGRE TB 761 (2019)";
+      "Jahromi et al., IEEE Electrical Insulation Magazine 25(2), 2009, weighted health index; "
+      "worst-indicator cap per CIGRE TB 761 (2019)";
 
   // Factor weights K_j. Jahromi's main-tank weights: DGA 10, load history 10,
   // oil quality 6, infrared 8, overall condition 8, furan/age 5.
-  double weight_dga = 10;
-  double weight_thermal = 10;      // the paper's "load history"
-  double weight_oil_quality = 6;
-  double weight_paper = 5;         // the paper's "furan/age", furans used here
-  double weight_infrared = 8;
-  double weight_inspection = 8;    // the paper's "overall condition"
+  double weight_dga = health_index_weight("dga");
+  double weight_thermal = health_index_weight("thermal");      // the paper's "load history"
+  double weight_oil_quality = health_index_weight("oil_quality");
+  double weight_paper = health_index_weight("paper");         // the paper's "furan/age", furans used here
+  double weight_infrared = health_index_weight("infrared");
+  double weight_inspection = health_index_weight("inspection");    // the paper's "overall condition"
   // The paper folds age into "furan/age". ferrum scores age separately with a
   // small weight of its own so that furans keep their published weight.
-  double weight_age = 2;
+  double weight_age = health_index_weight("age");
 
   // DGA per-gas scores S 1..6 and weights W (Jahromi Table for DGA factor).
-  std::vector<GasScoreBands> gas_bands{
-      {"H2", 2, {100, 200, 300, 500, 700}},
-      {"CH4", 3, {75, 125, 200, 400, 600}},
-      {"C2H6", 3, {65, 80, 100, 120, 150}},
-      {"C2H4", 3, {50, 80, 100, 150, 200}},
-      {"C2H2", 5, {3, 7, 35, 50, 80}},
-      {"CO", 1, {350, 700, 900, 1100, 1400}},
-      {"CO2", 1, {2500, 3000, 4000, 5000, 7000}},
-  };
-  RatingCuts dga_cuts{1.2, 1.5, 2.0, 3.0};  // DGAF: A < 1.2, B < 1.5, C < 2.0, D < 3.0, E >= 3.0
+  std::vector<GasScoreBands> gas_bands = health_index_gas_bands();
+  RatingCuts dga_cuts = health_index_cuts("dga");  // DGAF: A < 1.2, B < 1.5, C < 2.0, D < 3.0, E >= 3.0
 
   // Oil-quality scores S 1..4 and weights (Jahromi oil-quality table; the
   // score-1 limits are better remembered than the score-2/3 limits; all from memory).
-  std::vector<OilScoreBands> oil_bands{
-      {"moisture", 4, false, {30, 35, 40}, {20, 25, 30}, {15, 20, 25}},
-      {"breakdown", 3, true, {45, 35, 30}, {52, 47, 35}, {60, 50, 40}},
-      {"pf25", 3, false, {0.1, 0.5, 1.0}, {0.1, 0.5, 1.0}, {0.1, 0.5, 1.0}},
-      {"ift", 2, true, {25, 20, 15}, {30, 23, 18}, {32, 25, 20}},
-      {"color", 2, false, {1.5, 2.0, 2.5}, {1.5, 2.0, 2.5}, {1.5, 2.0, 2.5}},
-      {"acidity", 1, false, {0.05, 0.10, 0.20}, {0.04, 0.10, 0.15}, {0.03, 0.07, 0.10}},
-  };
-  RatingCuts oil_cuts{1.2, 1.5, 2.0, 3.0};  // rating bands as for DGAF (low confidence)
+  std::vector<OilScoreBands> oil_bands = health_index_oil_bands();
+  RatingCuts oil_cuts = health_index_cuts("oil");  // rating bands as for DGAF (low confidence)
   // The paper's breakdown limits are for ASTM D1816 with a 2 mm gap; a
   // breakdown check whose source does not name a 2 mm gap is left out.
   bool breakdown_needs_2mm_gap = true;
 
   // Furan factor on 2-FAL in ppm: A < 0.1, B < 0.25, C < 0.5, D < 1.0, E >= 1.0.
-  RatingCuts furan_ppm_cuts{0.1, 0.25, 0.5, 1.0};
+  RatingCuts furan_ppm_cuts = health_index_cuts("furan_ppm");
   // Without furans, the DP estimate is rated on the same cuts translated to DP
   // with Chendong's log10(2FAL) = 1.51 - 0.0035 DP: A > 717, B > 603, C > 517,
   // D > 431, E below (computed; Chendong 1991 from memory).
-  RatingCuts dp_cuts{717, 603, 517, 431};
+  RatingCuts dp_cuts = health_index_cuts("dp");
 
   // Thermal history (ferrum's own scale; the paper's load-history table is not
   // used): equivalent ageing factor F_EQA over the load record.
   // A < 0.5, B < 1.0 (below normal ageing), C < 2.0, D < 4.0, E above.
-  RatingCuts ageing_factor_cuts{0.5, 1.0, 2.0, 4.0};
+  RatingCuts ageing_factor_cuts = health_index_cuts("ageing_factor");
   // Any hour above the normal cyclic hot-spot limit caps the rating at B, above
   // the long-time emergency limit at C, above the short-time emergency limit
   // at D (ferrum's own rule).
@@ -152,7 +151,7 @@ struct HealthIndexOptions {
   // very_poor/unsafe -> A/B/C/D/E.
 
   // Age (ferrum's own bands, years): A < 20, B < 35, C < 45, D < 55, E above.
-  RatingCuts age_cuts{20, 35, 45, 55};
+  RatingCuts age_cuts = health_index_cuts("age");
 
   // Bands of the index (Jahromi's HI -> condition -> expected life table, plain
   // names of ferrum's own). Ordered best first.

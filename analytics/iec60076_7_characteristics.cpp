@@ -6,21 +6,12 @@
 #include <cstdio>
 #include <optional>
 
+#include "analytics/standard_tables.h"
+
 namespace ferrum::analytics {
 namespace {
 
 constexpr const char* kTableSource = "IEC 60076-7:2005 Table 5";
-
-// IEC 60076-7:2005 Table 5, one row per column of the standard (from memory;
-// the ONAF and distribution columns and ONAN k21 checked against a public reproduction). Order follows IecCoolingClass.
-//                                    x    y    R   k11  k21  k22 τo   τw  Δθor H·gr
-constexpr std::array<IecThermalParameters, 5> kTable5 = {{
-    {0.8, 1.6, 5, 1.0, 1.0, 2.0, 180, 4, 55, 23},  // ONAN distribution (<= 2.5 MVA)
-    {0.8, 1.3, 6, 0.5, 2.0, 2.0, 210, 10, 52, 26},  // ONAN medium and large (k21 = 2.0 in the 2005 edition)
-    {0.8, 1.3, 6, 0.5, 2.0, 2.0, 150, 7, 52, 26},   // ONAF
-    {1.0, 1.3, 6, 1.0, 1.3, 1.0, 90, 7, 56, 22},    // OF
-    {1.0, 2.0, 6, 1.0, 1.0, 1.0, 90, 7, 49, 29},    // OD
-}};
 
 constexpr double kDistributionLimitMva = 2.5;
 
@@ -88,7 +79,7 @@ IecCoolingClass iec_cooling_class(const std::string& cooling, double rated_mva, 
 }
 
 IecThermalParameters iec_recommended_parameters(IecCoolingClass c) {
-  return kTable5[static_cast<std::size_t>(c)];
+  return standard_tables().iec60076_7_table5[static_cast<std::size_t>(c)];
 }
 
 ResolvedIecParameters resolve_iec_parameters(const UnitInfo& unit) {

@@ -2,11 +2,11 @@
 // by cooling class, and their replacement by a unit's register data.
 //
 // Source: IEC 60076-7:2005 "Loading guide for oil-immersed power
-// transformers", Tables 4-5 (values from memory, medium-high confidence;
-// ONAN medium/large k21 = 2.0 checked against a public reproduction). The 2018 edition changed some k21 values
-// for restricted/non-restricted oil flow; those are not held here.
-// The table is kept in one place (iec60076_7_characteristics.cpp) so that it
-// can be audited and corrected against a licensed copy.
+// transformers", Table 5, kept as data with its audit status in
+// analytics/data/iec60076_7.csv (ONAN distribution and ONAF columns and ONAN
+// medium/large k21 = 2.0 checked against a public reproduction, the rest from
+// memory). The 2018 edition changed some k21 values for restricted /
+// non-restricted oil flow; those are not held here.
 //
 // Units: exponents dimensionless; time constants in minutes; rises and
 // gradients in kelvin; R = load losses at rated current / no-load losses.
@@ -53,7 +53,7 @@ struct ResolvedIecParameters {
 // unrecognised string gives medium/large ONAN and cooling_known = false.
 IecCoolingClass iec_cooling_class(const std::string& cooling, double rated_mva, bool* known = nullptr);
 
-// The table's recommended values for one column.
+// The table's recommended values for one column (the tables in force).
 IecThermalParameters iec_recommended_parameters(IecCoolingClass c);
 
 // Table values, replaced by the unit's register data where given

@@ -1,38 +1,11 @@
 #include "analytics/iec60599_ratios.h"
 
-#include <cmath>
-#include <limits>
 
 #include "analytics/dga_gases.h"
+#include "analytics/standard_tables.h"
 
 namespace ferrum::analytics {
 namespace {
-
-constexpr double kInf = std::numeric_limits<double>::infinity();
-
-// Inclusive range; lo = -inf / hi = +inf for open-ended rows.
-struct Range {
-  double lo = -kInf, hi = kInf;
-  bool holds(double v) const { return v >= lo && v <= hi; }
-};
-// Strict bounds of the table ("< 0.1", "> 1") use the next representable value.
-double below(double v) { return std::nextafter(v, -kInf); }
-double above(double v) { return std::nextafter(v, kInf); }
-
-struct Row {
-  const char* code;
-  const char* name;
-  Range c2h2_c2h4, ch4_h2, c2h4_c2h6;
-};
-
-const Row kRows[] = {
-    {"PD", "partial discharges", {}, {-kInf, below(0.1)}, {-kInf, below(0.2)}},
-    {"D1", "discharges of low energy", {above(1), kInf}, {0.1, 0.5}, {above(1), kInf}},
-    {"D2", "discharges of high energy", {0.6, 2.5}, {0.1, 1}, {above(2), kInf}},
-    {"T1", "thermal fault below 300 °C", {}, {above(1), kInf}, {-kInf, below(1)}},
-    {"T2", "thermal fault 300-700 °C", {-kInf, below(0.1)}, {above(1), kInf}, {1, 4}},
-    {"T3", "thermal fault above 700 °C", {-kInf, below(0.2)}, {above(1), kInf}, {above(4), kInf}},
-};
 
 // Ratio of two readings: undefined unless the denominator is measured > 0.
 std::optional<double> ratio(const LabValue& num, const LabValue& den) {
@@ -50,8 +23,8 @@ Iec60599Result iec60599_classify(const Iec60599Ratios& r) {
     return out;
   }
   out.applicable = true;
-  const Row* chosen = nullptr;
-  for (const Row& row : kRows) {
+  const Iec60599RatioRow* chosen = nullptr;
+  for (const Iec60599RatioRow& row : standard_tables().iec60599.ratios) {
     if (row.c2h2_c2h4.holds(*r.c2h2_c2h4) && row.ch4_h2.holds(*r.ch4_h2) &&
         row.c2h4_c2h6.holds(*r.c2h4_c2h6)) {
       out.matches.push_back(row.code);
@@ -63,7 +36,7 @@ Iec60599Result iec60599_classify(const Iec60599Ratios& r) {
     return out;
   }
   out.fault = chosen->code;
-  out.reading = std::string(chosen->code) + ": " + chosen->name;
+  out.reading = chosen->code + ": " + chosen->name;
   if (out.matches.size() > 1) out.reading += " (ratios also match D1; D2 reported as the more severe)";
   return out;
 }

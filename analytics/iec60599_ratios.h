@@ -1,8 +1,8 @@
 // IEC 60599 basic gas ratios: fault type from C2H2/C2H4, CH4/H2 and
 // C2H4/C2H6.
 //
-// Source: IEC 60599 (2015/2022 editions) Table 1 (values from memory; they
-// match a secondary listing):
+// Source: IEC 60599 (2015/2022 editions) Table 1 (checked against a public
+// reproduction; the table is data in analytics/data/iec60599.csv):
 //   PD  partial discharges          C2H2/C2H4 NS       CH4/H2 < 0.1     C2H4/C2H6 < 0.2
 //   D1  low-energy discharges       > 1                0.1 – 0.5        > 1
 //   D2  high-energy discharges      0.6 – 2.5          0.1 – 1          > 2
@@ -29,6 +29,25 @@
 
 namespace ferrum::analytics {
 
+// One row of Table 1: each ratio's closed range [lo, hi]; a strict bound of
+// the table ("< 0.1") is held as the next representable value, NS as
+// [-inf, +inf].
+struct RatioRange {
+  double lo = 0, hi = 0;
+  bool holds(double v) const { return v >= lo && v <= hi; }
+};
+struct Iec60599RatioRow {
+  std::string code, name;
+  RatioRange c2h2_c2h4, ch4_h2, c2h4_c2h6;
+};
+
+// The data of analytics/data/iec60599.csv.
+struct Iec60599Tables {
+  std::vector<Iec60599RatioRow> ratios;   // in table order
+  std::vector<TypicalGasSet> typical_sets;
+  std::string typical_in_force;           // id of the set in force
+};
+
 struct Iec60599Ratios {
   std::optional<double> c2h2_c2h4, ch4_h2, c2h4_c2h6;
 };
@@ -40,7 +59,7 @@ struct Iec60599Result {
   std::vector<std::string> matches;  // every row the ratios satisfy
   std::string reading;               // fault name, "no ratio match", or why no diagnosis
   std::string method = "IEC 60599 basic gas ratios";
-  std::string source = "IEC 60599 Table 1 (from memory; verify)";
+  std::string source = "IEC 60599 Table 1";
 };
 
 // Table lookup alone, for given ratios (all three required).

@@ -3,27 +3,10 @@
 #include <cmath>
 #include <cstdio>
 
+#include "analytics/standard_tables.h"
+
 namespace ferrum::analytics {
 namespace {
-
-struct Exponents {
-  double n, m;
-};
-
-Exponents table4_exponents(IecCoolingClass c) {
-  switch (c) {
-    case IecCoolingClass::onan_distribution:
-    case IecCoolingClass::onan: return {0.8, 0.8};
-    case IecCoolingClass::onaf:
-    // OFAF/OF: published reproductions disagree (n = 0.8 or 0.9). ferrum
-    // takes n = 0.9 as listed for forced-oil cooling in IEEE C57.91-2011
-    // Table 4 (from memory; verify), the more conservative of the two at
-    // overload (K > 1 gives a higher top-oil rise).
-    case IecCoolingClass::of: return {0.9, 0.8};
-    case IecCoolingClass::od: return {1.0, 1.0};
-  }
-  return {0.8, 0.8};
-}
 
 std::string describe(const char* name, double v, const char* origin) {
   char buf[160];
@@ -35,7 +18,7 @@ std::string describe(const char* name, double v, const char* origin) {
 
 ResolvedIeeeParameters resolve_ieee_parameters(const ResolvedIecParameters& iec) {
   ResolvedIeeeParameters out;
-  const Exponents e = table4_exponents(iec.cooling_class);
+  const C5791Exponents e = standard_tables().c57_91_exponents[static_cast<std::size_t>(iec.cooling_class)];
   auto& p = out.p;
   p = {e.n, e.m, iec.p.r, iec.p.tau_o_min, iec.p.tau_w_min, iec.p.top_oil_rise_k, iec.p.hot_spot_gradient_k};
   const std::string table4 = std::string("IEEE C57.91-2011 Table 4, ") + to_string(iec.cooling_class);

@@ -45,9 +45,10 @@ struct ResolvedIeeeParameters {
   std::vector<std::string> sources;
 };
 
-// n/m for the cooling class (C57.91-2011 Table 4, from memory:
-// ONAN 0.8/0.8, ONAF and OF 0.9/0.8, OD 1.0/1.0; for OFAF sources give
-// n = 0.8 or 0.9, ferrum takes 0.9 from C57.91-2011 Table 4); rises, R and time
+// n/m for the cooling class (C57.91-2011 Table 4, data in
+// analytics/data/ieee_c57_91.csv: ONAN 0.8/0.8, ONAF and OF 0.9/0.8, OD
+// 1.0/1.0; for OFAF sources give n = 0.8 or 0.9, ferrum takes 0.9 from
+// C57.91-2011 Table 4); rises, R and time
 // constants from the resolved IEC parameters (register data or IEC table).
 ResolvedIeeeParameters resolve_ieee_parameters(const ResolvedIecParameters& iec);
 

@@ -7,6 +7,8 @@
 #include <cstdio>
 #include <map>
 
+#include "analytics/standard_tables.h"
+
 namespace ferrum::analytics {
 namespace {
 
@@ -47,20 +49,22 @@ std::string lower(std::string s) {
 
 }  // namespace
 
+namespace {
+// First row of the ΔT table (tables in force) whose upper end holds the rise;
+// 0 below the first row.
+int priority_from_rows(const std::vector<DeltaTRow>& rows, double rise) {
+  if (rows.empty() || !(rise >= rows.front().rise_from_c)) return 0;
+  for (const DeltaTRow& r : rows)
+    if (rise <= r.rise_to_c) return r.priority;
+  return rows.back().priority;
+}
+}  // namespace
+
 int neta_priority_over_reference(double rise) {
-  if (!(rise >= 1)) return 0;
-  if (rise <= 3) return 4;
-  if (rise <= 15) return 3;
-  return 1;
+  return priority_from_rows(standard_tables().delta_t_reference, rise);
 }
 
-int neta_priority_over_ambient(double rise) {
-  if (!(rise >= 1)) return 0;
-  if (rise <= 10) return 4;
-  if (rise <= 20) return 3;
-  if (rise <= 40) return 2;
-  return 1;
-}
+int neta_priority_over_ambient(double rise) { return priority_from_rows(standard_tables().delta_t_ambient, rise); }
 
 double rise_at_rated_load(double rise_k, double load_pct, double exponent) {
   return rise_k * std::pow(100.0 / load_pct, exponent);

@@ -21,10 +21,15 @@
 
 namespace ferrum::analytics {
 
+// Hot-spot limit of IEC 60076-7 Table 4 in the tables in force
+// (analytics/data/iec60076_7.csv): 0 normal cyclic, 1 long-time emergency,
+// 2 short-time emergency loading.
+double iec60076_7_hot_spot_limit_c(int loading);
+
 struct LoadingLimits {
-  double normal_cyclic_c = 120;    // IEC 60076-7 Table 4, normal cyclic loading
-  double long_emergency_c = 140;   // long-time emergency loading
-  double short_emergency_c = 160;  // short-time emergency loading (medium/large units)
+  double normal_cyclic_c = iec60076_7_hot_spot_limit_c(0);    // IEC 60076-7 Table 4, normal cyclic loading
+  double long_emergency_c = iec60076_7_hot_spot_limit_c(1);   // long-time emergency loading
+  double short_emergency_c = iec60076_7_hot_spot_limit_c(2);  // short-time emergency loading (medium/large units)
   double nameplate_pu = 1.0;       // load counted as "above nameplate" above this
 };
 

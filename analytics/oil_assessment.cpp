@@ -289,8 +289,6 @@ void assess_oil(const UnitData& data, Day as_of, const OilOptions& o, UnitAssess
   out.active_arcing = w.summary.active_arcing;
   out.methods.insert(out.methods.end(), w.methods.begin(), w.methods.end());
   dga_actions(w, as_of, o, out);
-  if (!o.c57104_2019_tables)
-    out.assumptions.push_back("IEEE C57.104-2019 tables: embedded placeholder values from memory, not verified");
   if (data.info.year_built <= 0) out.assumptions.push_back("unit age unknown: C57.104-2019 'unknown age' rows used");
   out.assumptions.push_back("gases below the detection limit counted as 0 ppm in sums, rates and the gas history");
   assess_quality(samples, data.info, as_of, o, out);

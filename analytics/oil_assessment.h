@@ -30,7 +30,7 @@ namespace ferrum::analytics {
 
 struct OilOptions {
   // IEEE C57.104-2019 tables; nullopt = the embedded default
-  // (analytics/data/ieee_c57104_2019_tables.csv, values from memory).
+  // (analytics/data/ieee_c57104_2019.csv, or the site's copy in force).
   std::optional<C57104_2019Tables> c57104_2019_tables;
   GasTrendOptions trend;              // recent samples for rates: 3-6 over 4-24 months
   TypicalGasLevels typical;           // precondition of ratio / triangle / key-gas methods

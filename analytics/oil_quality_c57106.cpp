@@ -3,28 +3,22 @@
 #include <algorithm>
 #include <array>
 #include <cctype>
+#include <stdexcept>
+
+#include "analytics/standard_tables.h"
 
 namespace ferrum::analytics {
 namespace {
 
 constexpr const char* kClassNames[3] = {"<= 69 kV", "69-230 kV", ">= 230 kV"};
 
-struct Limit {
-  const char* test;
-  const char* unit;
-  bool is_min;
-  std::array<double, 3> by_class;  // ≤69, 69–230, ≥230 kV
-};
-
-// IEEE C57.106 suggested limits for service-aged oil (from memory).
-constexpr Limit kMoisture{"moisture", "mg/kg", false, {35, 25, 20}};
-constexpr Limit kAcidity{"acidity", "mg KOH/g", false, {0.20, 0.15, 0.10}};
-constexpr Limit kIft{"ift", "mN/m", true, {25, 30, 32}};
-constexpr Limit kPf25{"pf25", "%", false, {0.5, 0.5, 0.5}};
-constexpr Limit kPf100{"pf100", "%", false, {5.0, 5.0, 5.0}};
-constexpr Limit kColor{"color", "ASTM D1500", false, {3.5, 3.5, 3.5}};
-constexpr std::array<double, 3> kD1816_1mm = {23, 28, 30};
-constexpr std::array<double, 3> kD1816_2mm = {40, 47, 50};
+// The limits row of a test in the tables in force; the loader checks that
+// every test below is present.
+const C57106Limit& limit_of(const char* test) {
+  for (const C57106Limit& l : standard_tables().c57106)
+    if (l.test == test) return l;
+  throw std::logic_error(std::string("C57.106 limits table has no row for ") + test);
+}
 
 std::string normalise(const std::string& s) {
   std::string out;
@@ -50,12 +44,11 @@ void apply_limit(OilCheck& c, double limit, bool is_min, std::string source) {
 }
 
 std::string c57106_source(int cls) {
-  return std::string("IEEE C57.106-2015 service-aged oil limits, ") + kClassNames[cls] +
-         " (from memory; verify)";
+  return std::string("IEEE C57.106-2015 service-aged oil limits, ") + kClassNames[cls];
 }
 
-OilCheck tabulated_check(const Limit& l, const LabValue& v, std::optional<int> cls) {
-  OilCheck c = make_check(l.test, l.unit, v);
+OilCheck tabulated_check(const C57106Limit& l, const LabValue& v, std::optional<int> cls) {
+  OilCheck c = make_check(l.test.c_str(), l.unit.c_str(), v);
   if (v.is_below_limit()) {
     // Below the lab's detection limit: within any maximum.
     c.value = std::isfinite(v.value) ? std::optional<double>(v.value) : std::nullopt;
@@ -82,7 +75,7 @@ OilCheck breakdown_check(const OilSample& s, double hv_kv, std::optional<int> cl
         break;
       }
       const bool one_mm = parse_breakdown_method(s.breakdown_method) == BreakdownMethod::astm_d1816_1mm;
-      apply_limit(c, (one_mm ? kD1816_1mm : kD1816_2mm)[*cls], true,
+      apply_limit(c, limit_of(one_mm ? "breakdown_d1816_1mm" : "breakdown_d1816_2mm").by_class[*cls], true,
                   c57106_source(*cls) + (one_mm ? ", ASTM D1816 1 mm gap" : ", ASTM D1816 2 mm gap"));
       break;
     }
@@ -161,11 +154,11 @@ OilQualityResult assess_oil_quality_c57106(const OilSample& s, double hv_kv) {
   OilQualityResult r;
   const std::optional<int> cls = c57106_voltage_class(hv_kv);
   if (!cls) r.notes.push_back("HV rating unknown: C57.106 voltage class cannot be chosen");
-  const std::pair<const Limit*, const LabValue*> tabulated[] = {
-      {&kMoisture, &s.moisture_ppm}, {&kAcidity, &s.acidity_mgkoh_g}, {&kIft, &s.ift_mn_m},
-      {&kPf25, &s.pf25_pct},         {&kPf100, &s.pf100_pct},         {&kColor, &s.color}};
-  for (const auto& [limit, value] : tabulated)
-    if (value->present()) r.checks.push_back(tabulated_check(*limit, *value, cls));
+  const std::pair<const char*, const LabValue*> tabulated[] = {
+      {"moisture", &s.moisture_ppm}, {"acidity", &s.acidity_mgkoh_g}, {"ift", &s.ift_mn_m},
+      {"pf25", &s.pf25_pct},         {"pf100", &s.pf100_pct},         {"color", &s.color}};
+  for (const auto& [test, value] : tabulated)
+    if (value->present()) r.checks.push_back(tabulated_check(limit_of(test), *value, cls));
   if (s.breakdown_kv.present()) r.checks.push_back(breakdown_check(s, hv_kv, cls));
   if (s.moisture_ppm.present())
     r.notes.push_back("water limit is a consensus value; it does not show the paper's dryness (C57.106 footnote)");

@@ -7,8 +7,9 @@
 //   Class II  fails dielectric breakdown and/or water → recondition (filter,
 //             vacuum dehydration);
 //   Class III fails IFT, power factor and/or neutralization number → reclaim.
-// Sources: limit values from memory of the C57.106 table (medium confidence);
-// footnotes and classes checked against public reproductions.
+// Sources: limit values from memory of the C57.106 table, kept as data with
+// their audit status in analytics/data/ieee_c57106.csv; footnotes and classes
+// checked against public reproductions.
 // Breakdown limits depend on method and gap:
 //   ASTM D1816 1 mm / 2 mm  → C57.106 (from memory);
 //   ASTM D877               → US Bureau of Reclamation minimum, 25 kV below
@@ -21,6 +22,7 @@
 // to act on the oil, it does not measure the paper's dryness.
 #pragma once
 
+#include <array>
 #include <optional>
 #include <string>
 #include <vector>
@@ -29,6 +31,16 @@
 #include "analytics/unit_data.h"
 
 namespace ferrum::analytics {
+
+// One row of the limits table (analytics/data/ieee_c57106.csv).
+struct C57106Limit {
+  std::string test;  // "moisture", "acidity", "ift", "pf25", "pf100", "color",
+                     // "breakdown_d1816_1mm", "breakdown_d1816_2mm"
+  std::string unit;
+  bool is_min = false;
+  std::array<double, 3> by_class{};  // ≤69, 69–230, ≥230 kV
+};
+using C57106Limits = std::vector<C57106Limit>;
 
 enum class BreakdownMethod { astm_d1816_1mm, astm_d1816_2mm, astm_d877, iec60156, unknown };
 

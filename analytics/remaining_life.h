@@ -38,6 +38,7 @@
 #include <string>
 #include <vector>
 
+#include "analytics/ageing_rate.h"
 #include "analytics/assessment.h"
 
 namespace ferrum::analytics {
@@ -48,7 +49,7 @@ struct RemainingLifeOptions {
   double end_of_life_dp = 200;       // checked in public sources
   double dp200_life_hours = 150000;  // IEEE C57.91-2011 Table 1, retained DP 200 (from memory)
   // Thermal.
-  double normal_insulation_life_hours = 180000;  // IEEE C57.91-2011 Table 1 (from memory)
+  double normal_insulation_life_hours = c57_91_normal_life_hours();  // IEEE C57.91-2011 Table 1
   double hours_per_year = 8766;                  // 365.25 d
   // Condition (exponential HI ageing).
   double hi_new = 100;

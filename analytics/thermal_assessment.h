@@ -13,6 +13,7 @@
 #include <span>
 #include <vector>
 
+#include "analytics/ageing_rate.h"
 #include "analytics/assessment.h"
 #include "analytics/infrared_severity.h"
 #include "analytics/inspection_findings.h"
@@ -30,7 +31,7 @@ struct ThermalOptions {
   InspectionOptions inspection;  // interval 365 days
   int summary_days = 365;        // window before as_of summarised in the assessment
   double discrepancy_threshold_k = 5;  // mean measured-minus-model top oil above this: cooling problem
-  double normal_life_h = 180000; // IEEE C57.91-2011 Table 1 (from memory), for % loss of life
+  double normal_life_h = c57_91_normal_life_hours();  // IEEE C57.91-2011 Table 1, for % loss of life
   double min_growth_span_days = 365;   // shortest history for a load-growth trend
   std::size_t chart_points = 400;      // most points per reduced chart series
   // Days until an infrared repair is due, by severity 1..4 (NETA priority 4..1).

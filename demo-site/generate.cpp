@@ -195,7 +195,7 @@ Day D(int y, int m, int d) { return days_from_civil(y, m, d); }
 // row is tuned to show. Gas end values are the as-of targets checked against
 // IEEE C57.104-2008 Table 1, Duval Triangle 1 and IEC 60599 Table 1. Units
 // without a gas story keep every gas within the C57.104-2019 Table 2 values
-// for free-breathing units (analytics/data/ieee_c57104_2019_tables.csv), and
+// for free-breathing units (analytics/data/ieee_c57104_2019.csv), and
 // most of them within Table 1, so that gases do not drown out their stories.
 const std::vector<Unit>& fleet() {
   static const std::vector<Unit> units = {

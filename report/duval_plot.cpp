@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 
+#include "analytics/duval_triangle1.h"
 #include "report/pdf_draw.h"
 #include "report/report_format.h"
 
@@ -23,20 +24,15 @@ Color zone_fill(const std::string& code) {
 }
 }  // namespace
 
-const std::vector<DuvalZone>& duval_triangle1_zones() {
-  // Zone vertices (CH4, C2H4, C2H2 %) as tabulated by Akbari et al., Table II,
-  // from the boundaries of M. Duval's Triangle 1 (IEC 60599:2015, Annex B).
-  static const std::vector<DuvalZone> zones = {
-      {"PD", {{98, 2, 0}, {100, 0, 0}, {98, 0, 2}}},
-      {"T1", {{76, 20, 4}, {80, 20, 0}, {98, 2, 0}, {98, 0, 2}, {96, 0, 4}}},
-      {"T2", {{46, 50, 4}, {50, 50, 0}, {80, 20, 0}, {76, 20, 4}}},
-      {"T3", {{0, 85, 15}, {0, 100, 0}, {50, 50, 0}, {35, 50, 15}}},
-      {"D1", {{0, 0, 100}, {0, 23, 77}, {64, 23, 13}, {87, 0, 13}}},
-      {"D2", {{0, 23, 77}, {0, 71, 29}, {31, 40, 29}, {47, 40, 13}, {64, 23, 13}}},
-      {"DT",
-       {{0, 71, 29}, {0, 85, 15}, {35, 50, 15}, {46, 50, 4}, {96, 0, 4}, {87, 0, 13}, {47, 40, 13},
-        {31, 40, 29}}},
-  };
+std::vector<DuvalZone> duval_triangle1_zones() {
+  // The zones of the analytics, from the tables in force
+  // (analytics/data/duval_triangle1.csv).
+  std::vector<DuvalZone> zones;
+  for (const analytics::DuvalZone& z : analytics::duval_triangle1_zones()) {
+    DuvalZone d{z.code, {}};
+    for (const auto& v : z.vertices) d.vertices.push_back({v.ch4, v.c2h4, v.c2h2});
+    zones.push_back(std::move(d));
+  }
   return zones;
 }
 

@@ -3,9 +3,8 @@
 //
 // Zone polygons: published vertices of Triangle 1 as (%CH4, %C2H4, %C2H2),
 // from Akbari, Setayeshmehr, Borsi, Gockenbach, "Software implementation of
-// the Duval Triangle", Table II (checked against
-// the published table);
-// the same polygons as IEEE C57.104-2019 Annex (from memory). Zone codes are
+// the Duval Triangle", Table II, read from the analytics' table
+// (analytics/data/duval_triangle1.csv). Zone codes are
 // the method's own: PD T1 T2 T3 D1 D2 DT. The zone of each sample comes from
 // the assessment; this file only plots.
 //
@@ -32,7 +31,8 @@ struct DuvalZone {
   std::vector<DuvalPercent> vertices;
 };
 
-const std::vector<DuvalZone>& duval_triangle1_zones();
+// The zones of analytics::duval_triangle1_zones() (the tables in force).
+std::vector<DuvalZone> duval_triangle1_zones();
 
 // Point in the unit triangle for percentages that need not sum to 100
 // (they are normalised first). Zero total gives the CH4 corner.

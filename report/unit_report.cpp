@@ -7,6 +7,7 @@
 #include "report/pdf_document.h"
 #include "report/report_format.h"
 #include "report/safety_block.h"
+#include "report/table_sources.h"
 #include "report/title_block.h"
 #include "report/unit_report_sections.h"
 
@@ -158,6 +159,7 @@ void summary_section(PageFlow& flow, const UnitAssessment& a, const UnitAssessme
   draw_line(flow.page(), flow.x(), flow.y() - 13, flow.x() + flow.width(), flow.y() - 13, palette::rule, 0.5);
   flow.space(19);
   flow.key_values(identity(a), 4);
+  unverified_tables_line(flow, a);
   health_block(flow, a, previous);
   remaining_life_line(flow, a);
   actions_table(flow, a);

@@ -7,6 +7,7 @@
 #include "report/duval_plot.h"
 #include "report/pdf_chart.h"
 #include "report/report_format.h"
+#include "report/table_sources.h"
 
 namespace ferrum::report {
 namespace {
@@ -357,6 +358,7 @@ void sources_section(PageFlow& flow, const UnitAssessment& a, const std::vector<
   flow.subsection("Methods and their published sources");
   if (a.methods.empty()) no_data_note(flow, "No method could be applied.");
   else flow.bullets(a.methods, type::small + 0.3);
+  standard_tables_subsection(flow, a);
   flow.subsection("Assumptions");
   if (a.assumptions.empty()) no_data_note(flow, "None recorded.");
   else flow.bullets(a.assumptions, type::small + 0.3);

@@ -80,6 +80,14 @@ const std::vector<CommandInfo>& commands() {
        "with the ±0.5 % band. With --tap-positions, --tap-nominal and --tap-step-pct: every tap (position\n"
        "1 the highest HV voltage), or only --tap N.",
        {"hv-kv", "lv-kv", "vector-group", "tap", "tap-positions", "tap-nominal", "tap-step-pct", "json"}},
+      {"tables", "ferrum tables [--root DIR] [--json | --export DIR]",
+       "list the standard tables the methods read, their audit status and the site's copies",
+       "Every table (standard, edition, table or clause) with its status: unverified, checked against a\n"
+       "public reproduction (where), or verified against the licensed standard (by whom, when), and\n"
+       "whether the site's corrected copy in ROOT/tables/ is used. A malformed site copy is named with\n"
+       "line and column (exit status 4); the embedded table stays in force. --export DIR writes the\n"
+       "table files in force to DIR for review.",
+       {"root", "json", "export"}},
   };
   return all;
 }
@@ -104,6 +112,7 @@ int run_command(const Invocation& inv) {
     if (inv.command == "dga") return cmd_dga(inv);
     if (inv.command == "thermal") return cmd_thermal(inv);
     if (inv.command == "ratio") return cmd_ratio(inv);
+    if (inv.command == "tables") return cmd_tables(inv);
   } catch (const UsageError& e) {
     std::cerr << "ferrum " << inv.command << ": " << e.what() << "\n";
     return kUsage;

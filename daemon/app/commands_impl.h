@@ -29,5 +29,6 @@ int cmd_rank(const Invocation& inv);
 int cmd_dga(const Invocation& inv);
 int cmd_thermal(const Invocation& inv);
 int cmd_ratio(const Invocation& inv);
+int cmd_tables(const Invocation& inv);
 
 }  // namespace ferrum::app

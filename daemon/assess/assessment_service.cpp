@@ -11,11 +11,14 @@
 #include <sstream>
 #include <thread>
 
+#include "daemon/assess/site_tables.h"
 #include "daemon/reporting/report_writer.h"
 
 namespace ferrum::assess {
 
 analytics::AssessmentOptions options_from_config(const config::SiteConfig& config, const site::SiteRoot* root) {
+  // The site's tables first: the options' defaults are read from the tables in force.
+  if (root) load_site_tables(*root);
   analytics::AssessmentOptions o;
   o.thermal.method = config.thermal_method == "ieee_c57_91" ? analytics::ThermalMethod::ieee_c57_91
                                                             : analytics::ThermalMethod::iec60076_7;
@@ -49,18 +52,6 @@ analytics::AssessmentOptions options_from_config(const config::SiteConfig& confi
     }
   }
   if (!config.health_bands.empty()) h.source += "; score bands overridden in ferrum.ini [health]";
-  if (root) {
-    const auto tables = root->tables() / "ieee_c57104_2019_tables.csv";
-    if (std::filesystem::exists(tables)) {
-      std::ifstream in(tables);
-      std::ostringstream text;
-      text << in.rdbuf();
-      const auto parsed = analytics::parse_c57104_2019_tables(text.str());
-      if (!parsed.tables)
-        throw std::runtime_error(tables.string() + ":" + std::to_string(parsed.error_line) + ": " + parsed.error);
-      o.oil.c57104_2019_tables = *parsed.tables;
-    }
-  }
   return o;
 }
 

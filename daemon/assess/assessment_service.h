@@ -16,8 +16,9 @@
 
 namespace ferrum::assess {
 
-// Analytics options from ferrum.ini, with the IEEE C57.104-2019 tables read
-// from ROOT/tables/ when the site keeps its own (corrected) copy there.
+// Analytics options from ferrum.ini. With a root, the site's corrected copies
+// of the standard tables (ROOT/tables/) are read and installed first
+// (site_tables.h): the options' defaults come from the tables in force.
 analytics::AssessmentOptions options_from_config(const config::SiteConfig& config, const site::SiteRoot* root);
 
 analytics::UnitAssessment assess_unit(store::Store& store, const std::string& unit_id, analytics::Day as_of,

@@ -8,6 +8,7 @@
 #include <fstream>
 #include <sstream>
 
+#include "daemon/assess/site_tables.h"
 #include "daemon/site/atomic_file.h"
 
 namespace ferrum::assess {
@@ -95,7 +96,7 @@ std::string ranking_cache_key(const site::SiteRoot& root, store::Store& store, a
   };
   part(executable_identity());
   part(file_text(root.config()));
-  part(file_text(root.tables() / "ieee_c57104_2019_tables.csv"));
+  for (const auto& t : read_site_tables(root)) part(t.file + ":" + t.text);
   const auto newest = store.recent_files(1);
   part(newest.empty() ? "no files" : std::to_string(newest.front().id) + ":" + newest.front().status);
   part(std::to_string(as_of));

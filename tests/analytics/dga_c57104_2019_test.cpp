@@ -12,8 +12,8 @@ namespace {
 using testing::gas_sample;
 
 // All table values used here are the embedded placeholders of
-// analytics/data/ieee_c57104_2019_tables.csv: IEEE C57.104-2019 Tables 1-4 FROM MEMORY
-// (low confidence) except the cells corrected below. The tests check the logic, not the standard's numbers.
+// analytics/data/ieee_c57104_2019.csv: IEEE C57.104-2019 Tables 1-4 from memory
+// (status 'unverified') except the cells corrected below. The tests check the logic, not the standard's numbers.
 
 OilSample sealed(Day d, testing::Gases g) {
   OilSample s = gas_sample(d, g);
@@ -36,27 +36,27 @@ TEST(C57104_2019Tables, EmbeddedTextParses) {
     EXPECT_EQ(*high[g], expect_high[g]) << gas_name(kAllGases[g]);
   }
   EXPECT_FALSE(r.tables->table3[0][gas_index(Gas::c2h2)]);  // "any" increase
-  EXPECT_NE(default_c57104_2019_tables_text().find("FROM MEMORY"), std::string_view::npos);
+  EXPECT_NE(default_c57104_2019_tables_text().find("status,unverified"), std::string_view::npos);
 }
 
-TEST(C57104_2019Tables, ParseErrorsNameTheLine) {
+TEST(C57104_2019Tables, ParseErrorsNameTheLineAndColumn) {
   std::string text(default_c57104_2019_tables_text());
   std::string bad = text;
-  bad.replace(bad.find("1,low,unknown,80"), 16, "1,low,unknown,xx");
+  bad.replace(bad.find("row,low,unknown,80"), 18, "row,low,unknown,xx");
   auto r = parse_c57104_2019_tables(bad);
   EXPECT_FALSE(r.tables);
-  // The row is the first data line after the comment block and header.
   int expected_line = 1;
-  for (std::size_t i = 0; i < text.find("1,low,unknown,80"); ++i) expected_line += text[i] == '\n';
+  for (std::size_t i = 0; i < text.find("row,low,unknown,80"); ++i) expected_line += text[i] == '\n';
   EXPECT_EQ(r.error_line, expected_line);
+  EXPECT_EQ(r.error_column, 4);  // row, o2n2, age, H2
   EXPECT_NE(r.error.find("H2"), std::string::npos);
 
-  auto missing = parse_c57104_2019_tables("table,o2n2,age,H2,CH4,C2H6,C2H4,C2H2,CO,CO2\n1,low,unknown,1,1,1,1,1,1,1\n");
-  EXPECT_FALSE(missing.tables);
-  EXPECT_NE(missing.error.find("missing row"), std::string::npos);
+  std::string missing = text;
+  missing.erase(missing.find("row,high,>30,40"), missing.find('\n', missing.find("row,high,>30,40")) + 1 - missing.find("row,high,>30,40"));
+  EXPECT_NE(parse_c57104_2019_tables(missing).error.find("missing row o2n2 high, age >30"), std::string::npos);
   EXPECT_EQ(parse_c57104_2019_tables("# only\nfoo,bar\n").error_line, 2);
   EXPECT_FALSE(parse_c57104_2019_tables("").tables);
-  std::string dup = text + "1,low,unknown,80,90,90,50,1,900,9000\n";
+  std::string dup = text + "row,high,1,1,1,1,any,1,1\n";
   EXPECT_NE(parse_c57104_2019_tables(dup).error.find("duplicate"), std::string::npos);
 }
 

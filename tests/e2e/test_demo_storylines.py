@@ -284,7 +284,7 @@ class DemoStorylines(unittest.TestCase):
     def test_background_units_look_plausible(self):
         background = [r["unit_id"] for r in read_storylines() if r["storyline"] == "background"]
         # Table 1 holds 90th percentiles (IEEE C57.104-2019; values from memory,
-        # analytics/data/ieee_c57104_2019_tables.csv): most ordinary units lie below them.
+        # analytics/data/ieee_c57104_2019.csv): most ordinary units lie below them.
         statuses = [self.docs[u]["dga"]["c57104_2019_status"] for u in background]
         self.assertGreaterEqual(statuses.count(1), 3, f"background C57.104-2019 statuses {statuses}")
         for u in background:

@@ -29,7 +29,7 @@ bool inside(const DuvalZone& z, const DuvalPercent& pct) {
   return in;
 }
 
-const DuvalZone& zone(const std::string& code) {
+DuvalZone zone(const std::string& code) {  // by value: the zones are built from the tables in force
   for (const auto& z : duval_triangle1_zones())
     if (z.code == code) return z;
   throw std::runtime_error("no zone " + code);
