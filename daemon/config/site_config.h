@@ -14,6 +14,8 @@
 #include <string>
 #include <vector>
 
+#include "daemon/config/mail_settings.h"
+
 namespace ferrum::config {
 
 // A configuration that cannot be used; the message names the key and why.
@@ -63,6 +65,9 @@ struct SiteConfig {
   int log_files = 5;
   // [party.*]
   std::map<std::string, Party> parties;
+  // [mail], [recipients.*] (mail_settings.h)
+  MailSettings mail;
+  std::map<std::string, Recipient> recipients;
 
   const Party* party(const std::string& name) const {
     auto it = parties.find(name);

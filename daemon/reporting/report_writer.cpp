@@ -1,5 +1,7 @@
 #include "daemon/reporting/report_writer.h"
 
+#include "daemon/mail/messages.h"
+
 #include <spdlog/spdlog.h>
 
 #include <algorithm>
@@ -155,6 +157,9 @@ fs::path ReportWriter::weekly_bundle(analytics::Day as_of) {
   const auto ranking = rank(units, as_of);
   fleet_files(units, ranking, as_of, scratch);
   report::render_weekly_index(label, ranking, unit_files, report_options(config_), (scratch / "index.pdf").string());
+  // The week in plain text, for the weekly mail (daemon/mail/messages.h).
+  site::write_file_atomically(scratch / "summary.txt",
+                              mail::weekly_summary_text(label, ranking, store_.open_alerts(), analytics::start_of(as_of + 1)));
   if (fs::exists(dir)) fs::remove_all(dir);  // an incomplete earlier attempt (no index.pdf)
   fs::rename(scratch, dir);
   site::sync_directory(root_.reports());
