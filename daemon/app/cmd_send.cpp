@@ -82,8 +82,11 @@ int cmd_send(const Invocation& inv) {
   const site::LockHolder holder = site::RootLock::holder(site->root);
   site::RootLock lock;
   if (holder.is_daemon() || !lock.try_acquire(site->root, "send")) {
+    const site::LockHolder now_holder = site::RootLock::holder(site->root);
     std::cout << ids.size() << " message(s) queued in " << outbox.dir().string()
-              << "; the running ferrum process sends them\n";
+              << (now_holder.is_daemon() ? "; the running daemon sends them\n"
+                                         : "; 'ferrum " + now_holder.command +
+                                               "' holds the root now: the daemon or the next 'ferrum send' sends them\n");
     return kOk;
   }
   outbox.deliver_due(site->config.mail, now);
