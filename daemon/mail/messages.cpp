@@ -134,39 +134,4 @@ std::string queue_test(Outbox& outbox, const config::SiteConfig& config, const s
   return m.id;
 }
 
-std::string weekly_summary_text(const std::string& week_label, const analytics::FleetRanking& ranking,
-                                const std::vector<store::Alert>& alerts, std::int64_t week_end_utc) {
-  std::ostringstream o;
-  o << "Week " << week_label << ", fleet as of " << analytics::format_day(ranking.as_of) << ": "
-    << ranking.units.size() << " unit(s).\n\n";
-  // Most urgent first: replace, refurbish, intensify monitoring; then by rank.
-  auto urgency = [](const std::string& a) {
-    if (a == "replace") return 0;
-    if (a == "refurbish") return 1;
-    if (a == "intensify monitoring") return 2;
-    return 3;
-  };
-  std::vector<const analytics::RankedUnit*> act;
-  for (const auto& u : ranking.units)
-    if (urgency(u.recommended_action) < 3) act.push_back(&u);
-  std::stable_sort(act.begin(), act.end(), [&](const auto* a, const auto* b) {
-    return urgency(a->recommended_action) < urgency(b->recommended_action);
-  });
-  o << "Units needing action: " << act.size() << "\n";
-  for (const auto* u : act) {
-    o << "  " << u->unit_id << " (" << u->site << "): " << u->recommended_action;
-    if (u->action_year) o << " by " << *u->action_year;
-    if (u->health_index) o << ", health index " << static_cast<int>(*u->health_index + 0.5);
-    if (!u->limiting_factor.empty()) o << ", limited by " << u->limiting_factor;
-    o << "\n";
-  }
-  const std::string since = analytics::format_utc(week_end_utc - 7 * 86400);
-  std::vector<const store::Alert*> recent;
-  for (const auto& a : alerts)
-    if (a.raised_at >= since) recent.push_back(&a);
-  o << "\nNew alerts in the last 7 days: " << recent.size() << "\n";
-  for (const auto* a : recent) o << "  " << a->raised_at << " " << a->unit_id << " " << a->kind << ": " << a->text << "\n";
-  return o.str();
-}
-
 }  // namespace ferrum::mail

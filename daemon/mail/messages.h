@@ -13,7 +13,6 @@
 #include <string>
 #include <vector>
 
-#include "analytics/assessment.h"
 #include "daemon/config/site_config.h"
 #include "daemon/mail/outbox.h"
 #include "schema/store.h"
@@ -36,12 +35,5 @@ WeeklyQueued queue_weekly(Outbox& outbox, const config::SiteConfig& config, cons
 
 // A test message to `address` (checked like a configured address). Returns its id.
 std::string queue_test(Outbox& outbox, const config::SiteConfig& config, const std::string& address, std::int64_t now);
-
-// The plain-text summary of a week, kept in the bundle as summary.txt and
-// put into the weekly mail: units needing action (replace, refurbish,
-// intensify monitoring) most urgent first, and alerts raised in the 7 days
-// before `week_end_utc`.
-std::string weekly_summary_text(const std::string& week_label, const analytics::FleetRanking& ranking,
-                                const std::vector<store::Alert>& alerts, std::int64_t week_end_utc);
 
 }  // namespace ferrum::mail

@@ -160,7 +160,9 @@ class WhoGetsWhat(MailCase):
             # Every body opens with the one-line caution, then the week's summary.
             self.assertTrue(body.startswith("SAFETY:"), body[:200])
             self.assertIn("Units needing action:", body)
-            self.assertIn("New alerts in the last 7 days:", body)
+            self.assertIn("Actions due in the next 7 days", body)
+            self.assertIn("Alerts raised this week: 0", body)
+            self.assertIn("planning: 1 received, 0 rejected", body)  # the register, dropped this week
             self.assertTrue(got[0]["Message-ID"].startswith("<weekly-"), got[0]["Message-ID"])
         self.assertEqual(len(rec.messages), 3)
         self.assertEqual(len(self.outbox("sent")), 3)
