@@ -1,7 +1,6 @@
 #include "daemon/config/mail_settings.h"
 
 #include <Poco/String.h>
-#include <Poco/StringTokenizer.h>
 #include <Poco/Util/AbstractConfiguration.h>
 
 #include <algorithm>
@@ -16,25 +15,9 @@ const char* const kMailKeys[] = {"smtp_host", "smtp_port", "security", "user", "
                                  "from", "ca_file", "subject_prefix", "max_mb", "retry_seconds"};
 const char* const kGets[] = {"weekly", "fleet", "alerts"};
 
-long long whole_number(const std::string& key, const std::string& text, long long lo, long long hi) {
-  std::size_t pos = 0;
-  long long v = 0;
-  try {
-    v = std::stoll(text, &pos);
-  } catch (const std::exception&) {
-    pos = std::string::npos;
-  }
-  if (pos != text.size() || v < lo || v > hi)
-    throw ConfigError(key + ": '" + text + "' must be a whole number from " + std::to_string(lo) + " to " +
-                      std::to_string(hi));
-  return v;
-}
-
 std::set<std::string> lower_list(const std::string& text) {
-  std::set<std::string> out;
-  Poco::StringTokenizer tok(text, ",", Poco::StringTokenizer::TOK_TRIM | Poco::StringTokenizer::TOK_IGNORE_EMPTY);
-  for (const auto& t : tok) out.insert(Poco::toLower(t));
-  return out;
+  const auto list = parse_list(text);
+  return {list.begin(), list.end()};
 }
 
 void check_keys(const Poco::Util::AbstractConfiguration& ini, const std::string& section,
@@ -88,7 +71,7 @@ void load_mail_settings(const Poco::Util::AbstractConfiguration& ini, SiteConfig
   for (char ch : m.smtp_host)
     if (!std::isalnum(static_cast<unsigned char>(ch)) && ch != '.' && ch != '-' && ch != ':')
       throw ConfigError("mail.smtp_host: '" + m.smtp_host + "' is not a host name or address");
-  m.smtp_port = static_cast<int>(whole_number("mail.smtp_port", get("smtp_port", "587"), 1, 65535));
+  m.smtp_port = static_cast<int>(parse_whole_number("mail.smtp_port", get("smtp_port", "587"), 1, 65535));
   m.security = Poco::toLower(get("security", "starttls"));
   if (m.security != "starttls" && m.security != "tls" && m.security != "none")
     throw ConfigError("mail.security: '" + m.security + "' must be starttls, tls or none");
@@ -104,8 +87,8 @@ void load_mail_settings(const Poco::Util::AbstractConfiguration& ini, SiteConfig
   if (!m.ca_file.empty() && !std::ifstream(m.ca_file)) throw ConfigError("mail.ca_file: cannot read " + m.ca_file);
   m.subject_prefix = get("subject_prefix", "ferrum");
   check_header_text("mail.subject_prefix", m.subject_prefix);
-  m.max_bytes = whole_number("mail.max_mb", get("max_mb", "20"), 1, 1024) * 1024 * 1024;
-  m.retry_seconds = static_cast<int>(whole_number("mail.retry_seconds", get("retry_seconds", "60"), 1, 3600));
+  m.max_bytes = parse_whole_number("mail.max_mb", get("max_mb", "20"), 1, 1024) * 1024 * 1024;
+  m.retry_seconds = static_cast<int>(parse_whole_number("mail.retry_seconds", get("retry_seconds", "60"), 1, 3600));
   if (m.enabled()) {
     if (m.from.empty()) throw ConfigError("mail.from: required when mail.smtp_host is set");
     check_mail_address("mail.from", m.from);

@@ -280,6 +280,12 @@ const std::vector<std::string>& file_kind_names() {
   return k;
 }
 
+long long parse_whole_number(const std::string& key, const std::string& text, long long lo, long long hi) {
+  return parse_int(key, text, lo, hi);
+}
+
+std::vector<std::string> parse_list(const std::string& text) { return split_list(text); }
+
 int parse_utc_offset(const std::string& text) {
   const std::string t = Poco::toUpper(trim(text));
   if (t == "Z" || t == "UTC" || t == "+00:00" || t == "-00:00") return 0;

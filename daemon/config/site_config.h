@@ -88,6 +88,12 @@ std::string default_site_config_text();
 // (for the SIGHUP log line). Empty when equal.
 std::vector<std::string> describe_changes(const SiteConfig& before, const SiteConfig& after);
 
+// The value readers the key table uses, for the sections read elsewhere
+// (mail_settings.cpp): a whole number within lo..hi, and a comma-separated
+// list, trimmed and lower-cased. Throw ConfigError naming `key`.
+long long parse_whole_number(const std::string& key, const std::string& text, long long lo, long long hi);
+std::vector<std::string> parse_list(const std::string& text);
+
 // Parses "+01:00", "-05:30", "Z", "UTC" into minutes. Throws ConfigError.
 int parse_utc_offset(const std::string& text);
 
