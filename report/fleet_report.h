@@ -9,6 +9,7 @@
 
 #include "analytics/assessment.h"
 #include "report/render_error.h"
+#include "report/planner_week.h"
 #include "report/report_options.h"
 
 namespace ferrum::report {
@@ -29,11 +30,13 @@ void render_fleet_report(const analytics::FleetRanking& ranking, const std::vect
 // Absent values are empty fields. Pure.
 std::string fleet_ranking_csv(const analytics::FleetRanking& ranking);
 
-// One page (more if needed) listing the week's unit reports with unit, site,
+// The week's cover: the planner's week first (actions due in 7 and 30 days,
+// changes since last week, alerts, files per party, overdue samples and
+// inspections: planner_week.h), then the week's unit reports with unit, site,
 // health index, band and file name, in ranking order. `unit_report_files`
 // holds (unit_id, file name). Written atomically; throws RenderError.
 void render_weekly_index(const std::string& week_label, const analytics::FleetRanking& ranking,
                          const std::vector<std::pair<std::string, std::string>>& unit_report_files,
-                         const ReportOptions& options, const std::string& path);
+                         const PlannerWeek& week, const ReportOptions& options, const std::string& path);
 
 }  // namespace ferrum::report

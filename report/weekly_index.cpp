@@ -1,4 +1,6 @@
-// render_weekly_index: the cover page of a week's bundle of unit reports.
+// render_weekly_index: the cover page of a week's bundle, the page a planner
+// reads first: actions due, what changed, alerts, files per party, overdue
+// samples and inspections, then the list of the bundle's unit reports.
 #include <algorithm>
 
 #include "report/fleet_report.h"
@@ -8,14 +10,97 @@
 #include "report/title_block.h"
 
 namespace ferrum::report {
+namespace {
+
+void none(PageFlow& flow, const std::string& text) {
+  flow.paragraph(text, type::body, FontFace::regular, palette::muted);
+}
+
+void due_table(PageFlow& flow, const std::string& title, const std::vector<PlannerWeek::DueAction>& list,
+               analytics::Day as_of) {
+  flow.section(title, 40);
+  if (list.empty()) return none(flow, "None.");
+  Table t;
+  t.columns = {{"Due", 1.0}, {"Unit", 0.8}, {"Site", 1.2}, {"Prio", 0.4, Align::right}, {"Action", 4.0}};
+  for (const auto& a : list) {
+    t.rows.push_back({analytics::format_day(a.due) + (a.due < as_of ? " overdue" : ""), a.unit_id, a.site,
+                      std::to_string(a.priority), a.text});
+    t.emphasis.push_back(a.due < as_of || a.priority == 1);
+  }
+  flow.table(t);
+}
+
+}  // namespace
 
 void render_weekly_index(const std::string& week_label, const analytics::FleetRanking& ranking,
                          const std::vector<std::pair<std::string, std::string>>& unit_report_files,
-                         const ReportOptions& options, const std::string& path) {
-  const std::string title = "Unit reports of week " + week_label;
-  PdfDocument doc(options, title, "Weekly bundle index");
+                         const PlannerWeek& week, const ReportOptions& options, const std::string& path) {
+  const std::string title = "The week " + week_label;
+  PdfDocument doc(options, title, "Weekly bundle cover");
   PageFlow flow(doc, title);
-  draw_title_block(flow, options, "Weekly bundle", title, std::to_string(unit_report_files.size()) + " reports");
+  draw_title_block(flow, options, "Weekly bundle", title,
+                   analytics::format_day(week.as_of - 6) + " to " + analytics::format_day(week.as_of) + " · " +
+                       std::to_string(unit_report_files.size()) + " reports");
+  due_table(flow, "Actions due in the next 7 days (or overdue)", week.due_7, week.as_of);
+
+  due_table(flow, "Actions due in 8 to 30 days", week.due_30, week.as_of);
+
+  flow.section("Units needing action (fleet ranking)", 40);
+  if (week.needing_action.empty()) none(flow, "None: every ranked unit is on routine maintenance.");
+  else {
+    Table t;
+    t.columns = {{"Unit", 0.8}, {"Site", 1.2}, {"Recommended action", 2.0}, {"By", 0.6, Align::right}};
+    for (const auto& u : week.needing_action)
+      t.rows.push_back({u.unit_id, u.site, u.action, u.year ? std::to_string(*u.year) : kNoValue});
+    flow.table(t);
+  }
+
+  flow.section("Changed since last week", 40);
+  if (!week.have_previous_week) none(flow, "No earlier weekly bundle to compare with.");
+  else if (week.changes.empty()) none(flow, "No unit's health index, band or recommended action changed.");
+  else {
+    Table t;
+    t.columns = {{"Unit", 0.8}, {"Site", 1.2}, {"What changed", 5.0}};
+    for (const auto& c : week.changes) t.rows.push_back({c.unit_id, c.site, c.what});
+    flow.table(t);
+  }
+
+  flow.section("Alerts raised this week", 40);
+  if (week.alerts.empty()) none(flow, "None.");
+  else {
+    Table t;
+    t.columns = {{"Raised (UTC)", 1.9}, {"Unit", 0.8}, {"Kind", 1.2}, {"Alert", 3.6}};
+    for (const auto& a : week.alerts) t.rows.push_back({a.raised_at, a.unit_id, a.kind, a.text});
+    t.emphasis.assign(t.rows.size(), true);
+    flow.table(t);
+  }
+
+  flow.section("Files received this week, per party", 40);
+  if (week.parties.empty()) none(flow, "No file was received this week.");
+  else {
+    Table t;
+    t.columns = {{"Party", 1.2}, {"Received", 1.0, Align::right}, {"Rejected", 1.0, Align::right}, {"Rejected files (chase)", 3.6}};
+    for (const auto& p : week.parties) {
+      std::string names;
+      for (const auto& n : p.rejected_names) names += (names.empty() ? "" : ", ") + n;
+      t.rows.push_back({p.party, std::to_string(p.received), std::to_string(p.rejected), names});
+      t.emphasis.push_back(p.rejected > 0);
+    }
+    flow.table(t);
+  }
+
+  flow.section("Overdue oil samples, infrared surveys and inspections", 40);
+  if (week.overdue.empty()) none(flow, "None.");
+  else {
+    Table t;
+    t.columns = {{"Unit", 0.8}, {"Site", 1.2}, {"Overdue", 1.5}, {"Last", 1.0}};
+    for (const auto& d : week.overdue)
+      t.rows.push_back({d.unit_id, d.site, d.what, d.last ? analytics::format_day(*d.last) : std::string("never")});
+    flow.table(t);
+  }
+  flow.paragraph("Oil samples and infrared surveys are counted overdue after a year, inspections after "
+                 "[analysis] inspection_interval_days.", type::small, FontFace::regular, palette::muted);
+
   flow.section("Reports in this bundle", 40);
   if (unit_report_files.empty()) {
     flow.paragraph("No unit report was produced this week.", type::body, FontFace::regular, palette::muted);

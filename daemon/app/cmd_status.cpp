@@ -11,6 +11,7 @@
 
 #include "analytics/calendar.h"
 #include "daemon/app/commands_impl.h"
+#include "daemon/mail/outbox.h"
 #include "daemon/site/site_root.h"
 
 namespace ferrum::app {
@@ -52,8 +53,19 @@ int cmd_status(const Invocation& inv) {
     } catch (const std::exception&) {
     }
   }
+  const mail::OutboxSummary outbox = mail::Outbox(root).summary();
   if (inv.has("json")) {
     Poco::JSON::Object::Ptr o = st ? st : Poco::JSON::Object::Ptr(new Poco::JSON::Object);
+    Poco::JSON::Object::Ptr ob = new Poco::JSON::Object;
+    ob->set("waiting", outbox.waiting);
+    ob->set("failed", outbox.failed);
+    ob->set("sent", outbox.sent);
+    ob->set("oldest_waiting", outbox.oldest_waiting);
+    ob->set("last_error", outbox.last_error);
+    Poco::JSON::Array::Ptr fl = new Poco::JSON::Array;
+    for (const auto& f : outbox.failures) fl->add(f);
+    ob->set("failures", fl);
+    o->set("outbox", ob);
     o->set("running", pid != 0);
     if (holder.pid != 0 && !holder.is_daemon()) {
       Poco::JSON::Object::Ptr h = new Poco::JSON::Object;
@@ -96,6 +108,11 @@ int cmd_status(const Invocation& inv) {
       std::cout << "  open alerts:    none\n";
     }
   }
+  std::cout << "  outbox:         " << outbox.waiting << " waiting";
+  if (outbox.waiting) std::cout << " (oldest queued " << outbox.oldest_waiting << ")";
+  std::cout << ", " << outbox.failed << " failed, " << outbox.sent << " sent\n";
+  if (!outbox.last_error.empty()) std::cout << "    last error:   " << outbox.last_error << "\n";
+  for (const auto& f : outbox.failures) std::cout << "    failed:       " << f << "\n";
   return pid ? kOk : kNotRunning;
 }
 

@@ -88,6 +88,13 @@ const std::vector<CommandInfo>& commands() {
        "line and column (exit status 4); the embedded table stays in force. --export DIR writes the\n"
        "table files in force to DIR for review.",
        {"root", "json", "export"}},
+      {"send", "ferrum send --root DIR (--weekly | --test ADDRESS)", "mail the latest weekly bundle, or a test message",
+       "Queues the mail in ROOT/outbox/ and sends it through [mail] smtp_host, unless the daemon runs:\n"
+       "then the daemon sends it. --weekly: each recipient's part of the newest reports/YYYY-Www/\n"
+       "(a recipient who was sent that week already is not sent it twice). --test ADDRESS: a test\n"
+       "message. Exit status 0 when every message was accepted by the server, 1 otherwise (the\n"
+       "server's answer is printed; a message not rejected for good stays queued and is retried).",
+       {"root", "weekly", "test"}},
   };
   return all;
 }
@@ -113,6 +120,7 @@ int run_command(const Invocation& inv) {
     if (inv.command == "thermal") return cmd_thermal(inv);
     if (inv.command == "ratio") return cmd_ratio(inv);
     if (inv.command == "tables") return cmd_tables(inv);
+    if (inv.command == "send") return cmd_send(inv);
   } catch (const UsageError& e) {
     std::cerr << "ferrum " << inv.command << ": " << e.what() << "\n";
     return kUsage;

@@ -56,6 +56,7 @@ const OptionDef kOptions[] = {
     {"tap-nominal", "N", "the tap position of the nameplate voltage"},
     {"tap-step-pct", "PCT", "HV voltage step per tap position, % of the nameplate HV voltage"},
     {"export", "DIR", "tables: write the table files in force to this folder"},
+    {"test", "ADDRESS", "send: a test message to this address"},
 };
 
 bool command_accepts(const CommandInfo& c, const std::string& option) {

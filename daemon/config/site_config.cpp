@@ -321,6 +321,12 @@ const std::vector<std::string>& file_kind_names() {
   return k;
 }
 
+long long parse_whole_number(const std::string& key, const std::string& text, long long lo, long long hi) {
+  return parse_int(key, text, lo, hi);
+}
+
+std::vector<std::string> parse_list(const std::string& text) { return split_list(text); }
+
 int parse_utc_offset(const std::string& text) {
   const std::string t = Poco::toUpper(trim(text));
   if (t == "Z" || t == "UTC" || t == "+00:00" || t == "-00:00") return 0;
@@ -359,6 +365,7 @@ SiteConfig load_site_config(const std::string& path) {
       for (const auto& n : names) load_party(*ini, n, c, path);
       continue;
     }
+    if (s == "mail" || s == "recipients") continue;  // load_mail_settings
     Poco::Util::AbstractConfiguration::Keys ks;
     ini->keys(s, ks);
     bool known_section = false;
@@ -371,6 +378,7 @@ SiteConfig load_site_config(const std::string& path) {
     }
   }
   if (c.parties.empty()) throw ConfigError(path + ": no [party.NAME] section: nobody may drop files");
+  load_mail_settings(*ini, c);
   return c;
 }
 
@@ -403,6 +411,7 @@ std::string default_site_config_text() {
        "[party.planning]\n"
        "kinds = *\n"
        "sites = *\n";
+  o << mail_config_sample();
   return o.str();
 }
 
@@ -429,6 +438,8 @@ std::vector<std::string> describe_changes(const SiteConfig& a, const SiteConfig&
   cmp("log.level", a.log_level, b.log_level);
   if (a.health_weights != b.health_weights) out.push_back("health weights changed");
   if (a.ranking != b.ranking) out.push_back("ranking settings changed");
+  if (a.mail != b.mail) out.push_back("mail settings changed");
+  if (a.recipients != b.recipients) out.push_back("mail recipients changed");
   if (a.health_bands != b.health_bands) out.push_back("health score bands changed");
   if (a.extra_inspection_items != b.extra_inspection_items) out.push_back("ingest.extra_inspection_items changed");
   for (const auto& [name, p] : b.parties) {

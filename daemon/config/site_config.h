@@ -15,6 +15,7 @@
 #include <utility>
 #include <vector>
 
+#include "daemon/config/mail_settings.h"
 #include "daemon/ingest/field_parsers.h"
 #include "daemon/ingest/header_map.h"
 
@@ -79,6 +80,9 @@ struct SiteConfig {
   int log_files = 5;
   // [party.*]
   std::map<std::string, Party> parties;
+  // [mail], [recipients.*] (mail_settings.h)
+  MailSettings mail;
+  std::map<std::string, Recipient> recipients;
 
   // party name -> its formats (the defaults when it has none)
   std::map<std::string, PartyFormats> party_formats;
@@ -106,6 +110,12 @@ std::string default_site_config_text();
 // Human-readable list of the differences between two configurations
 // (for the SIGHUP log line). Empty when equal.
 std::vector<std::string> describe_changes(const SiteConfig& before, const SiteConfig& after);
+
+// The value readers the key table uses, for the sections read elsewhere
+// (mail_settings.cpp): a whole number within lo..hi, and a comma-separated
+// list, trimmed and lower-cased. Throw ConfigError naming `key`.
+long long parse_whole_number(const std::string& key, const std::string& text, long long lo, long long hi);
+std::vector<std::string> parse_list(const std::string& text);
 
 // Parses "+01:00", "-05:30", "Z", "UTC" into minutes. Throws ConfigError.
 int parse_utc_offset(const std::string& text);

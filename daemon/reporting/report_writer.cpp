@@ -1,5 +1,7 @@
 #include "daemon/reporting/report_writer.h"
 
+#include "daemon/reporting/planner_week_builder.h"
+
 #include <spdlog/spdlog.h>
 
 #include <algorithm>
@@ -156,7 +158,26 @@ fs::path ReportWriter::weekly_bundle(analytics::Day as_of) {
   const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_, progress_);
   const auto ranking = rank(units, as_of);
   fleet_files(units, ranking, as_of, scratch);
-  report::render_weekly_index(label, ranking, unit_files, report_options(config_), (scratch / "index.pdf").string());
+  // The planner's week: on the cover, as summary.txt (the weekly mail's
+  // body) and week.tsv (what the next week compares with).
+  PlannerWeekInputs in;
+  in.week_label = label;
+  in.as_of = as_of;
+  in.units = &units;
+  in.ranking = &ranking;
+  in.previous_week_tsv = previous_week_tsv(root_.reports(), label);
+  in.alerts = store_.open_alerts();
+  // Files of the week: newest first, fetched until one is older than the week.
+  const std::string week_start = analytics::format_utc(analytics::start_of(as_of - 6));
+  for (int limit = 512;; limit *= 4) {
+    in.files = store_.recent_files(limit);
+    if (static_cast<int>(in.files.size()) < limit || in.files.back().received_at < week_start) break;
+  }
+  in.inspection_interval_days = config_.inspection_interval_days;
+  const report::PlannerWeek week = build_planner_week(in);
+  report::render_weekly_index(label, ranking, unit_files, week, report_options(config_), (scratch / "index.pdf").string());
+  site::write_file_atomically(scratch / "summary.txt", report::planner_week_text(week));
+  site::write_file_atomically(scratch / "week.tsv", week_units_tsv(ranking));
   if (fs::exists(dir)) fs::remove_all(dir);  // an incomplete earlier attempt (no index.pdf)
   fs::rename(scratch, dir);
   site::sync_directory(root_.reports());

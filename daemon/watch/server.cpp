@@ -14,6 +14,8 @@
 
 #include "analytics/calendar.h"
 #include "daemon/app/logging.h"
+#include "daemon/mail/messages.h"
+#include "daemon/mail/outbox.h"
 #include "daemon/pipeline/import_bridge.h"
 #include "daemon/pipeline/pipeline.h"
 #include "daemon/reporting/report_writer.h"
@@ -127,6 +129,33 @@ struct Server::Impl {
   std::string last_status_text;
   std::size_t files_processed = 0;
   std::string stopped_at;
+  std::chrono::steady_clock::time_point next_mail_check{};
+
+  // An alert: its PDF and line (ReportWriter), then mail at once to everyone
+  // whose sites it concerns (through the outbox).
+  void raise_alert(const std::string& unit, const std::string& kind, const std::string& text,
+                   const std::string& first_step, const std::string& at) {
+    const fs::path pdf = writer->alert(unit, kind, text, first_step, at);
+    try {
+      const auto info = store->find_unit(unit);
+      mail::Outbox outbox(root);
+      mail::queue_alert(outbox, config, unit, info ? info->site : "", text, pdf, now_utc());
+    } catch (const std::exception& e) {
+      spdlog::error("alert mail for {} not queued: {}", unit, e.what());
+    }
+  }
+
+  // Sends what is due in the outbox, at most once a second.
+  void deliver_mail() {
+    const auto now = std::chrono::steady_clock::now();
+    if (!config.mail.enabled() || (!options.once && now < next_mail_check)) return;
+    next_mail_check = now + 1s;
+    try {
+      mail::Outbox(root).deliver_due(config.mail, now_utc());
+    } catch (const std::exception& e) {
+      spdlog::error("outbox: {}", e.what());
+    }
+  }
 
   void rebuild() {
     pipeline = std::make_unique<ingest::Pipeline>(root, config, *store);
@@ -191,7 +220,7 @@ struct Server::Impl {
     for (const auto& item : o.unsafe_items) {
       const auto colon = item.find(':');
       const std::string unit = item.substr(0, colon);
-      writer->alert(unit, "unsafe_inspection", "inspection rated an item UNSAFE: " + item.substr(colon + 2),
+      raise_alert(unit, "unsafe_inspection", "inspection rated an item UNSAFE: " + item.substr(colon + 2),
                     "Keep people away from the unit and have a qualified engineer assess it before any work.",
                     analytics::format_utc(now_utc()));
     }
@@ -296,7 +325,7 @@ struct Server::Impl {
     // Appearing, or rising by more than the repeatability of a lab
     // measurement (10 % + 0.5 ppm: common practice, no published source).
     if (now.c2h2 > 0 && (before.c2h2 <= 0 || now.c2h2 > before.c2h2 * 1.1 + 0.5))
-      writer->alert(unit, "acetylene",
+      raise_alert(unit, "acetylene",
                     before.c2h2 <= 0 ? "acetylene appeared: " + std::to_string(static_cast<int>(now.c2h2 + 0.5)) + " ppm"
                                      : "acetylene rising: " + std::to_string(before.c2h2) + " -> " + std::to_string(now.c2h2) + " ppm",
                     "Resample the oil at once to confirm, with the responsible engineer's permission: the unit "
@@ -305,18 +334,18 @@ struct Server::Impl {
                     "re-energise after a trip before that evaluation.",
                     at);
     if (now.condition > before.condition && before.condition > 0)
-      writer->alert(unit, "gas_condition",
+      raise_alert(unit, "gas_condition",
                     "IEEE C57.104-2008 condition worsened from " + std::to_string(before.condition) + " to " +
                         std::to_string(now.condition),
                     "Follow the sampling interval of C57.104-2008 Table 3 given in the unit report.", at);
     if (now.status > before.status && before.status > 0)
-      writer->alert(unit, "dga_status",
+      raise_alert(unit, "dga_status",
                     "IEEE C57.104-2019 DGA status worsened from " + std::to_string(before.status) + " to " +
                         std::to_string(now.status),
                     "Resample and review the gas trend with an engineer.", at);
     const double emergency = a.thermal.long_emergency_limit_c;
     if (now.peak_hot_spot > emergency && before.peak_hot_spot <= emergency)
-      writer->alert(unit, "hot_spot",
+      raise_alert(unit, "hot_spot",
                     "computed hot-spot temperature reached " + std::to_string(static_cast<int>(now.peak_hot_spot)) +
                         " °C, above the long-time emergency limit of " + std::to_string(static_cast<int>(emergency)) + " °C",
                     "Reduce the load and check the cooling; review the loading with an engineer.", at);
@@ -340,12 +369,26 @@ struct Server::Impl {
     try {
       // Due now, or missed while the daemon was down: produce it for today.
       const auto dir = writer->weekly_bundle(today());
+      queue_weekly_mail(dir);  // before the week is marked done: queueing again is harmless
       store->set_state("weekly_last_run", analytics::format_utc(now));
       store->set_state("weekly_last_bundle", fs::relative(dir, root.root).string());
       spdlog::info("weekly bundle written: {}", dir.string());
     } catch (const std::exception& e) {
       spdlog::error("weekly bundle failed: {}; next try in 10 minutes", e.what());
       weekly_retry_at = std::chrono::steady_clock::now() + std::chrono::minutes(10);
+    }
+  }
+
+  void queue_weekly_mail(const fs::path& dir) {
+    if (!config.mail.enabled()) return;
+    try {
+      std::map<std::string, std::string> sites;
+      for (const auto& u : store->units()) sites[u.unit_id] = u.site;
+      mail::Outbox outbox(root);
+      const auto q = mail::queue_weekly(outbox, config, dir, sites, now_utc());
+      spdlog::info("weekly mail: {} message(s) queued, {} queued before", q.queued.size(), q.already.size());
+    } catch (const std::exception& e) {
+      spdlog::error("weekly mail not queued: {}", e.what());
     }
   }
 
@@ -411,6 +454,7 @@ int Server::run() {
     if (stop_requested && !s.options.once) break;  // reports of dirty units: at the next start
     s.render_dirty(s.options.once);
     s.weekly();
+    s.deliver_mail();
     if (std::chrono::steady_clock::now() - last_status >= 1s) {
       s.write_status();
       last_status = std::chrono::steady_clock::now();

@@ -51,7 +51,7 @@ TEST_F(FleetReportTest, WeeklyIndexListsReportsInRankingOrder) {
   const std::string path = temp_path("weekly.pdf");
   render_weekly_index("2026-W49", fixtures::small_ranking(),
                       {{"T-031", "T-031_2026-11-30.pdf"}, {"T-204", "T-204_2026-11-30.pdf"}, {"T-777", "T-777_2026-11-30.pdf"}},
-                      fixed_options(), path);
+                      PlannerWeek{}, fixed_options(), path);
   ASSERT_TRUE(qpdf_check(path));
   const std::string text = squash(pdf_raw_text(path));
   EXPECT_NE(text.find("2026-W49"), std::string::npos);
@@ -60,6 +60,36 @@ TEST_F(FleetReportTest, WeeklyIndexListsReportsInRankingOrder) {
   EXPECT_NE(text.find("T-031 Harbour West 81 good T-031_2026-11-30.pdf"), std::string::npos) << text;
   EXPECT_NE(text.find("T-777 — — — T-777_2026-11-30.pdf"), std::string::npos) << text;
   EXPECT_NE(text.find("SAFETY"), std::string::npos);
+}
+
+TEST_F(FleetReportTest, WeeklyCoverPutsThePlannersWeekFirst) {
+  // Layout and wording only: the values are given, nothing is computed here.
+  PlannerWeek w;
+  w.week_label = "2026-W49";
+  w.as_of = ferrum::analytics::days_from_civil(2026, 11, 30);
+  w.units = 3;
+  w.due_7 = {{w.as_of - 2, 1, "T-204", "Kelder Road 132 kV", "Resample the oil"}};
+  w.due_30 = {{w.as_of + 20, 2, "T-117", "Northgate", "Infrared survey"}};
+  w.needing_action = {{"T-117", "Northgate", "replace", 2030}};
+  w.have_previous_week = true;
+  w.changes = {{"T-117", "Northgate", "band fair -> poor"}};
+  w.alerts = {{"2026-11-28T10:00:00Z", "T-204", "acetylene", "acetylene appeared: 3 ppm"}};
+  w.parties = {{"oil-lab", 4, 1, {"lab-week48.csv"}}};
+  w.overdue = {{"T-031", "Harbour West", "inspection", std::nullopt}};
+  const std::string path = temp_path("weekly-cover.pdf");
+  render_weekly_index("2026-W49", fixtures::small_ranking(), {{"T-204", "T-204_2026-11-30.pdf"}}, w, fixed_options(), path);
+  ASSERT_TRUE(qpdf_check(path));
+  const std::string text = squash(pdf_raw_text(path));
+  for (const char* s : {"2026-11-28 overdue T-204 Kelder Road 132 kV 1 Resample the oil", "Infrared survey",
+                        "band fair -> poor", "acetylene appeared: 3 ppm", "oil-lab 4", "1 lab-week48.csv",
+                        "T-031 Harbour West inspection never", "T-117 Northgate replace", "SAFETY"})
+    EXPECT_NE(text.find(s), std::string::npos) << s << "\n" << text;
+  // The week comes before the list of reports.
+  EXPECT_LT(text.find("Resample the oil"), text.find("T-204_2026-11-30.pdf"));
+  const std::string plain = planner_week_text(w);
+  EXPECT_NE(plain.find("2026-11-28 OVERDUE  T-204 (Kelder Road 132 kV), priority 1: Resample the oil"), std::string::npos)
+      << plain;
+  EXPECT_NE(plain.find("oil-lab: 4 received, 1 rejected (lab-week48.csv)"), std::string::npos) << plain;
 }
 
 TEST_F(FleetReportTest, AlertIsOnePageWithSafetyBlock) {
