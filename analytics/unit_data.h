@@ -40,6 +40,8 @@ struct UnitInfo {
   std::optional<double> load_loss_ratio;      // load losses at rated current / no-load losses
   // Last oil change or regeneration (resets furans), when recorded.
   std::optional<Day> oil_treated;
+  // The unit's own costs for the budgeted plan (analytics/plan), when given.
+  std::optional<double> replacement_cost, refurbishment_cost;
 };
 
 // One oil-lab sample (main tank unless sample_point says otherwise).

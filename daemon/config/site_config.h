@@ -57,6 +57,8 @@ struct SiteConfig {
   std::map<std::string, std::vector<double>> health_bands;  // band key -> cut points override
   // [ranking]
   std::map<std::string, double> ranking;         // key -> override of the ranking defaults
+  // [costs], [plan]: checked text by key (daemon/config/plan_config.h)
+  std::map<std::string, std::string> costs, plan;
   // [log]
   std::string log_level = "info";
   int log_file_mb = 10;
