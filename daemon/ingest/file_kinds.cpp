@@ -39,6 +39,7 @@ constexpr FieldSpec kRegister[] = {
     {"phases", O},   {"vector_group", O}, {"oil_type", O},       {"paper", O},
     {"oil_volume_l", O}, {"criticality", O}, {"customers_served", O}, {"top_oil_rise_k", O},
     {"hot_spot_gradient_k", O}, {"load_loss_ratio", O}, {"oil_treated_date", O},
+    {"replacement_cost", O}, {"refurbishment_cost", O},
 };
 
 constexpr FieldSpec kOilLab[] = {

@@ -96,6 +96,23 @@ class PlanCommand(SiteTestCase):
         self.assertEqual({r["year"] for r in table}, {"2026", "2027", "2028"})
         self.assertIn(("2028", "funded", "T1"), {(r["year"], r["row"], r["unit_id"]) for r in table})
 
+    def test_register_costs_override_the_classes(self):
+        # T3's own replacement cost (register column, migration 005) replaces 1,400,000: with
+        # 1,300,000 a year it now fits, in 2028 or 2029 beside T1 (1,200,000).
+        self.drop("units2.csv", REGISTER.replace("year_built,vector_group,criticality",
+                                                 "year_built,vector_group,criticality,replacement_cost")
+                  .replace("1962,Dyn11,4", "1962,Dyn11,4,").replace("2015,Dyn11,2", "2015,Dyn11,2,")
+                  .replace("1968,YNd1,5", "1968,YNd1,5,1000000"))
+        self.ingest()
+        self.write_config(COSTS + "[plan]\nbudget_per_year = 1300000\n")
+        plan = json.loads(self.plan("--json").stdout)["plans"][0]
+        funded = {f["unit_id"]: (y["year"], f["cost"]) for y in plan["years"] for f in y["funded"]}
+        self.assertEqual(funded["T3"][1], 1000000)
+        self.assertEqual(funded["T1"][1], 1200000)
+        self.assertEqual(sorted([funded["T1"][0], funded["T3"][0]]), [2028, 2029])
+        p = self.plan(check=False)
+        self.assertEqual(p.returncode, 0)
+
     def test_fleet_report_has_the_plan(self):
         self.write_config(COSTS + "[plan]\nbudget_per_year = 1500000\n")
         out = self.path("out")
