@@ -46,6 +46,8 @@ struct UnitInfo {
   std::optional<int> tap_nominal;        // position giving the nameplate HV voltage
   std::optional<double> tap_step_pct;    // HV voltage change per position, % of U_HV
   std::optional<double> impedance_pct;   // nameplate short-circuit impedance, % on rating
+  // The unit's own costs for the budgeted plan (analytics/plan), when given.
+  std::optional<double> replacement_cost, refurbishment_cost;
 };
 
 // One oil-lab sample (main tank unless sample_point says otherwise).

@@ -169,7 +169,7 @@ void coverage(PageFlow& flow, const std::vector<UnitAssessment>& units) {
 
 void render_fleet_report(const FleetRanking& ranking, const std::vector<UnitAssessment>& units,
                          const std::vector<std::string>& open_alerts, const ReportOptions& options,
-                         const std::string& path) {
+                         const std::string& path, const PlanSection* plan) {
   const std::string title = "Fleet condition ranking";
   PdfDocument doc(options, title + " as of " + fmt_day(ranking.as_of), "Fleet ranking by risk");
   PageFlow flow(doc, title + " · as of " + fmt_day(ranking.as_of));
@@ -183,6 +183,7 @@ void render_fleet_report(const FleetRanking& ranking, const std::vector<UnitAsse
   ranking_table(flow, ranking);
   charts(flow, ranking);
   life_outlook(flow, ranking);
+  if (plan) plan_section(flow, *plan);
   alerts(flow, open_alerts);
   coverage(flow, units);
   // A one-page report already has the block at its foot; a longer one

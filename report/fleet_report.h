@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "analytics/assessment.h"
+#include "report/plan_report.h"
 #include "report/render_error.h"
 #include "report/planner_week.h"
 #include "report/report_options.h"
@@ -20,11 +21,12 @@ inline constexpr double kStaleDataYears = 1.0;
 
 // Ranking table (risk order), distribution of units over bands, rated MVA
 // due per year (ten years), open alerts (one line each) and data coverage
-// from each unit's missing/freshness lists; safety cautions at the end.
+// from each unit's missing/freshness lists; the ten-year plan when `plan` is
+// given and configured (report/plan_section.cpp); safety cautions at the end.
 // Written atomically; throws RenderError.
 void render_fleet_report(const analytics::FleetRanking& ranking, const std::vector<analytics::UnitAssessment>& units,
                          const std::vector<std::string>& open_alerts, const ReportOptions& options,
-                         const std::string& path);
+                         const std::string& path, const PlanSection* plan = nullptr);
 
 // The ranking as CSV (RFC 4180 quoting, "\n" line ends, header row first).
 // Absent values are empty fields. Pure.

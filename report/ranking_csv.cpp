@@ -2,21 +2,12 @@
 #include <cstdio>
 #include <optional>
 
+#include "report/csv_field.h"
 #include "report/fleet_report.h"
 #include "report/safety_text.h"
 
 namespace ferrum::report {
 namespace {
-
-std::string quote(const std::string& field) {
-  if (field.find_first_of(",\"\r\n") == std::string::npos) return field;
-  std::string out = "\"";
-  for (char c : field) {
-    if (c == '"') out += '"';
-    out += c;
-  }
-  return out + "\"";
-}
 
 // Six significant figures: exact for every value the ranking carries, and
 // locale-independent ("%g" ignores the locale's grouping here).
@@ -30,6 +21,16 @@ std::string number(std::optional<double> v) {
 std::string integer(std::optional<int> v) { return v ? std::to_string(*v) : std::string(); }
 
 }  // namespace
+
+std::string quote(const std::string& field) {
+  if (field.find_first_of(",\"\r\n") == std::string::npos) return field;
+  std::string out = "\"";
+  for (char c : field) {
+    if (c == '"') out += '"';
+    out += c;
+  }
+  return out + "\"";
+}
 
 std::string fleet_ranking_csv(const analytics::FleetRanking& ranking) {
   std::string csv =

@@ -21,7 +21,7 @@ namespace {
 #define UNIT_COLUMNS                                                                                           \
   "unit_id, site, serial, rated_mva, hv_kv, lv_kv, cooling, year_built, phases, vector_group, oil_type, paper," \
   " oil_volume_l, criticality, customers_served, top_oil_rise_k, hot_spot_gradient_k, load_loss_ratio,"       \
-  " oil_treated_day, conductor, tap_positions, tap_nominal, tap_step_pct, impedance_pct"
+  " oil_treated_day, conductor, tap_positions, tap_nominal, tap_step_pct, impedance_pct, replacement_cost, refurbishment_cost"
 
 
 using analytics::LabValue;
@@ -336,18 +336,20 @@ class SqliteStore final : public Store {
     auto& s = stmt(
         "INSERT INTO units(unit_id, site, serial, rated_mva, hv_kv, lv_kv, cooling, year_built, phases,"
         " vector_group, oil_type, paper, oil_volume_l, criticality, customers_served, top_oil_rise_k,"
-        " hot_spot_gradient_k, load_loss_ratio, oil_treated_day, file_id, line)"
-        " VALUES(?1,?2,?3,?4,?5,?6,?7,?8,?9,?10,?11,?12,?13,?14,?15,?16,?17,?18,?19,?20,?21)"
+        " hot_spot_gradient_k, load_loss_ratio, oil_treated_day, file_id, line, replacement_cost, refurbishment_cost)"
+        " VALUES(?1,?2,?3,?4,?5,?6,?7,?8,?9,?10,?11,?12,?13,?14,?15,?16,?17,?18,?19,?20,?21,?22,?23)"
         " ON CONFLICT(unit_id) DO UPDATE SET site=?2, serial=?3, rated_mva=?4, hv_kv=?5, lv_kv=?6,"
         " cooling=?7, year_built=?8, phases=?9, vector_group=?10, oil_type=?11, paper=?12,"
         " oil_volume_l=?13, criticality=?14, customers_served=?15, top_oil_rise_k=?16,"
-        " hot_spot_gradient_k=?17, load_loss_ratio=?18, oil_treated_day=?19, file_id=?20, line=?21");
+        " hot_spot_gradient_k=?17, load_loss_ratio=?18, oil_treated_day=?19, file_id=?20, line=?21,"
+        " replacement_cost=?22, refurbishment_cost=?23");
     s.bind(1, u.unit_id).bind(2, u.site).bind_text_or_null(3, u.serial).bind(4, u.rated_mva)
         .bind(5, u.hv_kv).bind(6, u.lv_kv).bind(7, u.cooling).bind(8, u.year_built).bind(9, u.phases)
         .bind_text_or_null(10, u.vector_group).bind(11, analytics::to_string(u.oil))
         .bind(12, analytics::to_string(u.paper)).bind(13, u.oil_volume_l).bind(14, u.criticality)
         .bind(15, u.customers_served).bind(16, u.top_oil_rise_k).bind(17, u.hot_spot_gradient_k)
-        .bind(18, u.load_loss_ratio).bind(19, u.oil_treated).bind(20, file_id).bind(21, line);
+        .bind(18, u.load_loss_ratio).bind(19, u.oil_treated).bind(20, file_id).bind(21, line)
+        .bind(22, u.replacement_cost).bind(23, u.refurbishment_cost);
     s.run();
     auto& e = stmt("UPDATE units SET conductor=?, tap_positions=?, tap_nominal=?, tap_step_pct=?, impedance_pct=?"
                    " WHERE unit_id=?");
@@ -761,6 +763,8 @@ class SqliteStore final : public Store {
     if (!s.is_null(21)) u.tap_nominal = s.i32(21);
     u.tap_step_pct = s.opt_real(22);
     u.impedance_pct = s.opt_real(23);
+    u.replacement_cost = s.opt_real(24);
+    u.refurbishment_cost = s.opt_real(25);
     return u;
   }
 
@@ -785,7 +789,10 @@ class SqliteStore final : public Store {
       << opt(u.hot_spot_gradient_k) << ",\"load_loss_ratio\":" << opt(u.load_loss_ratio)
       << ",\"oil_treated_day\":" << opt(u.oil_treated) << ",\"conductor\":\"" << json_escape(u.conductor)
       << "\",\"tap_positions\":" << opt(u.tap_positions) << ",\"tap_nominal\":" << opt(u.tap_nominal)
-      << ",\"tap_step_pct\":" << opt(u.tap_step_pct) << ",\"impedance_pct\":" << opt(u.impedance_pct) << "}";
+      << ",\"tap_step_pct\":" << opt(u.tap_step_pct) << ",\"impedance_pct\":" << opt(u.impedance_pct);
+    if (u.replacement_cost || u.refurbishment_cost)  // migration 005; absent in older history rows
+      o << ",\"replacement_cost\":" << opt(u.replacement_cost) << ",\"refurbishment_cost\":" << opt(u.refurbishment_cost);
+    o << "}";
     return o.str();
   }
 

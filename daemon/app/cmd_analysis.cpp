@@ -7,6 +7,7 @@
 #include "analytics/oil_assessment.h"
 #include "analytics/thermal_assessment.h"
 #include "daemon/app/commands_impl.h"
+#include "daemon/app/fleet_inputs.h"
 #include "daemon/app/progress_display.h"
 #include "daemon/app/site_context.h"
 #include "daemon/assess/assessment_json.h"
@@ -99,22 +100,8 @@ int cmd_rank(const Invocation& inv) {
   if (inv.has("json") && inv.has("csv")) throw UsageError("--json or --csv, not both");
   auto site = open_site(inv, Access::read);
   const analytics::Day as_of = today(inv, site->config);
-  // The last whole-fleet assessment when nothing changed since (ranking_cache.h).
-  const std::string cache_key = assess::ranking_cache_key(site->root, *site->store, as_of);
-  auto units = inv.has("fresh") ? std::nullopt : assess::read_ranking_cache(site->root, cache_key);
-  if (!units) {
-    ProgressDisplay progress("assessing", "units", inv.has("quiet"));
-    units = assess::assess_fleet_parallel(*site->store, site->root.database().string(), as_of,
-                                          assess::options_from_config(site->config, &site->root),
-                                          [&](const char*, std::size_t done, std::size_t total) {
-                                            progress.update(static_cast<double>(done), static_cast<double>(total));
-                                          });
-    progress.finish();
-    std::vector<analytics::UnitAssessment> inputs;
-    for (const auto& a : *units) inputs.push_back(analytics::ranking_fields(a));
-    assess::write_ranking_cache(site->root, cache_key, inputs);
-  }
-  const auto ranking = analytics::rank_fleet(*units, as_of, assess::ranking_options_from_config(site->config));
+  const auto units = fleet_ranking_inputs(inv, *site, as_of);
+  const auto ranking = analytics::rank_fleet(units, as_of, assess::ranking_options_from_config(site->config));
   if (inv.has("json")) {
     std::cout << with_caution(assess::to_json(ranking)) << "\n";
     return kOk;

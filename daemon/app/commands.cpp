@@ -95,6 +95,15 @@ const std::vector<CommandInfo>& commands() {
        "message. Exit status 0 when every message was accepted by the server, 1 otherwise (the\n"
        "server's answer is printed; a message not rejected for good stays queued and is retried).",
        {"root", "weekly", "test"}},
+      {"plan", "ferrum plan --root DIR [--budget N [--budget N]] [--horizon N] [--json | --csv]",
+       "plan replacements and refurbishments year by year under a budget",
+       "Per year (ten by default, [plan] horizon_years or --horizon): the units funded with their action,\n"
+       "cost and MVA, the money spent, the fleet's risk with the plan, without any plan and with an\n"
+       "unlimited budget, and the units deferred with their risk. Budget: --budget N, else [plan]\n"
+       "budget_per_year; --budget given twice compares two budgets side by side. Costs from [costs]\n"
+       "and the register's replacement_cost and refurbishment_cost. Reuses the last whole-fleet\n"
+       "assessment like rank (--fresh: anew).",
+       {"root", "json", "csv", "as-of", "fresh", "quiet", "budget", "horizon"}},
   };
   return all;
 }
@@ -121,6 +130,7 @@ int run_command(const Invocation& inv) {
     if (inv.command == "ratio") return cmd_ratio(inv);
     if (inv.command == "tables") return cmd_tables(inv);
     if (inv.command == "send") return cmd_send(inv);
+    if (inv.command == "plan") return cmd_plan(inv);
   } catch (const UsageError& e) {
     std::cerr << "ferrum " << inv.command << ": " << e.what() << "\n";
     return kUsage;

@@ -31,5 +31,6 @@ int cmd_thermal(const Invocation& inv);
 int cmd_ratio(const Invocation& inv);
 int cmd_tables(const Invocation& inv);
 int cmd_send(const Invocation& inv);
+int cmd_plan(const Invocation& inv);
 
 }  // namespace ferrum::app

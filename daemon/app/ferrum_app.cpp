@@ -57,6 +57,8 @@ const OptionDef kOptions[] = {
     {"tap-step-pct", "PCT", "HV voltage step per tap position, % of the nameplate HV voltage"},
     {"export", "DIR", "tables: write the table files in force to this folder"},
     {"test", "ADDRESS", "send: a test message to this address"},
+    {"budget", "N", "plan: money per year (given twice: two budgets side by side)"},
+    {"horizon", "N", "plan: years the plan covers (default [plan] horizon_years, 10)"},
 };
 
 bool command_accepts(const CommandInfo& c, const std::string& option) {
@@ -73,7 +75,7 @@ void FerrumApp::defineOptions(Poco::Util::OptionSet& options) {
   options.addOption(Option("version", "", "show the version").required(false).repeatable(false));
   for (const auto& o : kOptions) {
     Option opt(o.name, "", o.help);
-    opt.required(false).repeatable(false);
+    opt.required(false).repeatable(std::string(o.name) == "budget");  // plan compares budgets
     if (o.argument) opt.argument(o.argument);
     options.addOption(opt);
   }
@@ -89,6 +91,7 @@ void FerrumApp::handleOption(const std::string& name, const std::string& value) 
   else if (name == "version") version_ = true;
   else if ((name == "root" || name == "pidfile") && !value.empty())
     inv_.options[name] = std::filesystem::absolute(value).lexically_normal().string();
+  else if (name == "budget" && inv_.has("budget")) inv_.options[name] += "\n" + value;  // given again: compared
   else inv_.options[name] = value;
 }
 

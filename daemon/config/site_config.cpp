@@ -15,6 +15,8 @@
 #include <functional>
 #include <sstream>
 
+#include "daemon/config/plan_config.h"
+
 namespace ferrum::config {
 namespace {
 
@@ -242,6 +244,11 @@ std::vector<Key> make_keys() {
                  }});
   }
   add_electrical_keys(k);
+  for (const PlanKey& p : plan_keys())  // [costs], [plan]: the budgeted plan
+    k.push_back({p.section, p.name, Type::text, p.default_text, true, p.comment, [&p](SiteConfig& c, const std::string& v) {
+                   check_plan_key(p, v);
+                   (std::string(p.section) == "costs" ? c.costs : c.plan)[p.name] = v;
+                 }});
   k.push_back({"log", "level", Type::text, "info", true, "trace, debug, info, warn, error.",
                [](SiteConfig& c, const std::string& v) {
                  const std::string l = Poco::toLower(v);
@@ -440,6 +447,7 @@ std::vector<std::string> describe_changes(const SiteConfig& a, const SiteConfig&
   if (a.ranking != b.ranking) out.push_back("ranking settings changed");
   if (a.mail != b.mail) out.push_back("mail settings changed");
   if (a.recipients != b.recipients) out.push_back("mail recipients changed");
+  if (a.costs != b.costs || a.plan != b.plan) out.push_back("costs or plan settings changed");
   if (a.health_bands != b.health_bands) out.push_back("health score bands changed");
   if (a.extra_inspection_items != b.extra_inspection_items) out.push_back("ingest.extra_inspection_items changed");
   for (const auto& [name, p] : b.parties) {

@@ -74,6 +74,8 @@ struct SiteConfig {
   std::vector<std::pair<double, double>> pf_correction;  // (test temperature degC, K), increasing
   // [ranking]
   std::map<std::string, double> ranking;         // key -> override of the ranking defaults
+  // [costs], [plan]: checked text by key (daemon/config/plan_config.h)
+  std::map<std::string, std::string> costs, plan;
   // [log]
   std::string log_level = "info";
   int log_file_mb = 10;

@@ -41,6 +41,7 @@ constexpr FieldSpec kRegister[] = {
     {"hot_spot_gradient_k", O}, {"load_loss_ratio", O}, {"oil_treated_date", O},
     // For the electrical field tests.
     {"conductor", O}, {"tap_positions", O}, {"tap_nominal", O}, {"tap_step_pct", O}, {"impedance_pct", O},
+    {"replacement_cost", O}, {"refurbishment_cost", O},
 };
 
 constexpr FieldSpec kOilLab[] = {

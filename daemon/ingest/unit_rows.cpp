@@ -88,6 +88,9 @@ void UnitRowParser::parse_thermal(analytics::UnitInfo& u) {
       number(column("hot_spot_gradient_k"), "hot-spot gradient", {0, 100, "K", true});
   u.load_loss_ratio = number(column("load_loss_ratio"), "load loss ratio", {0, 100, "", true});
   parse_electrical(u);
+  // The unit's own costs for the plan (analytics/plan), in the site's currency.
+  u.replacement_cost = number(column("replacement_cost"), "replacement cost", {0, 1e12, "", false});
+  u.refurbishment_cost = number(column("refurbishment_cost"), "refurbishment cost", {0, 1e12, "", false});
 }
 
 // Register columns read by the electrical field tests.

@@ -10,6 +10,8 @@
 #include <fstream>
 
 #include "daemon/assess/assessment_service.h"
+#include "daemon/assess/plan_service.h"
+#include "daemon/config/plan_config.h"
 #include "daemon/site/atomic_file.h"
 #include "report/alert_report.h"
 #include "report/fleet_report.h"
@@ -120,6 +122,15 @@ ReportWriter::FleetFiles ReportWriter::fleet_report(analytics::Day as_of, const 
   return fleet_files(units, rank(units, as_of), as_of, out_dir);
 }
 
+report::PlanSection ReportWriter::plan_section(const analytics::FleetRanking& ranking, analytics::Day as_of) {
+  report::PlanSection s;
+  s.configured = config::plan_configured(config_);
+  if (s.configured)
+    s.plan = assess::make_plan(assess::plan_units(ranking, store_.units()), as_of, config_, std::nullopt, std::nullopt,
+                              &s.unavailable);
+  return s;
+}
+
 analytics::FleetRanking ReportWriter::rank(const std::vector<analytics::UnitAssessment>& units, analytics::Day as_of) {
   return analytics::rank_fleet(units, as_of, assess::ranking_options_from_config(config_));
 }
@@ -133,7 +144,8 @@ ReportWriter::FleetFiles ReportWriter::fleet_files(const std::vector<analytics::
   FleetFiles f;
   f.pdf = out_dir / ("ferrum-fleet-" + analytics::format_day(as_of) + ".pdf");
   f.csv = out_dir / ("ferrum-fleet-" + analytics::format_day(as_of) + ".csv");
-  report::render_fleet_report(ranking, units, alerts, report_options(config_), f.pdf.string());
+  const report::PlanSection plan = plan_section(ranking, as_of);
+  report::render_fleet_report(ranking, units, alerts, report_options(config_), f.pdf.string(), &plan);
   site::write_file_atomically(f.csv, report::fleet_ranking_csv(ranking));
   return f;
 }

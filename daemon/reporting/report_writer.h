@@ -14,6 +14,7 @@
 #include "daemon/assess/assessment_service.h"
 #include "daemon/config/site_config.h"
 #include "daemon/site/site_root.h"
+#include "report/plan_report.h"
 #include "schema/store.h"
 
 namespace ferrum::reporting {
@@ -51,6 +52,8 @@ class ReportWriter {
 
  private:
   analytics::FleetRanking rank(const std::vector<analytics::UnitAssessment>& units, analytics::Day as_of);
+  // The ten-year plan of the fleet report, when ferrum.ini [plan] sets a budget.
+  report::PlanSection plan_section(const analytics::FleetRanking& ranking, analytics::Day as_of);
   FleetFiles fleet_files(const std::vector<analytics::UnitAssessment>& units, const analytics::FleetRanking& ranking,
                          analytics::Day as_of, const std::filesystem::path& out_dir);
 

@@ -173,6 +173,25 @@ class DemoStorylines(unittest.TestCase):
         fresh = json.loads(run("rank", "--root", self.root, "--as-of", AS_OF, "--json", "--fresh").stdout)
         self.assertEqual(fresh, self.ranking)
 
+    def test_demo_plan_funds_the_due_units_within_the_budget(self):
+        # The demo configures [costs] and [plan] budget_per_year = 600,000 EUR with carry-over
+        # (demo-site/site/ferrum.ini). CRW-T1 (60 MVA, 132 kV class 2: 60 x 28,000 + 250,000 =
+        # 1,930,000) is due in 2028; PLW-T1's refurbishment (237,500) is paid in 2027, so 2028
+        # has 3 x 600,000 - 237,500 = 1,562,500: too little; 2029 has 2,162,500.
+        doc = json.loads(run("plan", "--root", self.root, "--as-of", AS_OF, "--json").stdout)
+        self.assertTrue(doc["caution"].startswith("SAFETY"))
+        plan = doc["plans"][0]
+        self.assertEqual(plan["budget_per_year"], 600000)
+        self.assertEqual(len(plan["years"]), 10)
+        funded = {f["unit_id"]: (y["year"], f["action"]) for y in plan["years"] for f in y["funded"]}
+        self.assertEqual(funded.get("CRW-T1"), (2029, "replace"))  # replace 2028 in the ranking
+        self.assertIn("CRW-T1", [d["unit_id"] for d in plan["years"][2]["deferred"]])
+        self.assertGreater(plan["years"][2]["risk_with_plan"], plan["years"][2]["risk_unlimited"])
+        self.assertEqual(funded.get("PLW-T1", (0, ""))[1], "refurbish")
+        for y in plan["years"]:
+            self.assertLessEqual(y["spent"], y["budget"])
+        self.assertLess(plan["total_risk_with_plan"], plan["total_risk_without_plan"])
+
     # ------------------------------------------------------------ storylines.tsv, row by row
     def test_every_storyline_check_holds(self):
         rows = read_storylines()

@@ -1,0 +1,27 @@
+#include "daemon/app/fleet_inputs.h"
+
+#include "daemon/app/progress_display.h"
+#include "daemon/assess/assessment_service.h"
+#include "daemon/assess/ranking_cache.h"
+
+namespace ferrum::app {
+
+std::vector<analytics::UnitAssessment> fleet_ranking_inputs(const Invocation& inv, SiteContext& site, analytics::Day as_of) {
+  // The key before the first read: an import meanwhile changes it (ranking_cache.h).
+  const std::string cache_key = assess::ranking_cache_key(site.root, *site.store, as_of);
+  auto units = inv.has("fresh") ? std::nullopt : assess::read_ranking_cache(site.root, cache_key);
+  if (units) return std::move(*units);
+  ProgressDisplay progress("assessing", "units", inv.has("quiet"));
+  auto fresh = assess::assess_fleet_parallel(*site.store, site.root.database().string(), as_of,
+                                             assess::options_from_config(site.config, &site.root),
+                                             [&](const char*, std::size_t done, std::size_t total) {
+                                               progress.update(static_cast<double>(done), static_cast<double>(total));
+                                             });
+  progress.finish();
+  std::vector<analytics::UnitAssessment> inputs;
+  for (const auto& a : fresh) inputs.push_back(analytics::ranking_fields(a));
+  assess::write_ranking_cache(site.root, cache_key, inputs);
+  return fresh;
+}
+
+}  // namespace ferrum::app
