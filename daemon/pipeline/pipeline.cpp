@@ -344,7 +344,7 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
     if (progress_) {
       std::error_code ec;
       const std::uint64_t total = fs::file_size(claimed, ec);
-      settings.tick = [&] {
+      settings.tick = [this, &in, &name, total] {  // total by value: it ends with this block
         const auto at = in.tellg();
         progress_(name, at < 0 ? total : static_cast<std::uint64_t>(at), total);
       };
