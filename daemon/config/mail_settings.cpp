@@ -139,7 +139,7 @@ std::string mail_config_sample() {
          "; (the fleet report and its CSV), alerts (at once, for their sites); sites: * or a list.\n"
          "; [recipients.north_planner]\n"
          "; email = planner@example.org\n"
-         "; sites = Quillmere, Harrowby\n"
+         "; sites = Quillmere, Ostrand Yard\n"
          "; gets = weekly, alerts\n";
 }
 

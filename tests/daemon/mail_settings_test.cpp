@@ -51,7 +51,7 @@ TEST(MailSettings, OffByDefaultAndDefaults) {
 
 TEST(MailSettings, RecipientsWithSitesAndGets) {
   const SiteConfig c = load_text(kMail + "max_mb = 5\n[recipients.anna]\nemail = anna.b+w@north-grid.example.org\n"
-                                         "sites = Quillmere, Harrowby\ngets = weekly, alerts\n"
+                                         "sites = Quillmere, Ostrand Yard\ngets = weekly, alerts\n"
                                          "[recipients.carla]\nemail = carla@example.org\ngets = fleet\n");
   ASSERT_EQ(c.recipients.size(), 2u);
   const Recipient& a = c.recipients.at("anna");

@@ -23,7 +23,7 @@ analytics::UnitAssessment unit(const std::string& id, const std::string& site) {
 
 TEST(PlannerWeek, ActionsChangesAlertsFilesAndOverdue) {
   const analytics::Day today = analytics::days_from_civil(2026, 12, 7);
-  std::vector<analytics::UnitAssessment> units = {unit("T1", "Quillmere"), unit("T2", "Harrowby")};
+  std::vector<analytics::UnitAssessment> units = {unit("T1", "Quillmere"), unit("T2", "Ostrand Yard")};
   units[0].actions = {{2, today + 20, "infrared survey", ""}, {1, today + 3, "resample oil", ""},
                       {3, today + 45, "routine", ""}, {2, today - 1, "tighten connection", ""}};
   units[0].freshness = {{"oil", today - 100, 0.3}, {"infrared", today - 400, 1.1}, {"inspection", today - 10, 0.0}};
@@ -37,7 +37,7 @@ TEST(PlannerWeek, ActionsChangesAlertsFilesAndOverdue) {
   ranking.units[0].band = "poor";
   ranking.units[0].recommended_action = "refurbish";
   ranking.units[1].unit_id = "T2";
-  ranking.units[1].site = "Harrowby";
+  ranking.units[1].site = "Ostrand Yard";
   ranking.units[1].health_index = 80;
   ranking.units[1].band = "good";
   ranking.units[1].recommended_action = "routine";
@@ -47,7 +47,7 @@ TEST(PlannerWeek, ActionsChangesAlertsFilesAndOverdue) {
   in.as_of = today;
   in.units = &units;
   in.ranking = &ranking;
-  in.previous_week_tsv = "T1\tQuillmere\t62\tfair\tmonitor\nT2\tHarrowby\t80\tgood\troutine\n";
+  in.previous_week_tsv = "T1\tQuillmere\t62\tfair\tmonitor\nT2\tOstrand Yard\t80\tgood\troutine\n";
   store::Alert old_alert, new_alert;
   old_alert.unit_id = new_alert.unit_id = "T1";
   old_alert.raised_at = "2026-11-20T08:00:00Z";

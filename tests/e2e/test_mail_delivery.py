@@ -31,7 +31,7 @@ from ferrumtest import SiteTestCase, run
 
 REGISTER = """unit_id,site,rated_mva,hv_kv,lv_kv,cooling,year_built,vector_group,criticality
 T1,Quillmere,40,132,33,ONAF,1985,Dyn11,4
-T2,Harrowby,10,33,11,ONAN,2015,Dyn11,2
+T2,Ostrand Yard,10,33,11,ONAN,2015,Dyn11,2
 """
 
 RECIPIENTS = """
@@ -41,8 +41,8 @@ sites = Quillmere
 gets = weekly, alerts
 
 [recipients.ben]
-email = ben@harrowby.example
-sites = harrowby
+email = ben@ostrand.example
+sites = Ostrand Yard
 gets = weekly
 
 [recipients.carla]
@@ -147,7 +147,7 @@ class WhoGetsWhat(MailCase):
         fleet = sorted(n for n in files if n.startswith("ferrum-fleet-"))
         self.assertEqual(len(fleet), 2, files.keys())  # PDF and CSV
         expected = {"anna@quillmere.example": {t1, "index.pdf"},      # planner of Quillmere: T1 only
-                    "ben@harrowby.example": {t2, "index.pdf"},        # planner of Harrowby: T2 only
+                    "ben@ostrand.example": {t2, "index.pdf"},        # planner of Ostrand Yard: T2 only
                     "carla@utility.example": set(fleet) | {"index.pdf"}}  # manager: fleet PDF + CSV
         for address, names in expected.items():
             got = rec.to(address)
@@ -204,7 +204,7 @@ class WhoGetsWhat(MailCase):
         self.assertEqual(len(pdfs), 1)
         self.assertEqual(self.attachments(msg), {os.path.basename(pdfs[0]): read(pdfs[0])})
         time.sleep(1.5)
-        # ben serves Harrowby only and carla does not get alerts.
+        # ben serves Ostrand Yard only and carla does not get alerts.
         self.assertEqual([r for _, r, _ in rec.messages], [["anna@quillmere.example"]])
         self.assertEqual(self.stop_daemon()[0], 0)
 
@@ -226,7 +226,7 @@ class Faults(MailCase):
         self.wait_for(lambda: len(self.outbox("sent")) == 3, timeout=30, what="delivery after the server came up")
         time.sleep(3)  # nothing comes a second time
         self.assertEqual(sorted(r[0] for _, r, _ in rec.messages),
-                         ["anna@quillmere.example", "ben@harrowby.example", "carla@utility.example"])
+                         ["anna@quillmere.example", "ben@ostrand.example", "carla@utility.example"])
         self.assertEqual(self.outbox(), [])
         self.assertEqual(self.stop_daemon()[0], 0)
 
@@ -247,13 +247,13 @@ class Faults(MailCase):
         self.assertEqual(self.outbox(), [])
         got = {m["To"]: m["Message-ID"] for _, _, m in rec.messages}
         self.assertEqual(set(first) | set(got),
-                         {"anna@quillmere.example", "ben@harrowby.example", "carla@utility.example"})
+                         {"anna@quillmere.example", "ben@ostrand.example", "carla@utility.example"})
         for to, mid in first.items():  # resent with the same Message-ID
             self.assertEqual(got.get(to), mid, to)
         self.assertEqual(self.stop_daemon()[0], 0)
 
     def test_rejected_recipient_goes_to_failed_with_the_server_answer(self):
-        rec = self.start_server(Recorder(reject={"ben@harrowby.example"}))
+        rec = self.start_server(Recorder(reject={"ben@ostrand.example"}))
         self.configure()
         self.weekly_bundle()
         p = run("send", "--root", self.root, "--weekly", check=False)
