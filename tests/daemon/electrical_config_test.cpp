@@ -2,6 +2,8 @@
 // the analytics options. Plumbing: no engineering value is checked here.
 #include <gtest/gtest.h>
 
+#include "tests/daemon/temp_ini.h"
+
 #include <unistd.h>
 
 #include <filesystem>
@@ -16,22 +18,13 @@ using namespace ferrum;
 namespace {
 
 config::SiteConfig load(const std::string& extra) {
-  const fs::path p = fs::temp_directory_path() / ("ferrum-elec-" + std::to_string(::getpid()) + ".ini");
-  std::ofstream(p) << "[party.planning]\nkinds = *\nsites = *\n" << extra;
-  try {
-    auto c = config::load_site_config(p.string());
-    fs::remove(p);
-    return c;
-  } catch (...) {
-    fs::remove(p);
-    throw;
-  }
+  return ferrum::testing::load_ini_text("[party.planning]\nkinds = *\nsites = *\n" + extra, "elec");
 }
 
 TEST(ElectricalConfig, DefaultsAndValues) {
   EXPECT_EQ(load("").electrical_reference_c, 75);
   EXPECT_TRUE(load("").pf_correction.empty());
-  const auto c = load("[electrical]\nreference_c = 85\npf_correction = 10:1.2, 20:1.0, 30:0.8\n");
+  const auto c = load("[electrical]\nreference_c = 85\npf_correction = 10:1.2, 20:1.0, 30:0.8\n");  // illustrative K values, not a table
   EXPECT_EQ(c.electrical_reference_c, 85);
   ASSERT_EQ(c.pf_correction.size(), 3u);
   EXPECT_DOUBLE_EQ(c.pf_correction[2].first, 30);

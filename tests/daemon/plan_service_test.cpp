@@ -3,6 +3,8 @@
 // plan itself is checked in tests/analytics/plan_test.cpp).
 #include <gtest/gtest.h>
 
+#include "tests/daemon/temp_ini.h"
+
 #include <unistd.h>
 
 #include <cmath>
@@ -18,16 +20,7 @@ using namespace ferrum;
 namespace {
 
 config::SiteConfig load_plan_ini(const std::string& text) {
-  const fs::path p = fs::temp_directory_path() / ("ferrum-plan-" + std::to_string(::getpid()) + ".ini");
-  std::ofstream(p) << text << "\n[party.p]\nkinds = *\n";
-  try {
-    auto c = config::load_site_config(p.string());
-    fs::remove(p);
-    return c;
-  } catch (...) {
-    fs::remove(p);
-    throw;
-  }
+  return ferrum::testing::load_ini_text(text + "\n[party.p]\nkinds = *\n", "plan");
 }
 
 TEST(PlanService, IniKeysReachThePlanOptions) {

@@ -1,4 +1,5 @@
 // The progress line of long commands (daemon/app/progress_display.h).
+// Plumbing: no engineering value is checked here, so no published source applies.
 #include "daemon/app/progress_display.h"
 
 #include <gtest/gtest.h>
