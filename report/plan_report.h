@@ -18,9 +18,10 @@ struct PlanSection {
   bool configured = false;
   std::optional<analytics::FleetPlan> plan;
   std::string unavailable;  // why there is no plan, when configured
+  int horizon_years = 10;   // [plan] horizon_years: the heading when there is no plan
 };
 
-// "Ten-year plan": budget, method and assumptions, a table per year (units
+// "Ten-year plan" (the heading follows the horizon, analytics::plan_title): budget, method and assumptions, a table per year (units
 // funded with action, cost and MVA; spent; fleet risk with the plan, without
 // any plan and with an unlimited budget; deferred units), and a chart of the
 // fleet's risk by year for the three cases.

@@ -1,4 +1,5 @@
-// The "Ten-year plan" section of the fleet report.
+// The plan section of the fleet report ("Ten-year plan", or as long as the
+// configured horizon).
 #include <cmath>
 
 #include "report/page_flow.h"
@@ -56,9 +57,9 @@ std::string money_text(double amount, const std::string& currency) {
 
 void plan_section(PageFlow& flow, const PlanSection& s) {
   if (!s.configured) return;
-  flow.section("Ten-year plan", 120);
+  flow.section(analytics::plan_title(s.plan ? s.plan->horizon_years : s.horizon_years), 120);
   if (!s.plan) {
-    flow.paragraph("No plan: " + s.unavailable + ". Set the missing costs in ferrum.ini [costs] (README, 'Ten-year plan').",
+    flow.paragraph("No plan: " + s.unavailable + ". Set the missing costs in ferrum.ini [costs] (README, 'The ten-year plan').",
                    type::body, FontFace::regular, palette::muted);
     return;
   }
@@ -69,6 +70,11 @@ void plan_section(PageFlow& flow, const PlanSection& s) {
                      risk_number(p.total_risk_with_plan) + " with the plan, " + risk_number(p.total_risk_without_plan) +
                      " without any plan, " + risk_number(p.total_risk_unlimited) + " with an unlimited budget.",
                  type::body);
+  if (p.allocation_budget < p.budget_per_year)
+    flow.paragraph("The units are funded as a budget of " + money_text(p.allocation_budget, p.currency) +
+                       " a year would fund them: that leaves less risk summed over the years than funding in strict "
+                       "order within the full budget, so a larger budget is never worse than a smaller one.",
+                   type::small);
   Table t;
   t.font_size = 7.2;
   t.columns = {{"Year", 0.45},

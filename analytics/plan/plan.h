@@ -29,13 +29,38 @@
 //    ((risk now - risk after) / cost; equal ratios: riskier first, then
 //    unit_id) and funded in that order while money remains; a candidate that
 //    does not fit is deferred and the next, cheaper one may still be funded.
-//    Unspent money is lost unless carry_over. Deferred units keep ageing.
-//  * A replaced unit starts as new (HI hi_new) and ages at the expected rate;
-//    a refurbished unit goes back refurbishment_years along its own ageing
-//    curve (at most to hi_new) and keeps its rate. One intervention per unit
-//    within the horizon.
+//    Then, among candidates of exactly equal cost, the riskier ones (risk that
+//    year) take the funded places: the spending and every other decision stay
+//    the same. Unspent money is lost unless carry_over. Deferred units keep
+//    ageing. Money is counted in hundredths of the currency unit.
+//  * A replaced unit is as new (HI hi_new, PoF pof_as_new) for the rest of the
+//    horizon (CNAIM keeps PoF flat until a new asset is about 87 % through its
+//    expected life; from memory, verify); a refurbished unit goes back
+//    refurbishment_years along its own ageing curve (at most to hi_new) and
+//    keeps its rate. One intervention per unit within the horizon. Both make a
+//    unit's state after its intervention independent of the year it was
+//    funded, so an earlier intervention never leaves more risk in any year.
+//  * A larger budget never leaves more total risk. The greedy allocation alone
+//    does not ensure it (a larger budget may fund one dear unit that crowds out
+//    several cheaper ones, or spend early what a smaller budget carries over).
+//    The allocation changes only at the budgets where some deferred candidate
+//    starts to fit (exact in hundredths); the plan for budget B takes, of the
+//    allocations of all budgets from 0 to B (found by stepping from one such
+//    budget to the next), the one leaving the least fleet risk summed over the
+//    years (B's own on a tie). Any of them is affordable within B. So for
+//    B1 < B2 the allocations B2 chooses among include all those of B1.
 //  * The fleet's risk each year is computed three times: with the plan, with
 //    no intervention at all, and with an unlimited budget.
+// Guaranteed for every fleet (tests/analytics/plan_test.cpp, randomized):
+//  1. spending in a year never exceeds that year's budget (with carry_over:
+//     the budget plus what earlier years left);
+//  2. in the year a unit is funded, no candidate of that year with the same
+//     cost and a higher risk that year is deferred (so of two units with equal
+//     cost that are candidates together, the riskier is never funded later);
+//  3. for budgets B1 < B2 the plan of B2 leaves no more fleet risk summed over
+//     the horizon than that of B1; the unlimited budget leaves the least, and
+//     no plan the most (in every year, too, for these two);
+//  4. with an unlimited budget every candidate is funded in its first year.
 // Costs: replacement = cost per MVA of the unit's HV class x rated MVA + a
 // fixed cost per replacement; refurbishment = a fraction of that replacement
 // cost. A unit's own costs (register columns) override both. The currency is
@@ -124,6 +149,9 @@ struct FleetPlan {
   Day as_of = 0;
   std::string currency;
   double budget_per_year = 0;             // infinity if unlimited
+  // The budget whose yearly allocation the plan follows: budget_per_year, or
+  // a smaller one whose allocation leaves less total risk (see above).
+  double allocation_budget = 0;
   bool carry_over = false;
   int start_year = 0, horizon_years = 0;
   std::vector<PlanYear> years;
@@ -144,6 +172,9 @@ int voltage_class(double hv_kv, const CostOptions& costs);
 double ageing_rate(const PlanUnit& u, const PlanOptions& o);
 // Risk of an index: PoF(HI) x 1,000 x consequence.
 double plan_risk(double health_index, double consequence, const PlanOptions& o);
+
+// "Ten-year plan", "Five-year plan", "25-year plan": the plan's heading.
+std::string plan_title(int horizon_years);
 
 // The plan. Never drops a unit: those without an index are in not_planned.
 FleetPlan plan_fleet(const std::vector<PlanUnit>& units, Day as_of, const CostOptions& costs, const PlanOptions& options);

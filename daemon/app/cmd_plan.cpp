@@ -41,6 +41,10 @@ void print_notes(const analytics::FleetPlan& p) {
     for (const auto& x : v) s += (s.empty() ? "" : ", ") + x;
     return s;
   };
+  if (p.allocation_budget < p.budget_per_year)
+    std::cout << "funded as a budget of " << report::money_text(p.allocation_budget, p.currency)
+              << " a year would fund them: that leaves less total risk than funding in strict order within "
+              << report::money_text(p.budget_per_year, p.currency) << "\n";
   if (!p.unfunded.empty()) std::cout << "still waiting at the end of the plan: " << list(p.unfunded) << "\n";
   for (const auto& n : p.not_planned) std::cout << "not planned: " << n << "\n";
 }

@@ -30,6 +30,7 @@ Object::Ptr to_json(const analytics::FleetPlan& p) {
   o->set("as_of", analytics::format_day(p.as_of));
   o->set("currency", p.currency);
   o->set("budget_per_year", amount(p.budget_per_year));
+  o->set("allocation_budget", amount(p.allocation_budget));  // budget_per_year unless a smaller allocation leaves less risk
   o->set("carry_over", p.carry_over);
   o->set("start_year", p.start_year);
   o->set("horizon_years", p.horizon_years);

@@ -125,6 +125,7 @@ ReportWriter::FleetFiles ReportWriter::fleet_report(analytics::Day as_of, const 
 report::PlanSection ReportWriter::plan_section(const analytics::FleetRanking& ranking, analytics::Day as_of) {
   report::PlanSection s;
   s.configured = config::plan_configured(config_);
+  s.horizon_years = assess::plan_settings_from_config(config_).options.horizon_years;
   if (s.configured)
     s.plan = assess::make_plan(assess::plan_units(ranking, store_.units()), as_of, config_, std::nullopt, std::nullopt,
                               &s.unavailable);

@@ -3,6 +3,7 @@ young one. The plan funds what the budget allows, in order of risk removed
 per unit of money, a second budget is shown side by side, every output ends
 with the caution, and the fleet report carries the plan section."""
 import csv
+import glob
 import io
 import json
 import os
@@ -121,6 +122,29 @@ class PlanCommand(SiteTestCase):
         self.assertIn("Ten-year plan", text)
         self.assertIn("T1 replace 1,200,000, 40 MVA", text)
         self.assertIn("without any plan", text)
+        self.assertIn("unlimited budget", text)
+        self.assertIn("CIGRE TB 761", text)  # the method and its sources are stated
+        self.assertIn("from memory; verify", text)
+
+    def test_horizon_start_year_and_the_weekly_bundle(self):
+        # A five-year plan from 2027: the heading follows the horizon, the years start in 2027, and the
+        # weekly bundle's fleet report carries the same section.
+        self.write_config(COSTS + "[plan]\nbudget_per_year = 1500000\nhorizon_years = 5\nstart_year = 2027\n")
+        plan = json.loads(self.plan("--json").stdout)["plans"][0]
+        self.assertEqual([y["year"] for y in plan["years"]], [2027, 2028, 2029, 2030, 2031])
+        self.assertEqual(plan["currency"], "EUR")
+        # --horizon on the command line overrides the configured one.
+        plan = json.loads(self.plan("--json", "--horizon", "12").stdout)["plans"][0]
+        self.assertEqual(len(plan["years"]), 12)
+        self.assertEqual(plan["years"][0]["year"], 2027)
+        run("report", "--root", self.root, "--weekly", "--as-of", AS_OF)
+        fleet = glob.glob(self.path("reports", "*-W*", "ferrum-fleet-*.pdf"))
+        self.assertEqual(len(fleet), 1, fleet)
+        text = pdftotext(fleet[0])
+        self.assertIn("Five-year plan", text)
+        self.assertNotIn("Ten-year plan", text)
+        self.assertIn("2027", text)
+        self.assertIn("1,500,000 EUR a year", text)
 
 
 if __name__ == "__main__":
