@@ -191,6 +191,21 @@ class DemoStorylines(unittest.TestCase):
         for y in plan["years"]:
             self.assertLessEqual(y["spent"], y["budget"])
         self.assertLess(plan["total_risk_with_plan"], plan["total_risk_without_plan"])
+        # demo-site/README.md, "The manager's plan": the years and the summed risks it quotes.
+        self.assertEqual(funded.get("PLW-T1"), (2027, "refurbish"))
+        self.assertEqual(funded.get("PLW-T3"), (2035, "replace"))
+        self.assertAlmostEqual(plan["total_risk_with_plan"], 1449.9, delta=0.1)
+        self.assertAlmostEqual(plan["total_risk_without_plan"], 1920.2, delta=0.1)
+        self.assertAlmostEqual(plan["total_risk_unlimited"], 1400.4, delta=0.1)
+        # The what-if: 1,000,000 a year replaces CRW-T1 in 2028, as an unlimited budget does; the
+        # cut to 600,000 spends the same a year later and leaves more summed risk.
+        two = json.loads(run("plan", "--root", self.root, "--as-of", AS_OF, "--budget", "1000000",
+                             "--budget", "600000", "--json").stdout)["plans"]
+        wide = {f["unit_id"]: y["year"] for y in two[0]["years"] for f in y["funded"]}
+        self.assertEqual(wide.get("CRW-T1"), 2028)
+        self.assertAlmostEqual(two[0]["total_risk_with_plan"], two[0]["total_risk_unlimited"], places=6)
+        self.assertEqual(two[0]["total_spent"], two[1]["total_spent"])
+        self.assertAlmostEqual(two[1]["total_risk_with_plan"] - two[0]["total_risk_with_plan"], 49.6, delta=0.1)
 
     # ------------------------------------------------------------ storylines.tsv, row by row
     def test_every_storyline_check_holds(self):
