@@ -88,4 +88,44 @@ TEST(PlanService, MissingClassCostNamesTheUnits) {
   EXPECT_TRUE(assess::make_plan({b, quiet}, analytics::days_from_civil(2026, 6, 30), c, std::nullopt, std::nullopt, &why));
 }
 
+// The plan's units: the ranking's row plus the register's HV voltage and the unit's own costs
+// (replacement_cost, refurbishment_cost), matched by unit_id; a unit missing from the register keeps
+// no own costs. Plumbing.
+TEST(PlanService, RegisterCostsReachThePlanUnits) {
+  analytics::FleetRanking ranking;
+  analytics::RankedUnit r;
+  r.unit_id = "T1";
+  r.site = "Ostrand Yard";
+  r.rated_mva = 40;
+  r.health_index = 45;
+  r.recommended_action = "refurbish";
+  r.action_year = 2027;
+  r.consequence = 0.6;
+  ranking.units = {r, r};
+  ranking.units[1].unit_id = "T2";
+  analytics::UnitInfo info;
+  info.unit_id = "T1";
+  info.hv_kv = 132;
+  info.replacement_cost = 2000000;
+  info.refurbishment_cost = 350000;
+  const auto units = assess::plan_units(ranking, {info});
+  ASSERT_EQ(units.size(), 2u);
+  EXPECT_DOUBLE_EQ(units[0].hv_kv, 132);
+  EXPECT_DOUBLE_EQ(units[0].replacement_cost.value_or(0), 2000000);
+  EXPECT_DOUBLE_EQ(units[0].refurbishment_cost.value_or(0), 350000);
+  EXPECT_EQ(units[0].action, "refurbish");
+  EXPECT_EQ(units[0].action_year, 2027);
+  EXPECT_FALSE(units[1].replacement_cost);
+  EXPECT_FALSE(units[1].refurbishment_cost);
+  // The own refurbishment cost is what the plan pays (no [costs] class needed for it).
+  const auto c = load_plan_ini("[costs]\ncurrency = NOK\n[plan]\nbudget_per_year = 400000\n");
+  std::string why;
+  const auto plan = assess::make_plan({units[0]}, analytics::days_from_civil(2026, 11, 30), c, std::nullopt, 3, &why);
+  ASSERT_TRUE(plan) << why;
+  EXPECT_EQ(plan->currency, "NOK");  // a label, never converted
+  ASSERT_EQ(plan->years.size(), 3u);
+  ASSERT_EQ(plan->years[1].funded.size(), 1u);
+  EXPECT_DOUBLE_EQ(plan->years[1].funded[0].cost, 350000);
+}
+
 }  // namespace

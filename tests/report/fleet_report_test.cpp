@@ -6,6 +6,7 @@
 #include <algorithm>
 
 #include "report/alert_report.h"
+#include "report/plan_report.h"
 #include "tests/report/pdf_tools.h"
 #include "tests/report/report_fixtures.h"
 
@@ -36,6 +37,50 @@ TEST_F(FleetReportTest, RankingChartsAlertsAndCoverage) {
   EXPECT_NE(text.find("4="), std::string::npos);
   // Coverage lists the empty unit's missing data.
   EXPECT_NE(text.find("oil: none"), std::string::npos);
+}
+
+// The plan section's heading follows the horizon; a plan that follows a smaller budget's
+// allocation says so; a configured plan without costs says why. Layout only: the plan's numbers
+// are checked in tests/analytics/plan_test.cpp.
+TEST_F(FleetReportTest, PlanSectionHeadingFollowsTheHorizon) {
+  analytics::PlanUnit a;
+  a.unit_id = "T-204";
+  a.site = "Kelder Road 132 kV";
+  a.health_index = 35;
+  a.remaining_life_years = 3;
+  a.action = "replace";
+  a.action_year = 2026;
+  a.consequence = 0.8;
+  a.rated_mva = 40;
+  a.replacement_cost = 1200000;
+  analytics::CostOptions costs;
+  costs.currency = "GBP";
+  analytics::PlanOptions o;
+  o.horizon_years = 5;
+  o.budget_per_year = 800000;
+  o.carry_over = true;
+  PlanSection section;
+  section.configured = true;
+  section.plan = analytics::plan_fleet({a}, analytics::days_from_civil(2026, 11, 30), costs, o);
+  section.plan->allocation_budget = 600000;  // as if a smaller allocation had been chosen
+  const std::string path = temp_path("fleet-plan.pdf");
+  render_fleet_report(fixtures::small_ranking(), {}, {}, fixed_options(), path, &section);
+  ASSERT_TRUE(qpdf_check(path));
+  std::string text = squash(pdf_raw_text(path));
+  for (const char* s : {"Five-year plan", "800,000 GBP a year", "T-204 replace 1,200,000, 40 MVA", "without any plan",
+                        "unlimited budget", "as a budget of 600,000 GBP a year would fund them", "Method and assumptions",
+                        "CIGRE TB 761"})
+    EXPECT_NE(text.find(s), std::string::npos) << s;
+  EXPECT_EQ(text.find("Ten-year plan"), std::string::npos);
+
+  PlanSection missing;
+  missing.configured = true;
+  missing.horizon_years = 12;
+  missing.unavailable = "costs.cost_per_mva_class2 is not set";
+  render_fleet_report(fixtures::small_ranking(), {}, {}, fixed_options(), path, &missing);
+  text = squash(pdf_raw_text(path));
+  EXPECT_NE(text.find("Twelve-year plan"), std::string::npos);
+  EXPECT_NE(text.find("No plan: costs.cost_per_mva_class2 is not set"), std::string::npos);
 }
 
 TEST_F(FleetReportTest, EmptyFleetStillRenders) {

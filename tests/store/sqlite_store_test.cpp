@@ -48,6 +48,28 @@ TEST_F(StoreTest, UnitUpsertKeepsHistory) {
   EXPECT_EQ(s->find_unit("T1")->criticality, 5);
 }
 
+// Migration 005: the unit's own costs for the plan are kept, read back, and a changed cost is a
+// change of the register row (history). Plumbing: no engineering value checked.
+TEST_F(StoreTest, UnitCostsRoundTrip) {
+  auto s = store::open_sqlite_store(db_);
+  const auto f = file(*s);
+  auto u = unit("T1");
+  u.replacement_cost = 1500000;
+  u.refurbishment_cost = 300000.5;
+  EXPECT_TRUE(s->upsert_unit(u, f, 2));
+  auto back = s->find_unit("T1");
+  ASSERT_TRUE(back && back->replacement_cost && back->refurbishment_cost);
+  EXPECT_DOUBLE_EQ(*back->replacement_cost, 1500000);
+  EXPECT_DOUBLE_EQ(*back->refurbishment_cost, 300000.5);
+  u.refurbishment_cost.reset();
+  EXPECT_TRUE(s->upsert_unit(u, f, 3));
+  EXPECT_EQ(s->count_rows("unit_history"), 1);
+  const auto all = s->units();
+  ASSERT_EQ(all.size(), 1u);
+  EXPECT_DOUBLE_EQ(all[0].replacement_cost.value_or(0), 1500000);
+  EXPECT_FALSE(all[0].refurbishment_cost);
+}
+
 TEST_F(StoreTest, OilSampleSupersededByCorrectedReissue) {
   auto s = store::open_sqlite_store(db_);
   const auto f = file(*s);
