@@ -49,6 +49,12 @@
 //    budget to the next), the one leaving the least fleet risk summed over the
 //    years (B's own on a tie). Any of them is affordable within B. So for
 //    B1 < B2 the allocations B2 chooses among include all those of B1.
+//    Cost: one allocation (linear in units x years, the order of each year
+//    sorted once) per budget at which a decision flips, the years before the
+//    first changed one reused; stops early once an allocation leaves no more
+//    than the unlimited budget. Measured once: well under a second for 1,000
+//    units over 10 years; about 20 s for 1,000 units over 50 years with
+//    carry-over (the worst case tried).
 //  * The fleet's risk each year is computed three times: with the plan, with
 //    no intervention at all, and with an unlimited budget.
 // Guaranteed for every fleet (tests/analytics/plan_test.cpp, randomized):
@@ -56,7 +62,8 @@
 //     the budget plus what earlier years left);
 //  2. in the year a unit is funded, no candidate of that year with the same
 //     cost and a higher risk that year is deferred (so of two units with equal
-//     cost that are candidates together, the riskier is never funded later);
+//     cost that are candidates together, the one riskier in the year the
+//     other is funded is never funded later);
 //  3. for budgets B1 < B2 the plan of B2 leaves no more fleet risk summed over
 //     the horizon than that of B1; the unlimited budget leaves the least, and
 //     no plan the most (in every year, too, for these two);
