@@ -152,7 +152,19 @@ std::string render_message(const config::MailSettings& settings, const OutgoingM
   m.addRecipient(MailRecipient(MailRecipient::PRIMARY_RECIPIENT, mail.to));
   m.setSubject(MailMessage::encodeWord(mail.subject, "UTF-8"));
   m.set("Message-ID", message_id);
-  m.addContent(new StringPartSource(mail.body, "text/plain; charset=UTF-8"), MailMessage::ENCODING_QUOTED_PRINTABLE);
+  // Lines end in CRLF (RFC 5322 2.1; RFC 5321 4.1.1.4 ends DATA lines with
+  // CRLF): quoted-printable passes a bare LF through, and a server that
+  // splits DATA at CRLF would see one line of the whole summary and refuse it
+  // as too long (RFC 5321 4.5.3.1.6).
+  std::string body;
+  body.reserve(mail.body.size() + mail.body.size() / 32);
+  for (std::size_t i = 0; i < mail.body.size(); ++i) {
+    const char c = mail.body[i];
+    if (c == '\r') continue;  // a CR only ever comes as part of the CRLF written below
+    if (c == '\n') body += '\r';
+    body += c;
+  }
+  m.addContent(new StringPartSource(body, "text/plain; charset=UTF-8"), MailMessage::ENCODING_QUOTED_PRINTABLE);
   for (const auto& a : mail.attachments)
     m.addAttachment(a.filename().string(), new FilePartSource(a.string(), media_type(a)));
   std::ostringstream out;
