@@ -60,45 +60,42 @@ void poor_bushing(fa::UnitAssessment& a) {
   a.inspection.push_back({"bushings", fa::Rating::poor, kAsOf - 10, {}, false, ""});
 }
 
-// Electrical field tests outside their limits (analytics/electrical/).
-void failing_bushing_test(fa::UnitAssessment& a) {
+// Electrical field tests outside their limits (analytics/electrical/): one
+// result of one test, 20 days before the assessment.
+template <class R>
+void one_test(fa::UnitAssessment& a, std::vector<R> fa::ElectricalSummary::*list, R r) {
   fa::ElectricalSummary s;
+  r.date = kAsOf - 20;
+  s.latest = r.date;
+  (s.*list).push_back(r);
+  a.electrical = s;
+}
+void failing_bushing_test(fa::UnitAssessment& a) {
   fa::BushingResult b;
-  b.date = kAsOf - 20;
   b.bushing = "H1";
   b.insulation = "C1";
   b.capacitance_change_pct = 12;
   b.verdict = "out of service";
   b.within_limit = false;
-  s.bushings.push_back(b);
-  s.latest = b.date;
-  a.electrical = s;
+  one_test(a, &fa::ElectricalSummary::bushings, b);
 }
 void ratio_deviation(fa::UnitAssessment& a) {
-  fa::ElectricalSummary s;
   fa::TurnsRatioResult r;
-  r.date = kAsOf - 20;
   r.phase = "A";
   r.measured = 8.80;
   r.nameplate = 8.66;
   r.deviation_pct = (8.80 - 8.66) / 8.66 * 100;  // 1.6 %
   r.within_limit = false;
-  s.turns_ratio.push_back(r);
-  s.latest = r.date;
-  a.electrical = s;
+  one_test(a, &fa::ElectricalSummary::turns_ratio, r);
 }
 void questionable_insulation_resistance(fa::UnitAssessment& a) {
-  fa::ElectricalSummary s;
   fa::InsulationResistanceResult r;
-  r.date = kAsOf - 20;
   r.insulation = "HV-GROUND";
   r.one_minute_megohm = 1000;
   r.ten_minute_megohm = 1150;
   r.polarization_index = 1.15;
   r.reading = "questionable";
-  s.insulation_resistance.push_back(r);
-  s.latest = r.date;
-  a.electrical = s;
+  one_test(a, &fa::ElectricalSummary::insulation_resistance, r);
 }
 
 // A unit built in `year` with paper DP `dp` (its own history from DP0 1000
