@@ -180,7 +180,8 @@ struct Action {
 
 // One piece of evidence behind a decision, in words. End-of-life kinds:
 // "paper", "thermal", "age", "chronic"; correctable-defect kinds: "gassing",
-// "hot_joint", "oil", "unsafe_item", "cooling", "bushing", "fitting".
+// "hot_joint", "oil", "unsafe_item", "cooling", "bushing", "fitting",
+// "winding_test", "insulation_test" (electrical field tests).
 struct Evidence {
   std::string kind;
   std::string text;

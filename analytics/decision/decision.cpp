@@ -5,6 +5,7 @@
 #include <cstdio>
 #include <map>
 
+#include "analytics/electrical/electrical_assessment.h"
 #include "analytics/health_index.h"
 #include "analytics/words.h"
 
@@ -123,6 +124,21 @@ void add_cooling(const DecisionOptions& o, const UnitAssessment& a, std::vector<
   out.push_back({"cooling", "cooling failure: measured top oil " + fmt(*k, 1) + " K above the thermal model"});
 }
 
+// Electrical field tests outside their limits (analytics/electrical/): a
+// bushing test is a bushing defect (repaired, or the bushing replaced); a
+// test of the active part or of the winding insulation is investigated, as
+// the electrical checks' own actions say (IEEE C57.152-2013 clause 7: a
+// result outside its limit is confirmed and located before a repair is
+// chosen; from memory, verify).
+void add_electrical(const UnitAssessment& a, std::vector<Evidence>& out) {
+  if (!a.electrical) return;
+  for (const auto& e : electrical_defects(*a.electrical, a.as_of)) {
+    if (e.kind.empty()) continue;
+    const std::string kind = e.kind == "bushing" ? "bushing" : e.kind == "winding" ? "winding_test" : "insulation_test";
+    out.push_back({kind, e.finding});
+  }
+}
+
 std::string join_defects(const std::vector<Evidence>& d) {
   std::string s;
   for (std::size_t i = 0; i < d.size(); ++i)
@@ -130,10 +146,12 @@ std::string join_defects(const std::vector<Evidence>& d) {
   return s;
 }
 
-// The defect that leads: unsafe item and gassing first, then hot joints,
-// cooling, bushings, oil, other fittings.
+// The defect that leads: unsafe item and gassing first, then an electrical
+// test of the active part, hot joints, cooling, bushings, the winding
+// insulation, oil, other fittings.
 const Evidence& leading_defect(const std::vector<Evidence>& d) {
-  static const char* kOrder[] = {"unsafe_item", "gassing", "hot_joint", "cooling", "bushing", "oil", "fitting"};
+  static const char* kOrder[] = {"unsafe_item", "gassing", "winding_test", "hot_joint", "cooling",
+                                 "bushing",     "insulation_test", "oil",  "fitting"};
   for (const char* k : kOrder)
     for (const auto& e : d)
       if (e.kind == k) return e;
@@ -155,7 +173,8 @@ std::string index_note(const UnitAssessment& a, const std::vector<Evidence>& def
   static const std::map<std::string, std::string> kShort{
       {"gassing", "the gassing fault"}, {"hot_joint", "the hot connection"}, {"unsafe_item", "the unsafe item"},
       {"cooling", "the cooling failure"}, {"bushing", "the bushing defect"}, {"oil", "the oil condition"},
-      {"fitting", "the fitting defect"}};
+      {"fitting", "the fitting defect"}, {"winding_test", "the electrical test finding"},
+      {"insulation_test", "the insulation test finding"}};
   std::string what = "a correctable finding";
   if (!defects.empty()) what = kShort.at(leading_defect(defects).kind);
   return "The health index is held at " + index_words(*a.health_index) + " while " + what +
@@ -197,6 +216,7 @@ Decision decide(const DecisionOptions& o, const UnitAssessment& a) {
   add_cooling(o, a, d.defects);
   add_inspection(o, a, d.end_of_life, d.defects);
   add_oil(a, d.defects);
+  add_electrical(a, d.defects);
   d.index_note = index_note(a, d.defects);
 
   const std::optional<double> life = rl.years;
@@ -235,6 +255,12 @@ Decision decide(const DecisionOptions& o, const UnitAssessment& a) {
       d.reason = "Correctable defect: " + lead_defect.text +
                  ". Find and repair the fault (IEEE C57.104 operating procedures: resample, plan an outage, "
                  "internal inspection of joints, core ground and circulating-current paths)." +
+                 life_part;
+    } else if (lead_defect.kind == "winding_test" || lead_defect.kind == "insulation_test") {
+      d.action = "investigate";
+      d.reason = "Electrical test finding: " + join_defects(d.defects) +
+                 ". Confirm it by a retest and locate the cause before choosing a repair (IEEE C57.152 "
+                 "diagnostic tests)." +
                  life_part;
     } else if (lead_defect.kind == "oil") {
       d.action = "refurbish";

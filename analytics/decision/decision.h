@@ -14,7 +14,10 @@
 //    3/4, C57.104-2019 Status 3, acetylene arcing), a hot connection (infrared
 //    severity 3-4), wet or aged oil (IEEE C57.106 Class II/III or a failed
 //    water or breakdown test), an unsafe inspection item, a cooling failure,
-//    a deteriorated bushing or other fitting rated poor or worse.
+//    a deteriorated bushing or other fitting rated poor or worse, an
+//    electrical field test outside its limit (a bushing's C1/C2 test, the
+//    turns ratio, winding resistance, leakage reactance, excitation pattern,
+//    winding insulation power factor or resistance).
 //
 // The rules, in order (thresholds in DecisionOptions, from ferrum.ini [ranking]):
 //  1. Remaining life within replace_within_years: replace.
@@ -22,8 +25,10 @@
 //     the reason says why repairing the defect is not worth it. A defect alone
 //     never leads to replace.
 //  3. A defect: its own action (gassing: investigate, following the C57.104
-//     operating procedures; wet or aged oil: refurbish, with the treatment that
-//     restores the oil; every other defect: repair).
+//     operating procedures; an electrical test of the active part or the
+//     winding insulation: investigate, confirm and locate before repair; wet
+//     or aged oil: refurbish, with the treatment that restores the oil; every
+//     other defect, a failing bushing test included: repair).
 //  4. Remaining life within planning_window_years: refurbish by drying out
 //     when the paper is wet, still strong enough to be dried (DP at or above
 //     dry_out_min_dp) and paper or thermal ageing limits the life (drying slows

@@ -334,16 +334,16 @@ void check_leakage_reactance(const UnitData& d, ElectricalSummary& s) {
 // ----------------------------------------------------------------- actions
 
 
-void add_actions(const ElectricalSummary& s, UnitAssessment& a) {
-  const Day today = a.as_of;
+void collect_defects(const ElectricalSummary& s, Day today, std::vector<ElectricalDefect>& out) {
   for (const auto* r : latest_of(s.turns_ratio)) {
     if (!r->within_limit || *r->within_limit) continue;
-    a.actions.push_back({2, today + 90,
+    out.push_back({"winding", "a turns-ratio deviation of " + fmt(*r->deviation_pct, 2) + " % (limit ±0.5 %)",
+                   {2, today + 90,
                          "Investigate the turns-ratio deviation: shorted turns or a tap-changer contact",
                          "turns ratio " + (r->phase.empty() ? std::string() : "phase " + r->phase + " ") +
                              (r->tap ? "tap " + std::to_string(*r->tap) + " " : "") + "on " + format_day(r->date) +
                              ": " + fmt(r->measured, 4) + " against " + fmt(*r->nameplate, 4) + " (" +
-                             fmt(*r->deviation_pct, 2) + " %, limit ±0.5 %, IEEE C57.12.00; verify)"});
+                             fmt(*r->deviation_pct, 2) + " %, limit ±0.5 %, IEEE C57.12.00; verify)"}});
   }
   // Bushings: the latest test of each bushing.
   std::map<std::pair<std::string, std::string>, const BushingResult*> latest_bushing;
@@ -356,59 +356,67 @@ void add_actions(const ElectricalSummary& s, UnitAssessment& a) {
       why += " power factor " + fmt(*b->power_factor_pct, 2) + " % against " + fmt(*b->reference_power_factor_pct, 2) +
              " % (" + b->power_factor_basis + ");";
     why += " " + b->verdict + " (IEEE C57.152, values from memory; verify)";
+    const std::string finding = "bushing " + b->bushing + " " + b->insulation + " test: " + b->verdict;
     if (b->verdict == "out of service")
-      a.actions.push_back({1, today + 30,
+      out.push_back({"bushing", finding, {1, today + 30,
                            "Take bushing " + b->bushing + " out of service: repair or replace the bushing, not the unit",
-                           why});
+                           why}});
     else
-      a.actions.push_back({2, today + 90,
+      out.push_back({"bushing", finding, {2, today + 90,
                            "Retest and investigate bushing " + b->bushing +
                                "; if confirmed, repair or replace the bushing, not the unit",
-                           why});
+                           why}});
   }
   std::map<std::string, const WindingResistanceResult*> worst_winding;
   for (const auto* r : latest_of(s.winding_resistance))
     if (r->within_limit && !*r->within_limit) worst_winding.emplace(r->winding, r);
   for (const auto& [winding, r] : worst_winding)
-    a.actions.push_back({2, today + 180,
+    out.push_back({"winding", "the " + winding + " winding resistance outside its limits",
+                   {2, today + 180,
                          "Investigate the " + winding +
                              " winding resistance: connections, tap-changer contacts or broken strands",
                          winding + " winding on " + format_day(r->date) +
                              (r->phase_spread_pct ? ": phase spread " + fmt(*r->phase_spread_pct, 1) + " %" : "") +
                              (r->change_pct ? ", change " + fmt(*r->change_pct, 1) + " % against " + r->change_basis : "") +
-                             " (limits 2 % spread, 5 % change: common practice, from memory)"});
+                             " (limits 2 % spread, 5 % change: common practice, from memory)"}});
   for (const auto* r : latest_of(s.insulation_power_factor)) {
     if (!r->within_limit || *r->within_limit) continue;
-    a.actions.push_back({2, today + 180,
+    out.push_back({"insulation", r->insulation + " insulation power factor " + fmt(*r->pf20_pct, 2) + " % at 20 °C",
+                   {2, today + 180,
                          "Investigate the winding insulation power factor: moisture or contamination",
                          r->insulation + " power factor " + fmt(*r->pf20_pct, 2) + " % at 20 °C on " +
                              format_day(r->date) + " above " + fmt(r->limit_pct, 1) +
-                             " % (IEEE C57.152, from memory; verify)"});
+                             " % (IEEE C57.152, from memory; verify)"}});
   }
   for (const auto* r : latest_of(s.insulation_resistance)) {
     if (r->reading != "dangerous" && r->reading != "poor" && r->reading != "questionable") continue;
-    a.actions.push_back({r->reading == "questionable" ? 3 : 2, today + (r->reading == "questionable" ? 365 : 180),
+    // "questionable" asks for a retest in a year; only "poor" and "dangerous" are defects of the decision.
+    out.push_back({r->reading == "questionable" ? "" : "insulation",
+                   r->insulation + " insulation resistance " + r->reading,
+                   {r->reading == "questionable" ? 3 : 2, today + (r->reading == "questionable" ? 365 : 180),
                          "Investigate the insulation resistance: moisture or contamination of the insulation",
                          r->insulation + " polarization index " + fmt(*r->polarization_index, 2) + " (" + r->reading +
-                             ") on " + format_day(r->date) + " (common practice scale, no published source)"});
+                             ") on " + format_day(r->date) + " (common practice scale, no published source)"}});
   }
   for (const auto* r : latest_of(s.excitation_current)) {
     if (!r->pattern_expected || *r->pattern_expected) continue;
-    a.actions.push_back({3, today + 365,
+    out.push_back({"winding", "an excitation-current pattern not as expected",
+                   {3, today + 365,
                          "Investigate the excitation-current pattern: core or winding fault, or residual magnetism "
                          "(demagnetise and retest)",
                          "excitation current on " + format_day(r->date) +
                              ": the outer phases are not similar and above the middle phase (IEEE C57.152, from "
-                             "memory; verify)"});
+                             "memory; verify)"}});
   }
   for (const auto* r : latest_of(s.leakage_reactance)) {
     if (!r->within_limit || *r->within_limit) continue;
-    a.actions.push_back({2, today + 180,
+    out.push_back({"winding", "a leakage-reactance change of " + fmt(*r->change_pct, 2) + " % (possible winding movement)",
+                   {2, today + 180,
                          "Investigate possible winding movement (leakage reactance change)",
                          "leakage reactance " + (r->phase.empty() ? std::string("three-phase") : "phase " + r->phase) +
                              " on " + format_day(r->date) + ": " + fmt(*r->change_pct, 2) + " % against " +
                              r->nameplate_basis + ", limit ±" + fmt(*r->limit_pct, 0) +
-                             " % (IEEE C57.152, from memory; verify)"});
+                             " % (IEEE C57.152, from memory; verify)"}});
   }
 }
 
@@ -428,6 +436,12 @@ std::optional<double> pf_correction_factor(const std::vector<std::pair<double, d
   return std::nullopt;
 }
 
+std::vector<ElectricalDefect> electrical_defects(const ElectricalSummary& s, Day as_of) {
+  std::vector<ElectricalDefect> out;
+  collect_defects(s, as_of, out);
+  return out;
+}
+
 std::optional<ElectricalSummary> check_electrical_tests(const UnitData& d, const ElectricalOptions& o) {
   if (d.electrical.empty()) return std::nullopt;
   ElectricalSummary s;
@@ -445,7 +459,7 @@ std::optional<ElectricalSummary> check_electrical_tests(const UnitData& d, const
 void assess_electrical(const UnitData& data, const ElectricalOptions& options, UnitAssessment& a) {
   a.electrical = check_electrical_tests(data, options);
   if (!a.electrical) return;
-  add_actions(*a.electrical, a);
+  for (auto& d : electrical_defects(*a.electrical, a.as_of)) a.actions.push_back(std::move(d.action));
   a.methods.push_back(std::string("turns ratio: ") + electrical::kTurnsRatioSource);
   a.methods.push_back(std::string("winding resistance: ") + electrical::kWindingResistanceSource);
   a.methods.push_back(std::string("insulation power factor: ") + electrical::kInsulationPfSource);

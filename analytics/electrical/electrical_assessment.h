@@ -22,6 +22,7 @@
 // Pure: no I/O, no clock.
 #pragma once
 
+#include <string>
 #include <utility>
 #include <vector>
 
@@ -41,6 +42,20 @@ std::optional<double> pf_correction_factor(const std::vector<std::pair<double, d
 
 // The checks of every test of the unit (nullopt when it has none).
 std::optional<ElectricalSummary> check_electrical_tests(const UnitData& data, const ElectricalOptions& options);
+
+// A result of an item's latest test outside its limit: the action it calls
+// for, and, for the decision (analytics/decision/decision.h), its kind in
+// words. Kinds: "bushing" (a bushing's C1/C2 test), "winding" (turns ratio,
+// winding resistance, leakage reactance, excitation-current pattern: the
+// active part), "insulation" (winding insulation power factor, insulation
+// resistance poor or dangerous); empty for a result that asks only for a
+// retest (insulation resistance "questionable"), which is no defect.
+struct ElectricalDefect {
+  std::string kind;
+  std::string finding;  // short, for the decision's reason
+  Action action;
+};
+std::vector<ElectricalDefect> electrical_defects(const ElectricalSummary& summary, Day as_of);
 
 // Sets a.electrical from the data, appends its actions to a.actions, its
 // methods to a.methods and its assumptions to a.assumptions.

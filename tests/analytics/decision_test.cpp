@@ -7,6 +7,7 @@
 #include <functional>
 
 #include "analytics/action_plan.h"
+#include "analytics/electrical/electrical_assessment.h"
 #include "analytics/fleet_ranking.h"
 #include "analytics/remaining_life.h"
 
@@ -57,6 +58,44 @@ void aged_oil(fa::UnitAssessment& a) {
 void cooling_failure(fa::UnitAssessment& a) { a.thermal.top_oil_discrepancy_k = 9; }
 void poor_bushing(fa::UnitAssessment& a) {
   a.inspection.push_back({"bushings", fa::Rating::poor, kAsOf - 10, {}, false, ""});
+}
+
+// Electrical field tests outside their limits (analytics/electrical/): one
+// result of one test, 20 days before the assessment.
+template <class R>
+void one_test(fa::UnitAssessment& a, std::vector<R> fa::ElectricalSummary::*list, R r) {
+  fa::ElectricalSummary s;
+  r.date = kAsOf - 20;
+  s.latest = r.date;
+  (s.*list).push_back(r);
+  a.electrical = s;
+}
+void failing_bushing_test(fa::UnitAssessment& a) {
+  fa::BushingResult b;
+  b.bushing = "H1";
+  b.insulation = "C1";
+  b.capacitance_change_pct = 12;
+  b.verdict = "out of service";
+  b.within_limit = false;
+  one_test(a, &fa::ElectricalSummary::bushings, b);
+}
+void ratio_deviation(fa::UnitAssessment& a) {
+  fa::TurnsRatioResult r;
+  r.phase = "A";
+  r.measured = 8.80;
+  r.nameplate = 8.66;
+  r.deviation_pct = (8.80 - 8.66) / 8.66 * 100;  // 1.6 %
+  r.within_limit = false;
+  one_test(a, &fa::ElectricalSummary::turns_ratio, r);
+}
+void questionable_insulation_resistance(fa::UnitAssessment& a) {
+  fa::InsulationResistanceResult r;
+  r.insulation = "HV-GROUND";
+  r.one_minute_megohm = 1000;
+  r.ten_minute_megohm = 1150;
+  r.polarization_index = 1.15;
+  r.reading = "questionable";
+  one_test(a, &fa::ElectricalSummary::insulation_resistance, r);
 }
 
 // A unit built in `year` with paper DP `dp` (its own history from DP0 1000
@@ -210,6 +249,52 @@ TEST(DecisionMatrix, PoorBushingIsRepaired) {
   EXPECT_EQ(a.decision.defects[0].kind, "bushing");
 }
 
+// A bushing whose C1 test calls for taking it out of service (capacitance up
+// 12 %; IEEE C57.152-2013 clause 7.2.14, limits from memory; verify) is a
+// defect of the unit: repair (replace the bushing), never "routine", and the
+// bushing's own priority-1 action leads (decision rule 3, common practice).
+TEST(DecisionMatrix, FailingBushingTestIsRepaired) {
+  auto a = story(2005, 800, [](fa::UnitAssessment& u) {
+    failing_bushing_test(u);
+    for (auto& d : fa::electrical_defects(*u.electrical, u.as_of)) u.actions.push_back(d.action);
+  });
+  EXPECT_EQ(a.decision.action, "repair") << a.decision.reason;
+  ASSERT_FALSE(a.decision.defects.empty());
+  EXPECT_EQ(a.decision.defects[0].kind, "bushing");
+  EXPECT_TRUE(mentions(a.decision.reason, "bushing H1 C1")) << a.decision.reason;
+  ASSERT_TRUE(a.decision.first_action);
+  EXPECT_EQ(a.decision.first_action->priority, 1);
+}
+
+// A turns-ratio deviation of 1.6 % against the ±0.5 % limit (IEEE
+// C57.12.00-2015 clause 9.1; from memory, verify) points to shorted turns or
+// a tap-changer contact: investigate (confirm and locate), not repair blindly
+// and not replace on a unit with sound paper (decision rule 3).
+TEST(DecisionMatrix, TurnsRatioDeviationIsInvestigated) {
+  auto a = story(2005, 800, ratio_deviation);
+  EXPECT_EQ(a.decision.action, "investigate") << a.decision.reason;
+  ASSERT_FALSE(a.decision.defects.empty());
+  EXPECT_EQ(a.decision.defects[0].kind, "winding_test");
+  EXPECT_TRUE(mentions(a.decision.reason, "turns-ratio deviation of 1.62 %")) << a.decision.reason;
+}
+
+// The same deviation near the end of paper life: the unit is replaced, and the
+// reason says why the finding is not worth repairing (decision rule 2).
+TEST(DecisionMatrix, ElectricalFindingNearEndOfLifeIsReplaced) {
+  auto a = story(1970, 300, ratio_deviation);
+  EXPECT_EQ(a.decision.action, "replace") << a.decision.reason;
+  EXPECT_TRUE(mentions(a.decision.reason, "turns-ratio deviation")) << a.decision.reason;
+}
+
+// An insulation resistance rated "questionable" asks for a retest, not a
+// decision (common practice scale, no published source): a sound unit stays
+// routine.
+TEST(DecisionMatrix, QuestionableInsulationResistanceIsNoDefect) {
+  auto a = story(2016, 900, questionable_insulation_resistance);
+  EXPECT_TRUE(a.decision.defects.empty());
+  EXPECT_EQ(a.decision.action, "routine") << a.decision.reason;
+}
+
 // Tank corrosion rated very poor is chronic deterioration: end-of-life
 // evidence, not a defect to repair (CIGRE TB 761 separates the two).
 TEST(DecisionMatrix, TankCorrosionIsEndOfLifeEvidence) {
@@ -253,7 +338,7 @@ TEST(DecisionMatrix, IndexThresholdsBothSides) {
 // (issue rule; CIGRE TB 761 separates defects from end of life).
 TEST(DecisionProperties, NoDefectAloneYieldsReplace) {
   for (const Defect& d : std::vector<Defect>{gassing_t3, arcing, unsafe_grounding, hot_joint, wet_oil, aged_oil,
-                                             cooling_failure, poor_bushing}) {
+                                             cooling_failure, poor_bushing, failing_bushing_test, ratio_deviation}) {
     auto a = story(2010, 800, d);
     EXPECT_NE(a.decision.action, "replace") << a.decision.reason;
     EXPECT_FALSE(a.decision.defects.empty());
