@@ -20,10 +20,10 @@ std::string num(double v) {
 
 std::string plan_csv(const std::vector<analytics::FleetPlan>& plans) {
   std::string csv =
-      "budget_per_year,currency,year,row,unit_id,site,action,cost,rated_mva,risk,risk_after,deferred_years,budget,spent,"
+      "budget_per_year,currency,allocation_budget,year,row,unit_id,site,action,cost,rated_mva,risk,risk_after,deferred_years,budget,spent,"
       "risk_with_plan,risk_without_plan,risk_unlimited\n";
   for (const auto& p : plans) {
-    const std::string head = num(p.budget_per_year) + "," + quote(p.currency) + ",";
+    const std::string head = num(p.budget_per_year) + "," + quote(p.currency) + "," + num(p.allocation_budget) + ",";
     for (const auto& y : p.years) {
       const std::string year = std::to_string(y.year) + ",";
       csv += head + year + "year,,,,,,,,," + num(y.budget) + "," + num(y.spent) + "," + num(y.risk_with_plan) + "," +

@@ -96,6 +96,8 @@ class PlanCommand(SiteTestCase):
         table = list(csv.DictReader(io.StringIO("\n".join(rows[:-1]))))
         self.assertEqual({r["year"] for r in table}, {"2026", "2027", "2028"})
         self.assertIn(("2028", "funded", "T1"), {(r["year"], r["row"], r["unit_id"]) for r in table})
+        # The budget whose allocation the plan follows (never above the budget itself).
+        self.assertTrue(all(float(r["allocation_budget"]) <= float(r["budget_per_year"]) for r in table))
 
     def test_register_costs_override_the_classes(self):
         # T3's own replacement cost (register column, migration 005) replaces 1,400,000: with
