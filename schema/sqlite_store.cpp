@@ -50,7 +50,7 @@ std::string load_insert_sql(int rows) {
     sql += "?1,?" + std::to_string(p + 5) + ")";
   }
   sql += " ON CONFLICT(unit_key, ts) DO UPDATE SET load_pu=excluded.load_pu, ambient_c=excluded.ambient_c,"
-         " top_oil_c=excluded.top_oil_c, file_id=excluded.file_id, line=excluded.line"
+         " top_oil_c=excluded.top_oil_c, file_id=excluded.file_id, line=ferrum_replaced(excluded.line)"
          " WHERE load_points.file_id <> excluded.file_id";
   return sql;
 }
@@ -202,6 +202,17 @@ class SqliteStore final : public Store {
     }
     sqlite3_busy_timeout(db_, 5000);
     sqlite3_extended_result_codes(db_, 1);
+    // ferrum_replaced(x) returns x and counts one load point that replaced an
+    // earlier file's point: the upsert's DO UPDATE runs it once per replaced
+    // row, so a multi-row INSERT still tells new rows from replaced ones
+    // (sqlite3_changes counts both). Not deterministic: it has an effect.
+    sqlite3_create_function_v2(
+        db_, "ferrum_replaced", 1, SQLITE_UTF8 | SQLITE_DIRECTONLY, &replaced_points_,
+        [](sqlite3_context* ctx, int, sqlite3_value** argv) {
+          ++*static_cast<long long*>(sqlite3_user_data(ctx));
+          sqlite3_result_value(ctx, argv[0]);
+        },
+        nullptr, nullptr, nullptr);
     try {
       check_is_ferrum_db(path);
       // synchronous=FULL: a commit is on disk before the pipeline moves the
@@ -224,6 +235,7 @@ class SqliteStore final : public Store {
     write_queued_load();
     exec(db_, "BEGIN IMMEDIATE");
     exec(db_, ("PRAGMA cache_size=-" + std::to_string(kWriteCacheKiB)).c_str());
+    written_points_ = replaced_points_ = 0;
   }
   void commit() override {
     write_queued_load();
@@ -238,6 +250,7 @@ class SqliteStore final : public Store {
     unreported_duplicate_.reset();
     if (!sqlite3_get_autocommit(db_)) exec(db_, "ROLLBACK");
     exec(db_, "PRAGMA cache_size=-2000");
+    written_points_ = replaced_points_ = 0;
     unit_keys_.clear();  // keys of units inserted in the rolled-back transaction
     last_unit_key_ = 0;
   }
@@ -361,7 +374,7 @@ class SqliteStore final : public Store {
     return true;
   }
 
-  void add_oil_sample(const std::string& unit_id, const analytics::OilSample& o, std::int64_t file_id,
+  RowInsert add_oil_sample(const std::string& unit_id, const analytics::OilSample& o, std::int64_t file_id,
                       int line) override {
     const std::int64_t key = unit_key(unit_id);
     auto& ins = stmt("INSERT INTO oil_samples(unit_key, sample_day, lab_ref, sample_point, breakdown_method,"
@@ -373,9 +386,9 @@ class SqliteStore final : public Store {
     // A corrected re-issue (same unit, day, lab reference and sample point)
     // supersedes the earlier sample, which stays as history.
     auto& sup = stmt("UPDATE oil_samples SET superseded_by=?1 WHERE unit_key=?2 AND sample_day=?3 AND lab_ref=?4"
-                     " AND sample_point=?5 AND id<>?1 AND superseded_by IS NULL");
+                     " AND sample_point=?5 AND id<>?1 AND superseded_by IS NULL RETURNING file_id");
     sup.bind(1, id).bind(2, key).bind(3, o.date).bind(4, o.lab_ref).bind(5, o.sample_point);
-    sup.run();
+    const RowInsert outcome = replaced_rows(sup, file_id);
     auto& val = stmt("INSERT INTO oil_values(sample_id, test, state, value) VALUES(?,?,?,?)");
     for (const auto& f : kOilFields) {
       const LabValue& v = o.*(f.member);
@@ -383,6 +396,7 @@ class SqliteStore final : public Store {
       val.bind(1, id).bind(2, f.test).bind(3, v.is_measured() ? 1 : 2).bind(4, v.value);
       val.run();
     }
+    return outcome;
   }
 
   LoadInsert add_load_point(const std::string& unit_id, const analytics::LoadPoint& p, std::int64_t file_id,
@@ -394,13 +408,15 @@ class SqliteStore final : public Store {
     auto& s = stmt(
         "INSERT INTO load_points(unit_key, ts, load_pu, ambient_c, top_oil_c, file_id, line)"
         " VALUES(?1,?2,?3,?4,?5,?6,?7) ON CONFLICT(unit_key, ts) DO UPDATE SET load_pu=?3, ambient_c=?4,"
-        " top_oil_c=?5, file_id=?6, line=?7 WHERE load_points.file_id <> ?6");
+        " top_oil_c=?5, file_id=?6, line=ferrum_replaced(?7) WHERE load_points.file_id <> ?6");
     s.bind(1, key).bind(2, p.t).bind(3, p.load_pu).bind(4, p.ambient_c).bind(5, p.top_oil_c)
         .bind(6, file_id).bind(7, line);
+    const long long replaced_before = replaced_points_;
     const sqlite3_int64 before = sqlite3_total_changes64(db_);
     s.run();
     if (sqlite3_total_changes64(db_) == before) return LoadInsert::duplicate_in_file;
-    return LoadInsert::added;
+    ++written_points_;
+    return replaced_points_ != replaced_before ? LoadInsert::replaced_earlier_file : LoadInsert::added;
   }
 
   std::optional<LoadDuplicate> queue_load_point(const std::string& unit_id, const analytics::LoadPoint& p,
@@ -423,41 +439,49 @@ class SqliteStore final : public Store {
     return take_duplicate();
   }
 
-  void add_infrared(const std::string& unit_id, const analytics::InfraredScan& r, std::int64_t file_id,
+  LoadCounts load_counts() override {
+    write_queued_load();
+    return {written_points_ - replaced_points_, replaced_points_};
+  }
+
+  RowInsert add_infrared(const std::string& unit_id, const analytics::InfraredScan& r, std::int64_t file_id,
                     int line) override {
     const std::int64_t key = unit_key(unit_id);
-    auto& del = stmt("DELETE FROM infrared_scans WHERE unit_key=? AND survey_day=? AND component=?");
+    auto& del = stmt("DELETE FROM infrared_scans WHERE unit_key=? AND survey_day=? AND component=? RETURNING file_id");
     del.bind(1, key).bind(2, r.date).bind(3, r.component);
-    del.run();
+    const RowInsert outcome = replaced_rows(del, file_id);
     auto& s = stmt("INSERT INTO infrared_scans(unit_key, survey_day, component, spot_c, reference_c, ambient_c,"
                    " load_pct, emissivity, image_ref, note, file_id, line) VALUES(?,?,?,?,?,?,?,?,?,?,?,?)");
     s.bind(1, key).bind(2, r.date).bind(3, r.component).bind(4, r.spot_c).bind(5, r.reference_c)
         .bind(6, r.ambient_c).bind(7, r.load_pct).bind(8, r.emissivity).bind_text_or_null(9, r.image_ref)
         .bind_text_or_null(10, r.note).bind(11, file_id).bind(12, line);
     s.run();
+    return outcome;
   }
 
-  void add_inspection(const std::string& unit_id, const analytics::InspectionRecord& r, std::int64_t file_id,
+  RowInsert add_inspection(const std::string& unit_id, const analytics::InspectionRecord& r, std::int64_t file_id,
                       int line) override {
     const std::int64_t key = unit_key(unit_id);
-    auto& del = stmt("DELETE FROM inspections WHERE unit_key=? AND inspection_day=? AND item=?");
+    auto& del = stmt("DELETE FROM inspections WHERE unit_key=? AND inspection_day=? AND item=? RETURNING file_id");
     del.bind(1, key).bind(2, r.date).bind(3, r.item);
-    del.run();
+    const RowInsert outcome = replaced_rows(del, file_id);
     auto& s = stmt("INSERT INTO inspections(unit_key, inspection_day, item, rating, note, inspector, file_id, line)"
                    " VALUES(?,?,?,?,?,?,?,?)");
     s.bind(1, key).bind(2, r.date).bind(3, r.item).bind(4, analytics::to_string(r.rating))
         .bind_text_or_null(5, r.note).bind_text_or_null(6, r.inspector).bind(7, file_id).bind(8, line);
     s.run();
+    return outcome;
   }
 
-  void add_electrical_test(const std::string& unit_id, const analytics::ElectricalTest& t, std::int64_t file_id,
+  RowInsert add_electrical_test(const std::string& unit_id, const analytics::ElectricalTest& t, std::int64_t file_id,
                            int line) override {
     const std::int64_t key = unit_key(unit_id);
     auto& del = stmt("DELETE FROM electrical_tests WHERE unit_key=? AND test_day=? AND test=? AND phase=?"
-                     " AND tap IS ? AND winding=? AND insulation=? AND bushing=? AND minutes IS ? AND test_kv IS ?");
+                     " AND tap IS ? AND winding=? AND insulation=? AND bushing=? AND minutes IS ? AND test_kv IS ?"
+                     " RETURNING file_id");
     del.bind(1, key).bind(2, t.date).bind(3, analytics::to_string(t.test)).bind(4, t.phase).bind(5, t.tap)
         .bind(6, t.winding).bind(7, t.insulation).bind(8, t.bushing).bind(9, t.minutes).bind(10, t.test_kv);
-    del.run();
+    const RowInsert outcome = replaced_rows(del, file_id);
     auto& s = stmt("INSERT INTO electrical_tests(unit_key, test_day, test, phase, tap, winding, temp_c, insulation,"
                    " test_kv, bushing, minutes, value, capacitance_pf, nameplate_value, note, crew, file_id, line)"
                    " VALUES(?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)");
@@ -466,6 +490,7 @@ class SqliteStore final : public Store {
         .bind(11, t.minutes).bind(12, t.value).bind(13, t.capacitance_pf).bind(14, t.nameplate_value)
         .bind_text_or_null(15, t.note).bind_text_or_null(16, t.crew).bind(17, file_id).bind(18, line);
     s.run();
+    return outcome;
   }
 
   void add_conversion(std::int64_t file_id, const std::string& column, const std::string& original_unit,
@@ -594,6 +619,18 @@ class SqliteStore final : public Store {
     std::int64_t line;
   };
 
+  // Runs a DELETE/UPDATE ... RETURNING file_id that takes rows with the new
+  // row's key out of the current data: none, the new row is new; rows of an
+  // earlier file, it was already on file; of this file, a second row.
+  static RowInsert replaced_rows(Statement& s, std::int64_t file_id) {
+    RowInsert outcome = RowInsert::added;
+    while (s.step())
+      if (outcome != RowInsert::duplicate_in_file)
+        outcome = s.i64(0) == file_id ? RowInsert::duplicate_in_file : RowInsert::replaced_earlier_file;
+    s.reset();
+    return outcome;
+  }
+
   std::optional<LoadDuplicate> take_duplicate() {
     auto d = std::move(unreported_duplicate_);
     unreported_duplicate_.reset();
@@ -639,6 +676,7 @@ class SqliteStore final : public Store {
         changed += sqlite3_changes(db_);
       }
     }
+    written_points_ += changed;
     if (changed == n || unreported_duplicate_) {
       queue_.clear();
       return;
@@ -915,13 +953,15 @@ class SqliteStore final : public Store {
       "INSERT INTO load_points(unit_key, ts, load_pu, ambient_c, top_oil_c, file_id, line)"
       " VALUES(?2,?3,?4,?5,?6,?1,?7) ON CONFLICT(unit_key, ts) DO UPDATE SET load_pu=excluded.load_pu,"
       " ambient_c=excluded.ambient_c, top_oil_c=excluded.top_oil_c, file_id=excluded.file_id,"
-      " line=excluded.line WHERE load_points.file_id <> excluded.file_id";
+      " line=ferrum_replaced(excluded.line) WHERE load_points.file_id <> excluded.file_id";
   std::unique_ptr<Statement> load_batch_;
   const int load_batch_size_;       // points queued before they are written (store.h kSqliteLoadBatch)
   std::vector<QueuedPoint> queue_;  // at most load_batch_size_ points, in file order until written
   std::vector<QueuedPoint> sorted_;  // sort_queue's scratch, kept to avoid reallocating
   std::int64_t queued_file_ = 0;
   std::optional<LoadDuplicate> unreported_duplicate_;
+  long long written_points_ = 0;   // load points written since begin()
+  long long replaced_points_ = 0;  // of which replaced an earlier file's (counted by ferrum_replaced)
   std::string last_unit_id_;
   std::int64_t last_unit_key_ = 0;  // 0: none (unit keys start at 1)
 };

@@ -101,6 +101,16 @@ class LoadWriter {
   std::int64_t first_offset_line_ = 0, duplicate_line_ = 0;
 };
 
+// New rows and rows already on file, as the store reports them row by row.
+struct RowCounts {
+  long long added = 0, on_file = 0;
+  void note(store::RowInsert outcome) {
+    if (outcome == store::RowInsert::added) ++added;
+    else if (outcome == store::RowInsert::replaced_earlier_file) ++on_file;
+    // duplicate_in_file: the parsers reject such a file (a duplicate key)
+  }
+};
+
 void note_day(ImportResult& r, analytics::Day d) {
   if (!r.first_day || d < *r.first_day) r.first_day = d;
   if (!r.last_day || d > *r.last_day) r.last_day = d;
@@ -239,12 +249,17 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
     for (const auto& item : s.config->extra_inspection_items) po.inspection_items.push_back(item);
   po.date_order = formats.date_order;
   const bool comma = uses_decimal_comma(formats.decimal, reader.decimal_comma());
+  RowCounts counts;
 
   switch (kind.kind) {
     case FileKind::units_register: {
       UnitRowParser p(kind.columns, po, comma, r.problems, r.warnings);
       run_rows<UnitRowParser, UnitRow>(reader, p, r, s, [&](const UnitRow& row) {
         if (!site_allowed(s, row.unit.unit_id, row.unit.site, row.line, r.problems)) return false;
+        // A unit listed twice is a problem of the file (UnitRowParser), so a
+        // unit found here came from an earlier file.
+        counts.note(store.find_unit(row.unit.unit_id) ? store::RowInsert::replaced_earlier_file
+                                                      : store::RowInsert::added);
         if (store.upsert_unit(row.unit, s.file_id, static_cast<int>(row.line))) r.units.insert(row.unit.unit_id);
         return true;
       });
@@ -256,7 +271,7 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
         const auto* u = units.find(row.unit_id);
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;  // `ferrum check` away from a site
-        store.add_oil_sample(row.unit_id, row.sample, s.file_id, static_cast<int>(row.line));
+        counts.note(store.add_oil_sample(row.unit_id, row.sample, s.file_id, static_cast<int>(row.line)));
         note_day(r, row.sample.date);
         r.units.insert(row.unit_id);
         return true;
@@ -269,7 +284,7 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
         const auto* u = units.find(row.unit_id);
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;
-        store.add_infrared(row.unit_id, row.scan, s.file_id, static_cast<int>(row.line));
+        counts.note(store.add_infrared(row.unit_id, row.scan, s.file_id, static_cast<int>(row.line)));
         note_day(r, row.scan.date);
         r.units.insert(row.unit_id);
         return true;
@@ -282,7 +297,7 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
         const auto* u = units.find(row.unit_id);
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;
-        store.add_inspection(row.unit_id, row.record, s.file_id, static_cast<int>(row.line));
+        counts.note(store.add_inspection(row.unit_id, row.record, s.file_id, static_cast<int>(row.line)));
         note_day(r, row.record.date);
         r.units.insert(row.unit_id);
         if (row.record.rating == analytics::Rating::unsafe)
@@ -299,7 +314,7 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
         const auto* u = units.find(row.unit_id);
         if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
         if (!u) return true;
-        store.add_electrical_test(row.unit_id, row.test, s.file_id, static_cast<int>(row.line));
+        counts.note(store.add_electrical_test(row.unit_id, row.test, s.file_id, static_cast<int>(row.line)));
         note_day(r, row.test.date);
         r.units.insert(row.unit_id);
         return true;
@@ -312,6 +327,7 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
       LoadWriter writer(store, r, std::string(reader.column_name(static_cast<std::size_t>(ts_index))), ts_index + 1);
       std::string last_checked;
       const analytics::UnitInfo* u = nullptr;
+      const store::LoadCounts before = store.load_counts();
       run_rows<LoadRowParser, LoadRow>(reader, p, r, s, [&](const LoadRow& row) {
         if (row.unit_id != last_checked) {  // a new run of rows of one unit
           UnitCache::Entry& e = units.entry(row.unit_id);
@@ -337,11 +353,20 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
         return true;
       });
       writer.finish();
+      if (r.problems.empty()) {
+        const store::LoadCounts after = store.load_counts();
+        counts.added = after.added - before.added;
+        counts.on_file = after.replaced_earlier_file - before.replaced_earlier_file;
+      }
       break;
     }
   }
   if (!r.problems.empty()) r.units.clear();
   if (r.rows == 0 && r.problems.empty()) r.file_reason = "the file has a header but no data rows";
+  if (r.problems.empty() && counts.added + counts.on_file == r.rows) {
+    r.rows_new = counts.added;
+    r.rows_on_file = counts.on_file;
+  }
 }
 
 }  // namespace
