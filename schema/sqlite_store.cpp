@@ -6,10 +6,14 @@
 
 #include <algorithm>
 #include <cmath>
+#include <climits>
+#include <filesystem>
 #include <map>
+#include <span>
 #include <sstream>
 #include <unordered_map>
 
+#include "schema/load_runs.h"
 #include "schema/migrations.h"
 #include "schema/store.h"
 
@@ -189,9 +193,18 @@ std::string json_escape(const std::string& s) {
   return out;
 }
 
+// Where the load queue's sorted runs are kept: beside the database, on the
+// same disk (a file database), or the system's temporary folder.
+std::string runs_folder(const std::string& db_path) {
+  if (db_path.empty() || db_path == ":memory:") return std::filesystem::temp_directory_path().string();
+  const std::filesystem::path dir = std::filesystem::path(db_path).parent_path();
+  return dir.empty() ? "." : dir.string();
+}
+
 class SqliteStore final : public Store {
  public:
-  SqliteStore(const std::string& path, int load_batch) : load_batch_size_(std::max(1, load_batch)) {
+  SqliteStore(const std::string& path, int load_batch)
+      : load_batch_size_(std::max(1, load_batch)), runs_(runs_folder(path)) {
     // NOMUTEX: a Store is used by one thread at a time (store.h), so the
     // connection's own mutex only costs time (~5 % of a load import).
     const int flags = SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE | SQLITE_OPEN_NOMUTEX;
@@ -247,6 +260,8 @@ class SqliteStore final : public Store {
   }
   void rollback() override {
     queue_.clear();
+    runs_.clear();
+    last_written_.reset();
     unreported_duplicate_.reset();
     if (!sqlite3_get_autocommit(db_)) exec(db_, "ROLLBACK");
     exec(db_, "PRAGMA cache_size=-2000");
@@ -421,7 +436,10 @@ class SqliteStore final : public Store {
 
   std::optional<LoadDuplicate> queue_load_point(const std::string& unit_id, const analytics::LoadPoint& p,
                                                 std::int64_t file_id, std::int64_t line) override {
-    if (!queue_.empty() && file_id != queued_file_) write_queued_load();
+    if (file_id != queued_file_) {
+      write_queued_load();
+      last_written_.reset();
+    }
     if (last_unit_key_ == 0 || unit_id != last_unit_id_) {  // rows often come in runs of one unit
       last_unit_key_ = unit_key(unit_id);
       last_unit_id_ = unit_id;
@@ -430,7 +448,16 @@ class SqliteStore final : public Store {
     if (queue_.capacity() == 0) queue_.reserve(static_cast<std::size_t>(load_batch_size_));
     queue_.push_back(QueuedPoint{last_unit_key_, p.t, p.load_pu, p.ambient_c, p.top_oil_c, line});
     if (queue_.size() < static_cast<std::size_t>(load_batch_size_)) return std::nullopt;
-    write_queued_load();
+    // A full queue that came in key order and continues what this file
+    // wrote (a file sorted by unit) is written at once; any other is kept as
+    // a sorted run on file until the queue is written (write_queued_load).
+    const bool came_sorted = sort_queue();
+    if (came_sorted && runs_.empty() && (!last_written_ || key_less(*last_written_, queue_.front()))) {
+      write_queued_load();
+    } else {
+      runs_.add(queue_);
+      queue_.clear();
+    }
     return take_duplicate();
   }
 
@@ -613,12 +640,6 @@ class SqliteStore final : public Store {
   }
 
  private:
-  struct QueuedPoint {
-    std::int64_t unit_key, ts;
-    double load_pu, ambient_c, top_oil_c;
-    std::int64_t line;
-  };
-
   // Runs a DELETE/UPDATE ... RETURNING file_id that takes rows with the new
   // row's key out of the current data: none, the new row is new; rows of an
   // earlier file, it was already on file; of this file, a second row.
@@ -639,22 +660,49 @@ class SqliteStore final : public Store {
 
   // Writes the queued load points in key order (unit, time, line): rows of
   // a file that lists every unit at one time, then every unit at the next
-  // (or in any order) then touch each unit's pages once per queue instead
-  // of once per row, which is what made such files 13x slower than the
-  // same rows sorted by unit. Sorting keeps, of two points of one unit and
-  // time in the file, the earlier line first, so it is the one kept, as
-  // in file order. Full statements of kLoadStatementRows rows, the rest
-  // point by point. A statement changes one row per point except a second
-  // point for the same time in the same file; when rows are missing, the
-  // duplicate with the smallest line is found by the stored lines (the kept
-  // point of a unit and time is the file's first one) and kept for
-  // take_duplicate(): the same line as a row-by-row import reports first,
-  // since each queue holds consecutive lines. Later duplicates of the file
-  // are not looked for: the file is rejected by the first.
+  // (or in any order) then touch each unit's pages once instead of once per
+  // row, which is what made such files 13x slower than the same rows sorted
+  // by unit. A full queue that does not continue the file in key order was
+  // kept as a sorted run on file (queue_load_point); the runs and the queue
+  // are merged here, so that the table is written in one pass in key order
+  // however the file was ordered (with one pass per queue, a time-major
+  // file touched every unit's last page once per queue, and SQLite's cache
+  // wrote and read those pages back each time). Sorting keeps, of two points
+  // of one unit and time in the file, the earlier line first, so it is the
+  // one kept, as in file order.
   void write_queued_load() {
-    if (queue_.empty()) return;
+    if (queue_.empty() && runs_.empty()) return;
     sort_queue();
-    const int n = static_cast<int>(queue_.size());
+    if (runs_.empty()) {
+      write_points(queue_);
+    } else {
+      LoadRuns::Merge merge(runs_, queue_);
+      // sort_queue's scratch is free here: it holds each chunk to write
+      // (resized only upwards: resizing value-initialises).
+      constexpr std::size_t kChunk = 256 * kLoadStatementRows;
+      if (sorted_.size() < kChunk) sorted_.resize(kChunk);
+      std::size_t k = 0;
+      while (merge.next(sorted_[k]))
+        if (++k == kChunk) {
+          write_points(std::span<const QueuedPoint>(sorted_.data(), k));
+          k = 0;
+        }
+      write_points(std::span<const QueuedPoint>(sorted_.data(), k));
+      runs_.clear();
+    }
+    queue_.clear();
+  }
+
+  // Writes points sorted by key, in full statements of kLoadStatementRows
+  // rows, the rest point by point. A statement changes one row per point
+  // except a second point for the same time in the same file; when rows are
+  // missing, the duplicate with the smallest line is found by the stored
+  // lines (the kept point of a unit and time is the file's first one) and
+  // kept for take_duplicate() unless one with a smaller line is kept
+  // already: the line a row-by-row import reports first.
+  void write_points(std::span<const QueuedPoint> points) {
+    const int n = static_cast<int>(points.size());
+    if (n == 0) return;
     long long changed = 0;
     int r = 0;
     if (n >= kLoadStatementRows) {
@@ -662,7 +710,7 @@ class SqliteStore final : public Store {
       Statement& s = *load_batch_;
       s.bind(1, queued_file_);
       for (; r + kLoadStatementRows <= n; r += kLoadStatementRows) {
-        for (int i = 0; i < kLoadStatementRows; ++i) bind_point(s, 2 + i * 6, queue_[r + i]);
+        for (int i = 0; i < kLoadStatementRows; ++i) bind_point(s, 2 + i * 6, points[r + i]);
         s.run_keep_bindings();
         changed += sqlite3_changes(db_);
       }
@@ -671,25 +719,27 @@ class SqliteStore final : public Store {
       auto& s = stmt(kLoadInsertOne);
       for (; r < n; ++r) {
         s.bind(1, queued_file_);
-        bind_point(s, 2, queue_[r]);
+        bind_point(s, 2, points[r]);
         s.run_keep_bindings();
         changed += sqlite3_changes(db_);
       }
     }
     written_points_ += changed;
-    if (changed == n || unreported_duplicate_) {
-      queue_.clear();
-      return;
-    }
+    last_written_ = points.back();
+    if (changed == n) return;
     auto& find = stmt("SELECT line FROM load_points WHERE unit_key=? AND ts=?");
     const QueuedPoint* first = nullptr;
-    for (const auto& q : queue_) {
-      if (first && q.line >= first->line) continue;
+    std::int64_t first_line = unreported_duplicate_ ? unreported_duplicate_->line : INT64_MAX;
+    for (const auto& q : points) {
+      if (q.line >= first_line) continue;
       find.bind(1, q.unit_key).bind(2, q.ts);
       const bool found = find.step();
       const std::int64_t stored_line = found ? find.i64(0) : -1;
       find.reset();
-      if (stored_line != q.line) first = &q;
+      if (stored_line != q.line) {
+        first = &q;
+        first_line = q.line;
+      }
     }
     if (first) {
       auto& u = stmt("SELECT unit_id FROM units WHERE unit_key=?");
@@ -697,7 +747,6 @@ class SqliteStore final : public Store {
       unreported_duplicate_ = LoadDuplicate{first->line, u.step() ? u.text(0) : std::string()};
       u.reset();
     }
-    queue_.clear();
   }
 
   // Sorts the queue by (unit, time, line). Unit keys are small dense
@@ -706,18 +755,16 @@ class SqliteStore final : public Store {
   // unit's run is then sorted by time only where the file did not already
   // give its rows in time order. A general sort of 262,144 points took 11 %
   // of a time-major import.
-  void sort_queue() {
-    const auto key_less = [](const QueuedPoint& a, const QueuedPoint& b) {
-      return a.unit_key != b.unit_key ? a.unit_key < b.unit_key : a.ts != b.ts ? a.ts < b.ts : a.line < b.line;
-    };
-    if (std::is_sorted(queue_.begin(), queue_.end(), key_less)) return;
+  // True when the queue was in key order already.
+  bool sort_queue() {
+    if (std::is_sorted(queue_.begin(), queue_.end(), key_less)) return true;
     const auto [lo, hi] = std::minmax_element(queue_.begin(), queue_.end(),
                                               [](const QueuedPoint& a, const QueuedPoint& b) { return a.unit_key < b.unit_key; });
     const std::int64_t first = lo->unit_key;
     const std::size_t range = static_cast<std::size_t>(hi->unit_key - first) + 1;
     if (range > 4 * queue_.size()) {  // sparse keys: no counting sort
       std::sort(queue_.begin(), queue_.end(), key_less);
-      return;
+      return false;
     }
     std::vector<std::size_t> start(range + 1, 0);
     for (const auto& q : queue_) ++start[static_cast<std::size_t>(q.unit_key - first) + 1];
@@ -732,6 +779,7 @@ class SqliteStore final : public Store {
       if (!std::is_sorted(b, e, by_time)) std::sort(b, e, by_time);
     }
     queue_.swap(sorted_);
+    return false;
   }
 
   static void bind_point(Statement& s, int first, const QueuedPoint& p) {
@@ -958,6 +1006,8 @@ class SqliteStore final : public Store {
   const int load_batch_size_;       // points queued before they are written (store.h kSqliteLoadBatch)
   std::vector<QueuedPoint> queue_;  // at most load_batch_size_ points, in file order until written
   std::vector<QueuedPoint> sorted_;  // sort_queue's scratch, kept to avoid reallocating
+  LoadRuns runs_;                    // full queues kept as sorted runs, merged when written
+  std::optional<QueuedPoint> last_written_;  // the last point written of queued_file_ (the greatest)
   std::int64_t queued_file_ = 0;
   std::optional<LoadDuplicate> unreported_duplicate_;
   long long written_points_ = 0;   // load points written since begin()

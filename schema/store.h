@@ -106,7 +106,9 @@ class Store {
   virtual LoadInsert add_load_point(const std::string& unit_id, const analytics::LoadPoint& point,
                                     std::int64_t file_id, int line) = 0;
   // The bulk path for load series: points are queued and written in
-  // multi-row statements when a batch is full. Same rules as add_load_point:
+  // multi-row statements when a batch is full (or, when the file is not in
+  // key order, kept as sorted runs and written in key order by the flush or
+  // the next read, write or commit). Same rules as add_load_point:
   // an earlier file's point for the same unit and time is replaced, a second
   // point for it in the same file is not written and is reported, by line.
   // Each call returns the first duplicate of the batch it wrote, if any
@@ -155,9 +157,9 @@ class Store {
 };
 
 // Load points the SQLite store queues before it writes them, sorted by unit
-// and time, in multi-row statements (Store::queue_load_point): 12 MiB, so
-// that a file listing 5,000 units at each time gives ~50 points per unit
-// per write.
+// and time, in multi-row statements (Store::queue_load_point): 12 MiB. A
+// full queue that does not continue the file in key order becomes a sorted
+// run in a temporary file; the runs are merged when written.
 inline constexpr int kSqliteLoadBatch = 262144;
 
 // Opens (creating if needed) the SQLite database at path, in WAL mode, and
