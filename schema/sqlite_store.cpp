@@ -267,6 +267,7 @@ class SqliteStore final : public Store {
     exec(db_, "PRAGMA cache_size=-2000");
     written_points_ = replaced_points_ = 0;
     unit_keys_.clear();  // keys of units inserted in the rolled-back transaction
+    unit_cycle_.clear();
     last_unit_key_ = 0;
   }
 
@@ -385,6 +386,7 @@ class SqliteStore final : public Store {
         .bind(5, u.impedance_pct).bind(6, u.unit_id);
     e.run();
     unit_keys_.erase(u.unit_id);
+    unit_cycle_.clear();
     last_unit_key_ = 0;
     return true;
   }
@@ -441,7 +443,7 @@ class SqliteStore final : public Store {
       last_written_.reset();
     }
     if (last_unit_key_ == 0 || unit_id != last_unit_id_) {  // rows often come in runs of one unit
-      last_unit_key_ = unit_key(unit_id);
+      last_unit_key_ = cycled_unit_key(unit_id);
       last_unit_id_ = unit_id;
     }
     queued_file_ = file_id;
@@ -954,6 +956,27 @@ class SqliteStore final : public Store {
     return key;
   }
 
+  // The key of a load point's unit. A file that lists every unit at one
+  // time, then every unit at the next, repeats one order of units: units are
+  // kept in the order they first came (at most kUnitCycle), and the one after
+  // the last is tried before the hash map, whose cold lookups were 9 % of
+  // such an import.
+  std::int64_t cycled_unit_key(const std::string& unit_id) {
+    if (!unit_cycle_.empty()) {
+      const std::size_t next = unit_at_ + 1 < unit_cycle_.size() ? unit_at_ + 1 : 0;
+      if (unit_cycle_[next].first == unit_id) {
+        unit_at_ = next;
+        return unit_cycle_[next].second;
+      }
+    }
+    const std::int64_t key = unit_key(unit_id);
+    if (unit_cycle_.size() < kUnitCycle && (unit_cycle_.empty() || unit_at_ + 1 == unit_cycle_.size())) {
+      unit_cycle_.emplace_back(unit_id, key);
+      unit_at_ = unit_cycle_.size() - 1;
+    }
+    return key;
+  }
+
   void check_is_ferrum_db(const std::string& path) {
     // A file that is not a database at all fails on the first read.
     char* err = nullptr;
@@ -1014,6 +1037,9 @@ class SqliteStore final : public Store {
   long long replaced_points_ = 0;  // of which replaced an earlier file's (counted by ferrum_replaced)
   std::string last_unit_id_;
   std::int64_t last_unit_key_ = 0;  // 0: none (unit keys start at 1)
+  static constexpr std::size_t kUnitCycle = 65536;
+  std::vector<std::pair<std::string, std::int64_t>> unit_cycle_;  // cycled_unit_key: units in the order they came
+  std::size_t unit_at_ = 0;                                       // the last one used
 };
 
 }  // namespace
