@@ -392,7 +392,7 @@ class SqliteStore final : public Store {
   }
 
   RowInsert add_oil_sample(const std::string& unit_id, const analytics::OilSample& o, std::int64_t file_id,
-                      int line) override {
+                           int line) override {
     const std::int64_t key = unit_key(unit_id);
     auto& ins = stmt("INSERT INTO oil_samples(unit_key, sample_day, lab_ref, sample_point, breakdown_method,"
                      " file_id, line) VALUES(?,?,?,?,?,?,?)");
@@ -474,7 +474,7 @@ class SqliteStore final : public Store {
   }
 
   RowInsert add_infrared(const std::string& unit_id, const analytics::InfraredScan& r, std::int64_t file_id,
-                    int line) override {
+                         int line) override {
     const std::int64_t key = unit_key(unit_id);
     auto& del = stmt("DELETE FROM infrared_scans WHERE unit_key=? AND survey_day=? AND component=? RETURNING file_id");
     del.bind(1, key).bind(2, r.date).bind(3, r.component);
@@ -488,8 +488,8 @@ class SqliteStore final : public Store {
     return outcome;
   }
 
-  RowInsert add_inspection(const std::string& unit_id, const analytics::InspectionRecord& r, std::int64_t file_id,
-                      int line) override {
+  RowInsert add_inspection(const std::string& unit_id, const analytics::InspectionRecord& r,
+                           std::int64_t file_id, int line) override {
     const std::int64_t key = unit_key(unit_id);
     auto& del = stmt("DELETE FROM inspections WHERE unit_key=? AND inspection_day=? AND item=? RETURNING file_id");
     del.bind(1, key).bind(2, r.date).bind(3, r.item);
@@ -502,8 +502,8 @@ class SqliteStore final : public Store {
     return outcome;
   }
 
-  RowInsert add_electrical_test(const std::string& unit_id, const analytics::ElectricalTest& t, std::int64_t file_id,
-                           int line) override {
+  RowInsert add_electrical_test(const std::string& unit_id, const analytics::ElectricalTest& t,
+                                std::int64_t file_id, int line) override {
     const std::int64_t key = unit_key(unit_id);
     auto& del = stmt("DELETE FROM electrical_tests WHERE unit_key=? AND test_day=? AND test=? AND phase=?"
                      " AND tap IS ? AND winding=? AND insulation=? AND bushing=? AND minutes IS ? AND test_kv IS ?"

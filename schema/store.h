@@ -101,7 +101,7 @@ class Store {
   // was new or already on file (RowInsert); a superseded oil sample counts as
   // replaced.
   virtual RowInsert add_oil_sample(const std::string& unit_id, const analytics::OilSample& sample,
-                              std::int64_t file_id, int line) = 0;
+                                   std::int64_t file_id, int line) = 0;
   // One point, written at once (writes the queued points first).
   virtual LoadInsert add_load_point(const std::string& unit_id, const analytics::LoadPoint& point,
                                     std::int64_t file_id, int line) = 0;
@@ -127,13 +127,13 @@ class Store {
   // around one file's points.
   virtual LoadCounts load_counts() = 0;
   virtual RowInsert add_infrared(const std::string& unit_id, const analytics::InfraredScan& scan,
-                            std::int64_t file_id, int line) = 0;
+                                 std::int64_t file_id, int line) = 0;
   virtual RowInsert add_inspection(const std::string& unit_id, const analytics::InspectionRecord& rec,
-                              std::int64_t file_id, int line) = 0;
+                                   std::int64_t file_id, int line) = 0;
   // A re-delivered test (same unit, day, test and reading names) replaces
   // the earlier row.
   virtual RowInsert add_electrical_test(const std::string& unit_id, const analytics::ElectricalTest& test,
-                                   std::int64_t file_id, int line) = 0;
+                                        std::int64_t file_id, int line) = 0;
   virtual void add_conversion(std::int64_t file_id, const std::string& column,
                               const std::string& original_unit, const std::string& stored_as) = 0;
 
