@@ -49,8 +49,20 @@ struct Alert {
   bool open = true;
 };
 
-// Outcome of adding one load point.
-enum class LoadInsert { added, replaced_earlier_file, duplicate_in_file };
+// Outcome of adding one row (add_* below): new; in place of a row with the
+// same key that an earlier file delivered ("already on file": the row equals
+// or corrects it, and the new one now stands); or a second row for that key
+// in the same file (a load point is then not written; other kinds replace the
+// file's earlier row, and their parsers already reject such a file).
+enum class RowInsert { added, replaced_earlier_file, duplicate_in_file };
+using LoadInsert = RowInsert;
+
+// Load points written since the transaction began (begin()), by outcome;
+// what queue_load_point / flush_load_points / add_load_point wrote.
+struct LoadCounts {
+  long long added = 0;
+  long long replaced_earlier_file = 0;
+};
 
 // A load point that was a second reading of the same unit and time in the
 // same file (a file problem), found when queued points were written.
@@ -85,14 +97,18 @@ class Store {
   virtual std::vector<analytics::UnitInfo> units() = 0;
   virtual bool upsert_unit(const analytics::UnitInfo& unit, std::int64_t file_id, int line) = 0;
 
-  // Measurements. REQUIRES: the unit exists.
-  virtual void add_oil_sample(const std::string& unit_id, const analytics::OilSample& sample,
-                              std::int64_t file_id, int line) = 0;
+  // Measurements. REQUIRES: the unit exists. Each add_* says whether the row
+  // was new or already on file (RowInsert); a superseded oil sample counts as
+  // replaced.
+  virtual RowInsert add_oil_sample(const std::string& unit_id, const analytics::OilSample& sample,
+                                   std::int64_t file_id, int line) = 0;
   // One point, written at once (writes the queued points first).
   virtual LoadInsert add_load_point(const std::string& unit_id, const analytics::LoadPoint& point,
                                     std::int64_t file_id, int line) = 0;
   // The bulk path for load series: points are queued and written in
-  // multi-row statements when a batch is full. Same rules as add_load_point:
+  // multi-row statements when a batch is full (or, when the file is not in
+  // key order, kept as sorted runs and written in key order by the flush or
+  // the next read, write or commit). Same rules as add_load_point:
   // an earlier file's point for the same unit and time is replaced, a second
   // point for it in the same file is not written and is reported, by line.
   // Each call returns the first duplicate of the batch it wrote, if any
@@ -106,14 +122,18 @@ class Store {
                                                         const analytics::LoadPoint& point,
                                                         std::int64_t file_id, std::int64_t line) = 0;
   virtual std::optional<LoadDuplicate> flush_load_points() = 0;
-  virtual void add_infrared(const std::string& unit_id, const analytics::InfraredScan& scan,
-                            std::int64_t file_id, int line) = 0;
-  virtual void add_inspection(const std::string& unit_id, const analytics::InspectionRecord& rec,
-                              std::int64_t file_id, int line) = 0;
+  // Counts of the points written so far in this transaction (writes the
+  // queue first). Exact across batches; a caller takes the difference
+  // around one file's points.
+  virtual LoadCounts load_counts() = 0;
+  virtual RowInsert add_infrared(const std::string& unit_id, const analytics::InfraredScan& scan,
+                                 std::int64_t file_id, int line) = 0;
+  virtual RowInsert add_inspection(const std::string& unit_id, const analytics::InspectionRecord& rec,
+                                   std::int64_t file_id, int line) = 0;
   // A re-delivered test (same unit, day, test and reading names) replaces
   // the earlier row.
-  virtual void add_electrical_test(const std::string& unit_id, const analytics::ElectricalTest& test,
-                                   std::int64_t file_id, int line) = 0;
+  virtual RowInsert add_electrical_test(const std::string& unit_id, const analytics::ElectricalTest& test,
+                                        std::int64_t file_id, int line) = 0;
   virtual void add_conversion(std::int64_t file_id, const std::string& column,
                               const std::string& original_unit, const std::string& stored_as) = 0;
 
@@ -137,9 +157,9 @@ class Store {
 };
 
 // Load points the SQLite store queues before it writes them, sorted by unit
-// and time, in multi-row statements (Store::queue_load_point): 12 MiB, so
-// that a file listing 5,000 units at each time gives ~50 points per unit
-// per write.
+// and time, in multi-row statements (Store::queue_load_point): 12 MiB. A
+// full queue that does not continue the file in key order becomes a sorted
+// run in a temporary file; the runs are merged when written.
 inline constexpr int kSqliteLoadBatch = 262144;
 
 // Opens (creating if needed) the SQLite database at path, in WAL mode, and

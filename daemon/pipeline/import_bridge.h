@@ -49,6 +49,11 @@ struct ImportResult {
   std::set<std::string> named_units;
   static constexpr std::size_t kMaxNamedUnits = 200;
   std::optional<std::int64_t> first_day, last_day;  // date range of the rows taken (days since 1970-01-01)
+  // Of the rows taken, how many were new and how many were already on file
+  // (an earlier file delivered the same key; see store::RowInsert). Set when
+  // the file has no problem and every row went to the store (not by `ferrum
+  // check` away from a site).
+  std::optional<long long> rows_new, rows_on_file;
   std::vector<std::string> unsafe_items;
   bool offset_assumed = false;   // some times had no UTC offset
   char declared_delimiter = 0;   // from a "sep=X" first line, 0 when none

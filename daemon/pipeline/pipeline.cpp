@@ -95,6 +95,8 @@ struct FileStamp {
 void fill_receipt(Receipt& r, const ImportResult& result, const config::SiteConfig& config) {
   r.kind = result.kind;
   r.rows = result.rows;
+  r.rows_new = result.rows_new;
+  r.rows_on_file = result.rows_on_file;
   r.problems = result.problems.kept();
   r.problem_count = result.problems.count();
   r.warnings = result.warnings.entries();
@@ -384,6 +386,8 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
     r.units.assign(result.named_units.begin(), result.named_units.end());  // whose results are held up
     r.data_from.clear();  // nothing was taken
     r.data_to.clear();
+    r.rows_new.reset();
+    r.rows_on_file.reset();
     if (r.reason.empty() && r.problem_count == 0) r.reason = "the file has no usable content";
     r.stored_as = fs::relative(destination("rejected", name, r.sha256, now), root_.root).string();
     store_.add_file({0, r.sha256, party, name, r.kind, "rejected", r.rows, r.problem_count, received_at, r.stored_as,
@@ -618,6 +622,8 @@ Receipt Pipeline::check(const fs::path& file, const std::string& party) {
     r.units.assign(result.named_units.begin(), result.named_units.end());
     r.data_from.clear();
     r.data_to.clear();
+    r.rows_new.reset();
+    r.rows_on_file.reset();
   }
   r.stored_as = "(check only: nothing stored)";
   return r;

@@ -46,6 +46,10 @@ std::string Receipt::to_json() const {
   o->set("status", status);
   o->set("kind", kind.empty() ? Poco::Dynamic::Var() : Poco::Dynamic::Var(kind));
   o->set("rows", rows);
+  if (rows_new && rows_on_file) {
+    o->set("rows_new", *rows_new);
+    o->set("rows_already_on_file", *rows_on_file);
+  }
   o->set("received_at", received_at);
   o->set("stored_as", json_text(stored_as));
   o->set("reason", reason.empty() ? Poco::Dynamic::Var() : Poco::Dynamic::Var(reason));
@@ -121,6 +125,10 @@ Receipt Receipt::from_json(const std::string& json) {
   r.status = str(o, "status");
   r.kind = str(o, "kind");
   r.rows = o->optValue<long long>("rows", 0);
+  if (o->has("rows_new") && o->has("rows_already_on_file")) {
+    r.rows_new = o->getValue<long long>("rows_new");
+    r.rows_on_file = o->getValue<long long>("rows_already_on_file");
+  }
   r.received_at = str(o, "received_at");
   r.stored_as = str(o, "stored_as");
   r.reason = str(o, "reason");
@@ -192,6 +200,15 @@ std::string Receipt::to_text() const {
     o << (status == "rejected" ? "  units held:  " : "  units:       ");
     for (std::size_t i = 0; i < units.size(); ++i) o << (i ? ", " : "") << units[i];
     o << (status == "rejected" ? " (their results in this file are held up until it is corrected)\n" : "\n");
+  }
+  if (rows_new && rows_on_file) {
+    // Rows whose key (unit and date, time, item, ...) an earlier file had
+    // delivered: the file corrected or repeated them, and its values stand.
+    o << "  rows:        " << *rows_new << " new, ";
+    if (*rows_on_file == 0) o << "none already on file\n";
+    else
+      o << *rows_on_file << " already on file (an earlier file delivered "
+        << (*rows_on_file == 1 ? "it" : "them") << "; this file's values now stand)\n";
   }
   if (!data_from.empty())
     o << "  dates:       " << data_from << (data_to != data_from ? " to " + data_to : std::string()) << "\n";

@@ -3,6 +3,7 @@
 // NAME being the dropped file's full name.
 #pragma once
 
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -17,6 +18,10 @@ struct Receipt {
   std::string status;          // "accepted", "rejected", "duplicate"
   std::string kind;            // file kind, "" when not recognised
   long long rows = 0;          // rows imported (accepted) or every data row read, bad ones too (rejected)
+  // Of an accepted file's rows: how many were new, and how many were already
+  // on file (an earlier file delivered the same key; this file's row now
+  // stands). Absent on other receipts and on receipts of older versions.
+  std::optional<long long> rows_new, rows_on_file;
   std::string received_at;     // UTC ISO 8601
   std::string stored_as;       // archive/... or quarantine/..., relative to the site root
   std::string reason;          // file-level reason (permissions, refused unread, ...)

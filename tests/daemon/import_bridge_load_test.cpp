@@ -95,4 +95,37 @@ TEST_F(ImportBridgeLoad, CleanFileIsWrittenWhole) {
   EXPECT_EQ(r.rows, 700);
 }
 
+// Issue 19: the receipt's new / already-on-file counts come from the store's
+// bulk path; small batches, so that both files cross batch boundaries.
+TEST_F(ImportBridgeLoad, NewAndOnFileRowsAreCountedAcrossBatches) {
+  store_ = store::open_sqlite_store(db_, 64);
+  const auto import_committed = [this](const std::string& text, const std::string& sha) {
+    store_->begin();
+    ingest::ImportSettings s;
+    s.now = 1800000000;
+    s.file_id = file(*store_, sha);
+    std::istringstream in(text);
+    auto r = ingest::import_stream(in, s, *store_);
+    store_->commit();
+    return r;
+  };
+  std::string first = "unit_id,timestamp,load_pu\n", second = first;
+  for (int i = 0; i < 300; ++i) first += row(i);
+  for (int i = 250; i < 700; ++i) second += row(i, "0.6");  // 50 on file, 400 new
+  const auto a = import_committed(first, "a");
+  ASSERT_TRUE(a.problems.empty());
+  EXPECT_EQ(a.rows_new, 300);
+  EXPECT_EQ(a.rows_on_file, 0);
+  const auto b = import_committed(second, "b");
+  ASSERT_TRUE(b.problems.empty());
+  EXPECT_EQ(b.rows_new, 400);
+  EXPECT_EQ(b.rows_on_file, 50);
+  EXPECT_EQ(b.first_day, analytics::days_from_civil(2026, 1, 11));  // hour 250
+  EXPECT_EQ(b.last_day, analytics::days_from_civil(2026, 1, 30));   // hour 699
+  // A file with a problem gives no counts.
+  const auto c = import(second + row(3, "50"));
+  EXPECT_FALSE(c.rows_new);
+  EXPECT_FALSE(c.rows_on_file);
+}
+
 }  // namespace

@@ -90,5 +90,38 @@ TEST(ReceiptText, SepLineIsAcknowledgedAndSurvivesJson) {
   EXPECT_EQ(r.to_json().find("separator_note"), std::string::npos);
 }
 
+// Issue 19, item 8: an accepted receipt gives the date range of its data and
+// how many rows were new and how many already on file.
+TEST(ReceiptText, AcceptedFileSaysNewRowsOnFileAndDates) {
+  Receipt r = rejected_with(0);
+  r.status = "accepted";
+  r.kind = "load_series";
+  r.rows = 60;
+  r.rows_new = 45;
+  r.rows_on_file = 15;
+  r.data_from = "2026-03-01";
+  r.data_to = "2026-03-03";
+  const std::string text = r.to_text();
+  EXPECT_NE(text.find("rows:        45 new, 15 already on file (an earlier file delivered them; this file's values "
+                      "now stand)\n"),
+            std::string::npos)
+      << text;
+  EXPECT_NE(text.find("dates:       2026-03-01 to 2026-03-03\n"), std::string::npos) << text;
+  const Receipt back = Receipt::from_json(r.to_json());
+  EXPECT_EQ(back.rows_new, 45);
+  EXPECT_EQ(back.rows_on_file, 15);
+  EXPECT_EQ(back.data_to, "2026-03-03");
+  r.rows_on_file = 1;
+  EXPECT_NE(r.to_text().find("1 already on file (an earlier file delivered it;"), std::string::npos) << r.to_text();
+  r.rows_on_file = 0;
+  EXPECT_NE(r.to_text().find("rows:        45 new, none already on file\n"), std::string::npos) << r.to_text();
+  // A receipt written before the counts existed reads back without them.
+  r.rows_new.reset();
+  r.rows_on_file.reset();
+  EXPECT_EQ(r.to_json().find("rows_new"), std::string::npos);
+  EXPECT_FALSE(Receipt::from_json(r.to_json()).rows_new);
+  EXPECT_EQ(r.to_text().find(" new, "), std::string::npos);
+}
+
 }  // namespace
 }  // namespace ferrum::ingest

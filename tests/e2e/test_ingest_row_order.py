@@ -65,7 +65,8 @@ class RowOrder(SiteTestCase):
 
     @staticmethod
     def comparable(receipt):
-        keep = ("status", "kind", "rows", "reason", "warnings", "problems", "problem_count", "units", "time_note")
+        keep = ("status", "kind", "rows", "rows_new", "rows_already_on_file", "dates", "reason", "warnings", "problems",
+                "problem_count", "units", "time_note")
         return {k: receipt.get(k) for k in keep}
 
     def test_three_orders_store_the_same_series_and_receipts(self):
@@ -76,6 +77,7 @@ class RowOrder(SiteTestCase):
             self.assertEqual(rc, 0, receipt)
             self.assertEqual(receipt["status"], "accepted")
             self.assertEqual(receipt["rows"], UNITS * HOURS)
+            self.assertEqual((receipt["rows_new"], receipt["rows_already_on_file"]), (UNITS * HOURS, 0))
             self.assertEqual(len(stored), UNITS * HOURS)
             # Provenance: each point names the line it came from in this file.
             line_of = {(u, when(h)[1]): i + 2 for i, (u, h) in enumerate(c)}

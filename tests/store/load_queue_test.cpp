@@ -19,23 +19,8 @@ namespace {
 
 // Small batches, so that few rows cross batch boundaries; the store's own
 // batch size only changes when they are crossed.
-constexpr int kBatch = 256;
-
-class LoadQueueTest : public ferrum::testing::StoreFixture {
+class LoadQueueTest : public ferrum::testing::TwoFilesFixture<256> {
  protected:
-  void SetUp() override {
-    StoreFixture::SetUp();
-    s_ = store::open_sqlite_store(db_, kBatch);
-    f1_ = file(*s_, "a");
-    f2_ = file(*s_, "b");
-    s_->upsert_unit(unit("T1"), f1_, 2);
-    s_->upsert_unit(unit("T2"), f1_, 3);
-  }
-  void TearDown() override {
-    s_.reset();
-    StoreFixture::TearDown();
-  }
-
   // Queues points at the given times (line = 2 + index) and collects every
   // duplicate reported, the final flush included.
   std::vector<store::LoadDuplicate> queue(const std::string& unit, const std::vector<long long>& times,
@@ -54,9 +39,6 @@ class LoadQueueTest : public ferrum::testing::StoreFixture {
     for (int i = 0; i < n; ++i) t.push_back(3600LL * i);
     return t;
   }
-
-  std::unique_ptr<store::Store> s_;
-  std::int64_t f1_ = 0, f2_ = 0;
 };
 
 TEST_F(LoadQueueTest, ManyBatchesAndARestAreAllWritten) {

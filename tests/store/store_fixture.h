@@ -6,6 +6,7 @@
 #include <unistd.h>
 
 #include <filesystem>
+#include <memory>
 #include <string>
 
 #include "schema/store.h"
@@ -49,6 +50,29 @@ class StoreFixture : public ::testing::Test {
 
   std::filesystem::path dir_;
   std::string db_;
+};
+
+// A store whose load queue holds `Batch` points (small, so that few rows
+// cross batch boundaries), two file records and the units T1 and T2.
+template <int Batch>
+class TwoFilesFixture : public StoreFixture {
+ protected:
+  static constexpr int kBatch = Batch;
+  void SetUp() override {
+    StoreFixture::SetUp();
+    s_ = store::open_sqlite_store(db_, kBatch);
+    f1_ = file(*s_, "a");
+    f2_ = file(*s_, "b");
+    s_->upsert_unit(unit("T1"), f1_, 2);
+    s_->upsert_unit(unit("T2"), f1_, 3);
+  }
+  void TearDown() override {
+    s_.reset();
+    StoreFixture::TearDown();
+  }
+
+  std::unique_ptr<store::Store> s_;
+  std::int64_t f1_ = 0, f2_ = 0;
 };
 
 }  // namespace ferrum::testing
