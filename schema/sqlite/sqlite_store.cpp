@@ -53,7 +53,7 @@ std::string load_insert_sql(int rows) {
 
 class SqliteStore final : public Store {
  public:
-  SqliteStore(const std::string& path, int load_batch) : load_batch_size_(std::max(1, load_batch)) {
+  SqliteStore(const std::string& path, int load_batch) : path_(path), load_batch_size_(std::max(1, load_batch)) {
     // NOMUTEX: a Store is used by one thread at a time (store.h), so the
     // connection's own mutex only costs time (~5 % of a load import).
     const int flags = SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE | SQLITE_OPEN_NOMUTEX;
@@ -133,6 +133,14 @@ class SqliteStore final : public Store {
     s.bind(1, status).bind(2, limit);
     return read_files(s);
   }
+
+  std::optional<FileRecord> newest_file_in_database() override {
+    auto files = recent_files(1, "");
+    if (files.empty()) return std::nullopt;
+    return files.front();
+  }
+  bool hold_fleet_lead() override { return true; }  // one daemon per SQLite database (the root lock)
+  std::unique_ptr<Store> open_another() const override { return open_sqlite_store(path_, load_batch_size_); }
 
   std::vector<FileRecord> files_for_unit(std::string_view unit_id) override {
     write_queued_load();
@@ -710,6 +718,7 @@ class SqliteStore final : public Store {
     }
   }
 
+  const std::string path_;
   sqlite3* db_ = nullptr;
   std::map<const char*, std::unique_ptr<Statement>> statements_;
   std::unordered_map<std::string, std::int64_t> unit_keys_;
