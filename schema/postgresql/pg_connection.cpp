@@ -65,9 +65,11 @@ void Connection::fail(const std::string& what, const PGresult* r) {
   while (!msg.empty() && (msg.back() == '\n' || msg.back() == ' ')) msg.pop_back();
   if (PQstatus(conn_) != CONNECTION_OK) throw StoreUnavailable("database unreachable: " + what + ": " + msg);
   // Server shutting down or restarting, but the socket not yet closed: the
-  // same for the caller (SQLSTATE class 57P: operator intervention; 08: connection).
+  // same for the caller (SQLSTATE class 57P: operator intervention; 08:
+  // connection). No SQLSTATE at all: libpq's own error, such as "server
+  // closed the connection unexpectedly" before it marks the connection bad.
   const char* state = r ? PQresultErrorField(r, PG_DIAG_SQLSTATE) : nullptr;
-  if (state && (std::string(state).rfind("57P", 0) == 0 || std::string(state).rfind("08", 0) == 0))
+  if (!state || std::string(state).rfind("57P", 0) == 0 || std::string(state).rfind("08", 0) == 0)
     throw StoreUnavailable("database unreachable: " + what + ": " + msg);
   throw StoreError("database error: " + what + ": " + msg);
 }
