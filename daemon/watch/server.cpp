@@ -357,9 +357,6 @@ struct Server::Impl {
   }
 
   void weekly() {
-    // One daemon writes the fleet's bundle: the holder of the fleet lead
-    // (a shared database's advisory lock; always this one with SQLite).
-    if (!store->hold_fleet_lead()) return;
     const std::int64_t now = now_utc();
     std::int64_t last = 0;
     if (auto s = store->state("weekly_last_run")) last = parse_iso(*s);
@@ -373,6 +370,9 @@ struct Server::Impl {
     const std::int64_t due = next_weekly_time(last, config.weekly_weekday, config.weekly_minute_of_day,
                                               config.utc_offset_minutes);
     if (due > now || std::chrono::steady_clock::now() < weekly_retry_at) return;
+    // One daemon writes the fleet's bundle: the holder of the fleet lead
+    // (a shared database's advisory lock; always this one with SQLite).
+    if (!store->hold_fleet_lead()) return;
     try {
       // Due now, or missed while the daemon was down: produce it for today.
       const auto dir = writer->weekly_bundle(today());
