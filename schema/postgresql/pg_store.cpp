@@ -709,23 +709,6 @@ class PgStore final : public Store {
 
 }  // namespace
 
-std::string postgresql_conninfo_problem(const std::string& conninfo) {
-  char* err = nullptr;
-  PQconninfoOption* options = PQconninfoParse(conninfo.c_str(), &err);
-  if (!options) {
-    std::string msg = err ? err : "out of memory";
-    PQfreemem(err);
-    while (!msg.empty() && msg.back() == '\n') msg.pop_back();
-    return "not a libpq connection string (" + msg + ")";
-  }
-  std::string problem;
-  for (const PQconninfoOption* o = options; o->keyword; ++o)
-    if (std::string(o->keyword) == "password" && o->val && *o->val)
-      problem = "holds a password; put it in the libpq password file (~/.pgpass of the daemon's user, or PGPASSFILE) instead";
-  PQconninfoFree(options);
-  return problem;
-}
-
 std::unique_ptr<Store> open_postgresql_store(const std::string& conninfo, const std::string& root, int load_batch) {
   return std::make_unique<PgStore>(conninfo, root, load_batch);
 }

@@ -9,6 +9,7 @@
 
 #include <gtest/gtest.h>
 #include <libpq-fe.h>
+#include <pwd.h>
 #include <sys/file.h>
 #include <unistd.h>
 
@@ -37,6 +38,19 @@ inline std::string test_postgresql(std::string& why) {
   if (!tried) {
     tried = true;
     const std::string folder = std::string(FERRUM_TEST_PG_FOLDER);
+    // Already running (started by an earlier test process): use it as it is.
+    const std::string expected = "host=" + folder + " dbname=ferrum user=" +
+                                 (::geteuid() == 0 ? std::string("postgres")
+                                                    : std::string(::getpwuid(::geteuid()) ? ::getpwuid(::geteuid())->pw_name : ""));
+    if (PGconn* c = PQconnectdb(expected.c_str())) {
+      const bool up = PQstatus(c) == CONNECTION_OK;
+      PQfinish(c);
+      if (up) {
+        conninfo = expected;
+        why = reason;
+        return conninfo;
+      }
+    }
     std::filesystem::create_directories(std::filesystem::path(folder).parent_path());
     const int lock = ::open((folder + ".lock").c_str(), O_CREAT | O_RDWR, 0600);
     if (lock >= 0) ::flock(lock, LOCK_EX);  // one starter at a time (ctest runs tests in parallel)
