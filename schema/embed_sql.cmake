@@ -1,5 +1,8 @@
 # Writes OUT, a C++ file holding every DIR/NNN_name.sql as a raw string, in
-# version order: ferrum::store::embedded_migrations().
+# version order: ferrum::store::FUNC() (embedded_migrations when FUNC is not given).
+if(NOT FUNC)
+  set(FUNC embedded_migrations)
+endif()
 file(GLOB files ${DIR}/*.sql)
 list(SORT files)
 set(body "")
@@ -10,5 +13,5 @@ foreach(f ${files})
   file(READ ${f} sql)
   string(APPEND body "    {${version}, \"${name}\", R\"ferrumsql(${sql})ferrumsql\"},\n")
 endforeach()
-file(WRITE ${OUT}.tmp "// Generated from schema/migrations by schema/embed_sql.cmake. Do not edit.\n#include \"schema/migrations.h\"\n\nnamespace ferrum::store {\n\nconst std::vector<Migration>& embedded_migrations() {\n  static const std::vector<Migration> all = {\n${body}  };\n  return all;\n}\n\n}  // namespace ferrum::store\n")
+file(WRITE ${OUT}.tmp "// Generated from ${DIR} by schema/embed_sql.cmake. Do not edit.\n#include \"schema/migrations.h\"\n\nnamespace ferrum::store {\n\nconst std::vector<Migration>& ${FUNC}() {\n  static const std::vector<Migration> all = {\n${body}  };\n  return all;\n}\n\n}  // namespace ferrum::store\n")
 file(COPY_FILE ${OUT}.tmp ${OUT} ONLY_IF_DIFFERENT)

@@ -1,6 +1,8 @@
-// Versioned SQL migrations, embedded from schema/migrations/NNN_name.sql.
-// The store applies every migration whose version exceeds PRAGMA user_version,
-// each in its own transaction, at start-up.
+// Versioned SQL migrations, embedded from schema/migrations/NNN_name.sql
+// (SQLite) and schema/postgresql/migrations/NNN_name.sql. The store applies
+// every migration whose version exceeds the database's (SQLite: PRAGMA
+// user_version; PostgreSQL: table ferrum_schema), each in its own
+// transaction, at start-up.
 #pragma once
 
 #include <vector>
@@ -13,7 +15,9 @@ struct Migration {
   const char* sql;
 };
 
-// All migrations in ascending version order.
+// All migrations in ascending version order: SQLite (schema/migrations/)
+// and PostgreSQL (schema/postgresql/migrations/), with the same versions.
 const std::vector<Migration>& embedded_migrations();
+const std::vector<Migration>& embedded_postgresql_migrations();
 
 }  // namespace ferrum::store

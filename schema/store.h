@@ -1,6 +1,7 @@
-// The store: everything ferrum keeps, behind one interface so that the
-// SQLite implementation (schema/sqlite_store.h) can later be joined by a
-// PostgreSQL one for large fleets. All SQL lives in schema/.
+// The store: everything ferrum keeps, behind one interface, with one folder
+// per backend: SQLite (schema/sqlite/, the default, one database per site
+// root) and PostgreSQL (schema/postgresql/, one database several site roots
+// share). All SQL lives in schema/.
 //
 // Thread-safety: a Store is used by one thread at a time. Errors are thrown
 // as StoreError with the database's message.
@@ -25,6 +26,14 @@ class StoreError : public std::runtime_error {
 
 // The database was written by a newer ferrum, or is not a ferrum database.
 class IncompatibleStore : public StoreError {
+ public:
+  using StoreError::StoreError;
+};
+
+// The database cannot be reached (server down or restarted, connection
+// lost): not the file's fault. The transaction is gone; the caller leaves
+// the file in work/ and tries again later. The next call reconnects.
+class StoreUnavailable : public StoreError {
  public:
   using StoreError::StoreError;
 };
@@ -83,10 +92,17 @@ class Store {
   // Files.
   virtual std::int64_t add_file(const FileRecord& file) = 0;
   virtual void update_file(const FileRecord& file) = 0;
+  // Of every root sharing the database: the same content dropped in a
+  // second root is a duplicate there.
   virtual std::optional<FileRecord> accepted_file_with_hash(const std::string& sha256) = 0;
   // The newest record of a file with this content, whatever its status.
+  // This root's records only (recovery of its own work/).
   virtual std::optional<FileRecord> latest_file_with_hash(const std::string& sha256) = 0;
+  // This root's records only, newest first.
   virtual std::vector<FileRecord> recent_files(int limit, const std::string& status = "") = 0;
+  // The newest record of any root sharing the database (what changes the
+  // fleet's ranking).
+  virtual std::optional<FileRecord> newest_file_in_database() = 0;
   virtual std::vector<FileRecord> files_for_unit(std::string_view unit_id) = 0;
   // Units touched by the rows of one file.
   virtual std::vector<std::string> units_of_file(std::int64_t file_id) = 0;
@@ -151,9 +167,21 @@ class Store {
   virtual std::int64_t add_alert(const Alert& alert) = 0;
   virtual std::vector<Alert> open_alerts() = 0;
 
-  // Small persistent facts of the daemon (last weekly bundle, ...).
+  // Small persistent facts of the daemon (last weekly bundle, ...), of this
+  // site root.
   virtual std::optional<std::string> state(const std::string& key) = 0;
   virtual void set_state(const std::string& key, const std::string& value) = 0;
+
+  // The fleet lead: true while this store's connection holds it (taking it
+  // when free). Whole-database duties that one daemon does for all (the
+  // weekly fleet bundle) are done by the holder only. SQLite: always true
+  // (one daemon per database). PostgreSQL: a session advisory lock; when
+  // the holder's session ends (daemon stopped or killed, connection lost),
+  // the next daemon that asks takes it over.
+  virtual bool hold_fleet_lead() = 0;
+
+  // A new connection to the same database, for another thread.
+  virtual std::unique_ptr<Store> open_another() const = 0;
 };
 
 // Load points the SQLite store queues before it writes them, sorted by unit
@@ -169,7 +197,22 @@ inline constexpr int kSqliteLoadBatch = 262144;
 // tests use small batches to cross batch boundaries with few rows).
 std::unique_ptr<Store> open_sqlite_store(const std::string& path, int load_batch = kSqliteLoadBatch);
 
-// Schema version this build writes.
+// Opens the PostgreSQL database named by a libpq connection string
+// (https://www.postgresql.org/docs/15/libpq-connect.html) and applies
+// pending migrations (schema/postgresql/migrations). `root` names the site
+// root this store works for ("host:/path"): its files' records, recovery
+// and daemon state are kept apart from other roots'. Throws
+// IncompatibleStore for a newer schema or a database holding other tables,
+// StoreUnavailable when the server cannot be reached.
+std::unique_ptr<Store> open_postgresql_store(const std::string& conninfo, const std::string& root,
+                                             int load_batch = kSqliteLoadBatch);
+
+// Why a libpq connection string cannot be used in ferrum.ini, or "" when
+// it can: it does not parse, or it holds a password (passwords come from
+// the libpq password file, ~/.pgpass or PGPASSFILE, never from ferrum.ini).
+std::string postgresql_conninfo_problem(const std::string& conninfo);
+
+// Schema version this build writes (the same for both backends).
 int schema_version();
 
 }  // namespace ferrum::store

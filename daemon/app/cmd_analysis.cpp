@@ -82,7 +82,7 @@ int cmd_assess(const Invocation& inv) {
   // interleave, so only while the output goes elsewhere (--json or a pipe).
   ProgressDisplay progress("assessing", "units", inv.has("quiet") || (!json && is_terminal(1)));
   std::size_t done = 0;
-  assess::assess_units_parallel(site->root.database().string(), ids, as_of, options, 0,
+  assess::assess_units_parallel(*site->store, ids, as_of, options, 0,
                                 [&](analytics::UnitAssessment&& a) {
                                   progress.update(static_cast<double>(++done), static_cast<double>(ids.size()));
                                   if (whole_fleet) ranking_inputs.push_back(analytics::ranking_fields(a));

@@ -46,7 +46,7 @@ void check_serve_can_start(const std::string& root_option, const std::string& pi
       throw std::runtime_error("another ferrum process" + (pid ? " (pid " + std::to_string(pid) + ")" : std::string()) +
                                " is working on " + root.root.string());
     }
-    store::open_sqlite_store(root.database().string());  // throws IncompatibleStore; closed again at once
+    open_store(root, config::load_site_config(root.config().string()));  // throws IncompatibleStore; closed again at once
   }
   if (!pidfile.empty()) {
     const auto dir = std::filesystem::path(pidfile).parent_path();

@@ -97,6 +97,8 @@ int cmd_status(const Invocation& inv) {
               << "\n  files waiting:  " << get("files_waiting") << "\n  last weekly:    "
               << (get("last_weekly_bundle").empty() ? "none yet" : get("last_weekly_bundle") + " (" + get("last_weekly_run") + ")")
               << "\n  next weekly:    " << get("next_weekly_run") << "\n";
+    if (!get("store_problem").empty())
+      std::cout << "  DATABASE:       unreachable, files wait in work/ and are retried: " << get("store_problem") << "\n";
     if (auto rej = st->getArray("recent_rejections"); rej && rej->size()) {
       std::cout << "  recent rejections:\n";
       for (std::size_t i = 0; i < rej->size(); ++i) std::cout << "    " << rej->get(static_cast<unsigned>(i)).toString() << "\n";

@@ -12,7 +12,7 @@ std::vector<analytics::UnitAssessment> fleet_ranking_inputs(const Invocation& in
   auto units = inv.has("fresh") ? std::nullopt : assess::read_ranking_cache(site.root, cache_key);
   if (units) return std::move(*units);
   ProgressDisplay progress("assessing", "units", inv.has("quiet"));
-  auto fresh = assess::assess_fleet_parallel(*site.store, site.root.database().string(), as_of,
+  auto fresh = assess::assess_fleet_parallel(*site.store, as_of,
                                              assess::options_from_config(site.config, &site.root),
                                              [&](const char*, std::size_t done, std::size_t total) {
                                                progress.update(static_cast<double>(done), static_cast<double>(total));

@@ -1,5 +1,7 @@
 #include "daemon/app/site_context.h"
 
+#include <Poco/Environment.h>
+
 #include <chrono>
 #include <stdexcept>
 
@@ -26,8 +28,16 @@ std::unique_ptr<SiteContext> open_site(const Invocation& inv, Access access) {
                                "; drop files into drop/PARTY/ and the running daemon takes them");
     }
   }
-  s->store = store::open_sqlite_store(s->root.database().string());
+  s->store = open_store(s->root, s->config);
   return s;
+}
+
+std::unique_ptr<store::Store> open_store(const site::SiteRoot& root, const config::SiteConfig& config) {
+  if (!config.store.shared()) return store::open_sqlite_store(root.database().string());
+  std::error_code ec;
+  const auto path = std::filesystem::weakly_canonical(root.root, ec);
+  return store::open_postgresql_store(config.store.postgresql,
+                                      Poco::Environment::nodeName() + ":" + (ec ? root.root : path).string());
 }
 
 int today(const Invocation& inv, const config::SiteConfig& config) {

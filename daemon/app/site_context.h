@@ -27,6 +27,11 @@ enum class Access { read, write };
 // Throws std::runtime_error with a message for the user.
 std::unique_ptr<SiteContext> open_site(const Invocation& inv, Access access);
 
+// The site's store as ferrum.ini says: SQLite in ROOT/ferrum.db (default),
+// or the shared PostgreSQL database, where this root is known by its host
+// name and path ("host:/path").
+std::unique_ptr<store::Store> open_store(const site::SiteRoot& root, const config::SiteConfig& config);
+
 // Today as a day number: --as-of when given, else the clock, in the site's offset.
 int today(const Invocation& inv, const config::SiteConfig& config);
 

@@ -141,7 +141,7 @@ class OrderedResults {
 
 }  // namespace
 
-void assess_units_parallel(const std::string& database, const std::vector<std::string>& ids, analytics::Day as_of,
+void assess_units_parallel(const store::Store& database, const std::vector<std::string>& ids, analytics::Day as_of,
                            const analytics::AssessmentOptions& options, unsigned workers,
                            const std::function<void(analytics::UnitAssessment&&)>& emit) {
   if (workers == 0) workers = std::max(1u, std::thread::hardware_concurrency());
@@ -152,7 +152,7 @@ void assess_units_parallel(const std::string& database, const std::vector<std::s
   for (unsigned w = 0; w < workers; ++w) {
     threads.emplace_back([&] {
       try {
-        auto store = store::open_sqlite_store(database);
+        auto store = database.open_another();
         while (auto i = results.take()) results.put(*i, assess_unit(*store, ids[*i], as_of, options));
       } catch (...) {
         results.fail(std::current_exception());
@@ -169,7 +169,7 @@ void assess_units_parallel(const std::string& database, const std::vector<std::s
   for (auto& t : threads) t.join();
 }
 
-std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store, const std::string& database,
+std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store,
                                                              analytics::Day as_of,
                                                              const analytics::AssessmentOptions& options,
                                                              const FleetProgress& progress) {
@@ -177,7 +177,7 @@ std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store
   for (const auto& u : store.units()) ids.push_back(u.unit_id);
   std::vector<analytics::UnitAssessment> out;
   out.reserve(ids.size());
-  assess_units_parallel(database, ids, as_of, options, 0, [&](analytics::UnitAssessment&& a) {
+  assess_units_parallel(store, ids, as_of, options, 0, [&](analytics::UnitAssessment&& a) {
     out.push_back(std::move(a));
     if (progress) progress("assessing", out.size(), ids.size());
   });

@@ -29,13 +29,14 @@ std::vector<analytics::UnitAssessment> assess_fleet(store::Store& store, analyti
                                                     const analytics::AssessmentOptions& options);
 
 // Assesses `ids` on `workers` threads (0: one per core), each with its own
-// connection to the database at `database` (an SQLite connection serves one
-// thread at a time; WAL lets the readers run beside a writer). `emit` gets
+// connection to the database of `store` (Store::open_another: a connection
+// serves one thread at a time; SQLite's WAL lets the readers run beside a
+// writer). `emit` gets
 // the assessments in the order of `ids`, on the calling thread, while the
 // workers go on; at most a bounded window of finished assessments waits
 // for it, so memory does not grow with the fleet. A worker's exception stops
 // the others and is rethrown here.
-void assess_units_parallel(const std::string& database, const std::vector<std::string>& ids, analytics::Day as_of,
+void assess_units_parallel(const store::Store& store, const std::vector<std::string>& ids, analytics::Day as_of,
                            const analytics::AssessmentOptions& options, unsigned workers,
                            const std::function<void(analytics::UnitAssessment&&)>& emit);
 
@@ -44,7 +45,7 @@ void assess_units_parallel(const std::string& database, const std::vector<std::s
 using FleetProgress = std::function<void(const char* stage, std::size_t done, std::size_t total)>;
 
 // Every unit in the register, in unit_id order, assessed in parallel.
-std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store, const std::string& database,
+std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store,
                                                              analytics::Day as_of,
                                                              const analytics::AssessmentOptions& options,
                                                              const FleetProgress& progress = {});

@@ -118,8 +118,8 @@ std::string ranking_cache_key(const site::SiteRoot& root, store::Store& store, a
   part(executable_identity());
   part(file_text(root.config()));
   for (const auto& t : read_site_tables(root)) part(t.file + ":" + t.text);
-  const auto newest = store.recent_files(1);
-  part(newest.empty() ? "no files" : std::to_string(newest.front().id) + ":" + newest.front().status);
+  const auto newest = store.newest_file_in_database();
+  part(!newest ? "no files" : std::to_string(newest->id) + ":" + newest->status);
   part(std::to_string(as_of));
   return Poco::DigestEngine::digestToHex(engine.digest());
 }

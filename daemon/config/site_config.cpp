@@ -113,6 +113,9 @@ std::vector<Key> make_keys() {
                  if (p != "a4" && p != "letter") throw ConfigError("site.paper: '" + v + "' must be a4 or letter");
                  c.paper = p;
                }});
+  for (const StoreKey& sk : store_keys())  // [site] serves, [store]: the shared database
+    k.push_back({sk.section, sk.name, Type::text, sk.default_text, sk.reloadable, sk.comment,
+                 [&sk](SiteConfig& c, const std::string& v) { apply_store_key(c.store, sk, v); }});
   k.push_back({"ingest", "settle_seconds", Type::integer, "5", true,
                "A copied file is taken once its size and time stopped changing for this long.\n"
                "Files renamed into place from a temporary name (.name, name.part, name.tmp) are taken at once.",
@@ -384,6 +387,7 @@ SiteConfig load_site_config(const std::string& path) {
       if (!found) throw ConfigError(path + ": unknown key " + s + "." + name);
     }
   }
+  check_store_settings(c.store);
   if (c.parties.empty()) throw ConfigError(path + ": no [party.NAME] section: nobody may drop files");
   load_mail_settings(*ini, c);
   return c;

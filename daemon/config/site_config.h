@@ -16,6 +16,7 @@
 #include <vector>
 
 #include "daemon/config/mail_settings.h"
+#include "daemon/config/store_config.h"
 #include "daemon/ingest/field_parsers.h"
 #include "daemon/ingest/header_map.h"
 
@@ -84,6 +85,8 @@ struct SiteConfig {
   std::map<std::string, Party> parties;
   // [mail], [recipients.*] (mail_settings.h)
   MailSettings mail;
+  // [store], [site] serves (store_config.h)
+  StoreSettings store;
   std::map<std::string, Recipient> recipients;
 
   // party name -> its formats (the defaults when it has none)

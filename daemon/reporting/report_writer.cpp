@@ -118,7 +118,7 @@ fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as
 }
 
 ReportWriter::FleetFiles ReportWriter::fleet_report(analytics::Day as_of, const fs::path& out_dir) {
-  const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_, progress_);
+  const auto units = assess::assess_fleet_parallel(store_, as_of, options_, progress_);
   return fleet_files(units, rank(units, as_of), as_of, out_dir);
 }
 
@@ -168,7 +168,7 @@ fs::path ReportWriter::weekly_bundle(analytics::Day as_of) {
     if (progress_) progress_("unit reports", unit_files.size(), register_units.size());
   }
   // One fleet assessment serves the fleet report and the index.
-  const auto units = assess::assess_fleet_parallel(store_, root_.database().string(), as_of, options_, progress_);
+  const auto units = assess::assess_fleet_parallel(store_, as_of, options_, progress_);
   const auto ranking = rank(units, as_of);
   fleet_files(units, ranking, as_of, scratch);
   // The planner's week: on the cover, as summary.txt (the weekly mail's

@@ -121,6 +121,7 @@ struct Server::Impl {
   std::chrono::seconds backoff{1};
   std::chrono::steady_clock::time_point weekly_retry_at{};  // after a failed bundle
   std::vector<fs::path> retry;  // files whose import failed for a reason not theirs
+  std::string store_problem;    // the shared database's last error while it cannot be reached
   std::string progress_file;    // the file whose import progress is being timed
   std::uint64_t progress_done = 0;
   std::chrono::steady_clock::time_point progress_started, progress_logged;
@@ -234,8 +235,10 @@ struct Server::Impl {
       // and recover() imports it whole at the next start.
       spdlog::info("stop requested: the import of {} was rolled back and resumes at the next start", p.string());
     } catch (const std::exception& e) {
-      // Not the file's fault (disk full, database locked or read-only): it
-      // stays in work/ (or in its party folder) and is tried again later.
+      // Not the file's fault (disk full, database locked or read-only, the
+      // shared database unreachable): it stays in work/ (or in its party
+      // folder) and is tried again later.
+      if (dynamic_cast<const store::StoreUnavailable*>(&e)) store_problem = e.what();
       spdlog::error("could not process {}: {}; will retry in {} s", p.string(), e.what(), backoff.count());
       retry_at = std::chrono::steady_clock::now() + backoff;
       backoff = std::min(backoff * 2, std::chrono::seconds(300));
@@ -291,6 +294,7 @@ struct Server::Impl {
         const auto as_of = today();
         const auto a = writer->assess(unit, as_of);
         check_alerts(unit, a);
+        if (!config.store.serves_site(a.unit.site)) continue;  // another root's region ([site] serves)
         const auto path = writer->unit_report(unit, as_of, root.reports());
         spdlog::info("report {} rendered: {}", unit, path.filename().string());
       } catch (const std::exception& e) {
@@ -366,6 +370,9 @@ struct Server::Impl {
     const std::int64_t due = next_weekly_time(last, config.weekly_weekday, config.weekly_minute_of_day,
                                               config.utc_offset_minutes);
     if (due > now || std::chrono::steady_clock::now() < weekly_retry_at) return;
+    // One daemon writes the fleet's bundle: the holder of the fleet lead
+    // (a shared database's advisory lock; always this one with SQLite).
+    if (!store->hold_fleet_lead()) return;
     try {
       // Due now, or missed while the daemon was down: produce it for today.
       const auto dir = writer->weekly_bundle(today());
@@ -407,14 +414,19 @@ struct Server::Impl {
     for (const auto& r : recent_rejections) rej->add(r);
     o->set("recent_rejections", rej);
     std::int64_t last = 0;
-    if (auto s = store->state("weekly_last_run")) last = parse_iso(*s);
-    o->set("last_weekly_bundle", store->state("weekly_last_bundle").value_or(""));
+    Array::Ptr alerts = new Array;
+    try {
+      if (auto s = store->state("weekly_last_run")) last = parse_iso(*s);
+      o->set("last_weekly_bundle", store->state("weekly_last_bundle").value_or(""));
+      for (const auto& a : store->open_alerts()) alerts->add(a.raised_at + " " + a.unit_id + " " + a.kind + ": " + a.text);
+    } catch (const store::StoreUnavailable& e) {
+      store_problem = e.what();
+    }
     o->set("last_weekly_run", last ? analytics::format_utc(last) : "");
     o->set("next_weekly_run", analytics::format_utc(next_weekly_time(last ? last : now_utc(), config.weekly_weekday,
                                                    config.weekly_minute_of_day, config.utc_offset_minutes)));
-    Array::Ptr alerts = new Array;
-    for (const auto& a : store->open_alerts()) alerts->add(a.raised_at + " " + a.unit_id + " " + a.kind + ": " + a.text);
     o->set("open_alerts", alerts);
+    o->set("store_problem", store_problem);  // why files wait in work/, when the database cannot be reached
     o->set("units_waiting_for_report", static_cast<long>(dirty_units.size()));
     o->set("stopped_at", stopped_at);
     std::ostringstream out;
@@ -452,8 +464,16 @@ int Server::run() {
     if (reload_requested.exchange(false)) s.reload();
     s.ingest_ready();
     if (stop_requested && !s.options.once) break;  // reports of dirty units: at the next start
-    s.render_dirty(s.options.once);
-    s.weekly();
+    try {
+      s.render_dirty(s.options.once);
+      s.weekly();
+      if (s.retry.empty()) s.store_problem.clear();
+    } catch (const store::StoreUnavailable& e) {
+      // The shared database is gone for now: the daemon keeps running, files
+      // wait in work/ and are retried with back-off; status says why.
+      if (s.store_problem.empty()) spdlog::error("database unreachable: {}", e.what());
+      s.store_problem = e.what();
+    }
     s.deliver_mail();
     if (std::chrono::steady_clock::now() - last_status >= 1s) {
       s.write_status();

@@ -109,7 +109,7 @@ TEST_F(ParallelAssessment, SameResultsInTheOrderAsked) {
   const analytics::AssessmentOptions options;
   for (unsigned workers : {1u, 2u, 4u}) {
     std::vector<analytics::UnitAssessment> got;
-    assess::assess_units_parallel(db_, ids, as_of, options, workers,
+    assess::assess_units_parallel(*store_, ids, as_of, options, workers,
                                   [&](analytics::UnitAssessment&& a) { got.push_back(std::move(a)); });
     ASSERT_EQ(got.size(), ids.size());
     for (std::size_t i = 0; i < ids.size(); ++i) {
@@ -120,7 +120,7 @@ TEST_F(ParallelAssessment, SameResultsInTheOrderAsked) {
       EXPECT_EQ(got[i].thermal.loss_of_life_hours, alone.thermal.loss_of_life_hours) << ids[i];
     }
   }
-  const auto fleet = assess::assess_fleet_parallel(*store_, db_, as_of, options);
+  const auto fleet = assess::assess_fleet_parallel(*store_, as_of, options);
   ASSERT_EQ(fleet.size(), 9u);
   EXPECT_EQ(fleet.front().unit.unit_id, "T0");
   EXPECT_EQ(fleet.back().unit.unit_id, "T8");
@@ -128,12 +128,17 @@ TEST_F(ParallelAssessment, SameResultsInTheOrderAsked) {
 
 TEST_F(ParallelAssessment, AWorkersErrorReachesTheCaller) {
   int emitted = 0;
-  EXPECT_ANY_THROW(assess::assess_units_parallel((fs::path(db_) / "no" / "such.db").string(), {"T0", "T1"},
+  // A database whose folder is gone: the workers' connections cannot be opened.
+  const fs::path gone = fs::path(db_ + ".d");
+  fs::create_directories(gone);
+  auto lost = store::open_sqlite_store((gone / "lost.db").string());
+  fs::remove_all(gone);
+  EXPECT_ANY_THROW(assess::assess_units_parallel(*lost, {"T0", "T1"},
                                                  analytics::days_from_civil(2026, 6, 1), {}, 2,
                                                  [&](analytics::UnitAssessment&&) { ++emitted; }));
   EXPECT_EQ(emitted, 0);
   // The caller's own exception stops the workers too.
-  EXPECT_THROW(assess::assess_units_parallel(db_, {"T0", "T1", "T2", "T3"}, analytics::days_from_civil(2026, 6, 1),
+  EXPECT_THROW(assess::assess_units_parallel(*store_, {"T0", "T1", "T2", "T3"}, analytics::days_from_civil(2026, 6, 1),
                                              {}, 2, [](analytics::UnitAssessment&&) { throw std::runtime_error("x"); }),
                std::runtime_error);
 }

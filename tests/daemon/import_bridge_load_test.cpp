@@ -21,7 +21,7 @@ class ImportBridgeLoad : public ferrum::testing::StoreFixture {
  protected:
   void SetUp() override {
     StoreFixture::SetUp();
-    store_ = store::open_sqlite_store(db_);
+    store_ = open_store();
     store_->upsert_unit(unit("T1"), file(*store_), 2);
   }
   void TearDown() override {
@@ -50,7 +50,7 @@ class ImportBridgeLoad : public ferrum::testing::StoreFixture {
   std::unique_ptr<store::Store> store_;
 };
 
-TEST_F(ImportBridgeLoad, LateDuplicateIsReportedBeforeALaterProblemOfItsBatch) {
+TEST_P(ImportBridgeLoad, LateDuplicateIsReportedBeforeALaterProblemOfItsBatch) {
   std::string text = "unit_id,timestamp,load_pu\n";
   for (int i = 0; i < 600; ++i) {
     if (i == 300) text += row(5);                 // line 302: same time as line 7
@@ -67,7 +67,7 @@ TEST_F(ImportBridgeLoad, LateDuplicateIsReportedBeforeALaterProblemOfItsBatch) {
   EXPECT_EQ(r.rows, 600);  // a rejected file counts every data row read, the bad ones too
 }
 
-TEST_F(ImportBridgeLoad, DuplicateInTheLastShortBatchIsReported) {
+TEST_P(ImportBridgeLoad, DuplicateInTheLastShortBatchIsReported) {
   std::string text = "unit_id,timestamp,load_pu\n";
   for (int i = 0; i < 20; ++i) text += row(i);
   text += row(3);  // line 22
@@ -77,7 +77,7 @@ TEST_F(ImportBridgeLoad, DuplicateInTheLastShortBatchIsReported) {
   EXPECT_EQ(r.rows, 21);  // every data row read, the duplicate too
 }
 
-TEST_F(ImportBridgeLoad, OffsetNoteCountsOnlyRowsBeforeTheDuplicate) {
+TEST_P(ImportBridgeLoad, OffsetNoteCountsOnlyRowsBeforeTheDuplicate) {
   std::string text = "unit_id,timestamp,load_pu\n";
   for (int i = 0; i < 100; ++i) text += row(i);
   text += row(4);                                          // line 102: duplicate
@@ -87,7 +87,7 @@ TEST_F(ImportBridgeLoad, OffsetNoteCountsOnlyRowsBeforeTheDuplicate) {
   EXPECT_TRUE(import(text).offset_assumed);
 }
 
-TEST_F(ImportBridgeLoad, CleanFileIsWrittenWhole) {
+TEST_P(ImportBridgeLoad, CleanFileIsWrittenWhole) {
   std::string text = "unit_id,timestamp,load_pu\n";
   for (int i = 0; i < 700; ++i) text += row(i);  // row() covers 31 days: at most 744 rows
   const auto r = import(text);
@@ -97,8 +97,9 @@ TEST_F(ImportBridgeLoad, CleanFileIsWrittenWhole) {
 
 // Issue 19: the receipt's new / already-on-file counts come from the store's
 // bulk path; small batches, so that both files cross batch boundaries.
-TEST_F(ImportBridgeLoad, NewAndOnFileRowsAreCountedAcrossBatches) {
-  store_ = store::open_sqlite_store(db_, 64);
+TEST_P(ImportBridgeLoad, NewAndOnFileRowsAreCountedAcrossBatches) {
+  store_.reset();
+  store_ = open_store(64);
   const auto import_committed = [this](const std::string& text, const std::string& sha) {
     store_->begin();
     ingest::ImportSettings s;
@@ -127,5 +128,6 @@ TEST_F(ImportBridgeLoad, NewAndOnFileRowsAreCountedAcrossBatches) {
   EXPECT_FALSE(c.rows_new);
   EXPECT_FALSE(c.rows_on_file);
 }
+FERRUM_ON_BOTH_BACKENDS(ImportBridgeLoad);
 
 }  // namespace

@@ -1,4 +1,4 @@
-// Electrical tests and the register's electrical columns in the SQLite store
+// Electrical tests and the register's electrical columns in both stores
 // (migration 002): round trip, re-delivery replaces, provenance queries.
 #include <gtest/gtest.h>
 
@@ -10,6 +10,7 @@ namespace {
 using namespace ferrum;
 
 class ElectricalStoreTest : public ferrum::testing::StoreFixture {};
+FERRUM_ON_BOTH_BACKENDS(ElectricalStoreTest);
 
 analytics::ElectricalTest bushing_test(double pf) {
   analytics::ElectricalTest t;
@@ -26,8 +27,8 @@ analytics::ElectricalTest bushing_test(double pf) {
   return t;
 }
 
-TEST_F(ElectricalStoreTest, RoundTripAndRedeliveryReplaces) {
-  auto s = store::open_sqlite_store(db_);
+TEST_P(ElectricalStoreTest, RoundTripAndRedeliveryReplaces) {
+  auto s = open_store();
   EXPECT_GE(store::schema_version(), 2);
   const auto f1 = file(*s, "a");
   const auto f2 = file(*s, "b");

@@ -41,7 +41,7 @@ class LoadQueueTest : public ferrum::testing::TwoFilesFixture<256> {
   }
 };
 
-TEST_F(LoadQueueTest, ManyBatchesAndARestAreAllWritten) {
+TEST_P(LoadQueueTest, ManyBatchesAndARestAreAllWritten) {
   constexpr int n = 3 * kBatch + 40;  // three full batches and a rest
   EXPECT_TRUE(queue("T1", hourly(n), f1_).empty());
   EXPECT_EQ(s_->count_rows("load_points"), n);
@@ -51,7 +51,7 @@ TEST_F(LoadQueueTest, ManyBatchesAndARestAreAllWritten) {
   EXPECT_TRUE(std::isnan(pts[0].ambient_c));
 }
 
-TEST_F(LoadQueueTest, DuplicateAgainstAnEarlierBatchIsReportedAtItsLine) {
+TEST_P(LoadQueueTest, DuplicateAgainstAnEarlierBatchIsReportedAtItsLine) {
   constexpr int b = kBatch;
   auto t = hourly(4 * b);
   t[2 * b + 5] = t[10];  // repeats the time of line 12, two batches later
@@ -61,7 +61,7 @@ TEST_F(LoadQueueTest, DuplicateAgainstAnEarlierBatchIsReportedAtItsLine) {
   EXPECT_EQ(d[0].unit_id, "T1");
 }
 
-TEST_F(LoadQueueTest, FirstOfSeveralDuplicatesInOneBatchIsReported) {
+TEST_P(LoadQueueTest, FirstOfSeveralDuplicatesInOneBatchIsReported) {
   auto t = hourly(kBatch);  // exactly one full batch
   t[40] = t[39];
   t[50] = t[3];
@@ -70,7 +70,7 @@ TEST_F(LoadQueueTest, FirstOfSeveralDuplicatesInOneBatchIsReported) {
   EXPECT_EQ(d[0].line, 42);
 }
 
-TEST_F(LoadQueueTest, DuplicateInTheLastShortBatchIsReportedByFlush) {
+TEST_P(LoadQueueTest, DuplicateInTheLastShortBatchIsReportedByFlush) {
   constexpr int n = kBatch + 6;
   auto t = hourly(n);
   t[n - 1] = t[n - 4];
@@ -79,7 +79,7 @@ TEST_F(LoadQueueTest, DuplicateInTheLastShortBatchIsReportedByFlush) {
   EXPECT_EQ(d[0].line, n + 1);
 }
 
-TEST_F(LoadQueueTest, SameTimeOfAnotherUnitIsNoDuplicate) {
+TEST_P(LoadQueueTest, SameTimeOfAnotherUnitIsNoDuplicate) {
   // Both units' points in one batch.
   for (int i = 0; i < kBatch; ++i) {
     analytics::LoadPoint p{3600LL * (i / 2), 0.5};
@@ -89,7 +89,7 @@ TEST_F(LoadQueueTest, SameTimeOfAnotherUnitIsNoDuplicate) {
   EXPECT_EQ(s_->count_rows("load_points"), kBatch);
 }
 
-TEST_F(LoadQueueTest, AnEarlierFilesPointsAreReplaced) {
+TEST_P(LoadQueueTest, AnEarlierFilesPointsAreReplaced) {
   constexpr int n = 2 * kBatch + 10;  // full batches and a rest
   EXPECT_TRUE(queue("T1", hourly(n), f1_, 0.5).empty());
   EXPECT_TRUE(queue("T1", hourly(n), f2_, 0.7).empty());
@@ -98,14 +98,14 @@ TEST_F(LoadQueueTest, AnEarlierFilesPointsAreReplaced) {
   for (const auto& p : pts) EXPECT_DOUBLE_EQ(p.load_pu, 0.7);
 }
 
-TEST_F(LoadQueueTest, ReadsSeeQueuedPoints) {
+TEST_P(LoadQueueTest, ReadsSeeQueuedPoints) {
   analytics::LoadPoint p{1000, 0.5};
   EXPECT_FALSE(s_->queue_load_point("T1", p, f1_, 2));
   EXPECT_EQ(s_->load_points("T1", 0, 5000).size(), 1u);
   EXPECT_EQ(s_->count_rows("load_points"), 1);
 }
 
-TEST_F(LoadQueueTest, CommitRefusesAnUnreportedDuplicate) {
+TEST_P(LoadQueueTest, CommitRefusesAnUnreportedDuplicate) {
   s_->begin();
   analytics::LoadPoint p{1000, 0.5};
   s_->queue_load_point("T1", p, f1_, 2);
@@ -117,7 +117,7 @@ TEST_F(LoadQueueTest, CommitRefusesAnUnreportedDuplicate) {
   EXPECT_FALSE(s_->flush_load_points());
 }
 
-TEST_F(LoadQueueTest, ReportedDuplicateIsReturnedOnce) {
+TEST_P(LoadQueueTest, ReportedDuplicateIsReturnedOnce) {
   analytics::LoadPoint p{1000, 0.5};
   s_->queue_load_point("T1", p, f1_, 2);
   s_->queue_load_point("T1", p, f1_, 3);
@@ -171,7 +171,7 @@ class LoadOrderTest : public LoadQueueTest {
   }
 };
 
-TEST_F(LoadOrderTest, TimeMajorAndShuffledStoreWhatUnitMajorStores) {
+TEST_P(LoadOrderTest, TimeMajorAndShuffledStoreWhatUnitMajorStores) {
   auto rows = time_major();
   EXPECT_TRUE(queue_rows(rows).empty());
   EXPECT_EQ(s_->count_rows("load_points"), kUnits * kTimes);
@@ -200,7 +200,7 @@ TEST_F(LoadOrderTest, TimeMajorAndShuffledStoreWhatUnitMajorStores) {
   for (const auto& [u, t, load] : stored()) EXPECT_DOUBLE_EQ(load, 0.25);
 }
 
-TEST_F(LoadOrderTest, FirstDuplicateByLineWhateverTheOrder) {
+TEST_P(LoadOrderTest, FirstDuplicateByLineWhateverTheOrder) {
   // Three duplicates: the reported one is the smallest line that repeats an
   // earlier row, as a row-by-row import would report, although sorting puts
   // the others first.
@@ -215,7 +215,7 @@ TEST_F(LoadOrderTest, FirstDuplicateByLineWhateverTheOrder) {
   EXPECT_EQ(d[0].unit_id, "U10");
 }
 
-TEST_F(LoadQueueTest, RollbackDiscardsTheQueue) {
+TEST_P(LoadQueueTest, RollbackDiscardsTheQueue) {
   s_->begin();
   analytics::LoadPoint p{1000, 0.5};
   s_->queue_load_point("T1", p, f1_, 2);
@@ -223,5 +223,8 @@ TEST_F(LoadQueueTest, RollbackDiscardsTheQueue) {
   EXPECT_FALSE(s_->flush_load_points());
   EXPECT_EQ(s_->count_rows("load_points"), 0);
 }
+
+FERRUM_ON_BOTH_BACKENDS(LoadQueueTest);
+FERRUM_ON_BOTH_BACKENDS(LoadOrderTest);
 
 }  // namespace

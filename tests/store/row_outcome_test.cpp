@@ -28,7 +28,7 @@ class RowOutcomeTest : public ferrum::testing::TwoFilesFixture<64> {
   }
 };
 
-TEST_F(RowOutcomeTest, OilSampleNewThenCorrectedReissueIsOnFile) {
+TEST_P(RowOutcomeTest, OilSampleNewThenCorrectedReissueIsOnFile) {
   analytics::OilSample o;
   o.date = analytics::days_from_civil(2026, 3, 14);
   o.lab_ref = "L-1";
@@ -41,7 +41,7 @@ TEST_F(RowOutcomeTest, OilSampleNewThenCorrectedReissueIsOnFile) {
   EXPECT_EQ(s_->add_oil_sample("T1", o, f2_, 4), RowInsert::duplicate_in_file);
 }
 
-TEST_F(RowOutcomeTest, InfraredInspectionAndElectricalReportReplacement) {
+TEST_P(RowOutcomeTest, InfraredInspectionAndElectricalReportReplacement) {
   analytics::InfraredScan ir;
   ir.date = analytics::days_from_civil(2026, 4, 2);
   ir.component = "bushing_h1";
@@ -75,7 +75,7 @@ TEST_F(RowOutcomeTest, InfraredInspectionAndElectricalReportReplacement) {
   EXPECT_EQ(s_->count_rows("electrical_tests"), 2);
 }
 
-TEST_F(RowOutcomeTest, LoadPointOneByOneTellsNewFromReplaced) {
+TEST_P(RowOutcomeTest, LoadPointOneByOneTellsNewFromReplaced) {
   analytics::LoadPoint p{1000, 0.5};
   s_->begin();
   EXPECT_EQ(s_->add_load_point("T1", p, f1_, 2), RowInsert::added);
@@ -88,7 +88,7 @@ TEST_F(RowOutcomeTest, LoadPointOneByOneTellsNewFromReplaced) {
   s_->commit();
 }
 
-TEST_F(RowOutcomeTest, QueuedCountsAreExactAcrossBatches) {
+TEST_P(RowOutcomeTest, QueuedCountsAreExactAcrossBatches) {
   // File 1: T1 hours 0..299 and T2 hours 0..99 (several batches of 64).
   s_->begin();
   queue("T1", 0, 300, f1_, 0.5);
@@ -116,7 +116,7 @@ TEST_F(RowOutcomeTest, QueuedCountsAreExactAcrossBatches) {
   EXPECT_EQ(s_->count_rows("load_points"), 550);
 }
 
-TEST_F(RowOutcomeTest, CountsIncludeTheStillQueuedPointsAndRestartAtBegin) {
+TEST_P(RowOutcomeTest, CountsIncludeTheStillQueuedPointsAndRestartAtBegin) {
   s_->begin();
   queue("T1", 0, 10, f1_, 0.5);
   s_->commit();
@@ -131,5 +131,7 @@ TEST_F(RowOutcomeTest, CountsIncludeTheStillQueuedPointsAndRestartAtBegin) {
   EXPECT_EQ(s_->load_counts().replaced_earlier_file, 0);
   s_->rollback();
 }
+
+FERRUM_ON_BOTH_BACKENDS(RowOutcomeTest);
 
 }  // namespace

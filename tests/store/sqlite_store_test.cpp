@@ -13,31 +13,37 @@ using namespace ferrum;
 namespace {
 
 class StoreTest : public ferrum::testing::StoreFixture {};
+FERRUM_ON_BOTH_BACKENDS(StoreTest);
 
-TEST_F(StoreTest, MigratesAndReopens) {
-  { auto s = store::open_sqlite_store(db_); EXPECT_EQ(s->count_rows("units"), 0); }
-  auto s = store::open_sqlite_store(db_);
+TEST_P(StoreTest, MigratesAndReopens) {
+  { auto s = open_store(); EXPECT_EQ(s->count_rows("units"), 0); }
+  auto s = open_store();
   EXPECT_EQ(s->count_rows("files"), 0);
   EXPECT_GE(store::schema_version(), 1);
 }
 
-TEST_F(StoreTest, RefusesNewerSchema) {
-  { auto s = store::open_sqlite_store(db_); }
-  {
-    // Pretend a future ferrum wrote it.
+TEST_P(StoreTest, RefusesNewerSchema) {
+  { auto s = open_store(); }
+  // Pretend a future ferrum wrote it.
+  if (GetParam() == ferrum::testing::Backend::postgresql) {
+    sql(conninfo_, "UPDATE ferrum_schema SET version = 999");
+  } else {
     auto cmd = "sqlite3 '" + db_ + "' 'PRAGMA user_version=999'";
     if (std::system(cmd.c_str()) != 0) GTEST_SKIP() << "sqlite3 shell not installed";
   }
-  EXPECT_THROW(store::open_sqlite_store(db_), store::IncompatibleStore);
+  EXPECT_THROW(open_store(), store::IncompatibleStore);
 }
 
-TEST_F(StoreTest, RefusesGarbageFile) {
-  std::ofstream(db_) << std::string(8192, 'x');
-  EXPECT_THROW(store::open_sqlite_store(db_), store::IncompatibleStore);
+TEST_P(StoreTest, RefusesSomethingElse) {
+  if (GetParam() == ferrum::testing::Backend::postgresql)
+    sql(conninfo_, "CREATE TABLE customers(id integer)");  // another application's database
+  else
+    std::ofstream(db_) << std::string(8192, 'x');
+  EXPECT_THROW(open_store(), store::IncompatibleStore);
 }
 
-TEST_F(StoreTest, UnitUpsertKeepsHistory) {
-  auto s = store::open_sqlite_store(db_);
+TEST_P(StoreTest, UnitUpsertKeepsHistory) {
+  auto s = open_store();
   const auto f = file(*s);
   EXPECT_TRUE(s->upsert_unit(unit("T1"), f, 2));
   EXPECT_FALSE(s->upsert_unit(unit("T1"), f, 2));  // unchanged
@@ -50,8 +56,8 @@ TEST_F(StoreTest, UnitUpsertKeepsHistory) {
 
 // Migration 005: the unit's own costs for the plan are kept, read back, and a changed cost is a
 // change of the register row (history). Plumbing: no engineering value checked.
-TEST_F(StoreTest, UnitCostsRoundTrip) {
-  auto s = store::open_sqlite_store(db_);
+TEST_P(StoreTest, UnitCostsRoundTrip) {
+  auto s = open_store();
   const auto f = file(*s);
   auto u = unit("T1");
   u.replacement_cost = 1500000;
@@ -70,8 +76,8 @@ TEST_F(StoreTest, UnitCostsRoundTrip) {
   EXPECT_FALSE(all[0].refurbishment_cost);
 }
 
-TEST_F(StoreTest, OilSampleSupersededByCorrectedReissue) {
-  auto s = store::open_sqlite_store(db_);
+TEST_P(StoreTest, OilSampleSupersededByCorrectedReissue) {
+  auto s = open_store();
   const auto f = file(*s);
   s->upsert_unit(unit("T1"), f, 2);
   analytics::OilSample o;
@@ -91,8 +97,8 @@ TEST_F(StoreTest, OilSampleSupersededByCorrectedReissue) {
   EXPECT_EQ(s->count_rows("oil_samples"), 2);  // the earlier values stay as history
 }
 
-TEST_F(StoreTest, LoadDuplicatesDetectedWithinFileReplacedAcrossFiles) {
-  auto s = store::open_sqlite_store(db_);
+TEST_P(StoreTest, LoadDuplicatesDetectedWithinFileReplacedAcrossFiles) {
+  auto s = open_store();
   const auto f1 = file(*s, "a");
   const auto f2 = file(*s, "b");
   s->upsert_unit(unit("T1"), f1, 2);
@@ -107,8 +113,8 @@ TEST_F(StoreTest, LoadDuplicatesDetectedWithinFileReplacedAcrossFiles) {
   EXPECT_TRUE(std::isnan(pts[0].ambient_c));
 }
 
-TEST_F(StoreTest, RollbackLeavesNothing) {
-  auto s = store::open_sqlite_store(db_);
+TEST_P(StoreTest, RollbackLeavesNothing) {
+  auto s = open_store();
   s->begin();
   const auto f = file(*s);
   s->upsert_unit(unit("T1"), f, 2);

@@ -15,20 +15,16 @@
 
 #include "schema/load_runs.h"
 #include "schema/migrations.h"
+#include "schema/sqlite/sqlite_statement.h"
 #include "schema/store.h"
+#include "schema/store_rows.h"
 
 namespace ferrum::store {
 namespace {
 
-#define FILE_COLUMNS \
-  "id, sha256, party, original_name, kind, status, rows, problem_count, received_at, stored_as, receipt_json"
-#define UNIT_COLUMNS                                                                                           \
-  "unit_id, site, serial, rated_mva, hv_kv, lv_kv, cooling, year_built, phases, vector_group, oil_type, paper," \
-  " oil_volume_l, criticality, customers_served, top_oil_rise_k, hot_spot_gradient_k, load_loss_ratio,"       \
-  " oil_treated_day, conductor, tap_positions, tap_nominal, tap_step_pct, impedance_pct, replacement_cost, refurbishment_cost"
-
-
 using analytics::LabValue;
+using sqlite::exec;
+using sqlite::Statement;
 
 // Load points per multi-row INSERT. Measured on 1M rows: one row per
 // statement spends most of its time in statement overhead (step, reset,
@@ -59,140 +55,6 @@ std::string load_insert_sql(int rows) {
   return sql;
 }
 
-// RAII prepared statement with 1-based binds and 0-based columns.
-class Statement {
- public:
-  Statement(sqlite3* db, const char* sql) : db_(db) {
-    if (sqlite3_prepare_v2(db, sql, -1, &stmt_, nullptr) != SQLITE_OK)
-      throw StoreError(std::string("cannot prepare SQL: ") + sqlite3_errmsg(db) + " in: " + sql);
-  }
-  ~Statement() { sqlite3_finalize(stmt_); }
-  Statement(sqlite3* db, const std::string& sql) : Statement(db, sql.c_str()) {}
-  Statement(const Statement&) = delete;
-  Statement& operator=(const Statement&) = delete;
-
-  Statement& bind(int i, std::int64_t v) { check(sqlite3_bind_int64(stmt_, i, v)); return *this; }
-  Statement& bind(int i, int v) { return bind(i, static_cast<std::int64_t>(v)); }
-  Statement& bind(int i, long long v) { return bind(i, static_cast<std::int64_t>(v)); }
-  Statement& bind(int i, double v) {
-    check(std::isnan(v) ? sqlite3_bind_null(stmt_, i) : sqlite3_bind_double(stmt_, i, v));
-    return *this;
-  }
-  Statement& bind(int i, std::string_view v) {
-    check(sqlite3_bind_text(stmt_, i, v.data(), static_cast<int>(v.size()), SQLITE_TRANSIENT));
-    return *this;
-  }
-  Statement& bind(int i, const std::string& v) { return bind(i, std::string_view(v)); }
-  Statement& bind(int i, const char* v) { return bind(i, std::string_view(v)); }
-  Statement& bind_null(int i) { check(sqlite3_bind_null(stmt_, i)); return *this; }
-  template <class T>
-  Statement& bind(int i, const std::optional<T>& v) {
-    if (v) return bind(i, *v);
-    return bind_null(i);
-  }
-  Statement& bind_text_or_null(int i, const std::string& v) {
-    return v.empty() ? bind_null(i) : bind(i, v);
-  }
-
-  // True while a row is available.
-  bool step() {
-    const int rc = sqlite3_step(stmt_);
-    if (rc == SQLITE_ROW) return true;
-    if (rc == SQLITE_DONE) return false;
-    StoreError error(std::string("database error: ") + sqlite3_errmsg(db_));
-    sqlite3_reset(stmt_);  // usable again (bindings kept) after the caller's rollback
-    throw error;
-  }
-  void run() {
-    step();
-    reset();
-  }
-  void reset() {
-    sqlite3_reset(stmt_);
-    sqlite3_clear_bindings(stmt_);
-  }
-  // For statements whose every parameter is bound before each use: runs it
-  // and rewinds it, without the cost of clearing the bindings.
-  void run_keep_bindings() {
-    step();
-    sqlite3_reset(stmt_);
-  }
-
-  bool is_null(int c) const { return sqlite3_column_type(stmt_, c) == SQLITE_NULL; }
-  std::int64_t i64(int c) const { return sqlite3_column_int64(stmt_, c); }
-  int i32(int c) const { return sqlite3_column_int(stmt_, c); }
-  double real(int c) const { return sqlite3_column_double(stmt_, c); }
-  double real_or_nan(int c) const { return is_null(c) ? std::nan("") : real(c); }
-  std::optional<double> opt_real(int c) const {
-    return is_null(c) ? std::nullopt : std::optional<double>(real(c));
-  }
-  std::string text(int c) const {
-    const auto* p = sqlite3_column_text(stmt_, c);
-    return p ? std::string(reinterpret_cast<const char*>(p), sqlite3_column_bytes(stmt_, c)) : std::string();
-  }
-
- private:
-  void check(int rc) {
-    if (rc != SQLITE_OK) throw StoreError(std::string("cannot bind value: ") + sqlite3_errmsg(db_));
-  }
-  sqlite3* db_;
-  sqlite3_stmt* stmt_ = nullptr;
-};
-
-void exec(sqlite3* db, const char* sql) {
-  char* err = nullptr;
-  if (sqlite3_exec(db, sql, nullptr, nullptr, &err) != SQLITE_OK) {
-    std::string msg = err ? err : "unknown error";
-    sqlite3_free(err);
-    throw StoreError("database error: " + msg);
-  }
-}
-
-// Test columns of an oil sample, in the order stored.
-struct OilField {
-  const char* test;
-  LabValue analytics::OilSample::*member;
-};
-constexpr OilField kOilFields[] = {
-    {"h2_ppm", &analytics::OilSample::h2},
-    {"ch4_ppm", &analytics::OilSample::ch4},
-    {"c2h6_ppm", &analytics::OilSample::c2h6},
-    {"c2h4_ppm", &analytics::OilSample::c2h4},
-    {"c2h2_ppm", &analytics::OilSample::c2h2},
-    {"co_ppm", &analytics::OilSample::co},
-    {"co2_ppm", &analytics::OilSample::co2},
-    {"o2_ppm", &analytics::OilSample::o2},
-    {"n2_ppm", &analytics::OilSample::n2},
-    {"moisture_ppm", &analytics::OilSample::moisture_ppm},
-    {"oil_temp_c", &analytics::OilSample::oil_temp_c},
-    {"breakdown_kv", &analytics::OilSample::breakdown_kv},
-    {"acidity_mgkoh_g", &analytics::OilSample::acidity_mgkoh_g},
-    {"ift_mn_m", &analytics::OilSample::ift_mn_m},
-    {"pf25_pct", &analytics::OilSample::pf25_pct},
-    {"pf100_pct", &analytics::OilSample::pf100_pct},
-    {"color", &analytics::OilSample::color},
-    {"furan_2fal_ppb", &analytics::OilSample::furan_2fal_ppb},
-};
-
-analytics::Rating rating_from(const std::string& s) {
-  using analytics::Rating;
-  if (s == "fair") return Rating::fair;
-  if (s == "poor") return Rating::poor;
-  if (s == "very_poor") return Rating::very_poor;
-  if (s == "unsafe") return Rating::unsafe;
-  return Rating::good;
-}
-
-std::string json_escape(const std::string& s) {
-  std::string out;
-  for (char c : s) {
-    if (c == '"' || c == '\\') { out += '\\'; out += c; }
-    else if (static_cast<unsigned char>(c) < 0x20) { char b[8]; std::snprintf(b, sizeof b, "\\u%04x", c); out += b; }
-    else out += c;
-  }
-  return out;
-}
-
 // Where the load queue's sorted runs are kept: beside the database, on the
 // same disk (a file database), or the system's temporary folder.
 std::string runs_folder(const std::string& db_path) {
@@ -204,7 +66,7 @@ std::string runs_folder(const std::string& db_path) {
 class SqliteStore final : public Store {
  public:
   SqliteStore(const std::string& path, int load_batch)
-      : load_batch_size_(std::max(1, load_batch)), runs_(runs_folder(path)) {
+      : path_(path), load_batch_size_(std::max(1, load_batch)), runs_(runs_folder(path)) {
     // NOMUTEX: a Store is used by one thread at a time (store.h), so the
     // connection's own mutex only costs time (~5 % of a load import).
     const int flags = SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE | SQLITE_OPEN_NOMUTEX;
@@ -300,6 +162,14 @@ class SqliteStore final : public Store {
     s.bind(1, status).bind(2, limit);
     return read_files(s);
   }
+
+  std::optional<FileRecord> newest_file_in_database() override {
+    auto files = recent_files(1, "");
+    if (files.empty()) return std::nullopt;
+    return files.front();
+  }
+  bool hold_fleet_lead() override { return true; }  // one daemon per SQLite database (the root lock)
+  std::unique_ptr<Store> open_another() const override { return open_sqlite_store(path_, load_batch_size_); }
 
   std::vector<FileRecord> files_for_unit(std::string_view unit_id) override {
     write_queued_load();
@@ -825,65 +695,6 @@ class SqliteStore final : public Store {
     return out;
   }
 
-  static analytics::UnitInfo read_unit(const Statement& s) {
-    analytics::UnitInfo u;
-    u.unit_id = s.text(0);
-    u.site = s.text(1);
-    u.serial = s.text(2);
-    u.rated_mva = s.real(3);
-    u.hv_kv = s.real(4);
-    u.lv_kv = s.real(5);
-    u.cooling = s.text(6);
-    u.year_built = s.i32(7);
-    u.phases = s.i32(8);
-    u.vector_group = s.text(9);
-    u.oil = s.text(10) == "ester" ? analytics::OilType::ester : analytics::OilType::mineral;
-    u.paper = s.text(11) == "upgraded" ? analytics::PaperType::upgraded : analytics::PaperType::kraft;
-    u.oil_volume_l = s.opt_real(12);
-    u.criticality = s.i32(13);
-    if (!s.is_null(14)) u.customers_served = s.i32(14);
-    u.top_oil_rise_k = s.opt_real(15);
-    u.hot_spot_gradient_k = s.opt_real(16);
-    u.load_loss_ratio = s.opt_real(17);
-    if (!s.is_null(18)) u.oil_treated = s.i32(18);
-    u.conductor = s.text(19);
-    if (!s.is_null(20)) u.tap_positions = s.i32(20);
-    if (!s.is_null(21)) u.tap_nominal = s.i32(21);
-    u.tap_step_pct = s.opt_real(22);
-    u.impedance_pct = s.opt_real(23);
-    u.replacement_cost = s.opt_real(24);
-    u.refurbishment_cost = s.opt_real(25);
-    return u;
-  }
-
-  static std::string unit_json(const analytics::UnitInfo& u) {
-    std::ostringstream o;
-    o.precision(10);
-    auto opt = [&](const auto& v) -> std::string {
-      if (!v) return "null";
-      std::ostringstream t;
-      t.precision(10);
-      t << *v;
-      return t.str();
-    };
-    o << "{\"unit_id\":\"" << json_escape(u.unit_id) << "\",\"site\":\"" << json_escape(u.site)
-      << "\",\"serial\":\"" << json_escape(u.serial) << "\",\"rated_mva\":" << u.rated_mva
-      << ",\"hv_kv\":" << u.hv_kv << ",\"lv_kv\":" << u.lv_kv << ",\"cooling\":\"" << json_escape(u.cooling)
-      << "\",\"year_built\":" << u.year_built << ",\"phases\":" << u.phases << ",\"vector_group\":\""
-      << json_escape(u.vector_group) << "\",\"oil_type\":\"" << analytics::to_string(u.oil)
-      << "\",\"paper\":\"" << analytics::to_string(u.paper) << "\",\"oil_volume_l\":" << opt(u.oil_volume_l)
-      << ",\"criticality\":" << u.criticality << ",\"customers_served\":" << opt(u.customers_served)
-      << ",\"top_oil_rise_k\":" << opt(u.top_oil_rise_k) << ",\"hot_spot_gradient_k\":"
-      << opt(u.hot_spot_gradient_k) << ",\"load_loss_ratio\":" << opt(u.load_loss_ratio)
-      << ",\"oil_treated_day\":" << opt(u.oil_treated) << ",\"conductor\":\"" << json_escape(u.conductor)
-      << "\",\"tap_positions\":" << opt(u.tap_positions) << ",\"tap_nominal\":" << opt(u.tap_nominal)
-      << ",\"tap_step_pct\":" << opt(u.tap_step_pct) << ",\"impedance_pct\":" << opt(u.impedance_pct);
-    if (u.replacement_cost || u.refurbishment_cost)  // migration 005; absent in older history rows
-      o << ",\"replacement_cost\":" << opt(u.replacement_cost) << ",\"refurbishment_cost\":" << opt(u.refurbishment_cost);
-    o << "}";
-    return o.str();
-  }
-
   void read_electrical(std::int64_t key, std::vector<analytics::ElectricalTest>& out) {
     auto& s = stmt("SELECT test_day, test, phase, tap, winding, temp_c, insulation, test_kv, bushing, minutes, value,"
                    " capacitance_pf, nameplate_value, note, crew FROM electrical_tests WHERE unit_key=?"
@@ -1016,6 +827,7 @@ class SqliteStore final : public Store {
     }
   }
 
+  const std::string path_;
   sqlite3* db_ = nullptr;
   std::map<const char*, std::unique_ptr<Statement>> statements_;
   std::unordered_map<std::string, std::int64_t> unit_keys_;

@@ -1,0 +1,764 @@
+// PostgreSQL implementation of the store, on libpq: one database shared by
+// several site roots (README, "When one machine is not enough"). The same
+// rules as the SQLite store (store.h); what differs:
+//  * load points are queued, then each batch is sent with COPY into a
+//    temporary staging table and written by one INSERT ... ON CONFLICT;
+//  * load_points is partitioned by month; a missing month's partition is
+//    created on demand on a second connection (CREATE TABLE, then ATTACH
+//    PARTITION, which does not block the readers and writers of the table),
+//    so that a rolled-back file does not take the partition with it;
+//  * files and daemon_state rows carry the root that wrote them.
+#include <algorithm>
+#include <charconv>
+#include <climits>
+#include <memory>
+#include <set>
+#include <unordered_map>
+
+#include "analytics/calendar.h"
+#include "schema/migrations.h"
+#include "schema/postgresql/pg_connection.h"
+#include "schema/store.h"
+#include "schema/store_rows.h"
+
+namespace ferrum::store {
+namespace {
+
+using analytics::LabValue;
+using pg::Connection;
+using pg::Params;
+using pg::Result;
+
+// Advisory lock keys (pg_advisory_lock takes one bigint): the letters of
+// "ferrum" and a small number, so that they do not collide with another
+// application's keys by chance.
+constexpr std::int64_t kLockMigrate = 0x666572726d0001;
+constexpr std::int64_t kLockPartitions = 0x666572726d0002;
+constexpr std::int64_t kLockFleetLead = 0x666572726d0003;
+
+// Month index (year * 12 + month - 1) of a UTC time, and its first second.
+int month_of(std::int64_t ts) {
+  const auto c = analytics::civil_from_days(analytics::day_of(ts));
+  return c.year * 12 + c.month - 1;
+}
+std::int64_t month_start(int month_index) {
+  return analytics::start_of(analytics::days_from_civil(month_index / 12, month_index % 12 + 1, 1));
+}
+
+void append_number(std::string& out, double v) {
+  if (std::isnan(v)) {
+    out += "\\N";
+    return;
+  }
+  char buf[32];
+  out.append(buf, std::to_chars(buf, buf + sizeof buf, v).ptr);
+}
+void append_number(std::string& out, std::int64_t v) {
+  char buf[24];
+  out.append(buf, std::to_chars(buf, buf + sizeof buf, v).ptr);
+}
+
+std::vector<FileRecord> read_files(const Result& r) {
+  std::vector<FileRecord> out;
+  for (int i = 0; i < r.rows(); ++i) {
+    const auto s = r.row(i);
+    FileRecord f;
+    f.id = s.i64(0);
+    f.sha256 = s.text(1);
+    f.party = s.text(2);
+    f.original_name = s.text(3);
+    f.kind = s.text(4);
+    f.status = s.text(5);
+    f.rows = static_cast<long>(s.i64(6));
+    f.problem_count = static_cast<long>(s.i64(7));
+    f.received_at = s.text(8);
+    f.stored_as = s.text(9);
+    f.receipt_json = s.text(10);
+    out.push_back(std::move(f));
+  }
+  return out;
+}
+
+std::optional<FileRecord> first_file(const Result& r) {
+  auto files = read_files(r);
+  if (files.empty()) return std::nullopt;
+  return files.front();
+}
+
+class PgStore final : public Store {
+ public:
+  PgStore(std::string conninfo, std::string root, int load_batch)
+      : conninfo_(std::move(conninfo)), root_(std::move(root)), load_batch_size_(std::max(1, load_batch)),
+        db_(conninfo_) {
+    migrate();
+  }
+  ~PgStore() override = default;
+
+  void begin() override {
+    if (in_transaction_) throw StoreError("begin(): a transaction is already open");
+    reconnect_if_lost();
+    db_.exec("BEGIN");
+    in_transaction_ = true;
+    written_points_ = replaced_points_ = 0;
+  }
+  void commit() override {
+    write_queued_load();
+    if (unreported_duplicate_)
+      throw StoreError("refusing to commit: load point of line " + std::to_string(unreported_duplicate_->line) +
+                       " is a second reading in the same file and was never reported");
+    db_.exec("COMMIT");
+    in_transaction_ = false;
+  }
+  void rollback() override {
+    queue_.clear();
+    written_points_ = replaced_points_ = 0;
+    unreported_duplicate_.reset();
+    unit_keys_.clear();
+    last_unit_key_ = 0;
+    stage_ready_ = false;  // a staging table created in the transaction is gone with it
+    if (!in_transaction_) return;
+    in_transaction_ = false;
+    if (db_.ok()) {
+      try {
+        db_.exec("ROLLBACK");
+      } catch (const StoreError&) {
+        // The connection went away: the server rolled the transaction back.
+      }
+    }
+  }
+
+  std::int64_t add_file(const FileRecord& f) override {
+    reconnect_if_lost();
+    Params p;
+    p.add(root_).add(f.sha256).add(f.party).add(f.original_name).text_or_null(f.kind).add(f.status).add(f.rows)
+        .add(f.problem_count).add(f.received_at).text_or_null(f.stored_as).add(f.receipt_json);
+    auto r = db_.run("INSERT INTO files(root, sha256, party, original_name, kind, status, rows, problem_count,"
+                     " received_at, stored_as, receipt_json) VALUES($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11) RETURNING id",
+                     p);
+    return r.row(0).i64(0);
+  }
+
+  void update_file(const FileRecord& f) override {
+    reconnect_if_lost();
+    Params p;
+    p.text_or_null(f.kind).add(f.status).add(f.rows).add(f.problem_count).text_or_null(f.stored_as)
+        .add(f.receipt_json).add(f.id);
+    db_.run("UPDATE files SET kind=$1, status=$2, rows=$3, problem_count=$4, stored_as=$5, receipt_json=$6 WHERE id=$7",
+            p);
+  }
+
+  std::optional<FileRecord> accepted_file_with_hash(const std::string& sha) override {
+    reconnect_if_lost();
+    return first_file(db_.run("SELECT " FILE_COLUMNS " FROM files WHERE sha256=$1 AND status='accepted'"
+                              " ORDER BY id LIMIT 1", Params().add(sha)));
+  }
+  std::optional<FileRecord> latest_file_with_hash(const std::string& sha) override {
+    reconnect_if_lost();
+    return first_file(db_.run("SELECT " FILE_COLUMNS " FROM files WHERE sha256=$1 AND root=$2 ORDER BY id DESC LIMIT 1",
+                              Params().add(sha).add(root_)));
+  }
+  std::vector<FileRecord> recent_files(int limit, const std::string& status) override {
+    reconnect_if_lost();
+    return read_files(db_.run("SELECT " FILE_COLUMNS " FROM files WHERE root=$3 AND ($1 = '' OR status = $1)"
+                              " ORDER BY id DESC LIMIT $2", Params().add(status).add(limit).add(root_)));
+  }
+  std::optional<FileRecord> newest_file_in_database() override {
+    reconnect_if_lost();
+    return first_file(db_.run("SELECT " FILE_COLUMNS " FROM files ORDER BY id DESC LIMIT 1", Params()));
+  }
+
+  std::vector<FileRecord> files_for_unit(std::string_view unit_id) override {
+    write_queued_load();
+    return read_files(db_.run(
+        "SELECT " FILE_COLUMNS " FROM files WHERE status='accepted' AND id IN ("
+        " SELECT file_id FROM units WHERE unit_id=$1"
+        " UNION SELECT replaced_by_file FROM unit_history WHERE unit_id=$1"
+        " UNION SELECT s.file_id FROM oil_samples s JOIN units u USING(unit_key) WHERE u.unit_id=$1"
+        " UNION SELECT i.file_id FROM infrared_scans i JOIN units u USING(unit_key) WHERE u.unit_id=$1"
+        " UNION SELECT n.file_id FROM inspections n JOIN units u USING(unit_key) WHERE u.unit_id=$1"
+        " UNION SELECT e.file_id FROM electrical_tests e JOIN units u USING(unit_key) WHERE u.unit_id=$1"
+        " UNION SELECT DISTINCT l.file_id FROM load_points l JOIN units u USING(unit_key) WHERE u.unit_id=$1"
+        ") ORDER BY id", Params().add(unit_id)));
+  }
+
+  std::vector<std::string> units_of_file(std::int64_t file_id) override {
+    write_queued_load();
+    auto r = db_.run(
+        "SELECT unit_id FROM units WHERE file_id=$1"
+        " UNION SELECT u.unit_id FROM oil_samples s JOIN units u USING(unit_key) WHERE s.file_id=$1"
+        " UNION SELECT u.unit_id FROM infrared_scans i JOIN units u USING(unit_key) WHERE i.file_id=$1"
+        " UNION SELECT u.unit_id FROM inspections n JOIN units u USING(unit_key) WHERE n.file_id=$1"
+        " UNION SELECT u.unit_id FROM electrical_tests e JOIN units u USING(unit_key) WHERE e.file_id=$1"
+        " UNION SELECT u.unit_id FROM units u WHERE EXISTS (SELECT 1 FROM load_points l"
+        "   WHERE l.unit_key = u.unit_key AND l.file_id=$1)"
+        " ORDER BY 1", Params().add(file_id));
+    std::vector<std::string> out;
+    for (int i = 0; i < r.rows(); ++i) out.push_back(r.row(i).text(0));
+    return out;
+  }
+
+  std::optional<analytics::UnitInfo> find_unit(std::string_view unit_id) override {
+    reconnect_if_lost();
+    auto r = db_.run("SELECT " UNIT_COLUMNS " FROM units WHERE unit_id=$1", Params().add(unit_id));
+    if (r.rows() == 0) return std::nullopt;
+    return read_unit(r.row(0));
+  }
+
+  std::vector<analytics::UnitInfo> units() override {
+    reconnect_if_lost();
+    auto r = db_.run("SELECT " UNIT_COLUMNS " FROM units ORDER BY unit_id COLLATE \"C\"", Params());
+    std::vector<analytics::UnitInfo> out;
+    for (int i = 0; i < r.rows(); ++i) out.push_back(read_unit(r.row(i)));
+    return out;
+  }
+
+  bool upsert_unit(const analytics::UnitInfo& u, std::int64_t file_id, int line) override {
+    write_queued_load();
+    const auto old = find_unit(u.unit_id);
+    const std::string new_json = unit_json(u);
+    if (old && unit_json(*old) == new_json) return false;
+    if (old) {
+      db_.run("INSERT INTO unit_history(unit_id, replaced_at, replaced_by_file, old_row_json)"
+              " VALUES($1, to_char(now() AT TIME ZONE 'UTC', 'YYYY-MM-DD\"T\"HH24:MI:SS\"Z\"'), $2, $3)",
+              Params().add(u.unit_id).add(file_id).add(unit_json(*old)));
+    }
+    Params p;
+    p.add(u.unit_id).add(u.site).text_or_null(u.serial).add(u.rated_mva).add(u.hv_kv).add(u.lv_kv).add(u.cooling)
+        .add(u.year_built).add(u.phases).text_or_null(u.vector_group).add(analytics::to_string(u.oil))
+        .add(analytics::to_string(u.paper)).add(u.oil_volume_l).add(u.criticality).add(u.customers_served)
+        .add(u.top_oil_rise_k).add(u.hot_spot_gradient_k).add(u.load_loss_ratio).add(u.oil_treated).add(file_id)
+        .add(line).add(u.replacement_cost).add(u.refurbishment_cost).text_or_null(u.conductor).add(u.tap_positions)
+        .add(u.tap_nominal).add(u.tap_step_pct).add(u.impedance_pct);
+    db_.run("INSERT INTO units(unit_id, site, serial, rated_mva, hv_kv, lv_kv, cooling, year_built, phases,"
+            " vector_group, oil_type, paper, oil_volume_l, criticality, customers_served, top_oil_rise_k,"
+            " hot_spot_gradient_k, load_loss_ratio, oil_treated_day, file_id, line, replacement_cost,"
+            " refurbishment_cost, conductor, tap_positions, tap_nominal, tap_step_pct, impedance_pct)"
+            " VALUES($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12,$13,$14,$15,$16,$17,$18,$19,$20,$21,$22,$23,$24,$25,$26,$27,$28)"
+            " ON CONFLICT(unit_id) DO UPDATE SET site=$2, serial=$3, rated_mva=$4, hv_kv=$5, lv_kv=$6,"
+            " cooling=$7, year_built=$8, phases=$9, vector_group=$10, oil_type=$11, paper=$12,"
+            " oil_volume_l=$13, criticality=$14, customers_served=$15, top_oil_rise_k=$16,"
+            " hot_spot_gradient_k=$17, load_loss_ratio=$18, oil_treated_day=$19, file_id=$20, line=$21,"
+            " replacement_cost=$22, refurbishment_cost=$23, conductor=$24, tap_positions=$25, tap_nominal=$26,"
+            " tap_step_pct=$27, impedance_pct=$28",
+            p);
+    unit_keys_.erase(u.unit_id);
+    last_unit_key_ = 0;
+    return true;
+  }
+
+  RowInsert add_oil_sample(const std::string& unit_id, const analytics::OilSample& o, std::int64_t file_id,
+                           int line) override {
+    write_queued_load();
+    const std::int64_t key = unit_key(unit_id);
+    auto r = db_.run("INSERT INTO oil_samples(unit_key, sample_day, lab_ref, sample_point, breakdown_method,"
+                     " file_id, line) VALUES($1,$2,$3,$4,$5,$6,$7) RETURNING id",
+                     Params().add(key).add(o.date).add(o.lab_ref).add(o.sample_point).add(o.breakdown_method)
+                         .add(file_id).add(line));
+    const std::int64_t id = r.row(0).i64(0);
+    // A corrected re-issue supersedes the earlier sample (as in SQLite).
+    const RowInsert outcome = replaced_rows(
+        db_.run("UPDATE oil_samples SET superseded_by=$1 WHERE unit_key=$2 AND sample_day=$3 AND lab_ref=$4"
+                " AND sample_point=$5 AND id<>$1 AND superseded_by IS NULL RETURNING file_id",
+                Params().add(id).add(key).add(o.date).add(o.lab_ref).add(o.sample_point)),
+        file_id);
+    for (const auto& f : kOilFields) {
+      const LabValue& v = o.*(f.member);
+      if (!v.present()) continue;
+      db_.run("INSERT INTO oil_values(sample_id, test, state, value) VALUES($1,$2,$3,$4)",
+              Params().add(id).add(f.test).add(v.is_measured() ? 1 : 2).add(v.value));
+    }
+    return outcome;
+  }
+
+  LoadInsert add_load_point(const std::string& unit_id, const analytics::LoadPoint& p, std::int64_t file_id,
+                            int line) override {
+    write_queued_load();
+    const std::int64_t key = unit_key(unit_id);
+    ensure_partitions({month_of(p.t)});
+    // A partitioned table has no xmax to return: whether the upsert replaces
+    // an earlier file's point is read first.
+    const bool on_file = db_.run("SELECT 1 FROM load_points WHERE unit_key=$1 AND ts=$2 AND file_id<>$3",
+                                 Params().add(key).add(p.t).add(file_id)).rows() > 0;
+    auto r = db_.run("INSERT INTO load_points(unit_key, ts, load_pu, ambient_c, top_oil_c, file_id, line)"
+                     " VALUES($1,$2,$3,$4,$5,$6,$7) ON CONFLICT(unit_key, ts) DO UPDATE SET load_pu=$3, ambient_c=$4,"
+                     " top_oil_c=$5, file_id=$6, line=$7 WHERE load_points.file_id <> $6",
+                     Params().add(key).add(p.t).add(p.load_pu).add(p.ambient_c).add(p.top_oil_c).add(file_id).add(line));
+    if (r.affected() == 0) return LoadInsert::duplicate_in_file;
+    ++written_points_;
+    if (!on_file) return LoadInsert::added;
+    ++replaced_points_;
+    return LoadInsert::replaced_earlier_file;
+  }
+
+  std::optional<LoadDuplicate> queue_load_point(const std::string& unit_id, const analytics::LoadPoint& p,
+                                                std::int64_t file_id, std::int64_t line) override {
+    if (!queue_.empty() && file_id != queued_file_) write_queued_load();
+    if (last_unit_key_ == 0 || unit_id != last_unit_id_) {
+      last_unit_key_ = unit_key(unit_id);
+      last_unit_id_ = unit_id;
+    }
+    queued_file_ = file_id;
+    queue_.push_back(QueuedPoint{last_unit_key_, p.t, p.load_pu, p.ambient_c, p.top_oil_c, line});
+    if (queue_.size() < static_cast<std::size_t>(load_batch_size_)) return std::nullopt;
+    write_queued_load();
+    return take_duplicate();
+  }
+
+  std::optional<LoadDuplicate> flush_load_points() override {
+    write_queued_load();
+    return take_duplicate();
+  }
+
+  LoadCounts load_counts() override {
+    write_queued_load();
+    return {written_points_ - replaced_points_, replaced_points_};
+  }
+
+  RowInsert add_infrared(const std::string& unit_id, const analytics::InfraredScan& r, std::int64_t file_id,
+                         int line) override {
+    write_queued_load();
+    const std::int64_t key = unit_key(unit_id);
+    const RowInsert outcome = replaced_rows(
+        db_.run("DELETE FROM infrared_scans WHERE unit_key=$1 AND survey_day=$2 AND component=$3 RETURNING file_id",
+                Params().add(key).add(r.date).add(r.component)),
+        file_id);
+    db_.run("INSERT INTO infrared_scans(unit_key, survey_day, component, spot_c, reference_c, ambient_c,"
+            " load_pct, emissivity, image_ref, note, file_id, line) VALUES($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12)",
+            Params().add(key).add(r.date).add(r.component).add(r.spot_c).add(r.reference_c).add(r.ambient_c)
+                .add(r.load_pct).add(r.emissivity).text_or_null(r.image_ref).text_or_null(r.note).add(file_id)
+                .add(line));
+    return outcome;
+  }
+
+  RowInsert add_inspection(const std::string& unit_id, const analytics::InspectionRecord& r, std::int64_t file_id,
+                           int line) override {
+    write_queued_load();
+    const std::int64_t key = unit_key(unit_id);
+    const RowInsert outcome = replaced_rows(
+        db_.run("DELETE FROM inspections WHERE unit_key=$1 AND inspection_day=$2 AND item=$3 RETURNING file_id",
+                Params().add(key).add(r.date).add(r.item)),
+        file_id);
+    db_.run("INSERT INTO inspections(unit_key, inspection_day, item, rating, note, inspector, file_id, line)"
+            " VALUES($1,$2,$3,$4,$5,$6,$7,$8)",
+            Params().add(key).add(r.date).add(r.item).add(analytics::to_string(r.rating)).text_or_null(r.note)
+                .text_or_null(r.inspector).add(file_id).add(line));
+    return outcome;
+  }
+
+  RowInsert add_electrical_test(const std::string& unit_id, const analytics::ElectricalTest& t,
+                                std::int64_t file_id, int line) override {
+    write_queued_load();
+    const std::int64_t key = unit_key(unit_id);
+    const RowInsert outcome = replaced_rows(
+        db_.run("DELETE FROM electrical_tests WHERE unit_key=$1 AND test_day=$2 AND test=$3 AND phase=$4"
+                " AND tap IS NOT DISTINCT FROM $5::integer AND winding=$6 AND insulation=$7 AND bushing=$8"
+                " AND minutes IS NOT DISTINCT FROM $9::integer AND test_kv IS NOT DISTINCT FROM $10::double precision"
+                " RETURNING file_id",
+                Params().add(key).add(t.date).add(analytics::to_string(t.test)).add(t.phase).add(t.tap).add(t.winding)
+                    .add(t.insulation).add(t.bushing).add(t.minutes).add(t.test_kv)),
+        file_id);
+    db_.run("INSERT INTO electrical_tests(unit_key, test_day, test, phase, tap, winding, temp_c, insulation,"
+            " test_kv, bushing, minutes, value, capacitance_pf, nameplate_value, note, crew, file_id, line)"
+            " VALUES($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12,$13,$14,$15,$16,$17,$18)",
+            Params().add(key).add(t.date).add(analytics::to_string(t.test)).add(t.phase).add(t.tap).add(t.winding)
+                .add(t.temp_c).add(t.insulation).add(t.test_kv).add(t.bushing).add(t.minutes).add(t.value)
+                .add(t.capacitance_pf).add(t.nameplate_value).text_or_null(t.note).text_or_null(t.crew)
+                .add(file_id).add(line));
+    return outcome;
+  }
+
+  void add_conversion(std::int64_t file_id, const std::string& column, const std::string& original_unit,
+                      const std::string& stored_as) override {
+    write_queued_load();
+    db_.run("INSERT INTO conversions(file_id, \"column\", original_unit, stored_as) VALUES($1,$2,$3,$4)"
+            " ON CONFLICT(file_id, \"column\") DO UPDATE SET original_unit=excluded.original_unit,"
+            " stored_as=excluded.stored_as",
+            Params().add(file_id).add(column).add(original_unit).add(stored_as));
+  }
+
+  analytics::UnitData unit_data(std::string_view unit_id) override {
+    write_queued_load();
+    analytics::UnitData d;
+    auto info = find_unit(unit_id);
+    if (!info) return d;
+    d.info = *info;
+    const std::int64_t key = unit_key(std::string(unit_id));
+    read_oil(key, d.oil_samples);
+    d.load = load_points(unit_id, INT64_MIN, INT64_MAX);
+    {
+      auto r = db_.run("SELECT survey_day, component, spot_c, reference_c, ambient_c, load_pct, emissivity,"
+                       " image_ref, note FROM infrared_scans WHERE unit_key=$1"
+                       " ORDER BY survey_day, component COLLATE \"C\"", Params().add(key));
+      for (int i = 0; i < r.rows(); ++i) {
+        const auto s = r.row(i);
+        analytics::InfraredScan x;
+        x.date = s.i32(0);
+        x.component = s.text(1);
+        x.spot_c = s.real(2);
+        x.reference_c = s.opt_real(3);
+        x.ambient_c = s.opt_real(4);
+        x.load_pct = s.opt_real(5);
+        x.emissivity = s.opt_real(6);
+        x.image_ref = s.text(7);
+        x.note = s.text(8);
+        d.infrared.push_back(std::move(x));
+      }
+    }
+    {
+      auto r = db_.run("SELECT inspection_day, item, rating, note, inspector FROM inspections WHERE unit_key=$1"
+                       " ORDER BY inspection_day, item COLLATE \"C\"", Params().add(key));
+      for (int i = 0; i < r.rows(); ++i) {
+        const auto s = r.row(i);
+        analytics::InspectionRecord x;
+        x.date = s.i32(0);
+        x.item = s.text(1);
+        x.rating = rating_from(s.text(2));
+        x.note = s.text(3);
+        x.inspector = s.text(4);
+        d.inspections.push_back(std::move(x));
+      }
+    }
+    read_electrical(key, d.electrical);
+    return d;
+  }
+
+  std::vector<analytics::LoadPoint> load_points(std::string_view unit_id, analytics::Timestamp from,
+                                                analytics::Timestamp to) override {
+    write_queued_load();
+    std::vector<analytics::LoadPoint> out;
+    if (!find_unit(unit_id)) return out;
+    auto r = db_.run("SELECT ts, load_pu, ambient_c, top_oil_c FROM load_points WHERE unit_key=$1"
+                     " AND ts BETWEEN $2 AND $3 ORDER BY ts",
+                     Params().add(unit_key(std::string(unit_id))).add(from).add(to));
+    out.reserve(static_cast<std::size_t>(r.rows()));
+    for (int i = 0; i < r.rows(); ++i) {
+      const auto s = r.row(i);
+      analytics::LoadPoint p;
+      p.t = s.i64(0);
+      p.load_pu = s.real(1);
+      p.ambient_c = s.real_or_nan(2);
+      p.top_oil_c = s.real_or_nan(3);
+      out.push_back(p);
+    }
+    return out;
+  }
+
+  long count_rows(const std::string& table) override {
+    write_queued_load();
+    static const char* kTables[] = {"files", "units", "unit_history", "oil_samples", "oil_values", "load_points",
+                                    "infrared_scans", "inspections", "alerts", "conversions",
+                                    "electrical_tests"};
+    for (const char* t : kTables)
+      if (table == t) return static_cast<long>(db_.query("SELECT count(*) FROM " + table).row(0).i64(0));
+    throw StoreError("no table named " + table);
+  }
+
+  std::int64_t add_alert(const Alert& a) override {
+    reconnect_if_lost();
+    return db_.run("INSERT INTO alerts(unit_id, kind, raised_at, text) VALUES($1,$2,$3,$4) RETURNING id",
+                   Params().add(a.unit_id).add(a.kind).add(a.raised_at).add(a.text)).row(0).i64(0);
+  }
+
+  std::vector<Alert> open_alerts() override {
+    reconnect_if_lost();
+    auto r = db_.run("SELECT id, unit_id, kind, raised_at, text FROM alerts WHERE acknowledged_at IS NULL ORDER BY id",
+                     Params());
+    std::vector<Alert> out;
+    for (int i = 0; i < r.rows(); ++i) {
+      const auto s = r.row(i);
+      out.push_back(Alert{s.i64(0), s.text(1), s.text(2), s.text(3), s.text(4), true});
+    }
+    return out;
+  }
+
+  std::optional<std::string> state(const std::string& key) override {
+    reconnect_if_lost();
+    auto r = db_.run("SELECT value FROM daemon_state WHERE root=$1 AND key=$2", Params().add(root_).add(key));
+    if (r.rows() == 0) return std::nullopt;
+    return r.row(0).text(0);
+  }
+  void set_state(const std::string& key, const std::string& value) override {
+    reconnect_if_lost();
+    db_.run("INSERT INTO daemon_state(root, key, value) VALUES($1,$2,$3)"
+            " ON CONFLICT(root, key) DO UPDATE SET value=excluded.value",
+            Params().add(root_).add(key).add(value));
+  }
+
+  bool hold_fleet_lead() override {
+    if (in_transaction_) return has_lead_ && db_.ok();
+    reconnect_if_lost();
+    if (has_lead_) return true;
+    has_lead_ = db_.run("SELECT pg_try_advisory_lock($1)", Params().add(kLockFleetLead)).row(0).text(0) == "t";
+    return has_lead_;
+  }
+
+  std::unique_ptr<Store> open_another() const override {
+    return std::make_unique<PgStore>(conninfo_, root_, load_batch_size_);
+  }
+
+ private:
+  struct QueuedPoint {
+    std::int64_t unit_key, ts;
+    double load_pu, ambient_c, top_oil_c;
+    std::int64_t line;
+  };
+
+  // Outside a transaction, a lost connection is made again (the server was
+  // restarted); inside one, the transaction is gone and the caller's next
+  // statement fails with StoreUnavailable, and rollback() follows.
+  void reconnect_if_lost() {
+    if (in_transaction_) return;
+    if (db_.reconnect_if_lost()) {
+      stage_ready_ = false;
+      has_lead_ = false;
+      known_months_.clear();
+    }
+  }
+
+  std::optional<LoadDuplicate> take_duplicate() {
+    auto d = std::move(unreported_duplicate_);
+    unreported_duplicate_.reset();
+    return d;
+  }
+
+  // The queue goes by COPY into the session's staging table, then into
+  // load_points in one INSERT ... ON CONFLICT: of two points of one unit and
+  // time in the batch, the one of the smaller line (DISTINCT ON, ordered by
+  // line) is written, as in file order; an earlier file's point is replaced;
+  // a point of this file already stored (an earlier batch) is kept. When
+  // fewer rows changed than were queued, the duplicate of the smallest line
+  // is the staged point whose stored line for its unit and time is not its
+  // own (as in the SQLite store).
+  // The file_id column of the rows a DELETE/UPDATE ... RETURNING file_id took
+  // out of the current data: none, the new row is new; rows of an earlier
+  // file, it was already on file; of this file, a second row (as in SQLite).
+  static RowInsert replaced_rows(const Result& r, std::int64_t file_id) {
+    RowInsert outcome = RowInsert::added;
+    for (int i = 0; i < r.rows(); ++i)
+      if (outcome != RowInsert::duplicate_in_file)
+        outcome = r.row(i).i64(0) == file_id ? RowInsert::duplicate_in_file : RowInsert::replaced_earlier_file;
+    return outcome;
+  }
+
+  void write_queued_load() {
+    reconnect_if_lost();
+    if (queue_.empty()) return;
+    if (!stage_ready_) {
+      db_.exec("CREATE TEMPORARY TABLE IF NOT EXISTS ferrum_load_stage(unit_key BIGINT, ts BIGINT,"
+               " load_pu DOUBLE PRECISION, ambient_c DOUBLE PRECISION, top_oil_c DOUBLE PRECISION, line BIGINT)");
+      stage_ready_ = true;
+    }
+    std::set<int> months;
+    int last_month = INT_MIN;
+    std::int64_t month_lo = 1, month_hi = 0;  // [lo, hi) of last_month
+    std::string data;
+    data.reserve(queue_.size() * 56);
+    for (const auto& q : queue_) {
+      if (q.ts < month_lo || q.ts >= month_hi) {
+        last_month = month_of(q.ts);
+        month_lo = month_start(last_month);
+        month_hi = month_start(last_month + 1);
+        months.insert(last_month);
+      }
+      append_number(data, q.unit_key);
+      data += '\t';
+      append_number(data, q.ts);
+      data += '\t';
+      append_number(data, q.load_pu);
+      data += '\t';
+      append_number(data, q.ambient_c);
+      data += '\t';
+      append_number(data, q.top_oil_c);
+      data += '\t';
+      append_number(data, q.line);
+      data += '\n';
+    }
+    const long n = static_cast<long>(queue_.size());
+    queue_.clear();
+    ensure_partitions(months);
+    db_.exec("TRUNCATE ferrum_load_stage");
+    db_.copy_in("COPY ferrum_load_stage FROM STDIN", data);
+    // The staged points that replace an earlier file's (a partitioned table
+    // has no xmax for RETURNING to tell an update from an insert).
+    replaced_points_ += db_.run("SELECT count(*) FROM (SELECT DISTINCT unit_key, ts FROM ferrum_load_stage) s"
+                                " JOIN load_points l ON l.unit_key = s.unit_key AND l.ts = s.ts WHERE l.file_id <> $1",
+                                Params().add(queued_file_))
+                             .row(0).i64(0);
+    const long changed =
+        db_.run("INSERT INTO load_points(unit_key, ts, load_pu, ambient_c, top_oil_c, file_id, line)"
+                " SELECT DISTINCT ON (unit_key, ts) unit_key, ts, load_pu, ambient_c, top_oil_c, $1, line"
+                " FROM ferrum_load_stage ORDER BY unit_key, ts, line"
+                " ON CONFLICT(unit_key, ts) DO UPDATE SET load_pu=excluded.load_pu, ambient_c=excluded.ambient_c,"
+                " top_oil_c=excluded.top_oil_c, file_id=excluded.file_id, line=excluded.line"
+                " WHERE load_points.file_id <> excluded.file_id",
+                Params().add(queued_file_)).affected();
+    written_points_ += changed;
+    if (changed == n || unreported_duplicate_) return;
+    auto r = db_.run("SELECT s.line, u.unit_id FROM ferrum_load_stage s"
+                     " JOIN load_points l ON l.unit_key = s.unit_key AND l.ts = s.ts"
+                     " JOIN units u ON u.unit_key = s.unit_key"
+                     " WHERE l.line <> s.line ORDER BY s.line LIMIT 1", Params());
+    if (r.rows() > 0) unreported_duplicate_ = LoadDuplicate{r.row(0).i64(0), r.row(0).text(1)};
+  }
+
+  // Creates the month partitions of load_points that do not exist yet, on a
+  // connection of their own, committed at once, one creator at a time
+  // across daemons (advisory lock); ATTACH PARTITION takes only a SHARE
+  // UPDATE EXCLUSIVE lock on load_points, which this store's open
+  // transaction (ROW EXCLUSIVE) does not conflict with.
+  void ensure_partitions(const std::set<int>& months) {
+    std::vector<int> missing;
+    for (int m : months)
+      if (!known_months_.count(m)) missing.push_back(m);
+    if (missing.empty()) return;
+    if (!ddl_ || !ddl_->ok()) ddl_ = std::make_unique<Connection>(conninfo_);
+    ddl_->exec("BEGIN");
+    try {
+      ddl_->run("SELECT pg_advisory_xact_lock($1)", Params().add(kLockPartitions));
+      for (int m : missing) {
+        char name[40];
+        std::snprintf(name, sizeof name, "load_points_p%04d%02d", m / 12, m % 12 + 1);
+        const bool exists =
+            ddl_->run("SELECT to_regclass($1) IS NOT NULL", Params().add(name)).row(0).text(0) == "t";
+        if (exists) continue;
+        ddl_->exec(std::string("CREATE TABLE ") + name + " (LIKE load_points INCLUDING DEFAULTS INCLUDING CONSTRAINTS)");
+        ddl_->exec(std::string("ALTER TABLE load_points ATTACH PARTITION ") + name + " FOR VALUES FROM (" +
+                   std::to_string(month_start(m)) + ") TO (" + std::to_string(month_start(m + 1)) + ")");
+      }
+      ddl_->exec("COMMIT");
+    } catch (...) {
+      if (ddl_->ok()) ddl_->exec("ROLLBACK");
+      throw;
+    }
+    known_months_.insert(missing.begin(), missing.end());
+  }
+
+  void read_electrical(std::int64_t key, std::vector<analytics::ElectricalTest>& out) {
+    auto r = db_.run("SELECT test_day, test, phase, tap, winding, temp_c, insulation, test_kv, bushing, minutes, value,"
+                     " capacitance_pf, nameplate_value, note, crew FROM electrical_tests WHERE unit_key=$1"
+                     " ORDER BY test_day, id", Params().add(key));
+    for (int i = 0; i < r.rows(); ++i) {
+      const auto s = r.row(i);
+      const auto kind = analytics::electrical_test_from(s.text(1));
+      if (!kind) continue;  // written by a newer ferrum
+      analytics::ElectricalTest t;
+      t.date = s.i32(0);
+      t.test = *kind;
+      t.phase = s.text(2);
+      if (!s.is_null(3)) t.tap = s.i32(3);
+      t.winding = s.text(4);
+      t.temp_c = s.opt_real(5);
+      t.insulation = s.text(6);
+      t.test_kv = s.opt_real(7);
+      t.bushing = s.text(8);
+      if (!s.is_null(9)) t.minutes = s.i32(9);
+      t.value = s.opt_real(10);
+      t.capacitance_pf = s.opt_real(11);
+      t.nameplate_value = s.opt_real(12);
+      t.note = s.text(13);
+      t.crew = s.text(14);
+      out.push_back(std::move(t));
+    }
+  }
+
+  void read_oil(std::int64_t key, std::vector<analytics::OilSample>& out) {
+    auto r = db_.run("SELECT s.id, s.sample_day, s.lab_ref, s.sample_point, s.breakdown_method, v.test, v.state, v.value"
+                     " FROM oil_samples s LEFT JOIN oil_values v ON v.sample_id = s.id"
+                     " WHERE s.unit_key=$1 AND s.superseded_by IS NULL ORDER BY s.sample_day, s.id",
+                     Params().add(key));
+    std::int64_t current = -1;
+    for (int i = 0; i < r.rows(); ++i) {
+      const auto s = r.row(i);
+      if (s.i64(0) != current) {
+        current = s.i64(0);
+        analytics::OilSample o;
+        o.date = s.i32(1);
+        o.lab_ref = s.text(2);
+        o.sample_point = s.text(3);
+        o.breakdown_method = s.text(4);
+        out.push_back(std::move(o));
+      }
+      if (s.is_null(5)) continue;
+      const std::string test = s.text(5);
+      for (const auto& f : kOilFields) {
+        if (test != f.test) continue;
+        LabValue& v = out.back().*(f.member);
+        v = s.i32(6) == 1 ? LabValue::measured(s.real(7)) : LabValue::below(s.real_or_nan(7));
+      }
+    }
+  }
+
+  std::int64_t unit_key(const std::string& unit_id) {
+    auto it = unit_keys_.find(unit_id);
+    if (it != unit_keys_.end()) return it->second;
+    auto r = db_.run("SELECT unit_key FROM units WHERE unit_id=$1", Params().add(unit_id));
+    if (r.rows() == 0) throw StoreError("unit " + unit_id + " is not in the register");
+    const std::int64_t key = r.row(0).i64(0);
+    unit_keys_.emplace(unit_id, key);
+    return key;
+  }
+
+  // Applies pending migrations, one daemon at a time (advisory lock).
+  // Refuses a database written by a newer ferrum, and a database holding
+  // tables of something else.
+  void migrate() {
+    db_.run("SELECT pg_advisory_lock($1)", Params().add(kLockMigrate));
+    try {
+      const bool ours = db_.query("SELECT to_regclass('ferrum_schema') IS NOT NULL").row(0).text(0) == "t";
+      int current = 0;
+      if (ours) {
+        current = static_cast<int>(db_.query("SELECT max(version) FROM ferrum_schema").row(0).i64(0));
+      } else {
+        const long others = static_cast<long>(db_.query("SELECT count(*) FROM pg_tables WHERE schemaname ="
+                                                        " current_schema()").row(0).i64(0));
+        if (others > 0) throw IncompatibleStore("the PostgreSQL database holds tables but is not a ferrum database");
+      }
+      if (current > schema_version())
+        throw IncompatibleStore("the PostgreSQL database was written by a newer ferrum (schema version " +
+                                std::to_string(current) + ", this build knows up to " +
+                                std::to_string(schema_version()) + "); refusing to touch it");
+      for (const Migration& m : embedded_postgresql_migrations()) {
+        if (m.version <= current) continue;
+        db_.exec("BEGIN");
+        try {
+          db_.exec(m.sql);
+          db_.exec("UPDATE ferrum_schema SET version = " + std::to_string(m.version));
+          db_.exec("COMMIT");
+        } catch (const StoreError& e) {
+          if (db_.ok()) db_.exec("ROLLBACK");
+          throw StoreError(std::string("migration ") + m.name + " failed: " + e.what());
+        }
+      }
+    } catch (...) {
+      if (db_.ok()) db_.run("SELECT pg_advisory_unlock($1)", Params().add(kLockMigrate));
+      throw;
+    }
+    db_.run("SELECT pg_advisory_unlock($1)", Params().add(kLockMigrate));
+  }
+
+  const std::string conninfo_;
+  const std::string root_;
+  const int load_batch_size_;
+  Connection db_;
+  std::unique_ptr<Connection> ddl_;  // partitions are created on it (ensure_partitions)
+  bool in_transaction_ = false;
+  bool stage_ready_ = false;
+  bool has_lead_ = false;
+  std::set<int> known_months_;  // partitions known to exist, by month index
+  std::unordered_map<std::string, std::int64_t> unit_keys_;
+  std::vector<QueuedPoint> queue_;
+  std::int64_t queued_file_ = 0;
+  std::optional<LoadDuplicate> unreported_duplicate_;
+  long long written_points_ = 0;   // load points written since begin()
+  long long replaced_points_ = 0;  // of which replaced an earlier file's (read before the upsert)
+  std::string last_unit_id_;
+  std::int64_t last_unit_key_ = 0;
+};
+
+}  // namespace
+
+std::unique_ptr<Store> open_postgresql_store(const std::string& conninfo, const std::string& root, int load_batch) {
+  return std::make_unique<PgStore>(conninfo, root, load_batch);
+}
+
+}  // namespace ferrum::store
