@@ -366,6 +366,7 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
       r.status = "accepted";
       r.units.assign(result.units.begin(), result.units.end());
       r.unsafe_items = result.unsafe_items;
+      r.unsafe_alerted = raises_alerts_;
       r.stored_as = fs::relative(destination("accepted", name, r.sha256, now), root_.root).string();
       rec.kind = r.kind;
       rec.status = "accepted";

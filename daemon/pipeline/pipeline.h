@@ -73,6 +73,9 @@ class Pipeline {
   // For `ferrum check` away from a site: do not require units to be in the
   // (empty) register.
   void set_units_must_exist(bool v) { units_must_exist_ = v; }
+  // The daemon raises an alert for every unsafe inspection item at once;
+  // receipts say whether the importer does (Receipt::unsafe_alerted).
+  void set_raises_alerts(bool v) { raises_alerts_ = v; }
   // The daemon's stop flag: an import in progress is rolled back when it is
   // set, and the file stays in work/ (recover() imports it at the next start).
   void set_cancel_flag(const std::atomic<bool>* flag) { cancel_ = flag; }
@@ -119,6 +122,7 @@ class Pipeline {
   store::Store& store_;
   Clock clock_;
   bool units_must_exist_ = true;
+  bool raises_alerts_ = false;
   const std::atomic<bool>* cancel_ = nullptr;
   FileProgress progress_;
 };

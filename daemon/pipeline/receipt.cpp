@@ -92,6 +92,7 @@ std::string Receipt::to_json() const {
     Array::Ptr s = new Array;
     for (const auto& x : unsafe_items) s->add(x);
     o->set("unsafe_items_reported", s);
+    o->set("unsafe_alert_sent", unsafe_alerted);
   }
   if (status == "duplicate") {
     Object::Ptr d = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
@@ -160,6 +161,7 @@ Receipt Receipt::from_json(const std::string& json) {
   if (auto a = o->getArray("unsafe_items_reported"))
     for (std::size_t i = 0; i < a->size(); ++i)
       r.unsafe_items.push_back(a->getElement<std::string>(static_cast<unsigned>(i)));
+  if (o->has("unsafe_alert_sent")) r.unsafe_alerted = o->getValue<bool>("unsafe_alert_sent");
   if (auto d = o->getObject("dates")) {
     r.data_from = str(d, "from");
     r.data_to = str(d, "to");
@@ -219,8 +221,13 @@ std::string Receipt::to_text() const {
   if (!source_note.empty()) o << "  read from:   " << source_note << "\n";
   if (!format_note.empty()) o << "  your format: " << format_note << "\n";
   if (!unsafe_items.empty()) {
-    // Confirms to the inspector that the rating did not wait for a report.
-    o << "\nRated UNSAFE, reported to the site's planners at once:\n";
+    // Confirms to the inspector that the rating did not wait for a report,
+    // and says so plainly when this import sent no alert.
+    if (unsafe_alerted)
+      o << "\nRated UNSAFE, reported to the site's planners at once (an alert was raised):\n";
+    else
+      o << "\nRated UNSAFE (imported by hand with `ferrum ingest`, which raises no alert: tell the site's "
+           "planners now):\n";
     for (const auto& item : unsafe_items) o << "  " << item << "\n";
   }
   if (!problems.empty()) {

@@ -30,7 +30,10 @@ struct Receipt {
   std::vector<Warning> warnings;
   std::vector<std::string> units;   // units touched (accepted); units the rows name, held up (rejected)
   std::string data_from, data_to;   // date range of the rows taken (YYYY-MM-DD), "" when none
-  std::vector<std::string> unsafe_items;  // "UNIT: item (date)" rated unsafe, reported to the site at once
+  std::vector<std::string> unsafe_items;  // "UNIT: item (date)" rated unsafe
+  // True when the importer raises an alert for them at once (the daemon);
+  // false for `ferrum ingest`, which sends none, and the receipt says so.
+  bool unsafe_alerted = false;
   std::string duplicate_of_received_at;  // for duplicates: when the same content was imported
   std::string duplicate_of_stored_as;    // ... and as what
   std::string utc_offset_note;      // "times without an offset were taken as UTC+01:00"

@@ -161,6 +161,7 @@ struct Server::Impl {
   void rebuild() {
     pipeline = std::make_unique<ingest::Pipeline>(root, config, *store);
     pipeline->set_cancel_flag(&Server::stop_requested);
+    pipeline->set_raises_alerts(true);  // raise_alert() below, for every unsafe item of an accepted file
     // A file that takes longer than 10 s is logged every 10 s while it is read.
     pipeline->set_progress([this](const std::string& name, std::uint64_t done, std::uint64_t total) {
       const auto now = std::chrono::steady_clock::now();

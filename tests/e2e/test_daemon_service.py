@@ -176,6 +176,9 @@ class Service(DaemonCase):
                                     f"T1,{today},bushings,unsafe\nT1,{today},breather,good\n")
         self.wait_for(lambda: any(a["kind"] == "unsafe_inspection" for a in self.alerts()), timeout=15,
                       what="unsafe alert")
+        self.assertTrue(self.receipt("inspection.csv")["unsafe_alert_sent"])
+        with open(self.path("drop", "planning", "receipts", "inspection.csv.txt")) as f:
+            self.assertIn("reported to the site's planners at once (an alert was raised):\n  T1: bushings", f.read())
         lab = "unit_id,sample_date,h2_ppm,ch4_ppm,c2h6_ppm,c2h4_ppm,c2h2_ppm,co_ppm,co2_ppm,lab_ref\n"
         day = lambda n: time.strftime("%Y-%m-%d", time.gmtime(time.time() - n * 86400))
         self.drop("lab-1.csv", lab + f"T2,{day(20)},20,10,5,5,<0.5,200,2000,L-1\n")

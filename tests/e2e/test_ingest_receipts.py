@@ -311,7 +311,10 @@ class ContractorsExports(IngestCase):
         self.assertEqual(r["unsafe_items_reported"], ["T1: bushings (2026-03-14)"])
         with open(self.path("drop", "planning", "receipts", "insp.csv.txt")) as f:
             text = f.read()
-        self.assertIn("reported to the site's planners at once:\n  T1: bushings (2026-03-14)", text)
+        # `ferrum ingest` raises no alert, and the receipt says so (the daemon's receipt:
+        # test_daemon_service).
+        self.assertFalse(r["unsafe_alert_sent"])
+        self.assertIn("which raises no alert: tell the site's planners now):\n  T1: bushings (2026-03-14)", text)
 
     def test_rejected_receipt_wording(self):
         self.drop("lab.csv", BAD_LAB)
