@@ -1,11 +1,17 @@
 // What both stores (schema/sqlite/, schema/postgresql/) read and write the
 // same way: the column lists of files and units, the oil tests as stored,
-// a unit's register row as JSON (unit_history) and as read back.
+// a unit's register row as JSON (unit_history) and as read back, and the
+// rows of the other tables as read back (read_*_row: each backend keeps its
+// own query and loop, and hands each row here).
 #pragma once
 
+#include <cstdint>
+#include <optional>
 #include <string>
+#include <vector>
 
 #include "analytics/unit_data.h"
+#include "schema/store.h"
 
 #define FILE_COLUMNS \
   "id, sha256, party, original_name, kind, status, rows, problem_count, received_at, stored_as, receipt_json"
@@ -41,6 +47,12 @@ inline constexpr OilField kOilFields[] = {
     {"color", &analytics::OilSample::color},
     {"furan_2fal_ppb", &analytics::OilSample::furan_2fal_ppb},
 };
+
+// The tables count_rows answers for (a name from outside is checked against
+// these before it goes into SQL).
+inline constexpr const char* kCountedTables[] = {"files", "units", "unit_history", "oil_samples", "oil_values",
+                                                 "load_points", "infrared_scans", "inspections", "alerts",
+                                                 "conversions", "electrical_tests"};
 
 
 analytics::Rating rating_from(const std::string& s);
@@ -80,6 +92,122 @@ analytics::UnitInfo read_unit(const Row& s) {
   u.replacement_cost = s.opt_real(24);
   u.refurbishment_cost = s.opt_real(25);
   return u;
+}
+
+// The row readers below take a row object as read_unit does (the SQLite
+// statement's current row or a libpq result row; they also use i64 and
+// real_or_nan); columns are 0-based, in the order of the SELECT named
+// beside each. Each backend keeps its own query and loop.
+
+// A file from a row of FILE_COLUMNS.
+template <class Row>
+FileRecord read_file_row(const Row& s) {
+  FileRecord f;
+  f.id = s.i64(0);
+  f.sha256 = s.text(1);
+  f.party = s.text(2);
+  f.original_name = s.text(3);
+  f.kind = s.text(4);
+  f.status = s.text(5);
+  f.rows = static_cast<long>(s.i64(6));
+  f.problem_count = static_cast<long>(s.i64(7));
+  f.received_at = s.text(8);
+  f.stored_as = s.text(9);
+  f.receipt_json = s.text(10);
+  return f;
+}
+
+// An electrical test from a row of "test_day, test, phase, tap, winding,
+// temp_c, insulation, test_kv, bushing, minutes, value, capacitance_pf,
+// nameplate_value, note, crew"; none for a test this build does not know
+// (written by a newer ferrum).
+template <class Row>
+std::optional<analytics::ElectricalTest> read_electrical_row(const Row& s) {
+  const auto kind = analytics::electrical_test_from(s.text(1));
+  if (!kind) return std::nullopt;
+  analytics::ElectricalTest t;
+  t.date = s.i32(0);
+  t.test = *kind;
+  t.phase = s.text(2);
+  if (!s.is_null(3)) t.tap = s.i32(3);
+  t.winding = s.text(4);
+  t.temp_c = s.opt_real(5);
+  t.insulation = s.text(6);
+  t.test_kv = s.opt_real(7);
+  t.bushing = s.text(8);
+  if (!s.is_null(9)) t.minutes = s.i32(9);
+  t.value = s.opt_real(10);
+  t.capacitance_pf = s.opt_real(11);
+  t.nameplate_value = s.opt_real(12);
+  t.note = s.text(13);
+  t.crew = s.text(14);
+  return t;
+}
+
+// An infrared scan from a row of "survey_day, component, spot_c,
+// reference_c, ambient_c, load_pct, emissivity, image_ref, note".
+template <class Row>
+analytics::InfraredScan read_infrared_row(const Row& s) {
+  analytics::InfraredScan r;
+  r.date = s.i32(0);
+  r.component = s.text(1);
+  r.spot_c = s.real(2);
+  r.reference_c = s.opt_real(3);
+  r.ambient_c = s.opt_real(4);
+  r.load_pct = s.opt_real(5);
+  r.emissivity = s.opt_real(6);
+  r.image_ref = s.text(7);
+  r.note = s.text(8);
+  return r;
+}
+
+// An inspection from a row of "inspection_day, item, rating, note, inspector".
+template <class Row>
+analytics::InspectionRecord read_inspection_row(const Row& s) {
+  analytics::InspectionRecord r;
+  r.date = s.i32(0);
+  r.item = s.text(1);
+  r.rating = rating_from(s.text(2));
+  r.note = s.text(3);
+  r.inspector = s.text(4);
+  return r;
+}
+
+// A load point from a row of "ts, load_pu, ambient_c, top_oil_c".
+template <class Row>
+analytics::LoadPoint read_load_point_row(const Row& s) {
+  analytics::LoadPoint p;
+  p.t = s.i64(0);
+  p.load_pu = s.real(1);
+  p.ambient_c = s.real_or_nan(2);
+  p.top_oil_c = s.real_or_nan(3);
+  return p;
+}
+
+// Oil samples with their values from the rows, in order, of "s.id,
+// s.sample_day, s.lab_ref, s.sample_point, s.breakdown_method, v.test,
+// v.state, v.value" (oil_samples LEFT JOIN oil_values, by sample): a row
+// of a new sample id starts a sample in `out`; its value, if any, goes
+// into the last sample. `current` is the id of the last sample (-1 before
+// the first row).
+template <class Row>
+void read_oil_row(const Row& s, std::int64_t& current, std::vector<analytics::OilSample>& out) {
+  if (s.i64(0) != current) {
+    current = s.i64(0);
+    analytics::OilSample o;
+    o.date = s.i32(1);
+    o.lab_ref = s.text(2);
+    o.sample_point = s.text(3);
+    o.breakdown_method = s.text(4);
+    out.push_back(std::move(o));
+  }
+  if (s.is_null(5)) return;
+  const std::string test = s.text(5);
+  for (const auto& f : kOilFields) {
+    if (test != f.test) continue;
+    analytics::LabValue& v = out.back().*(f.member);
+    v = s.i32(6) == 1 ? analytics::LabValue::measured(s.real(7)) : analytics::LabValue::below(s.real_or_nan(7));
+  }
 }
 
 }  // namespace ferrum::store

@@ -60,22 +60,7 @@ void append_number(std::string& out, std::int64_t v) {
 
 std::vector<FileRecord> read_files(const Result& r) {
   std::vector<FileRecord> out;
-  for (int i = 0; i < r.rows(); ++i) {
-    const auto s = r.row(i);
-    FileRecord f;
-    f.id = s.i64(0);
-    f.sha256 = s.text(1);
-    f.party = s.text(2);
-    f.original_name = s.text(3);
-    f.kind = s.text(4);
-    f.status = s.text(5);
-    f.rows = static_cast<long>(s.i64(6));
-    f.problem_count = static_cast<long>(s.i64(7));
-    f.received_at = s.text(8);
-    f.stored_as = s.text(9);
-    f.receipt_json = s.text(10);
-    out.push_back(std::move(f));
-  }
+  for (int i = 0; i < r.rows(); ++i) out.push_back(read_file_row(r.row(i)));
   return out;
 }
 
@@ -389,34 +374,12 @@ class PgStore final : public Store {
       auto r = db_.run("SELECT survey_day, component, spot_c, reference_c, ambient_c, load_pct, emissivity,"
                        " image_ref, note FROM infrared_scans WHERE unit_key=$1"
                        " ORDER BY survey_day, component COLLATE \"C\"", Params().add(key));
-      for (int i = 0; i < r.rows(); ++i) {
-        const auto s = r.row(i);
-        analytics::InfraredScan x;
-        x.date = s.i32(0);
-        x.component = s.text(1);
-        x.spot_c = s.real(2);
-        x.reference_c = s.opt_real(3);
-        x.ambient_c = s.opt_real(4);
-        x.load_pct = s.opt_real(5);
-        x.emissivity = s.opt_real(6);
-        x.image_ref = s.text(7);
-        x.note = s.text(8);
-        d.infrared.push_back(std::move(x));
-      }
+      for (int i = 0; i < r.rows(); ++i) d.infrared.push_back(read_infrared_row(r.row(i)));
     }
     {
       auto r = db_.run("SELECT inspection_day, item, rating, note, inspector FROM inspections WHERE unit_key=$1"
                        " ORDER BY inspection_day, item COLLATE \"C\"", Params().add(key));
-      for (int i = 0; i < r.rows(); ++i) {
-        const auto s = r.row(i);
-        analytics::InspectionRecord x;
-        x.date = s.i32(0);
-        x.item = s.text(1);
-        x.rating = rating_from(s.text(2));
-        x.note = s.text(3);
-        x.inspector = s.text(4);
-        d.inspections.push_back(std::move(x));
-      }
+      for (int i = 0; i < r.rows(); ++i) d.inspections.push_back(read_inspection_row(r.row(i)));
     }
     read_electrical(key, d.electrical);
     return d;
@@ -431,24 +394,13 @@ class PgStore final : public Store {
                      " AND ts BETWEEN $2 AND $3 ORDER BY ts",
                      Params().add(unit_key(std::string(unit_id))).add(from).add(to));
     out.reserve(static_cast<std::size_t>(r.rows()));
-    for (int i = 0; i < r.rows(); ++i) {
-      const auto s = r.row(i);
-      analytics::LoadPoint p;
-      p.t = s.i64(0);
-      p.load_pu = s.real(1);
-      p.ambient_c = s.real_or_nan(2);
-      p.top_oil_c = s.real_or_nan(3);
-      out.push_back(p);
-    }
+    for (int i = 0; i < r.rows(); ++i) out.push_back(read_load_point_row(r.row(i)));
     return out;
   }
 
   long count_rows(const std::string& table) override {
     write_queued_load();
-    static const char* kTables[] = {"files", "units", "unit_history", "oil_samples", "oil_values", "load_points",
-                                    "infrared_scans", "inspections", "alerts", "conversions",
-                                    "electrical_tests"};
-    for (const char* t : kTables)
+    for (const char* t : kCountedTables)
       if (table == t) return static_cast<long>(db_.query("SELECT count(*) FROM " + table).row(0).i64(0));
     throw StoreError("no table named " + table);
   }
@@ -637,28 +589,8 @@ class PgStore final : public Store {
     auto r = db_.run("SELECT test_day, test, phase, tap, winding, temp_c, insulation, test_kv, bushing, minutes, value,"
                      " capacitance_pf, nameplate_value, note, crew FROM electrical_tests WHERE unit_key=$1"
                      " ORDER BY test_day, id", Params().add(key));
-    for (int i = 0; i < r.rows(); ++i) {
-      const auto s = r.row(i);
-      const auto kind = analytics::electrical_test_from(s.text(1));
-      if (!kind) continue;  // written by a newer ferrum
-      analytics::ElectricalTest t;
-      t.date = s.i32(0);
-      t.test = *kind;
-      t.phase = s.text(2);
-      if (!s.is_null(3)) t.tap = s.i32(3);
-      t.winding = s.text(4);
-      t.temp_c = s.opt_real(5);
-      t.insulation = s.text(6);
-      t.test_kv = s.opt_real(7);
-      t.bushing = s.text(8);
-      if (!s.is_null(9)) t.minutes = s.i32(9);
-      t.value = s.opt_real(10);
-      t.capacitance_pf = s.opt_real(11);
-      t.nameplate_value = s.opt_real(12);
-      t.note = s.text(13);
-      t.crew = s.text(14);
-      out.push_back(std::move(t));
-    }
+    for (int i = 0; i < r.rows(); ++i)
+      if (auto t = read_electrical_row(r.row(i))) out.push_back(std::move(*t));
   }
 
   void read_oil(std::int64_t key, std::vector<analytics::OilSample>& out) {
@@ -667,25 +599,7 @@ class PgStore final : public Store {
                      " WHERE s.unit_key=$1 AND s.superseded_by IS NULL ORDER BY s.sample_day, s.id",
                      Params().add(key));
     std::int64_t current = -1;
-    for (int i = 0; i < r.rows(); ++i) {
-      const auto s = r.row(i);
-      if (s.i64(0) != current) {
-        current = s.i64(0);
-        analytics::OilSample o;
-        o.date = s.i32(1);
-        o.lab_ref = s.text(2);
-        o.sample_point = s.text(3);
-        o.breakdown_method = s.text(4);
-        out.push_back(std::move(o));
-      }
-      if (s.is_null(5)) continue;
-      const std::string test = s.text(5);
-      for (const auto& f : kOilFields) {
-        if (test != f.test) continue;
-        LabValue& v = out.back().*(f.member);
-        v = s.i32(6) == 1 ? LabValue::measured(s.real(7)) : LabValue::below(s.real_or_nan(7));
-      }
-    }
+    for (int i = 0; i < r.rows(); ++i) read_oil_row(r.row(i), current, out);
   }
 
   std::int64_t unit_key(const std::string& unit_id) {

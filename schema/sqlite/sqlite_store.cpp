@@ -412,34 +412,14 @@ class SqliteStore final : public Store {
       auto& s = stmt("SELECT survey_day, component, spot_c, reference_c, ambient_c, load_pct, emissivity,"
                      " image_ref, note FROM infrared_scans WHERE unit_key=? ORDER BY survey_day, component");
       s.bind(1, key);
-      while (s.step()) {
-        analytics::InfraredScan r;
-        r.date = s.i32(0);
-        r.component = s.text(1);
-        r.spot_c = s.real(2);
-        r.reference_c = s.opt_real(3);
-        r.ambient_c = s.opt_real(4);
-        r.load_pct = s.opt_real(5);
-        r.emissivity = s.opt_real(6);
-        r.image_ref = s.text(7);
-        r.note = s.text(8);
-        d.infrared.push_back(std::move(r));
-      }
+      while (s.step()) d.infrared.push_back(read_infrared_row(s));
       s.reset();
     }
     {
       auto& s = stmt("SELECT inspection_day, item, rating, note, inspector FROM inspections WHERE unit_key=?"
                      " ORDER BY inspection_day, item");
       s.bind(1, key);
-      while (s.step()) {
-        analytics::InspectionRecord r;
-        r.date = s.i32(0);
-        r.item = s.text(1);
-        r.rating = rating_from(s.text(2));
-        r.note = s.text(3);
-        r.inspector = s.text(4);
-        d.inspections.push_back(std::move(r));
-      }
+      while (s.step()) d.inspections.push_back(read_inspection_row(s));
       s.reset();
     }
     read_electrical(key, d.electrical);
@@ -455,24 +435,14 @@ class SqliteStore final : public Store {
     auto& s = stmt("SELECT ts, load_pu, ambient_c, top_oil_c FROM load_points WHERE unit_key=? AND ts BETWEEN ? AND ?"
                    " ORDER BY ts");
     s.bind(1, unit_key(std::string(unit_id))).bind(2, from).bind(3, to);
-    while (s.step()) {
-      analytics::LoadPoint p;
-      p.t = s.i64(0);
-      p.load_pu = s.real(1);
-      p.ambient_c = s.real_or_nan(2);
-      p.top_oil_c = s.real_or_nan(3);
-      out.push_back(p);
-    }
+    while (s.step()) out.push_back(read_load_point_row(s));
     s.reset();
     return out;
   }
 
   long count_rows(const std::string& table) override {
     write_queued_load();
-    static const char* kTables[] = {"files", "units", "unit_history", "oil_samples", "oil_values", "load_points",
-                                    "infrared_scans", "inspections", "alerts", "conversions",
-                                    "electrical_tests"};
-    for (const char* t : kTables) {
+    for (const char* t : kCountedTables) {
       if (table == t) {
         Statement s(db_, ("SELECT count(*) FROM " + table).c_str());
         s.step();
@@ -676,21 +646,7 @@ class SqliteStore final : public Store {
 
   static std::vector<FileRecord> read_files(Statement& s) {
     std::vector<FileRecord> out;
-    while (s.step()) {
-      FileRecord f;
-      f.id = s.i64(0);
-      f.sha256 = s.text(1);
-      f.party = s.text(2);
-      f.original_name = s.text(3);
-      f.kind = s.text(4);
-      f.status = s.text(5);
-      f.rows = static_cast<long>(s.i64(6));
-      f.problem_count = static_cast<long>(s.i64(7));
-      f.received_at = s.text(8);
-      f.stored_as = s.text(9);
-      f.receipt_json = s.text(10);
-      out.push_back(std::move(f));
-    }
+    while (s.step()) out.push_back(read_file_row(s));
     s.reset();
     return out;
   }
@@ -700,27 +656,8 @@ class SqliteStore final : public Store {
                    " capacitance_pf, nameplate_value, note, crew FROM electrical_tests WHERE unit_key=?"
                    " ORDER BY test_day, id");
     s.bind(1, key);
-    while (s.step()) {
-      const auto kind = analytics::electrical_test_from(s.text(1));
-      if (!kind) continue;  // written by a newer ferrum
-      analytics::ElectricalTest t;
-      t.date = s.i32(0);
-      t.test = *kind;
-      t.phase = s.text(2);
-      if (!s.is_null(3)) t.tap = s.i32(3);
-      t.winding = s.text(4);
-      t.temp_c = s.opt_real(5);
-      t.insulation = s.text(6);
-      t.test_kv = s.opt_real(7);
-      t.bushing = s.text(8);
-      if (!s.is_null(9)) t.minutes = s.i32(9);
-      t.value = s.opt_real(10);
-      t.capacitance_pf = s.opt_real(11);
-      t.nameplate_value = s.opt_real(12);
-      t.note = s.text(13);
-      t.crew = s.text(14);
-      out.push_back(std::move(t));
-    }
+    while (s.step())
+      if (auto t = read_electrical_row(s)) out.push_back(std::move(*t));
     s.reset();
   }
 
@@ -731,24 +668,7 @@ class SqliteStore final : public Store {
         " WHERE s.unit_key=? AND s.superseded_by IS NULL ORDER BY s.sample_day, s.id");
     s.bind(1, key);
     std::int64_t current = -1;
-    while (s.step()) {
-      if (s.i64(0) != current) {
-        current = s.i64(0);
-        analytics::OilSample o;
-        o.date = s.i32(1);
-        o.lab_ref = s.text(2);
-        o.sample_point = s.text(3);
-        o.breakdown_method = s.text(4);
-        out.push_back(std::move(o));
-      }
-      if (s.is_null(5)) continue;
-      const std::string test = s.text(5);
-      for (const auto& f : kOilFields) {
-        if (test != f.test) continue;
-        LabValue& v = out.back().*(f.member);
-        v = s.i32(6) == 1 ? LabValue::measured(s.real(7)) : LabValue::below(s.real_or_nan(7));
-      }
-    }
+    while (s.step()) read_oil_row(s, current, out);
     s.reset();
   }
 
