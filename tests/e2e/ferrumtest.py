@@ -37,6 +37,16 @@ T2,Quillmere,10,33,11,ONAN,2015,Dyn11,2
 """
 
 
+def drop_file(folder, name, content, mode="w"):
+    """Drops a file the safe way: temporary name in the folder, then rename."""
+    os.makedirs(folder, exist_ok=True)
+    tmp = os.path.join(folder, "." + name + ".part")
+    with open(tmp, mode) as f:
+        f.write(content)
+    os.rename(tmp, os.path.join(folder, name))
+    return os.path.join(folder, name)
+
+
 class SiteTestCase(unittest.TestCase):
     """A fresh site root per test, removed afterwards."""
 
@@ -62,13 +72,7 @@ class SiteTestCase(unittest.TestCase):
 
     def drop(self, name, content, party=None, mode="w"):
         """Drops a file the safe way: temporary name, then rename."""
-        folder = self.path("drop", party or self.party)
-        os.makedirs(folder, exist_ok=True)
-        tmp = os.path.join(folder, "." + name + ".part")
-        with open(tmp, mode) as f:
-            f.write(content)
-        os.rename(tmp, os.path.join(folder, name))
-        return os.path.join(folder, name)
+        return drop_file(self.path("drop", party or self.party), name, content, mode)
 
     def receipt(self, name, party=None):
         with open(self.path("drop", party or self.party, "receipts", name + ".json")) as f:

@@ -18,7 +18,7 @@ import tempfile
 import time
 import unittest
 
-from ferrumtest import FERRUM, SOURCE, run
+from ferrumtest import FERRUM, SOURCE, drop_file, run
 
 sys.path.insert(0, os.path.join(SOURCE, "tests"))
 import pgserver  # noqa: E402
@@ -74,12 +74,7 @@ class SharedPostgresql(unittest.TestCase):
             self.server.start()
 
     def drop(self, root, name, content):
-        folder = os.path.join(self.roots[root], "drop", "planning")
-        os.makedirs(folder, exist_ok=True)
-        tmp = os.path.join(folder, "." + name + ".part")
-        with open(tmp, "w") as f:
-            f.write(content)
-        os.rename(tmp, os.path.join(folder, name))
+        drop_file(os.path.join(self.roots[root], "drop", "planning"), name, content)
 
     def receipt(self, root, name):
         with open(os.path.join(self.roots[root], "drop", "planning", "receipts", name + ".json")) as f:

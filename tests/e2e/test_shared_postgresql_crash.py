@@ -19,7 +19,7 @@ import tempfile
 import time
 import unittest
 
-from ferrumtest import FERRUM, SOURCE, run
+from ferrumtest import FERRUM, SOURCE, drop_file, run
 
 sys.path.insert(0, os.path.join(SOURCE, "tests"))
 import pgserver  # noqa: E402
@@ -73,12 +73,7 @@ class SharedCrash(unittest.TestCase):
                                               stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL)
 
     def drop(self, name, fname, content):
-        folder = os.path.join(self.roots[name], "drop", "planning")
-        os.makedirs(folder, exist_ok=True)
-        tmp = os.path.join(folder, "." + fname + ".part")
-        with open(tmp, "w") as f:
-            f.write(content)
-        os.rename(tmp, os.path.join(folder, fname))
+        drop_file(os.path.join(self.roots[name], "drop", "planning"), fname, content)
 
     def placed(self, name):
         """Names of the files in archive/ and quarantine/, with repeats."""

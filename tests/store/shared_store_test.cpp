@@ -29,16 +29,6 @@ class SharedStoreTest : public ferrum::testing::StoreFixture {
   std::unique_ptr<store::Store> open_root(const std::string& root) {
     return store::open_postgresql_store(conninfo_, root);
   }
-  static store::FileRecord record(const std::string& sha) {
-    store::FileRecord f;
-    f.sha256 = sha;
-    f.party = "planning";
-    f.original_name = "units.csv";
-    f.status = "accepted";
-    f.received_at = "2026-12-01T00:00:00Z";
-    f.receipt_json = "{}";
-    return f;
-  }
 };
 INSTANTIATE_TEST_SUITE_P(Backends, SharedStoreTest, ::testing::Values(ferrum::testing::Backend::postgresql),
                          ferrum::testing::backend_name);

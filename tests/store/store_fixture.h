@@ -127,7 +127,8 @@ class StoreFixture : public ::testing::TestWithParam<Backend> {
     return u;
   }
 
-  static std::int64_t file(store::Store& s, const std::string& sha = "abc") {
+  // An accepted file record with this content hash.
+  static store::FileRecord record(const std::string& sha) {
     store::FileRecord f;
     f.sha256 = sha;
     f.party = "planning";
@@ -135,8 +136,9 @@ class StoreFixture : public ::testing::TestWithParam<Backend> {
     f.status = "accepted";
     f.received_at = "2026-12-01T00:00:00Z";
     f.receipt_json = "{}";
-    return s.add_file(f);
+    return f;
   }
+  static std::int64_t file(store::Store& s, const std::string& sha = "abc") { return s.add_file(record(sha)); }
 
   std::filesystem::path dir_;
   std::string db_;
