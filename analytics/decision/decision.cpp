@@ -132,10 +132,25 @@ void add_cooling(const DecisionOptions& o, const UnitAssessment& a, std::vector<
 // chosen; from memory, verify).
 void add_electrical(const UnitAssessment& a, std::vector<Evidence>& out) {
   if (!a.electrical) return;
+  // Readings that call for the same action (a deviation at several taps)
+  // are one finding: the first, and how many more.
+  std::vector<std::pair<std::string, int>> seen;  // action text, readings
   for (const auto& e : electrical_defects(*a.electrical, a.as_of)) {
     if (e.kind.empty()) continue;
+    auto it = std::find_if(seen.begin(), seen.end(), [&](const auto& s) { return s.first == e.action.text; });
+    if (it != seen.end()) {
+      ++it->second;
+      continue;
+    }
+    seen.emplace_back(e.action.text, 1);
     const std::string kind = e.kind == "bushing" ? "bushing" : e.kind == "winding" ? "winding_test" : "insulation_test";
     out.push_back({kind, e.finding});
+  }
+  std::size_t i = out.size() - seen.size();
+  for (const auto& [text, readings] : seen) {
+    if (readings > 1)
+      out[i].text += " (and " + std::to_string(readings - 1) + " more reading" + (readings > 2 ? "s" : "") + ")";
+    ++i;
   }
 }
 
@@ -320,11 +335,13 @@ std::vector<Action> decision_actions(const DecisionOptions& o, const UnitAssessm
   if (d.action == "replace" && d.year) {
     const double life = a.remaining_life.years.value_or(0);
     const Day in_service = days_after(a.as_of, std::max(life, lead_years(o)));
-    // Procurement starts a lead time before the unit is due, and not later than replace_priority_days.
-    const Day order_by = std::max(a.as_of + o.replace_priority_days,
-                                  in_service - static_cast<Day>(std::lround(lead_years(o) * 365.25)));
+    // Procurement starts a lead time before the unit is to be in service;
+    // when that is already past, at once, so that its due date plus the lead
+    // time is the in-service date the decision states. Within
+    // replace_priority_days it is a priority-2 action.
+    const Day order_by = std::max(a.as_of, in_service - static_cast<Day>(std::lround(lead_years(o) * 365.25)));
     const bool soon = order_by <= a.as_of + o.replace_priority_days;
-    out.push_back({soon ? 2 : 3, soon ? a.as_of + o.replace_priority_days : order_by,
+    out.push_back({soon ? 2 : 3, order_by,
                    "Start procurement of the replacement (" + std::to_string(o.lead_time_months) + "-month lead time)",
                    d.reason});
     out.push_back({3, in_service, "Replace the transformer (in service by " + std::to_string(*d.year) + ")",

@@ -28,7 +28,8 @@
 //     operating procedures; an electrical test of the active part or the
 //     winding insulation: investigate, confirm and locate before repair; wet
 //     or aged oil: refurbish, with the treatment that restores the oil; every
-//     other defect, a failing bushing test included: repair).
+//     other defect, a bushing test calling for taking it out of service
+//     included: repair; a bushing test to be confirmed first: investigate).
 //  4. Remaining life within planning_window_years: refurbish by drying out
 //     when the paper is wet, still strong enough to be dried (DP at or above
 //     dry_out_min_dp) and paper or thermal ageing limits the life (drying slows
@@ -73,7 +74,7 @@ struct DecisionOptions {
   std::vector<std::string> chronic_items{"main_tank", "radiators"};  // assess_unit sets RemainingLifeOptions::chronic_items
   Rating chronic_rating = Rating::very_poor;     // chronic items at or worse than this are end-of-life evidence
   Rating defect_rating = Rating::poor;           // other items at or worse than this are defects
-  int replace_priority_days = 90;                // due of "start procurement"
+  int replace_priority_days = 90;                // "start procurement" due within it is priority 2
   int investigate_due_days = 90;                 // due of "investigate the low index"
   int monitor_due_days = 180;
 };

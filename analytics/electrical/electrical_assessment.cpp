@@ -337,7 +337,9 @@ void check_leakage_reactance(const UnitData& d, ElectricalSummary& s) {
 void collect_defects(const ElectricalSummary& s, Day today, std::vector<ElectricalDefect>& out) {
   for (const auto* r : latest_of(s.turns_ratio)) {
     if (!r->within_limit || *r->within_limit) continue;
-    out.push_back({"winding", "a turns-ratio deviation of " + fmt(*r->deviation_pct, 2) + " % (limit ±0.5 %)",
+    out.push_back({"winding", "a turns-ratio deviation of " + fmt(*r->deviation_pct, 2) + " % (limit ±0.5 %)" +
+                                  (r->phase.empty() ? std::string() : " on phase " + r->phase) +
+                                  (r->tap ? " at tap " + std::to_string(*r->tap) : std::string()),
                    {2, today + 90,
                          "Investigate the turns-ratio deviation: shorted turns or a tap-changer contact",
                          "turns ratio " + (r->phase.empty() ? std::string() : "phase " + r->phase + " ") +
@@ -361,8 +363,8 @@ void collect_defects(const ElectricalSummary& s, Day today, std::vector<Electric
       out.push_back({"bushing", finding, {1, today + 30,
                            "Take bushing " + b->bushing + " out of service: repair or replace the bushing, not the unit",
                            why}});
-    else
-      out.push_back({"bushing", finding, {2, today + 90,
+    else  // to be confirmed by a retest before the bushing is repaired
+      out.push_back({"bushing_retest", finding, {2, today + 90,
                            "Retest and investigate bushing " + b->bushing +
                                "; if confirmed, repair or replace the bushing, not the unit",
                            why}});

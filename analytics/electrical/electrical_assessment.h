@@ -45,7 +45,8 @@ std::optional<ElectricalSummary> check_electrical_tests(const UnitData& data, co
 
 // A result of an item's latest test outside its limit: the action it calls
 // for, and, for the decision (analytics/decision/decision.h), its kind in
-// words. Kinds: "bushing" (a bushing's C1/C2 test), "winding" (turns ratio,
+// words. Kinds: "bushing" (a bushing's C1/C2 test calling for taking it out
+// of service), "bushing_retest" (one to be confirmed first), "winding" (turns ratio,
 // winding resistance, leakage reactance, excitation-current pattern: the
 // active part), "insulation" (winding insulation power factor, insulation
 // resistance poor or dangerous); empty for a result that asks only for a

@@ -266,6 +266,35 @@ TEST(DecisionMatrix, FailingBushingTestIsRepaired) {
   EXPECT_EQ(a.decision.first_action->priority, 1);
 }
 
+// A bushing whose test asks for a retest ("investigate": power factor above
+// twice its reference; IEEE C57.152-2013 clause 7.2.14, from memory; verify)
+// is confirmed before anything is repaired: investigate, not repair
+// (decision rule 3, common practice).
+TEST(DecisionMatrix, BushingTestToConfirmIsInvestigated) {
+  auto a = story(2005, 800, [](fa::UnitAssessment& u) {
+    failing_bushing_test(u);
+    u.electrical->bushings[0].verdict = "investigate";
+  });
+  EXPECT_EQ(a.decision.action, "investigate") << a.decision.reason;
+  EXPECT_TRUE(mentions(a.decision.reason, "bushing H1 C1 test: investigate")) << a.decision.reason;
+  EXPECT_FALSE(mentions(a.decision.reason, "Repair it")) << a.decision.reason;
+}
+
+// The same deviation read at three taps is one finding, not three (one need,
+// one reason; common practice).
+TEST(DecisionMatrix, ReadingsOfOneFindingAreNamedOnce) {
+  auto a = story(2005, 800, [](fa::UnitAssessment& u) {
+    ratio_deviation(u);
+    auto r = u.electrical->turns_ratio[0];
+    for (int tap : {1, 9, 17}) {
+      r.tap = tap;
+      u.electrical->turns_ratio.push_back(r);
+    }
+  });
+  ASSERT_EQ(a.decision.defects.size(), 1u);
+  EXPECT_TRUE(mentions(a.decision.defects[0].text, "on phase A (and 3 more readings)")) << a.decision.defects[0].text;
+}
+
 // A turns-ratio deviation of 1.6 % against the ±0.5 % limit (IEEE
 // C57.12.00-2015 clause 9.1; from memory, verify) points to shorted turns or
 // a tap-changer contact: investigate (confirm and locate), not repair blindly
@@ -374,6 +403,10 @@ TEST(DecisionProperties, PriorityOneActionShownInTheRankingRow) {
 TEST(DecisionProperties, LeadTimeSetsTheEarliestReplacementYear) {
   auto a = story(1968, 205);
   EXPECT_EQ(a.decision.year, 2028);  // default 24 months: November 2028
+  // Procurement starts at once, so that its due date plus the lead time is
+  // the in-service date the decision states (no page contradicts another).
+  for (const auto& act : a.actions)
+    if (act.text.rfind("Start procurement", 0) == 0) EXPECT_EQ(act.due, kAsOf) << act.text;
   fa::ActionPlanOptions o;
   o.decision.lead_time_months = 0;
   a.actions.clear();
