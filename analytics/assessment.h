@@ -171,12 +171,49 @@ struct InspectionFinding {
   std::string note;
 };
 
+// One recommended action. The due date is counted from the date the evidence
+// was found (the sample, survey, inspection or test), not from the report
+// date, so it holds from week to week and falls overdue (issue #16).
 struct Action {
   int priority = 3;     // 1 = most urgent
   Day due = 0;
   std::string text;
   std::string reason;
+  Day found = 0;        // date of the evidence the due date counts from (0: not dated)
+  std::string source;   // kSource* below: what the evidence is
+  std::string need;     // stable key of the need ("oil-resample", "outage", ...): one need is one action
+  std::string reference;  // stable action reference "<unit id>/<need>" (action_reference), set by finalize_actions
+  bool outage = false;  // the work needs the unit out of service
+  std::string crew;     // kCrew* below
+  bool overdue = false;  // due < as_of and not booked; set by finalize_actions
+  // Planners' work status (the work-status drop kind), set by finalize_actions:
+  // "" (open), "booked" (work_date = booking date); done actions leave the list
+  // until newer evidence (found > done date) raises them again.
+  std::string status;
+  Day work_date = 0;
+  std::string work_note;
 };
+
+// Action::source values.
+inline constexpr const char* kSourceOilSample = "oil sample";
+inline constexpr const char* kSourceInfrared = "infrared survey";
+inline constexpr const char* kSourceInspection = "inspection";
+inline constexpr const char* kSourceElectrical = "electrical test";
+inline constexpr const char* kSourceLoad = "load record";
+inline constexpr const char* kSourceRegister = "register";       // age, decision on the whole unit
+inline constexpr const char* kSourceDataAge = "data on record";  // missing or stale data
+// Action::crew values.
+inline constexpr const char* kCrewOilSampling = "oil sampling";
+inline constexpr const char* kCrewThermography = "thermography";
+inline constexpr const char* kCrewMaintenance = "maintenance";
+inline constexpr const char* kCrewProtection = "protection";
+inline constexpr const char* kCrewCivil = "civil";
+inline constexpr const char* kCrewEngineering = "engineering";  // studies, procurement, decisions: no field crew
+
+// "<unit id>/<need>": the reference planners quote in a work-status file.
+inline std::string action_reference(const std::string& unit_id, const std::string& need) {
+  return unit_id + "/" + need;
+}
 
 // One piece of evidence behind a decision, in words. End-of-life kinds:
 // "paper", "thermal", "age", "chronic"; correctable-defect kinds: "gassing",

@@ -138,6 +138,15 @@ const char* to_string(ElectricalTestKind k);
 std::optional<ElectricalTestKind> electrical_test_from(const std::string& name);
 
 // Everything known about one unit; series sorted by time.
+// One row of a planners' work-status file (issue #16): the state of one
+// action, matched by its reference (Action::reference).
+struct WorkStatus {
+  std::string reference;  // "<unit id>/<need>"
+  std::string status;     // "booked", "done", "cancelled"
+  Day date = 0;           // booking date, completion date or cancellation date
+  std::string note;
+};
+
 struct UnitData {
   UnitInfo info;
   std::vector<OilSample> oil_samples;
@@ -145,6 +154,7 @@ struct UnitData {
   std::vector<InfraredScan> infrared;
   std::vector<InspectionRecord> inspections;
   std::vector<ElectricalTest> electrical;  // sorted by date
+  std::vector<WorkStatus> work_status;     // sorted by date; the latest row per reference wins
 };
 
 const char* to_string(Rating r);
