@@ -90,6 +90,21 @@ std::vector<Action> merge_actions(const std::vector<Action>& actions) {
   return out;
 }
 
+Action dated_action(int priority, Day found, int due_days, std::string text, std::string reason,
+                    const char* source, std::string need, const char* crew, bool outage) {
+  Action act;
+  act.priority = priority;
+  act.found = found;
+  act.due = found + due_days;
+  act.text = std::move(text);
+  act.reason = std::move(reason);
+  act.source = source ? source : "";
+  act.need = std::move(need);
+  act.crew = crew ? crew : "";
+  act.outage = outage;
+  return act;
+}
+
 void finalize_actions(UnitAssessment& a) { finalize_actions(ActionPlanOptions{}, a); }
 
 void finalize_actions(const ActionPlanOptions& o, UnitAssessment& a) {

@@ -19,6 +19,15 @@ struct ActionPlanOptions {
   DecisionOptions decision;
 };
 
+// An action anchored on its evidence (issue #16): due = found + due_days, so
+// the due date holds from week to week and falls overdue. `found` is the date
+// of the sample, survey, inspection or test; where there is no dated evidence
+// (no data on record, a decision on the whole unit) pass the assessment date.
+// source: a kSource* value; crew: a kCrew* value; need: the stable key that
+// makes one need one action ("oil-resample", "ir-repair:<component>", ...).
+Action dated_action(int priority, Day found, int due_days, std::string text, std::string reason,
+                    const char* source, std::string need, const char* crew, bool outage = false);
+
 // Same as finalize_actions(ActionPlanOptions{}, a).
 void finalize_actions(UnitAssessment& a);
 // Adds the data-driven actions, decides (a.decision), adds the decision's
