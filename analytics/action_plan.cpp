@@ -8,6 +8,7 @@
 #include <tuple>
 
 #include "analytics/health_index.h"
+#include "analytics/work_status.h"
 
 namespace ferrum::analytics {
 
@@ -112,6 +113,7 @@ void finalize_actions(const ActionPlanOptions& o, UnitAssessment& a) {
   Decision d = decide(o.decision, a);
   for (auto& act : decision_actions(o.decision, a, d)) a.actions.push_back(std::move(act));
   a.actions = merge_actions(a.actions);
+  apply_work_status(a.work_status, a.unit.unit_id, a.actions, a.closed_actions);
   if (!a.actions.empty()) d.first_action = a.actions.front();
   if (!d.year) d.year = civil_from_days(d.first_action ? d.first_action->due : a.as_of + 365).year;
   a.decision = std::move(d);

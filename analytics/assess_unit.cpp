@@ -10,6 +10,7 @@ UnitAssessment assess_unit(const UnitData& data, Day as_of, const AssessmentOpti
   UnitAssessment a;
   a.unit = data.info;
   a.as_of = as_of;
+  a.work_status = data.work_status;
   assess_oil(data, as_of, options.oil, a);
   assess_thermal(data, as_of, options.thermal, a);
   assess_electrical(data, options.electrical, a);

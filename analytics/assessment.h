@@ -272,6 +272,10 @@ struct UnitAssessment {
   std::vector<InspectionFinding> inspection;
   std::optional<ElectricalSummary> electrical;  // null when the unit has no electrical tests
   std::vector<Action> actions;
+  // Planners' work-status rows of the unit (UnitData::work_status), and the
+  // actions they closed (done or cancelled; analytics/work_status.h).
+  std::vector<WorkStatus> work_status;
+  std::vector<Action> closed_actions;
   Decision decision;
   std::vector<std::string> missing;
   std::vector<DataFreshness> freshness;

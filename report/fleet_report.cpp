@@ -11,9 +11,12 @@
 #include "report/report_format.h"
 #include "report/safety_block.h"
 #include "report/title_block.h"
+#include "report/work_list_report.h"
 
 namespace ferrum::report {
 namespace {
+// Rows of the work list in the fleet report; the CSV (ferrum worklist --csv) has them all.
+constexpr std::size_t kFleetReportWorkListRows = 300;
 using analytics::FleetRanking;
 using analytics::RankedUnit;
 using analytics::UnitAssessment;
@@ -184,6 +187,7 @@ void render_fleet_report(const FleetRanking& ranking, const std::vector<UnitAsse
   charts(flow, ranking);
   life_outlook(flow, ranking);
   if (plan) plan_section(flow, *plan);
+  work_list_section(flow, analytics::work_list(units), ranking.as_of, kFleetReportWorkListRows);
   alerts(flow, open_alerts);
   coverage(flow, units);
   // A one-page report already has the block at its foot; a longer one

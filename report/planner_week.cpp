@@ -45,6 +45,13 @@ std::string planner_week_text(const PlannerWeek& w) {
   for (const auto& d : w.overdue)
     o << "  " << d.unit_id << " (" << d.site << "): " << d.what << ", last "
       << (d.last ? analytics::format_day(*d.last) : std::string("never")) << "\n";
+  int overdue = 0, booked = 0;
+  for (const auto& r : w.work_list) {
+    overdue += r.overdue;
+    booked += r.status == "booked";
+  }
+  o << "\nWork list: " << w.work_list.size() << " open action(s), " << overdue << " overdue, " << booked
+    << " booked (ferrum worklist --csv lists them all)\n";
   return o.str();
 }
 

@@ -10,6 +10,7 @@
 #include <vector>
 
 #include "analytics/calendar.h"
+#include "analytics/work_list.h"
 
 namespace ferrum::report {
 
@@ -55,6 +56,9 @@ struct PlannerWeek {
     std::optional<analytics::Day> last;   // none: never
   };
   std::vector<Overdue> overdue;
+
+  // The fleet work list (analytics/work_list.h): every open action, soonest due first.
+  std::vector<analytics::WorkListRow> work_list;
 };
 
 // The plain-text summary (summary.txt of the bundle, body of the weekly mail).

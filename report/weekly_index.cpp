@@ -8,9 +8,13 @@
 #include "report/report_format.h"
 #include "report/safety_block.h"
 #include "report/title_block.h"
+#include "report/work_list_report.h"
 
 namespace ferrum::report {
 namespace {
+
+// Rows of the work list on the cover; the fleet report and the CSV have more.
+constexpr std::size_t kCoverWorkListRows = 60;
 
 void none(PageFlow& flow, const std::string& text) {
   flow.paragraph(text, type::body, FontFace::regular, palette::muted);
@@ -44,6 +48,8 @@ void render_weekly_index(const std::string& week_label, const analytics::FleetRa
   due_table(flow, "Actions due in the next 7 days (or overdue)", week.due_7, week.as_of);
 
   due_table(flow, "Actions due in 8 to 30 days", week.due_30, week.as_of);
+
+  work_list_section(flow, week.work_list, week.as_of, kCoverWorkListRows);
 
   flow.section("Units needing action (fleet ranking)", 40);
   if (week.needing_action.empty()) none(flow, "None: every ranked unit is on routine maintenance.");

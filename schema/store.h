@@ -150,6 +150,10 @@ class Store {
   // the earlier row.
   virtual RowInsert add_electrical_test(const std::string& unit_id, const analytics::ElectricalTest& test,
                                         std::int64_t file_id, int line) = 0;
+  // A planner's work-status row (issue #16). The same unit, reference, day
+  // and status delivered again replaces the earlier row.
+  virtual RowInsert add_work_status(const std::string& unit_id, const analytics::WorkStatus& row,
+                                    std::int64_t file_id, int line) = 0;
   virtual void add_conversion(std::int64_t file_id, const std::string& column,
                               const std::string& original_unit, const std::string& stored_as) = 0;
 

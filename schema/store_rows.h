@@ -52,7 +52,7 @@ inline constexpr OilField kOilFields[] = {
 // these before it goes into SQL).
 inline constexpr const char* kCountedTables[] = {"files", "units", "unit_history", "oil_samples", "oil_values",
                                                  "load_points", "infrared_scans", "inspections", "alerts",
-                                                 "conversions", "electrical_tests"};
+                                                 "conversions", "electrical_tests", "work_status"};
 
 
 analytics::Rating rating_from(const std::string& s);

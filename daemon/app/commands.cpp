@@ -104,6 +104,14 @@ const std::vector<CommandInfo>& commands() {
        "and the register's replacement_cost and refurbishment_cost. Reuses the last whole-fleet\n"
        "assessment like rank (--fresh: anew).",
        {"root", "json", "csv", "as-of", "fresh", "quiet", "budget", "horizon"}},
+      {"worklist", "ferrum worklist --root DIR [--csv | --json] [--site S] [--crew C]",
+       "list every open action of the fleet, soonest due first",
+       "One row per open action: due date (overdue, or the booking date of a booked action), priority,\n"
+       "the date its evidence was found and what it is, whether it needs an outage, the crew, unit,\n"
+       "site, action reference (UNIT/need, as quoted in a work-status file) and text. Actions a\n"
+       "planner marked done or cancelled are left out until newer evidence raises them again.\n"
+       "--site and --crew keep one site's or one crew's actions (any case).",
+       {"root", "json", "csv", "as-of", "site", "crew"}},
   };
   return all;
 }
@@ -131,6 +139,7 @@ int run_command(const Invocation& inv) {
     if (inv.command == "tables") return cmd_tables(inv);
     if (inv.command == "send") return cmd_send(inv);
     if (inv.command == "plan") return cmd_plan(inv);
+    if (inv.command == "worklist") return cmd_worklist(inv);
   } catch (const UsageError& e) {
     std::cerr << "ferrum " << inv.command << ": " << e.what() << "\n";
     return kUsage;

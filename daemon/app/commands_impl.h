@@ -32,5 +32,6 @@ int cmd_ratio(const Invocation& inv);
 int cmd_tables(const Invocation& inv);
 int cmd_send(const Invocation& inv);
 int cmd_plan(const Invocation& inv);
+int cmd_worklist(const Invocation& inv);
 
 }  // namespace ferrum::app

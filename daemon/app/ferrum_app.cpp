@@ -59,6 +59,8 @@ const OptionDef kOptions[] = {
     {"test", "ADDRESS", "send: a test message to this address"},
     {"budget", "N", "plan: money per year (given twice: two budgets side by side)"},
     {"horizon", "N", "plan: years the plan covers (default [plan] horizon_years, 10)"},
+    {"site", "S", "worklist: only this site's actions"},
+    {"crew", "C", "worklist: only this crew's actions (oil sampling, thermography, maintenance, ...)"},
 };
 
 bool command_accepts(const CommandInfo& c, const std::string& option) {

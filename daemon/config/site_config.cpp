@@ -326,8 +326,8 @@ void load_party(const Poco::Util::AbstractConfiguration& ini, const std::string&
 }  // namespace
 
 const std::vector<std::string>& file_kind_names() {
-  static const std::vector<std::string> k = {"units_register", "oil_lab",    "infrared",
-                                             "load_series",    "inspection", "electrical_tests"};
+  static const std::vector<std::string> k = {"units_register", "oil_lab",    "infrared",        "load_series",
+                                             "inspection",     "electrical_tests", "work_status"};
   return k;
 }
 
@@ -415,7 +415,7 @@ std::string default_site_config_text() {
   }
   o << "\n; Parties: one section per party, named after its folder under drop/.\n"
        "; kinds: file kinds it may deliver (units_register, oil_lab, infrared, load_series,\n"
-       ";        inspection, electrical_tests, or * for all); sites: sites it serves (* for all).\n"
+       ";        inspection, electrical_tests, work_status, or * for all); sites: sites it serves (* for all).\n"
        "; Optional: date_format (YYYY-MM-DD, DD/MM/YYYY, MM/DD/YYYY or DD.MM.YYYY, then\n"
        ";        optionally HH:MM[:SS]), decimal (point, comma or auto); the party's own\n"
        ";        column names are mapped in ROOT/columns/NAME.csv (their_column,ferrum_column).\n"

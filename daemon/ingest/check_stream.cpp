@@ -64,6 +64,10 @@ void run_kind(RecordSource& reader, const KindDetection& d, const CheckOptions& 
       run_rows<ElectricalRowParser, ElectricalRow>(
           reader, d, options, summary, [&](const ElectricalRow& r) { sink.electrical(r); });
       break;
+    case FileKind::work_status:
+      run_rows<WorkStatusRowParser, WorkStatusRow>(
+          reader, d, options, summary, [&](const WorkStatusRow& r) { sink.work_status(r); });
+      break;
     case FileKind::load_series:
       run_rows<LoadRowParser, LoadRow>(reader, d, options, summary, [&](const LoadRow& r) {
         summary.offset_assumed_rows += r.offset_assumed;

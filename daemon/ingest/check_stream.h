@@ -41,6 +41,7 @@ class RowSink {
   virtual void inspection(const InspectionRow& /*row*/) {}
   virtual void load_point(const LoadRow& /*row*/) {}
   virtual void electrical(const ElectricalRow& /*row*/) {}
+  virtual void work_status(const WorkStatusRow& /*row*/) {}
 };
 
 struct CheckOptions {

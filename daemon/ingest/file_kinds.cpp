@@ -80,7 +80,13 @@ constexpr FieldSpec kElectrical[] = {
     {"nameplate_value", O},  {"note", O},            {"crew", O},
 };
 
-constexpr std::array<KindSpec, 6> kKinds = {{
+// Planners' work status (issue #16): the state of one action, matched by
+// its reference "UNIT/need" (daemon/ingest/work_status_rows.cpp).
+constexpr FieldSpec kWorkStatus[] = {
+    {"unit_id", R}, {"action", R}, {"status", R}, {"date", R}, {"note", O},
+};
+
+constexpr std::array<KindSpec, 7> kKinds = {{
     {FileKind::units_register, kRegister, GroupRule::none, ""},
     {FileKind::oil_lab, kOilLab, GroupRule::at_least_one, "at least one test column"},
     {FileKind::infrared, kInfrared, GroupRule::at_least_one, "reference_c or ambient_c"},
@@ -89,6 +95,7 @@ constexpr std::array<KindSpec, 6> kKinds = {{
     {FileKind::electrical_tests, kElectrical, GroupRule::at_least_one,
      "at least one value column (ratio, resistance_ohm, power_factor_pct, capacitance_pf, "
      "resistance_megohm, current_ma, impedance_pct)"},
+    {FileKind::work_status, kWorkStatus, GroupRule::none, ""},
 }};
 
 // Alternative-unit columns other than the automatic X_f for temperatures.
@@ -230,6 +237,7 @@ const char* to_string(FileKind kind) {
     case FileKind::load_series: return "load_series";
     case FileKind::inspection: return "inspection";
     case FileKind::electrical_tests: return "electrical_tests";
+    case FileKind::work_status: return "work_status";
   }
   return "unknown";
 }
@@ -242,6 +250,7 @@ const char* describe(FileKind kind) {
     case FileKind::load_series: return "load series";
     case FileKind::inspection: return "field inspection";
     case FileKind::electrical_tests: return "electrical field tests";
+    case FileKind::work_status: return "work status";
   }
   return "unknown";
 }

@@ -1,4 +1,4 @@
-// The six kinds of drop file and how a header row is recognised as one.
+// The seven kinds of drop file and how a header row is recognised as one.
 //
 // A file's kind comes from its header columns, never from its name. Column
 // names are compared after trimming, lower-casing and turning spaces and
@@ -18,10 +18,11 @@
 
 namespace ferrum::ingest {
 
-enum class FileKind { units_register, oil_lab, infrared, load_series, inspection, electrical_tests };
+enum class FileKind { units_register, oil_lab, infrared, load_series, inspection, electrical_tests, work_status };
 
 // Name used in the configuration (party kinds) and receipts: "units_register",
-// "oil_lab", "infrared", "load_series", "inspection", "electrical_tests".
+// "oil_lab", "infrared", "load_series", "inspection", "electrical_tests",
+// "work_status".
 const char* to_string(FileKind kind);
 // Plain name for messages: "units register", "oil-lab results", ...
 const char* describe(FileKind kind);

@@ -17,7 +17,8 @@
 //  * duplicate keys within the file: units register (unit_id), oil lab
 //    (unit_id, sample_date, lab_ref, sample_point), infrared (unit_id,
 //    survey_date, component), inspection (unit_id, inspection_date, item),
-//    electrical tests (unit_id, test_date, test and what names the reading).
+//    electrical tests (unit_id, test_date, test and what names the reading),
+//    work status (unit_id, action, status, date).
 //    Load-series duplicates are left to the store: a file may hold millions.
 // Alternative-unit columns are converted here (file_kinds.h, Conversion);
 // load in MVA or A becomes per unit using the register's rated_mva, hv_kv
@@ -115,6 +116,12 @@ struct ElectricalRow {
   std::int64_t line = 0;
   std::string unit_id;
   analytics::ElectricalTest test;
+};
+
+struct WorkStatusRow {
+  std::int64_t line = 0;
+  std::string unit_id;
+  analytics::WorkStatus status;  // status.reference is "UNIT/need"
 };
 
 struct LoadRow {
@@ -245,6 +252,19 @@ class ElectricalRowParser : public RowChecker {
   void parse_context(analytics::ElectricalTest& t, const analytics::UnitInfo* unit);
   std::string code(std::string_view column, std::string_view label,
                    std::initializer_list<std::string_view> allowed, bool required);
+};
+
+// Planners' work status (issue #16): unit_id, action ("UNIT/need" as in
+// analytics::action_reference, or the need alone), status (booked, done or
+// cancelled), date, note. A booking date may lie ahead; a completion or
+// cancellation date may not. The reference's unit must be the row's unit.
+// Whether the reference matches an action the unit has is not a problem of
+// the file: the receipt says so (import_bridge.cpp).
+class WorkStatusRowParser : public RowChecker {
+ public:
+  using RowChecker::RowChecker;
+  bool parse(std::span<const std::string_view> fields, std::int64_t line, WorkStatusRow& out);
+  void finish() {}
 };
 
 class LoadRowParser : public RowChecker {

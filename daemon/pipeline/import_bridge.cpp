@@ -3,6 +3,7 @@
 #include <unordered_map>
 #include <memory>
 
+#include "daemon/assess/assessment_service.h"
 #include "daemon/ingest/check_stream.h"
 #include "daemon/ingest/csv_reader.h"
 #include "daemon/ingest/file_kinds.h"
@@ -111,6 +112,26 @@ class LoadWriter {
   int column_number_;
   std::int64_t first_offset_line_ = 0, duplicate_line_ = 0;
 };
+
+// Sorts the references of a work-status file into those that match an
+// action of their unit (open, booked, or closed by a work-status row) and
+// those the unit's assessment does not raise. The assessment reads the rows
+// of this file (the transaction is still open).
+void match_references(store::Store& store, const config::SiteConfig& config, std::int64_t now,
+                      const std::vector<std::string>& references, ImportResult& r) {
+  const analytics::AssessmentOptions options = assess::options_from_config(config, nullptr);
+  std::set<std::string> raised;
+  for (const std::string& unit : r.units) {
+    const analytics::UnitAssessment a = assess::assess_unit(store, unit, analytics::day_of(now), options);
+    for (const auto* list : {&a.actions, &a.closed_actions})
+      for (const analytics::Action& act : *list) raised.insert(act.reference);
+  }
+  std::set<std::string> seen;
+  for (const std::string& ref : references) {
+    if (!seen.insert(ref).second) continue;
+    (raised.count(ref) ? r.work_matched : r.work_not_raised).push_back(ref);
+  }
+}
 
 // New rows and rows already on file, as the store reports them row by row.
 struct RowCounts {
@@ -330,6 +351,22 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
         r.units.insert(row.unit_id);
         return true;
       });
+      break;
+    }
+    case FileKind::work_status: {
+      WorkStatusRowParser p(kind.columns, po, comma, r.problems, r.warnings);
+      std::vector<std::string> references;
+      run_rows<WorkStatusRowParser, WorkStatusRow>(reader, p, r, s, [&](const WorkStatusRow& row) {
+        const auto* u = units.find(row.unit_id);
+        if (u && !site_allowed(s, row.unit_id, u->site, row.line, r.problems)) return false;
+        if (!u) return true;
+        counts.note(store.add_work_status(row.unit_id, row.status, s.file_id, static_cast<int>(row.line)));
+        note_day(r, row.status.date);
+        r.units.insert(row.unit_id);
+        references.push_back(row.status.reference);
+        return true;
+      });
+      if (r.problems.empty() && s.config) match_references(store, *s.config, s.now, references, r);
       break;
     }
     case FileKind::load_series: {

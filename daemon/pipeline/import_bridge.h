@@ -55,6 +55,9 @@ struct ImportResult {
   // check` away from a site).
   std::optional<long long> rows_new, rows_on_file;
   std::vector<std::string> unsafe_items;
+  // Work status: the references of the rows taken that match an action the
+  // unit's assessment raises (open, booked or closed), and those it does not.
+  std::vector<std::string> work_matched, work_not_raised;
   bool offset_assumed = false;   // some times had no UTC offset
   char declared_delimiter = 0;   // from a "sep=X" first line, 0 when none
   std::string source_note;       // the worksheet and date system of a workbook, "" for a CSV

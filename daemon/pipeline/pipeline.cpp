@@ -112,6 +112,8 @@ void fill_receipt(Receipt& r, const ImportResult& result, const config::SiteConf
     r.data_to = analytics::format_day(*result.last_day);
   }
   r.format_note = result.format_note;
+  r.work_matched = result.work_matched;
+  r.work_not_raised = result.work_not_raised;
   if (result.offset_assumed)
     r.utc_offset_note = "times without a UTC offset were taken as UTC" + config.utc_offset_text + " (site.utc_offset)";
 }

@@ -105,6 +105,15 @@ std::string Receipt::to_json() const {
   if (!source_note.empty()) o->set("source_note", source_note);
   if (!subfolder.empty()) o->set("subfolder", json_text(subfolder));
   if (!format_note.empty()) o->set("format_note", format_note);
+  if (!work_matched.empty() || !work_not_raised.empty()) {
+    Object::Ptr w = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+    Array::Ptr m = new Array, n = new Array;
+    for (const auto& x : work_matched) m->add(json_text(x));
+    for (const auto& x : work_not_raised) n->add(json_text(x));
+    w->set("matched", m);
+    w->set("not_raised", n);
+    o->set("action_references", w);
+  }
   std::ostringstream out;
   Poco::JSON::Stringifier::stringify(o, out, 2);
   out << "\n";
@@ -166,6 +175,14 @@ Receipt Receipt::from_json(const std::string& json) {
     r.data_from = str(d, "from");
     r.data_to = str(d, "to");
   }
+  if (auto w = o->getObject("action_references")) {
+    if (auto a = w->getArray("matched"))
+      for (std::size_t i = 0; i < a->size(); ++i)
+        r.work_matched.push_back(a->getElement<std::string>(static_cast<unsigned>(i)));
+    if (auto a = w->getArray("not_raised"))
+      for (std::size_t i = 0; i < a->size(); ++i)
+        r.work_not_raised.push_back(a->getElement<std::string>(static_cast<unsigned>(i)));
+  }
   if (auto d = o->getObject("already_imported")) {
     r.duplicate_of_received_at = str(d, "received_at");
     r.duplicate_of_stored_as = str(d, "stored_as");
@@ -220,6 +237,14 @@ std::string Receipt::to_text() const {
     o << "  dropped in:  " << subfolder << " (a sub-folder of your folder; taken under the name " << file << ")\n";
   if (!source_note.empty()) o << "  read from:   " << source_note << "\n";
   if (!format_note.empty()) o << "  your format: " << format_note << "\n";
+  if (!work_matched.empty()) {
+    o << "\nActions matched (" << work_matched.size() << "):\n";
+    for (const auto& x : work_matched) o << "  " << x << "\n";
+  }
+  if (!work_not_raised.empty()) {
+    o << "\nNot raised by ferrum for the unit now (kept; check the reference against the unit report):\n";
+    for (const auto& x : work_not_raised) o << "  " << x << "\n";
+  }
   if (!unsafe_items.empty()) {
     // Confirms to the inspector that the rating did not wait for a report,
     // and says so plainly when this import sent no alert.

@@ -41,6 +41,10 @@ struct Receipt {
   std::string subfolder;            // "2026-10/" when dropped in a sub-folder of the party folder
   std::string source_note;          // "worksheet 'Results' of an .xlsx workbook; ..."
   std::string format_note;          // the party's column map / date format / decimal that were applied
+  // Work status (accepted): the action references that match an action the
+  // unit has (open, booked, or closed by this file), and those the unit's
+  // assessment does not raise (accepted and kept, flagged for the planner).
+  std::vector<std::string> work_matched, work_not_raised;
 
   std::string to_json() const;
   std::string to_text() const;

@@ -84,6 +84,7 @@ report::PlannerWeek build_planner_week(const PlannerWeekInputs& in) {
       report::PlannerWeek::DueAction d{act.due, act.priority, a.unit.unit_id, a.unit.site, act.text};
       (act.due <= in.as_of + 7 ? w.due_7 : w.due_30).push_back(d);
     }
+  w.work_list = analytics::work_list(*in.units);
   for (auto* list : {&w.due_7, &w.due_30})
     std::stable_sort(list->begin(), list->end(), [](const auto& x, const auto& y) {
       return x.due != y.due ? x.due < y.due : x.priority < y.priority;

@@ -162,6 +162,7 @@ class PgStore final : public Store {
         " UNION SELECT i.file_id FROM infrared_scans i JOIN units u USING(unit_key) WHERE u.unit_id=$1"
         " UNION SELECT n.file_id FROM inspections n JOIN units u USING(unit_key) WHERE u.unit_id=$1"
         " UNION SELECT e.file_id FROM electrical_tests e JOIN units u USING(unit_key) WHERE u.unit_id=$1"
+        " UNION SELECT w.file_id FROM work_status w JOIN units u USING(unit_key) WHERE u.unit_id=$1"
         " UNION SELECT DISTINCT l.file_id FROM load_points l JOIN units u USING(unit_key) WHERE u.unit_id=$1"
         ") ORDER BY id", Params().add(unit_id)));
   }
@@ -174,6 +175,7 @@ class PgStore final : public Store {
         " UNION SELECT u.unit_id FROM infrared_scans i JOIN units u USING(unit_key) WHERE i.file_id=$1"
         " UNION SELECT u.unit_id FROM inspections n JOIN units u USING(unit_key) WHERE n.file_id=$1"
         " UNION SELECT u.unit_id FROM electrical_tests e JOIN units u USING(unit_key) WHERE e.file_id=$1"
+        " UNION SELECT u.unit_id FROM work_status w JOIN units u USING(unit_key) WHERE w.file_id=$1"
         " UNION SELECT u.unit_id FROM units u WHERE EXISTS (SELECT 1 FROM load_points l"
         "   WHERE l.unit_key = u.unit_key AND l.file_id=$1)"
         " ORDER BY 1", Params().add(file_id));
@@ -315,6 +317,21 @@ class PgStore final : public Store {
     return outcome;
   }
 
+  RowInsert add_work_status(const std::string& unit_id, const analytics::WorkStatus& w, std::int64_t file_id,
+                            int line) override {
+    write_queued_load();
+    const std::int64_t key = unit_key(unit_id);
+    const RowInsert outcome = replaced_rows(
+        db_.run("DELETE FROM work_status WHERE unit_key=$1 AND reference=$2 AND status_day=$3 AND status=$4"
+                " RETURNING file_id",
+                Params().add(key).add(w.reference).add(w.date).add(w.status)),
+        file_id);
+    db_.run("INSERT INTO work_status(unit_key, reference, status, status_day, note, file_id, line)"
+            " VALUES($1,$2,$3,$4,$5,$6,$7)",
+            Params().add(key).add(w.reference).add(w.status).add(w.date).text_or_null(w.note).add(file_id).add(line));
+    return outcome;
+  }
+
   RowInsert add_inspection(const std::string& unit_id, const analytics::InspectionRecord& r, std::int64_t file_id,
                            int line) override {
     write_queued_load();
@@ -382,6 +399,14 @@ class PgStore final : public Store {
       for (int i = 0; i < r.rows(); ++i) d.inspections.push_back(read_inspection_row(r.row(i)));
     }
     read_electrical(key, d.electrical);
+    {
+      auto r = db_.run("SELECT reference, status, status_day, note FROM work_status WHERE unit_key=$1"
+                       " ORDER BY status_day, id", Params().add(key));
+      for (int i = 0; i < r.rows(); ++i) {
+        const auto row = r.row(i);
+        d.work_status.push_back({row.text(0), row.text(1), static_cast<analytics::Day>(row.i64(2)), row.text(3)});
+      }
+    }
     return d;
   }
 

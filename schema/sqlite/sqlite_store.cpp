@@ -181,6 +181,7 @@ class SqliteStore final : public Store {
         " UNION SELECT i.file_id FROM infrared_scans i JOIN units u USING(unit_key) WHERE u.unit_id=?1"
         " UNION SELECT n.file_id FROM inspections n JOIN units u USING(unit_key) WHERE u.unit_id=?1"
         " UNION SELECT e.file_id FROM electrical_tests e JOIN units u USING(unit_key) WHERE u.unit_id=?1"
+        " UNION SELECT w.file_id FROM work_status w JOIN units u USING(unit_key) WHERE u.unit_id=?1"
         " UNION SELECT DISTINCT l.file_id FROM load_points l JOIN units u USING(unit_key) WHERE u.unit_id=?1"
         ") ORDER BY id");
     s.bind(1, unit_id);
@@ -195,6 +196,7 @@ class SqliteStore final : public Store {
         " UNION SELECT u.unit_id FROM infrared_scans i JOIN units u USING(unit_key) WHERE i.file_id=?1"
         " UNION SELECT u.unit_id FROM inspections n JOIN units u USING(unit_key) WHERE n.file_id=?1"
         " UNION SELECT u.unit_id FROM electrical_tests e JOIN units u USING(unit_key) WHERE e.file_id=?1"
+        " UNION SELECT u.unit_id FROM work_status w JOIN units u USING(unit_key) WHERE w.file_id=?1"
         " UNION SELECT u.unit_id FROM units u WHERE EXISTS (SELECT 1 FROM load_points l"
         "   WHERE l.unit_key = u.unit_key AND l.file_id=?1)"
         " ORDER BY 1");
@@ -392,6 +394,21 @@ class SqliteStore final : public Store {
     return outcome;
   }
 
+  RowInsert add_work_status(const std::string& unit_id, const analytics::WorkStatus& w, std::int64_t file_id,
+                            int line) override {
+    const std::int64_t key = unit_key(unit_id);
+    auto& del = stmt("DELETE FROM work_status WHERE unit_key=? AND reference=? AND status_day=? AND status=?"
+                     " RETURNING file_id");
+    del.bind(1, key).bind(2, w.reference).bind(3, w.date).bind(4, w.status);
+    const RowInsert outcome = replaced_rows(del, file_id);
+    auto& s = stmt("INSERT INTO work_status(unit_key, reference, status, status_day, note, file_id, line)"
+                   " VALUES(?,?,?,?,?,?,?)");
+    s.bind(1, key).bind(2, w.reference).bind(3, w.status).bind(4, w.date).bind_text_or_null(5, w.note)
+        .bind(6, file_id).bind(7, line);
+    s.run();
+    return outcome;
+  }
+
   void add_conversion(std::int64_t file_id, const std::string& column, const std::string& original_unit,
                       const std::string& stored_as) override {
     auto& s = stmt("INSERT OR REPLACE INTO conversions(file_id, column, original_unit, stored_as) VALUES(?,?,?,?)");
@@ -423,6 +440,13 @@ class SqliteStore final : public Store {
       s.reset();
     }
     read_electrical(key, d.electrical);
+    {
+      auto& s = stmt("SELECT reference, status, status_day, note FROM work_status WHERE unit_key=?"
+                     " ORDER BY status_day, id");
+      s.bind(1, key);
+      while (s.step()) d.work_status.push_back({s.text(0), s.text(1), static_cast<analytics::Day>(s.i64(2)), s.text(3)});
+      s.reset();
+    }
     return d;
   }
 

@@ -28,7 +28,8 @@ class EveryKind(IngestCase):
                  "c.csv": ("infrared.csv", "infrared", "infrared_scans"),
                  "d.csv": ("load_series.csv", "load_series", "load_points"),
                  "e.csv": ("inspection.csv", "inspection", "inspections"),
-                 "f.csv": ("electrical_tests.csv", "electrical_tests", "electrical_tests")}
+                 "f.csv": ("electrical_tests.csv", "electrical_tests", "electrical_tests"),
+                 "g.csv": ("work_status.csv", "work_status", "work_status")}
         for name, (src, _, _) in files.items():
             self.drop(name, example(src))
         self.ingest()

@@ -10,7 +10,7 @@ import unittest
 sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "ingest_corpus"))
 from ingest_fixtures import IngestCase  # noqa: E402
 
-KINDS = ("units_register", "oil_lab", "infrared", "load_series", "inspection", "electrical_tests")
+KINDS = ("units_register", "oil_lab", "infrared", "load_series", "inspection", "electrical_tests", "work_status")
 
 
 class DefaultConfiguration(IngestCase):

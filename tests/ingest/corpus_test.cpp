@@ -89,6 +89,7 @@ TEST(ContractExamples, EachKindHasAValidExample) {
       {"units_register.csv", FileKind::units_register}, {"oil_lab.csv", FileKind::oil_lab},
       {"infrared.csv", FileKind::infrared},             {"load_series.csv", FileKind::load_series},
       {"inspection.csv", FileKind::inspection},         {"electrical_tests.csv", FileKind::electrical_tests},
+      {"work_status.csv", FileKind::work_status},
   };
   CheckOptions o = test_options(60);
   for (const auto& [file, kind] : files) {

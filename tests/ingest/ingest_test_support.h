@@ -61,6 +61,8 @@ struct KeepAll : RowSink {
   std::vector<InspectionRow> inspections;
   std::vector<LoadRow> load;
   std::vector<ElectricalRow> tests;
+  std::vector<WorkStatusRow> work;
+  void work_status(const WorkStatusRow& r) override { work.push_back(r); }
   void electrical(const ElectricalRow& r) override { tests.push_back(r); }
   void unit(const UnitRow& r) override { units.push_back(r); }
   void oil_sample(const OilRow& r) override { oil.push_back(r); }
