@@ -67,6 +67,9 @@ analytics::UnitData data_as_of(const analytics::UnitData& d, analytics::Day day)
     if (s.date <= day) out.inspections.push_back(s);
   for (const auto& t : d.electrical)
     if (t.date <= day) out.electrical.push_back(t);
+  // Work done or cancelled by then; a booking counts whatever its date (it lies ahead).
+  for (const auto& w : d.work_status)
+    if (w.date <= day || w.status == "booked") out.work_status.push_back(w);
   return out;
 }
 
