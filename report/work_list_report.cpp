@@ -61,8 +61,8 @@ void work_list_section(PageFlow& flow, const std::vector<analytics::WorkListRow>
                  type::small, FontFace::regular, palette::muted);
   Table t;
   t.font_size = 6.8;
-  t.columns = {{"Due", 0.75},  {"State", 0.85}, {"Found", 0.75}, {"Outage", 0.45}, {"Crew", 0.8},
-               {"Unit", 0.55}, {"Site", 0.75},  {"Reference", 1.3}, {"Action", 2.6}};
+  t.columns = {{"Due", 0.9},   {"State", 0.9}, {"Found", 0.9},      {"Outage", 0.62}, {"Crew", 0.8},
+               {"Unit", 0.7},  {"Site", 0.75}, {"Reference", 1.45}, {"Action", 2.3}};
   const std::size_t n = max_rows == 0 ? rows.size() : std::min(rows.size(), max_rows);
   for (std::size_t i = 0; i < n; ++i) {
     const auto& r = rows[i];

@@ -452,6 +452,7 @@ class DemoStorylines(unittest.TestCase):
             "QL-2023-03-commissioning-TKQ-T3.csv": ("oil_lab", 1),
             "IR-followup-TKQ-T1-2026-09-22.csv": ("infrared", 3),
             "spotcheck-TKQ-2026-11-18.csv": ("inspection", 3),
+            "work-status-2026-12.csv": ("work_status", 2),
         }
         for name in self.dropped:
             if name in BROKEN:
