@@ -46,7 +46,7 @@ SiteUnitView unit_view(const UnitAssessment& a, const SiteViewOptions& o) {
   }
   std::vector<std::string> health;
   if (a.unsafe_inspection) health.push_back("unsafe inspection item");
-  if (a.active_arcing || a.dga.active_arcing) health.push_back("active arcing");
+  if (a.active_arcing) health.push_back("active arcing");
   if (a.dga.c57104_2008_condition && *a.dga.c57104_2008_condition >= 3)
     health.push_back("dissolved gases condition " + std::to_string(*a.dga.c57104_2008_condition));
   const std::string& d = a.decision.action;

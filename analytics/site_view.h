@@ -87,7 +87,7 @@ std::string site_line(const SiteView& site);
 
 // Writes each unit's site line (UnitAssessment::site_summary) and names valid
 // targets in its load-transfer action (need "load-reduce", or the thermal
-// part's "transfer load to other units" text), in the action list and the
+// part's text starting "Reduce the load"), in the action list and the
 // decision's first action.
 void apply_site_view(std::vector<UnitAssessment>& units, std::span<const SiteView> sites);
 void apply_site_view(UnitAssessment& unit, std::span<const SiteView> sites);

@@ -64,7 +64,8 @@ void thermal_actions(const ThermalSummary& th, Day as_of, const ThermalOptions& 
   if (th.hours_above_normal_cyclic.value_or(0) > 0) {
     const bool emergency = th.hours_above_long_emergency.value_or(0) > 0;
     out.actions.push_back(action(
-        emergency ? 2 : 3, as_of + (emergency ? 30 : 90), "Reduce the load or transfer load to other units",
+        emergency ? 2 : 3, as_of + (emergency ? 30 : 90),
+        "Reduce the load, or transfer load to a unit the site view names as able to take it",
         std::string(th.hot_spot_from_measured_top_oil ? "hot spot (from measured top oil)" : "model hot spot") +
             " above " + fmt("%.0f", th.normal_cyclic_limit_c) + " °C for " +
             fmt("%.1f", *th.hours_above_normal_cyclic) + " h" +
