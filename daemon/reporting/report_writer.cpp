@@ -98,15 +98,17 @@ fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as
   if (!store_.find_unit(unit_id)) throw std::runtime_error("unit " + unit_id + " is not in the register");
   const analytics::UnitData data = store_.unit_data(unit_id);
   analytics::UnitAssessment current = analytics::assess_unit(data_as_of(data, as_of), as_of, options_);
-  analytics::apply_site_view(current, site_of(current, as_of));
+  const auto sites = site_of(current, as_of);
+  analytics::apply_site_view(current, sites);
   // The previous report's view: the data as it stood then.
   analytics::Day previous_day = as_of - 7;
   if (auto last = store_.state("report:" + unit_id)) {
     const analytics::Day d = std::atoi(last->c_str());
     if (d < as_of) previous_day = d;
   }
-  const analytics::UnitAssessment previous =
-      analytics::assess_unit(data_as_of(data, previous_day), previous_day, options_);
+  analytics::UnitAssessment previous = analytics::assess_unit(data_as_of(data, previous_day), previous_day, options_);
+  // The same site view: its load-transfer advice is not a change of the unit.
+  analytics::apply_site_view(previous, sites);
 
   std::vector<report::SourceFile> files;
   for (const auto& f : store_.files_for_unit(unit_id))
