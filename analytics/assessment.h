@@ -140,6 +140,19 @@ struct ThermalSummary {
   std::optional<double> hours_above_short_emergency;
   std::optional<double> load_growth_pct_per_year;
   std::optional<double> top_oil_discrepancy_k;      // measured minus model, mean, when measured data exist
+  // Measured top oil above the model by more than [analysis]
+  // measured_top_oil_above_k: hot spot and ageing are taken from the measured
+  // top oil plus the model's hot-spot gradient (IEC 60076-7:2018 §8.2.3
+  // allows measured top oil as input) at the points that carry one.
+  bool hot_spot_from_measured_top_oil = false;
+  std::size_t measured_top_oil_points = 0;   // points whose hot spot came from the measurement
+  double measured_top_oil_above_k = 5;       // the threshold in force
+  // Long-time emergency capability, p.u.: the steady load at which the hot
+  // spot reaches long_emergency_limit_c at the ambient of the peak-load point
+  // (IEC 60076-7 steady-state equations; measured top-oil offset included when
+  // hot_spot_from_measured_top_oil). Read by the site view (N-1).
+  std::optional<double> emergency_load_pu;
+  std::optional<double> emergency_ambient_c;
   double covered_hours = 0;
   double bridged_hours = 0;
   bool ambient_from_profile = false;
@@ -290,6 +303,9 @@ struct UnitAssessment {
   std::vector<GasHistoryPoint> gas_history;
   bool unsafe_inspection = false;
   bool active_arcing = false;
+  // One line on the unit's site: load against capacity and N-1
+  // (analytics/site_view.h, apply_site_view); empty when not computed.
+  std::string site_summary;
 };
 
 // One row of the fleet ranking.

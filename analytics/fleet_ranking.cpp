@@ -88,6 +88,16 @@ UnitAssessment ranking_fields(const UnitAssessment& a) {
   r.decision.year = a.decision.year;
   r.decision.reason = a.decision.reason;
   r.decision.first_action = a.decision.first_action;
+  // What the site view reads (site_view.h).
+  r.thermal.peak_load_pu = a.thermal.peak_load_pu;
+  r.thermal.emergency_load_pu = a.thermal.emergency_load_pu;
+  r.thermal.hours_above_normal_cyclic = a.thermal.hours_above_normal_cyclic;
+  r.thermal.normal_cyclic_limit_c = a.thermal.normal_cyclic_limit_c;
+  r.thermal.hot_spot_from_measured_top_oil = a.thermal.hot_spot_from_measured_top_oil;
+  r.oil.paper_moisture_pct = a.oil.paper_moisture_pct;
+  r.unsafe_inspection = a.unsafe_inspection;
+  r.active_arcing = a.active_arcing;
+  r.dga.c57104_2008_condition = a.dga.c57104_2008_condition;
   return r;
 }
 

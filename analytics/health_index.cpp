@@ -29,7 +29,7 @@ std::string fmt(double v, int decimals = 2) {
 }
 
 std::string rating_text(int hif) {
-  return std::string("rating ") + kLetters[std::clamp(hif, 0, 4)] + " (" + std::to_string(hif) + "/4)";
+  return std::string("rating ") + kLetters[std::clamp(hif, 0, 4)] + " (" + std::to_string(hif) + " on 0–4, 4 = best)";
 }
 
 // Per-gas score S 1..6 of one reading; nullopt when not measured.
@@ -55,7 +55,7 @@ RawFactor score_dga(const HealthIndexOptions& o, const UnitAssessment& a) {
     return f;
   }
   f.hif = rating_from_cuts(*dgaf, o.dga_cuts);
-  f.detail = "DGAF " + fmt(*dgaf) + " -> " + rating_text(*f.hif);
+  f.detail = "DGAF " + fmt(*dgaf) + " (gas scores 1–6, 1 = best) -> " + rating_text(*f.hif);
   // Name the worst-scoring gas: the reader's first question.
   int worst = 0;
   std::string worst_gas;
@@ -67,7 +67,7 @@ RawFactor score_dga(const HealthIndexOptions& o, const UnitAssessment& a) {
       worst_gas = b.gas + " " + (g->ppm ? fmt(*g->ppm, 0) + " ppm" : std::string("below limit"));
     }
   }
-  if (worst > 1) f.detail += "; highest gas score " + std::to_string(worst) + "/6: " + worst_gas;
+  if (worst > 1) f.detail += "; highest gas score " + std::to_string(worst) + " (1–6, 1 = best): " + worst_gas;
   return f;
 }
 
@@ -106,7 +106,7 @@ RawFactor score_oil(const HealthIndexOptions& o, const UnitAssessment& a) {
       int s = oil_test_score(*c.value, b, oil_limits_for(b, hv));
       sum_sw += s * b.weight;
       sum_w += b.weight;
-      used += (used.empty() ? "" : ", ") + b.test + " " + std::to_string(s) + "/4";
+      used += (used.empty() ? "" : ", ") + b.test + " " + std::to_string(s);
       break;
     }
   }
@@ -116,7 +116,7 @@ RawFactor score_oil(const HealthIndexOptions& o, const UnitAssessment& a) {
   }
   double oqf = sum_sw / sum_w;
   f.hif = rating_from_cuts(oqf, o.oil_cuts);
-  f.detail = "OQF " + fmt(oqf) + " -> " + rating_text(*f.hif) + " (" + used + ")";
+  f.detail = "OQF " + fmt(oqf) + " (test scores 1–4, 1 = best: " + used + ") -> " + rating_text(*f.hif);
   if (a.unit.hv_kv <= 0) f.detail += "; HV unknown, 69-230 kV limits used";
   if (!skipped.empty()) f.detail += "; left out:" + skipped;
   return f;
@@ -151,7 +151,7 @@ RawFactor score_thermal(const HealthIndexOptions& o, const UnitAssessment& a) {
     return f;
   }
   int hif = rating_from_cuts(*t.equivalent_ageing_factor, o.ageing_factor_cuts);
-  f.detail = "equivalent ageing factor " + fmt(*t.equivalent_ageing_factor, 3);
+  f.detail = "equivalent ageing factor " + significant_figures(*t.equivalent_ageing_factor, 3);
   if (t.hours_above_normal_cyclic.value_or(0) > 0) {
     hif = std::min(hif, 3);
     f.detail += ", " + fmt(*t.hours_above_normal_cyclic, 1) + " h above the normal cyclic limit";

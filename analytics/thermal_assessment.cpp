@@ -64,14 +64,76 @@ void thermal_actions(const ThermalSummary& th, Day as_of, const ThermalOptions& 
   if (th.hours_above_normal_cyclic.value_or(0) > 0) {
     const bool emergency = th.hours_above_long_emergency.value_or(0) > 0;
     out.actions.push_back(action(
-        emergency ? 2 : 3, as_of + (emergency ? 30 : 90), "Reduce the load or transfer load to other units",
-        "model hot spot above " + fmt("%.0f", th.normal_cyclic_limit_c) + " °C for " +
+        emergency ? 2 : 3, as_of + (emergency ? 30 : 90),
+        "Reduce the load, or transfer load to a unit the site view names as able to take it",
+        std::string(th.hot_spot_from_measured_top_oil ? "hot spot (from measured top oil)" : "model hot spot") +
+            " above " + fmt("%.0f", th.normal_cyclic_limit_c) + " °C for " +
             fmt("%.1f", *th.hours_above_normal_cyclic) + " h" +
             (emergency ? " and above " + fmt("%.0f", th.long_emergency_limit_c) + " °C for " +
                              fmt("%.1f", *th.hours_above_long_emergency) + " h"
                        : std::string()) +
             " in the last period (IEC 60076-7 loading limits)"));
   }
+}
+
+// Mean measured-minus-model top oil over the window's points that carry a
+// measurement; nullopt without any.
+std::optional<double> window_discrepancy(std::span<const ThermalPoint> all, Window w) {
+  double sum = 0;
+  std::size_t n = 0;
+  for (const auto& p : all)
+    if (p.t >= w.from && p.t < w.to && std::isfinite(p.measured_top_oil_c)) sum += p.measured_top_oil_c - p.top_oil_c, ++n;
+  if (n == 0) return std::nullopt;
+  return sum / static_cast<double>(n);
+}
+
+// Hot spot from the measured top oil: θ_h = θ_o,measured + Δθ_h, where Δθ_h is
+// the model's hot-spot-to-top-oil gradient at that point (IEC 60076-7:2018
+// §8.2.3, measured top oil as input; eq. 2 / eq. 3 for V). The ageing of a
+// step is re-integrated by the logarithmic mean of V between the step's ends
+// (mean_ageing_rate, ferrum's rule). Points without a measurement keep the
+// model. The model top oil stays in top_oil_c, so the discrepancy remains
+// visible. Returns the number of points changed.
+std::size_t use_measured_top_oil(std::vector<ThermalPoint>& points, PaperType paper) {
+  std::size_t changed = 0;
+  double prev_hs = 0, prev_v = 0;
+  for (std::size_t i = 0; i < points.size(); ++i) {
+    ThermalPoint& p = points[i];
+    if (std::isfinite(p.measured_top_oil_c)) {
+      p.hot_spot_c = p.measured_top_oil_c + (p.hot_spot_c - p.top_oil_c);
+      p.ageing_rate = ageing_rate(paper, p.hot_spot_c);
+      ++changed;
+    }
+    if (i > 0 && p.step_h > 0)
+      p.ageing_h = mean_ageing_rate(paper, prev_hs, prev_v, p.hot_spot_c, p.ageing_rate) * p.step_h;
+    prev_hs = p.hot_spot_c;
+    prev_v = p.ageing_rate;
+  }
+  return changed;
+}
+
+// Steady-state hot spot of the unit's model at load k and ambient θ_a, °C
+// (IEC 60076-7 eq. for the ultimate top-oil rise and gradient; IEEE C57.91
+// clause 7 ultimate rises), plus a measured top-oil offset.
+double steady_hot_spot(const ThermalModel& m, double k, double ambient_c, double offset_k) {
+  if (m.method == ThermalMethod::iec60076_7) return iec_steady_state(m.iec, k, ambient_c).hot_spot_c() + offset_k;
+  const auto s = ieee_steady_state(m.ieee, k);
+  return ambient_c + s.top_oil_rise_k + s.hot_spot_rise_k + offset_k;
+}
+
+// Long-time emergency capability: the load at which the steady hot spot
+// reaches the long-time emergency limit (IEC 60076-7 Table 4), by bisection
+// over 0..3 p.u. (the hot spot rises with load). Steady state is the
+// conservative reading of a loss of a neighbour lasting hours.
+std::optional<double> emergency_load(const ThermalModel& m, double ambient_c, double offset_k, double limit_c) {
+  double lo = 0, hi = 3;
+  if (steady_hot_spot(m, lo, ambient_c, offset_k) >= limit_c) return 0.0;
+  if (steady_hot_spot(m, hi, ambient_c, offset_k) <= limit_c) return hi;
+  for (int i = 0; i < 60; ++i) {
+    const double mid = 0.5 * (lo + hi);
+    (steady_hot_spot(m, mid, ambient_c, offset_k) < limit_c ? lo : hi) = mid;
+  }
+  return 0.5 * (lo + hi);
 }
 
 void summarise_window(std::span<const ThermalPoint> all, Window w, const ThermalOptions& o, ThermalSummary& th) {
@@ -125,7 +187,21 @@ void assess_load(const UnitData& data, Day as_of, const ThermalOptions& o, UnitA
   }
   fill_parameters(model, data.info, out);
   note_data_handling(st, th);
+  const auto discrepancy = window_discrepancy(points, w);
+  th.measured_top_oil_above_k = o.measured_top_oil_above_k;
+  th.hot_spot_from_measured_top_oil = discrepancy && *discrepancy > o.measured_top_oil_above_k;
+  if (th.hot_spot_from_measured_top_oil) th.measured_top_oil_points = use_measured_top_oil(points, data.info.paper);
   summarise_window(points, w, o, th);
+  th.top_oil_discrepancy_k = discrepancy;  // measured minus the model, whatever the hot spot's basis
+  if (th.peak_load_pu) {
+    const auto peak = std::find_if(points.begin(), points.end(), [&](const ThermalPoint& p) {
+      return p.t >= w.from && p.t < w.to && p.load_pu == *th.peak_load_pu;
+    });
+    th.emergency_ambient_c = peak->ambient_c;
+    th.emergency_load_pu = emergency_load(model, peak->ambient_c,
+                                          th.hot_spot_from_measured_top_oil ? *discrepancy : 0.0,
+                                          o.limits.long_emergency_c);
+  }
   out.methods.push_back(std::string("hot-spot and top-oil temperature: ") +
                         (o.method == ThermalMethod::iec60076_7
                              ? "IEC 60076-7:2005 §8.2 difference equations"
@@ -134,6 +210,12 @@ void assess_load(const UnitData& data, Day as_of, const ThermalOptions& o, UnitA
                         "; % loss of life against " + fmt("%.0f", o.normal_life_h) +
                         " h normal life (IEEE C57.91-2011 Table 1)");
   out.methods.push_back("loading limits: IEC 60076-7:2005 Table 4 hot-spot limits 120/140/160 °C");
+  if (th.hot_spot_from_measured_top_oil)
+    out.methods.push_back("hot spot and ageing from the measured top-oil temperature plus the model's hot-spot "
+                          "gradient (IEC 60076-7:2018 §8.2.3, measured top oil as input) at " +
+                          std::to_string(th.measured_top_oil_points) + " points: measured top oil runs " +
+                          fmt("%.1f", *th.top_oil_discrepancy_k) + " K above the model on average (more than " +
+                          fmt("%.1f", o.measured_top_oil_above_k) + " K, [analysis] measured_top_oil_above_k)");
   if (th.ambient_from_profile)
     out.assumptions.push_back(
         "ambient temperature missing for part of the load series: monthly ambient profile used "

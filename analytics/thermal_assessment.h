@@ -31,6 +31,10 @@ struct ThermalOptions {
   InspectionOptions inspection;  // interval 365 days
   int summary_days = 365;        // window before as_of summarised in the assessment
   double discrepancy_threshold_k = 5;  // mean measured-minus-model top oil above this: cooling problem
+  // Mean measured-minus-model top oil above this ([analysis]
+  // measured_top_oil_above_k): hot spot and ageing from the measured top oil
+  // (IEC 60076-7:2018 §8.2.3: measured top oil may be the model's input).
+  double measured_top_oil_above_k = 5;
   double normal_life_h = c57_91_normal_life_hours();  // IEEE C57.91-2011 Table 1, for % loss of life
   double min_growth_span_days = 365;   // shortest history for a load-growth trend
   std::size_t chart_points = 400;      // most points per reduced chart series

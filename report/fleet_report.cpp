@@ -10,6 +10,7 @@
 #include "report/pdf_document.h"
 #include "report/report_format.h"
 #include "report/safety_block.h"
+#include "report/site_section.h"
 #include "report/title_block.h"
 #include "report/work_list_report.h"
 
@@ -57,7 +58,7 @@ void ranking_table(PageFlow& flow, const FleetRanking& ranking) {
       why_insufficient.push_back(u.unit_id + ", too little data: " + (u.note.empty() ? "no health index" : u.note));
     }
     const std::string first = first_action_text(u.first_action);
-    t.rows.push_back({rank_text(u), u.unit_id, u.site, u.rated_mva > 0 ? fmt_number(u.rated_mva, 0) : kNoValue, fmt_health_index(u.health_index),
+    t.rows.push_back({rank_text(u), u.unit_id, u.site, fmt_mva(u.rated_mva), fmt_health_index(u.health_index),
                       u.band.empty() ? kNoValue : u.band, life_text(u.remaining_life_years, u.beyond_horizon, u.horizon_years),
                       u.limiting_factor.empty() ? kNoValue : limiting_factor_words(u.limiting_factor), risk_text(u.risk),
                       u.insufficient_data ? action : action_text(action, u.action_year), first.empty() ? kNoValue : first});
@@ -92,7 +93,7 @@ BarChart mva_chart(const FleetRanking& ranking) {
   for (const auto& y : ranking.mva_due_by_year) {
     c.categories.push_back(std::to_string(y.year));
     c.values.push_back(y.mva);
-    c.bar_labels.push_back(y.mva > 0 ? fmt_number(y.mva, 0) : "");
+    c.bar_labels.push_back(y.mva > 0 ? fmt_mva(y.mva) : "");
   }
   c.y_label = "Rated MVA due for replacement, per year";
   return c;
@@ -112,7 +113,7 @@ void life_outlook(PageFlow& flow, const FleetRanking& ranking) {
   t.columns = {{"Unit", 0.8}, {"Site", 1.3}, {"MVA", 0.5, Align::right}, {"Life", 0.8, Align::right},
                {"Ends", 0.5, Align::right}, {"Limited by", 1.2}, {"Action", 1.1}};
   for (const auto& e : ranking.outlook)
-    t.rows.push_back({e.unit_id, e.site, e.rated_mva > 0 ? fmt_number(e.rated_mva, 0) : kNoValue,
+    t.rows.push_back({e.unit_id, e.site, fmt_mva(e.rated_mva),
                       fmt_number(e.remaining_life_years, 1, "years"), std::to_string(e.life_ends_year),
                       limiting_factor_words(e.limiting_factor), action_text(e.action, e.action_year)});
   flow.table(t);
@@ -172,7 +173,8 @@ void coverage(PageFlow& flow, const std::vector<UnitAssessment>& units) {
 
 void render_fleet_report(const FleetRanking& ranking, const std::vector<UnitAssessment>& units,
                          const std::vector<std::string>& open_alerts, const ReportOptions& options,
-                         const std::string& path, const PlanSection* plan) {
+                         const std::string& path, const PlanSection* plan,
+                         const std::vector<analytics::SiteView>* sites) {
   const std::string title = "Fleet condition ranking";
   PdfDocument doc(options, title + " as of " + fmt_day(ranking.as_of), "Fleet ranking by risk");
   PageFlow flow(doc, title + " · as of " + fmt_day(ranking.as_of));
@@ -187,6 +189,7 @@ void render_fleet_report(const FleetRanking& ranking, const std::vector<UnitAsse
   charts(flow, ranking);
   life_outlook(flow, ranking);
   if (plan) plan_section(flow, *plan);
+  if (sites) site_section(flow, *sites);
   work_list_section(flow, analytics::work_list(units), ranking.as_of, kFleetReportWorkListRows);
   alerts(flow, open_alerts);
   coverage(flow, units);

@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "analytics/assessment.h"
+#include "analytics/site_view.h"
 #include "report/plan_report.h"
 #include "report/render_error.h"
 #include "report/planner_week.h"
@@ -26,7 +27,8 @@ inline constexpr double kStaleDataYears = 1.0;
 // Written atomically; throws RenderError.
 void render_fleet_report(const analytics::FleetRanking& ranking, const std::vector<analytics::UnitAssessment>& units,
                          const std::vector<std::string>& open_alerts, const ReportOptions& options,
-                         const std::string& path, const PlanSection* plan = nullptr);
+                         const std::string& path, const PlanSection* plan = nullptr,
+                         const std::vector<analytics::SiteView>* sites = nullptr);
 
 // The ranking as CSV (RFC 4180 quoting, "\n" line ends, header row first).
 // Absent values are empty fields. Pure.

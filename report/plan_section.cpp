@@ -88,7 +88,7 @@ void plan_section(PageFlow& flow, const PlanSection& s) {
     std::string funded, deferred;
     for (const auto& f : y.funded)
       funded += (funded.empty() ? "" : "; ") + f.unit_id + " " + f.action + " " + money_text(f.cost, "") + ", " +
-                fmt_number(f.rated_mva, 0) + " MVA";
+                fmt_mva(f.rated_mva, "MVA");
     for (const auto& d : y.deferred) deferred += (deferred.empty() ? "" : "; ") + d.unit_id + " (" + risk_number(d.risk) + ")";
     t.rows.push_back({std::to_string(y.year), funded.empty() ? kNoValue : funded, money_text(y.spent, ""),
                       deferred.empty() ? kNoValue : deferred, risk_number(y.risk_with_plan), risk_number(y.risk_without_plan),

@@ -1,5 +1,7 @@
 #include "report/report_format.h"
 
+#include "analytics/words.h"
+
 #include <cmath>
 #include <cstdio>
 #include <map>
@@ -13,6 +15,19 @@ std::string fmt_number(std::optional<double> v, int decimals, const std::string&
   if (std::fabs(x) < 0.5 * std::pow(10.0, -decimals)) x = 0;  // no "-0.0"
   std::snprintf(buf, sizeof buf, "%.*f", decimals, x);
   return unit.empty() ? std::string(buf) : std::string(buf) + " " + unit;
+}
+
+std::string fmt_mva(std::optional<double> v, const std::string& unit) {
+  if (!v || !std::isfinite(*v) || *v <= 0) return kNoValue;
+  std::string s = fmt_number(v, 3);
+  while (s.back() == '0') s.pop_back();
+  if (s.back() == '.') s.pop_back();
+  return unit.empty() ? s : s + " " + unit;
+}
+
+std::string fmt_ageing_factor(std::optional<double> v) {
+  if (!v || !std::isfinite(*v)) return kNoValue;
+  return analytics::significant_figures(*v, 3);
 }
 
 std::string fmt_health_index(std::optional<double> hi) { return fmt_number(hi, 0); }

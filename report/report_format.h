@@ -26,6 +26,13 @@ std::string fmt_measure(std::optional<double> v, const std::string& unit);
 // whole numbers from 10 up ("0.25", "4.5", "12", "1308"), never rounded to
 // fewer digits, so that the tables agree with texts quoting the same value.
 std::string fmt_ppm(std::optional<double> v);
+// A rating or sum of ratings in MVA as written on the nameplate: up to three
+// decimals, trailing zeros dropped ("7.5", "40", "0.315"); kNoValue when
+// absent or not positive. Never rounded to a whole number (7.5 is not 8).
+std::string fmt_mva(std::optional<double> v, const std::string& unit = "");
+// The equivalent ageing factor, three significant figures on every page
+// ("0.00123", "0.850", "1.25"): analytics::significant_figures.
+std::string fmt_ageing_factor(std::optional<double> v);
 std::string fmt_day(std::optional<analytics::Day> d);
 // "2025-06-01 14:00 UTC".
 std::string fmt_timestamp(analytics::Timestamp t);

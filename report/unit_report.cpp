@@ -61,7 +61,7 @@ std::vector<std::pair<std::string, std::string>> identity(const UnitAssessment& 
   auto text = [](const std::string& s) { return s.empty() ? std::string(kNoValue) : s; };
   return {{"Site", text(u.site)},
           {"Unit", text(u.unit_id) + (u.serial.empty() ? "" : " (serial " + u.serial + ")")},
-          {"Rating", u.rated_mva > 0 ? fmt_number(u.rated_mva, u.rated_mva < 10 ? 1 : 0, "MVA") : kNoValue},
+          {"Rating", fmt_mva(u.rated_mva, "MVA")},
           {"Voltages", u.hv_kv > 0 ? fmt_number(u.hv_kv, u.hv_kv < 10 ? 1 : 0) + " / " +
                                          fmt_number(u.lv_kv, u.lv_kv < 10 ? 1 : 0) + " kV"
                                    : kNoValue},

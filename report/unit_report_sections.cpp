@@ -42,7 +42,9 @@ const std::vector<GasStyle>& gas_styles() {
   return styles;
 }
 
-void gas_trend_chart(PageFlow& flow, const UnitAssessment& a) {
+// The gases of samples on or after `from`, on a log axis when they span
+// decades (wants_log_scale).
+LineChart gas_chart(const UnitAssessment& a, analytics::Day from, const std::string& title) {
   LineChart chart;
   double lo = 0, hi = 0;
   for (const auto& g : gas_styles()) {
@@ -53,7 +55,7 @@ void gas_trend_chart(PageFlow& flow, const UnitAssessment& a) {
     s.color = g.color;
     for (const auto& p : a.gas_history) {
       const auto v = p.*(g.field);
-      if (!v) continue;
+      if (!v || p.date < from) continue;
       s.points.push_back({static_cast<double>(p.date), *v});
       if (*v > 0) {
         lo = lo > 0 ? std::min(lo, *v) : *v;
@@ -63,10 +65,33 @@ void gas_trend_chart(PageFlow& flow, const UnitAssessment& a) {
     if (!s.points.empty()) chart.series.push_back(std::move(s));
   }
   chart.log_y = wants_log_scale(lo, hi);
-  chart.y_label = "µL/L (ppm)";
+  chart.y_label = "µL/L (ppm), " + title;
+  return chart;
+}
+
+// The whole history, and beside it the last kRecentGasYears so that an onset
+// of a year or two is not squeezed into the edge of a twenty-year axis.
+constexpr int kRecentGasYears = 3;
+
+void gas_trend_chart(PageFlow& flow, const UnitAssessment& a) {
   const double h = 165;
   const double top = flow.take(h);
-  draw_line_chart(flow.page(), flow.doc(), Box{flow.x(), top - h, flow.width(), h}, chart);
+  analytics::Day first = 0, last = 0;
+  for (const auto& p : a.gas_history) {
+    first = first == 0 ? p.date : std::min(first, p.date);
+    last = std::max(last, p.date);
+  }
+  const analytics::Day recent_from = last - kRecentGasYears * 365;
+  if (first >= recent_from) {  // the history is recent already: one chart
+    draw_line_chart(flow.page(), flow.doc(), Box{flow.x(), top - h, flow.width(), h},
+                    gas_chart(a, first, "all samples"));
+  } else {
+    const double gap = 14, w_all = (flow.width() - gap) * 0.55;
+    draw_line_chart(flow.page(), flow.doc(), Box{flow.x(), top - h, w_all, h},
+                    gas_chart(a, first, "all samples since " + analytics::format_day(first)));
+    draw_line_chart(flow.page(), flow.doc(), Box{flow.x() + w_all + gap, top - h, flow.width() - w_all - gap, h},
+                    gas_chart(a, recent_from, "last " + std::to_string(kRecentGasYears) + " years"));
+  }
   flow.space(6);
 }
 
@@ -234,17 +259,24 @@ void oil_paper_section(PageFlow& flow, const UnitAssessment& a) {
 void thermal_section(PageFlow& flow, const UnitAssessment& a) {
   flow.section("Loading and heat", 200);
   const auto& th = a.thermal;
+  if (!a.site_summary.empty()) flow.paragraph(a.site_summary, type::body, FontFace::bold);  // site view, N-1
   if (th.hot_spot_series.empty() && !th.peak_hot_spot_c) {
     no_data_note(flow, "No load data on record: hot-spot temperature, ageing and loss of life are not computed.");
     return;
   }
   const std::string period = th.from && th.to ? fmt_timestamp(*th.from) + " to " + fmt_timestamp(*th.to) : std::string(kNoValue);
-  flow.paragraph("Period " + period + ". Model: " + or_dash(th.method) + ".", type::body);
+  flow.paragraph("Period " + period + ". Model: " + or_dash(th.method) + "." +
+                     (th.hot_spot_from_measured_top_oil
+                          ? " Hot spot and ageing from the measured top oil (+ model gradient, IEC 60076-7:2018): it runs " +
+                                fmt_number(th.top_oil_discrepancy_k, 1, "K") + " above the model (limit " +
+                                fmt_number(th.measured_top_oil_above_k, 1, "K") + ")."
+                          : std::string()),
+                 type::body);
   if (!th.hot_spot_series.empty()) hot_spot_chart(flow, th);
   if (!th.load_series.empty()) load_chart(flow, th);
   flow.key_values({{"Peak hot spot", fmt_number(th.peak_hot_spot_c, 1, "°C")},
                    {"Peak top oil", fmt_number(th.peak_top_oil_c, 1, "°C")},
-                   {"Equivalent ageing factor", fmt_number(th.equivalent_ageing_factor, 2)},
+                   {"Equivalent ageing factor", fmt_ageing_factor(th.equivalent_ageing_factor)},
                    {"Loss of life", fmt_number(th.loss_of_life_hours, 0, "h") + " (" + fmt_number(th.loss_of_life_pct, 3, "%") + ")"},
                    {"Peak / 99th percentile load", fmt_number(th.peak_load_pu, 2) + " / " + fmt_number(th.p99_load_pu, 2, "pu")},
                    {"Hours above nameplate", fmt_number(th.hours_above_nameplate, 0, "h")},
@@ -310,7 +342,7 @@ void health_index_section(PageFlow& flow, const UnitAssessment& a) {
                    "Factors without data carry weight 0.", type::body);
     Table t;
     t.font_size = 7.6;
-    t.columns = {{"Factor", 1.2}, {"Score (0–4)", 0.75, Align::right}, {"Weight", 0.6, Align::right},
+    t.columns = {{"Factor", 1.2}, {"Score (0–4, 4 = best)", 0.75, Align::right}, {"Weight", 0.6, Align::right},
                  {"Points", 0.6, Align::right}, {"What drove it", 2.6}, {"Method", 2.0}};
     double total = 0;
     for (const auto& f : a.factors) {

@@ -1,8 +1,13 @@
 // assess, rank, dga, thermal: the analytics on the command line.
 
+#include <algorithm>
 #include <cmath>
+#include <deque>
 #include <iomanip>
 #include <iostream>
+#include <map>
+#include <set>
+#include <span>
 
 #include "analytics/oil_assessment.h"
 #include "analytics/thermal_assessment.h"
@@ -16,6 +21,7 @@
 #include "daemon/ingest/field_parsers.h"
 #include "report/decision_text.h"
 #include "report/fleet_report.h"
+#include "report/report_format.h"
 #include "report/safety_text.h"
 
 namespace ferrum::app {
@@ -72,6 +78,21 @@ int cmd_assess(const Invocation& inv) {
   if (!whole_fleet)  // named units must exist; the register's own list needs no check
     for (const auto& id : ids)
       if (!site->store->find_unit(id)) throw std::runtime_error("unit " + id + " is not in the register");
+  // The site view (load transfer targets, the site line) needs every unit of
+  // a site: named units bring their site's other units along (assessed, not
+  // printed), and a unit is printed once its site is complete.
+  std::map<std::string, std::string> site_of;
+  std::map<std::string, std::size_t> site_left;
+  for (const auto& u : site->store->units()) site_of[u.unit_id] = u.site;
+  const std::set<std::string> printed(ids.begin(), ids.end());
+  if (!whole_fleet)
+    for (const auto& [id, s] : site_of)
+      if (!printed.count(id) && std::any_of(ids.begin(), ids.end(), [&](auto& x) { return site_of[x] == s; }))
+        ids.push_back(id);
+  for (const auto& id : ids) ++site_left[site_of[id]];
+  std::map<std::string, std::vector<analytics::UnitAssessment>> site_units;  // ranking fields, until complete
+  std::map<std::string, analytics::SiteView> site_views;
+  std::deque<analytics::UnitAssessment> waiting;  // printed units whose site is not complete yet
   // Units are assessed on every core and written out one by one, in order:
   // the JSON array is streamed, never held whole (as one Poco document, 5,000
   // units took 755 MiB).
@@ -82,13 +103,28 @@ int cmd_assess(const Invocation& inv) {
   // interleave, so only while the output goes elsewhere (--json or a pipe).
   ProgressDisplay progress("assessing", "units", inv.has("quiet") || (!json && is_terminal(1)));
   std::size_t done = 0;
+  const auto site_options = assess::site_view_options_from_config(site->config);
+  const auto print = [&](analytics::UnitAssessment& a) {
+    analytics::apply_site_view(a, std::span<const analytics::SiteView>(&site_views.at(a.unit.site), 1));
+    if (!json) return print_assessment_text(a);
+    std::cout << (first ? "\n" : ",\n") << with_caution(assess::to_json(a));
+    first = false;
+  };
   assess::assess_units_parallel(*site->store, ids, as_of, options, 0,
                                 [&](analytics::UnitAssessment&& a) {
                                   progress.update(static_cast<double>(++done), static_cast<double>(ids.size()));
                                   if (whole_fleet) ranking_inputs.push_back(analytics::ranking_fields(a));
-                                  if (!json) return print_assessment_text(a);
-                                  std::cout << (first ? "\n" : ",\n") << with_caution(assess::to_json(a));
-                                  first = false;
+                                  const std::string& s = a.unit.site;
+                                  site_units[s].push_back(analytics::ranking_fields(a));
+                                  if (--site_left[s] == 0) {
+                                    site_views[s] = analytics::site_view(site_units[s], site_options).at(0);
+                                    site_units.erase(s);
+                                  }
+                                  if (printed.count(a.unit.unit_id)) waiting.push_back(std::move(a));
+                                  while (!waiting.empty() && site_views.count(waiting.front().unit.site)) {
+                                    print(waiting.front());
+                                    waiting.pop_front();
+                                  }
                                 });
   if (json) std::cout << (first ? "]\n" : "\n]\n");
   else std::cout << "\n" << report::one_line_caution() << "\n";
@@ -100,10 +136,13 @@ int cmd_rank(const Invocation& inv) {
   if (inv.has("json") && inv.has("csv")) throw UsageError("--json or --csv, not both");
   auto site = open_site(inv, Access::read);
   const analytics::Day as_of = today(inv, site->config);
-  const auto units = fleet_ranking_inputs(inv, *site, as_of);
+  auto units = fleet_ranking_inputs(inv, *site, as_of);
+  const auto sites = assess::apply_site_view(units, site->config);
   const auto ranking = analytics::rank_fleet(units, as_of, assess::ranking_options_from_config(site->config));
   if (inv.has("json")) {
-    std::cout << with_caution(assess::to_json(ranking)) << "\n";
+    auto doc = assess::to_json(ranking);
+    doc->set("sites", assess::to_json(sites));
+    std::cout << with_caution(doc) << "\n";
     return kOk;
   }
   if (inv.has("csv")) {
@@ -132,7 +171,7 @@ int cmd_rank(const Invocation& inv) {
     std::cout << "\n";
   }
   std::cout << "\nrated MVA due per year:";
-  for (const auto& y : ranking.mva_due_by_year) std::cout << "  " << y.year << ": " << fmt(y.mva, 0);
+  for (const auto& y : ranking.mva_due_by_year) std::cout << "  " << y.year << ": " << report::fmt_mva(y.mva);
   std::cout << "\n\n" << report::one_line_caution() << "\n";
   return kOk;
 }

@@ -25,7 +25,7 @@ std::string funded_text(const analytics::PlanYear& y) {
   std::string out;
   for (const auto& f : y.funded)
     out += (out.empty() ? "" : "; ") + f.unit_id + " " + f.action + " " + report::money_text(f.cost, "") + " " +
-           report::fmt_number(f.rated_mva, 0) + " MVA";
+           report::fmt_mva(f.rated_mva, "MVA");
   return out.empty() ? "-" : out;
 }
 

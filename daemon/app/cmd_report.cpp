@@ -29,7 +29,7 @@ int cmd_report(const Invocation& inv) {
   }
   if (inv.has("fleet")) {
     const auto f = writer.fleet_report(as_of, out);
-    std::cout << f.pdf.string() << "\n" << f.csv.string() << "\n";
+    std::cout << f.pdf.string() << "\n" << f.csv.string() << "\n" << f.sites_csv.string() << "\n";
     return kOk;
   }
   for (const auto& unit : inv.args) std::cout << writer.unit_report(unit, as_of, out).string() << "\n";

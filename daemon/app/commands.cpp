@@ -36,7 +36,7 @@ const std::vector<CommandInfo>& commands() {
       {"report", "ferrum report --root DIR (UNIT... | --fleet | --weekly) [--out DIR]",
        "write PDF reports",
        "UNIT...: one PDF per unit (file name ferrum-UNIT-DATE.pdf). --fleet: the fleet report\n"
-       "(PDF and CSV). --weekly: every unit report and the fleet report into reports/YYYY-Www/ with\n"
+       "(PDF, ranking CSV, sites CSV). --weekly: every unit report and the fleet report into reports/YYYY-Www/ with\n"
        "an index page, leaving earlier weeks untouched. Default folder: ROOT/reports/. On a\n"
        "terminal, --fleet and --weekly show their progress on standard error (--quiet: none).",
        {"root", "out", "fleet", "weekly", "as-of", "quiet"}},

@@ -140,6 +140,11 @@ Object::Ptr thermal_json(const analytics::ThermalSummary& t) {
   o->set("hours_above_short_emergency", opt(t.hours_above_short_emergency));
   o->set("load_growth_pct_per_year", opt(t.load_growth_pct_per_year));
   o->set("top_oil_discrepancy_k", opt(t.top_oil_discrepancy_k));
+  o->set("hot_spot_basis", t.hot_spot_from_measured_top_oil ? "measured top oil" : "model");
+  o->set("measured_top_oil_above_k", tidy(t.measured_top_oil_above_k));
+  o->set("measured_top_oil_points", static_cast<Poco::UInt64>(t.measured_top_oil_points));
+  o->set("emergency_load_pu", opt(t.emergency_load_pu));
+  o->set("emergency_ambient_c", opt(t.emergency_ambient_c));
   o->set("covered_hours", tidy(t.covered_hours));
   o->set("bridged_hours", tidy(t.bridged_hours));
   o->set("ambient_from_profile", t.ambient_from_profile);
@@ -253,6 +258,7 @@ Object::Ptr to_json(const analytics::UnitAssessment& a) {
   o->set("dga", to_json(a.dga));
   o->set("oil", oil_json(a.oil));
   o->set("paper", paper_json(a.paper));
+  o->set("site_summary", text_or_null(a.site_summary));
   o->set("thermal", thermal_json(a.thermal));
   Array::Ptr ir = new Array;
   for (const auto& f : a.infrared) {
@@ -365,6 +371,42 @@ Object::Ptr to_json(const analytics::FleetRanking& r) {
   o->set("outlook", outlook);
   o->set("risk_calibration", text_or_null(r.risk_calibration));
   return o;
+}
+
+Array::Ptr to_json(const std::vector<analytics::SiteView>& sites) {
+  Array::Ptr out = new Array;
+  for (const auto& s : sites) {
+    Object::Ptr o = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+    o->set("site", s.site);
+    o->set("installed_mva", tidy(s.installed_mva));
+    o->set("peak_load_mva", opt(s.peak_load_mva));
+    o->set("units_without_load", strings(s.without_load));
+    o->set("largest_unit", text_or_null(s.largest_unit));
+    o->set("largest_mva", tidy(s.largest_mva));
+    o->set("n1_capacity_mva", opt(s.n1_capacity_mva));
+    o->set("n1_margin_mva", opt(s.n1_margin_mva));
+    o->set("n1_ok", s.n1_ok ? Var(*s.n1_ok) : Var());
+    o->set("flagged", s.flagged());
+    o->set("n1_text", s.n1_text);
+    Array::Ptr units = new Array;
+    for (const auto& u : s.units) {
+      Object::Ptr x = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+      x->set("unit_id", u.unit_id);
+      x->set("rated_mva", tidy(u.rated_mva));
+      x->set("peak_load_mva", opt(u.peak_load_mva));
+      x->set("emergency_mva", opt(u.emergency_mva));
+      x->set("spare_mva", opt(u.spare_mva));
+      x->set("can_take_load", u.can_take_load());
+      x->set("constrained", u.constrained);
+      x->set("wet", u.wet);
+      x->set("unhealthy", u.unhealthy);
+      x->set("limits", strings(u.limits));
+      units->add(x);
+    }
+    o->set("units", units);
+    out->add(o);
+  }
+  return out;
 }
 
 std::string stringify(const Var& v) {

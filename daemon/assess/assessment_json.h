@@ -10,12 +10,15 @@
 #include <vector>
 
 #include "analytics/assessment.h"
+#include "analytics/site_view.h"
 
 namespace ferrum::assess {
 
 Poco::JSON::Object::Ptr to_json(const analytics::UnitAssessment& a);
 Poco::JSON::Object::Ptr to_json(const analytics::FleetRanking& r);
 Poco::JSON::Object::Ptr to_json(const analytics::DgaSummary& d);
+// The site view (analytics/site_view.h): `sites` of `rank --json`.
+Poco::JSON::Array::Ptr to_json(const std::vector<analytics::SiteView>& sites);
 
 // Pretty-printed text of a JSON value.
 std::string stringify(const Poco::Dynamic::Var& v);

@@ -24,6 +24,7 @@ analytics::AssessmentOptions options_from_config(const config::SiteConfig& confi
   o.thermal.method = config.thermal_method == "ieee_c57_91" ? analytics::ThermalMethod::ieee_c57_91
                                                             : analytics::ThermalMethod::iec60076_7;
   o.thermal.inspection.interval_days = config.inspection_interval_days;
+  o.thermal.measured_top_oil_above_k = config.measured_top_oil_above_k;
   auto& h = o.health;
   for (const auto& [factor, w] : config.health_weights) {
     if (factor == "dga") h.weight_dga = w;
@@ -200,6 +201,19 @@ analytics::RankingOptions ranking_options_from_config(const config::SiteConfig& 
   }
   if (overridden) o.pof_source += "; overridden in ferrum.ini [ranking]";
   return o;
+}
+
+analytics::SiteViewOptions site_view_options_from_config(const config::SiteConfig& config) {
+  analytics::SiteViewOptions o;
+  o.wet_paper_pct = config.site_wet_paper_pct;
+  return o;
+}
+
+std::vector<analytics::SiteView> apply_site_view(std::vector<analytics::UnitAssessment>& units,
+                                                 const config::SiteConfig& config) {
+  auto sites = analytics::site_view(units, site_view_options_from_config(config));
+  analytics::apply_site_view(units, sites);
+  return sites;
 }
 
 }  // namespace ferrum::assess

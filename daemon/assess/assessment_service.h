@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "analytics/assess_unit.h"
+#include "analytics/site_view.h"
 #include "analytics/assessment.h"
 #include "analytics/fleet_ranking.h"
 #include "daemon/config/site_config.h"
@@ -51,5 +52,13 @@ std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store
                                                              const FleetProgress& progress = {});
 
 analytics::RankingOptions ranking_options_from_config(const config::SiteConfig& config);
+
+// The site view's options ([analysis] site_wet_paper_pct).
+analytics::SiteViewOptions site_view_options_from_config(const config::SiteConfig& config);
+
+// The site view of assessed units, written into them (site lines, load
+// transfer targets): analytics::site_view then apply_site_view.
+std::vector<analytics::SiteView> apply_site_view(std::vector<analytics::UnitAssessment>& units,
+                                                 const config::SiteConfig& config);
 
 }  // namespace ferrum::assess

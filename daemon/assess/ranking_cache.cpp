@@ -78,6 +78,17 @@ Object::Ptr unit_to_json(const analytics::UnitAssessment& a) {
     x->set("reason", f->reason);
     o->set("first_action", x);
   }
+  Object::Ptr site = new Object;  // what the site view reads (analytics/site_view.h)
+  site->set("peak_load_pu", opt(a.thermal.peak_load_pu));
+  site->set("emergency_load_pu", opt(a.thermal.emergency_load_pu));
+  site->set("hours_above_normal_cyclic", opt(a.thermal.hours_above_normal_cyclic));
+  site->set("normal_cyclic_limit_c", a.thermal.normal_cyclic_limit_c);
+  site->set("hot_spot_from_measured_top_oil", a.thermal.hot_spot_from_measured_top_oil);
+  site->set("paper_moisture_pct", opt(a.oil.paper_moisture_pct));
+  site->set("unsafe_inspection", a.unsafe_inspection);
+  site->set("active_arcing", a.active_arcing);
+  site->set("c57104_2008_condition", opt(a.dga.c57104_2008_condition));
+  o->set("site_inputs", site);
   return o;
 }
 
@@ -104,6 +115,17 @@ analytics::UnitAssessment unit_from_json(const Object::Ptr& o) {
   if (const auto x = o->getObject("first_action"))
     a.decision.first_action = analytics::Action{x->getValue<int>("priority"), x->getValue<analytics::Day>("due"),
                                                 x->getValue<std::string>("text"), x->getValue<std::string>("reason")};
+  if (const auto x = o->getObject("site_inputs")) {
+    a.thermal.peak_load_pu = get_opt<double>(x, "peak_load_pu");
+    a.thermal.emergency_load_pu = get_opt<double>(x, "emergency_load_pu");
+    a.thermal.hours_above_normal_cyclic = get_opt<double>(x, "hours_above_normal_cyclic");
+    a.thermal.normal_cyclic_limit_c = x->getValue<double>("normal_cyclic_limit_c");
+    a.thermal.hot_spot_from_measured_top_oil = x->getValue<bool>("hot_spot_from_measured_top_oil");
+    a.oil.paper_moisture_pct = get_opt<double>(x, "paper_moisture_pct");
+    a.unsafe_inspection = x->getValue<bool>("unsafe_inspection");
+    a.active_arcing = x->getValue<bool>("active_arcing");
+    a.dga.c57104_2008_condition = get_opt<int>(x, "c57104_2008_condition");
+  }
   return a;
 }
 

@@ -163,6 +163,17 @@ std::vector<Key> make_keys() {
                [](SiteConfig& c, const std::string& v) {
                  c.inspection_interval_days = static_cast<int>(parse_int("analysis.inspection_interval_days", v, 1, 3650));
                }});
+  k.push_back({"analysis", "measured_top_oil_above_k", Type::number, "5", true,
+               "Measured top oil above the thermal model by more than this (K, mean): hot spot and ageing\n"
+               "are taken from the measured top oil (IEC 60076-7:2018 allows it as input).",
+               [](SiteConfig& c, const std::string& v) {
+                 c.measured_top_oil_above_k = parse_number("analysis.measured_top_oil_above_k", v, 0, 50);
+               }});
+  k.push_back({"analysis", "site_wet_paper_pct", Type::number, "2.5", true,
+               "Site view: a unit with more water in paper than this (%) takes no transferred load.",
+               [](SiteConfig& c, const std::string& v) {
+                 c.site_wet_paper_pct = parse_number("analysis.site_wet_paper_pct", v, 0, 20);
+               }});
   for (const char* f : kHealthFactors) {
     const std::string name = std::string("weight_") + f;
     k.push_back({"health", name, Type::number, "", true,
@@ -446,6 +457,8 @@ std::vector<std::string> describe_changes(const SiteConfig& a, const SiteConfig&
   cmp("schedule.debounce_seconds", a.debounce_seconds, b.debounce_seconds);
   cmp("analysis.thermal_method", a.thermal_method, b.thermal_method);
   cmp("analysis.inspection_interval_days", a.inspection_interval_days, b.inspection_interval_days);
+  cmp("analysis.measured_top_oil_above_k", a.measured_top_oil_above_k, b.measured_top_oil_above_k);
+  cmp("analysis.site_wet_paper_pct", a.site_wet_paper_pct, b.site_wet_paper_pct);
   cmp("log.level", a.log_level, b.log_level);
   if (a.health_weights != b.health_weights) out.push_back("health weights changed");
   if (a.ranking != b.ranking) out.push_back("ranking settings changed");

@@ -68,6 +68,8 @@ struct SiteConfig {
   // [analysis]
   std::string thermal_method = "iec60076_7";
   int inspection_interval_days = 365;
+  double measured_top_oil_above_k = 5;  // K: hot spot from measured top oil above this discrepancy
+  double site_wet_paper_pct = 2.5;       // %: site view, no transfer onto wetter paper
   std::map<std::string, double> health_weights;  // factor name -> weight override
   std::map<std::string, std::vector<double>> health_bands;  // band key -> cut points override
   // [electrical]

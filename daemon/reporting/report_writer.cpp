@@ -16,6 +16,7 @@
 #include "report/alert_report.h"
 #include "report/fleet_report.h"
 #include "report/safety_text.h"
+#include "report/site_section.h"
 #include "report/unit_report.h"
 
 namespace fs = std::filesystem;
@@ -99,15 +100,18 @@ static report::ReportOptions report_options(const config::SiteConfig& c) {
 fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as_of, const fs::path& out_dir) {
   if (!store_.find_unit(unit_id)) throw std::runtime_error("unit " + unit_id + " is not in the register");
   const analytics::UnitData data = store_.unit_data(unit_id);
-  const analytics::UnitAssessment current = analytics::assess_unit(data_as_of(data, as_of), as_of, options_);
+  analytics::UnitAssessment current = analytics::assess_unit(data_as_of(data, as_of), as_of, options_);
+  const auto sites = site_of(current, as_of);
+  analytics::apply_site_view(current, sites);
   // The previous report's view: the data as it stood then.
   analytics::Day previous_day = as_of - 7;
   if (auto last = store_.state("report:" + unit_id)) {
     const analytics::Day d = std::atoi(last->c_str());
     if (d < as_of) previous_day = d;
   }
-  const analytics::UnitAssessment previous =
-      analytics::assess_unit(data_as_of(data, previous_day), previous_day, options_);
+  analytics::UnitAssessment previous = analytics::assess_unit(data_as_of(data, previous_day), previous_day, options_);
+  // The same site view: its load-transfer advice is not a change of the unit.
+  analytics::apply_site_view(previous, sites);
 
   std::vector<report::SourceFile> files;
   for (const auto& f : store_.files_for_unit(unit_id))
@@ -121,8 +125,18 @@ fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as
 }
 
 ReportWriter::FleetFiles ReportWriter::fleet_report(analytics::Day as_of, const fs::path& out_dir) {
-  const auto units = assess::assess_fleet_parallel(store_, as_of, options_, progress_);
-  return fleet_files(units, rank(units, as_of), as_of, out_dir);
+  auto units = assess::assess_fleet_parallel(store_, as_of, options_, progress_);
+  const auto sites = assess::apply_site_view(units, config_);
+  return fleet_files(units, rank(units, as_of), sites, as_of, out_dir);
+}
+
+std::vector<analytics::SiteView> ReportWriter::site_of(const analytics::UnitAssessment& unit, analytics::Day as_of) {
+  if (site_views_) return *site_views_;
+  std::vector<analytics::UnitAssessment> peers;
+  for (const auto& u : store_.units())
+    if (u.site == unit.unit.site)
+      peers.push_back(u.unit_id == unit.unit.unit_id ? unit : assess::assess_unit(store_, u.unit_id, as_of, options_));
+  return analytics::site_view(peers, assess::site_view_options_from_config(config_));
 }
 
 report::PlanSection ReportWriter::plan_section(const analytics::FleetRanking& ranking, analytics::Day as_of) {
@@ -140,7 +154,8 @@ analytics::FleetRanking ReportWriter::rank(const std::vector<analytics::UnitAsse
 }
 
 ReportWriter::FleetFiles ReportWriter::fleet_files(const std::vector<analytics::UnitAssessment>& units,
-                                                   const analytics::FleetRanking& ranking, analytics::Day as_of,
+                                                   const analytics::FleetRanking& ranking,
+                                                   const std::vector<analytics::SiteView>& sites, analytics::Day as_of,
                                                    const fs::path& out_dir) {
   std::vector<std::string> alerts;
   for (const auto& a : store_.open_alerts()) alerts.push_back(a.unit_id + ": " + a.text + " (" + a.raised_at + ")");
@@ -149,8 +164,10 @@ ReportWriter::FleetFiles ReportWriter::fleet_files(const std::vector<analytics::
   f.pdf = out_dir / ("ferrum-fleet-" + analytics::format_day(as_of) + ".pdf");
   f.csv = out_dir / ("ferrum-fleet-" + analytics::format_day(as_of) + ".csv");
   const report::PlanSection plan = plan_section(ranking, as_of);
-  report::render_fleet_report(ranking, units, alerts, report_options(config_), f.pdf.string(), &plan);
+  f.sites_csv = out_dir / ("ferrum-fleet-sites-" + analytics::format_day(as_of) + ".csv");
+  report::render_fleet_report(ranking, units, alerts, report_options(config_), f.pdf.string(), &plan, &sites);
   site::write_file_atomically(f.csv, report::fleet_ranking_csv(ranking));
+  site::write_file_atomically(f.sites_csv, report::fleet_sites_csv(sites));
   return f;
 }
 
@@ -163,17 +180,26 @@ fs::path ReportWriter::weekly_bundle(analytics::Day as_of) {
   const fs::path scratch = root_.reports() / ("." + label + ".building");
   fs::remove_all(scratch);
   fs::create_directories(scratch);
+  // One fleet assessment serves the fleet report, the index and the unit
+  // reports' site lines.
+  auto units = assess::assess_fleet_parallel(store_, as_of, options_, progress_);
+  const auto sites = assess::apply_site_view(units, config_);
   std::vector<std::pair<std::string, std::string>> unit_files;
   const auto register_units = store_.units();
-  for (const auto& u : register_units) {
-    const fs::path p = unit_report(u.unit_id, as_of, scratch);
-    unit_files.emplace_back(u.unit_id, p.filename().string());
-    if (progress_) progress_("unit reports", unit_files.size(), register_units.size());
+  site_views_ = sites;
+  try {
+    for (const auto& u : register_units) {
+      const fs::path p = unit_report(u.unit_id, as_of, scratch);
+      unit_files.emplace_back(u.unit_id, p.filename().string());
+      if (progress_) progress_("unit reports", unit_files.size(), register_units.size());
+    }
+  } catch (...) {
+    site_views_.reset();
+    throw;
   }
-  // One fleet assessment serves the fleet report and the index.
-  const auto units = assess::assess_fleet_parallel(store_, as_of, options_, progress_);
+  site_views_.reset();
   const auto ranking = rank(units, as_of);
-  fleet_files(units, ranking, as_of, scratch);
+  fleet_files(units, ranking, sites, as_of, scratch);
   // The planner's week: on the cover, as summary.txt (the weekly mail's
   // body) and week.tsv (what the next week compares with).
   PlannerWeekInputs in;

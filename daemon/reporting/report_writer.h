@@ -5,6 +5,7 @@
 #pragma once
 
 #include <filesystem>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -33,7 +34,7 @@ class ReportWriter {
                                     const std::filesystem::path& out_dir);
 
   struct FleetFiles {
-    std::filesystem::path pdf, csv;
+    std::filesystem::path pdf, csv, sites_csv;  // sites_csv: ferrum-fleet-sites-DATE.csv (site view)
   };
   FleetFiles fleet_report(analytics::Day as_of, const std::filesystem::path& out_dir);
 
@@ -55,13 +56,18 @@ class ReportWriter {
   // The ten-year plan of the fleet report, when ferrum.ini [plan] sets a budget.
   report::PlanSection plan_section(const analytics::FleetRanking& ranking, analytics::Day as_of);
   FleetFiles fleet_files(const std::vector<analytics::UnitAssessment>& units, const analytics::FleetRanking& ranking,
-                         analytics::Day as_of, const std::filesystem::path& out_dir);
+                         const std::vector<analytics::SiteView>& sites, analytics::Day as_of,
+                         const std::filesystem::path& out_dir);
+  // The site view of the unit's site: from site_views_ (the weekly bundle's
+  // fleet assessment) or by assessing the site's units.
+  std::vector<analytics::SiteView> site_of(const analytics::UnitAssessment& unit, analytics::Day as_of);
 
   site::SiteRoot root_;
   config::SiteConfig config_;
   store::Store& store_;
   analytics::AssessmentOptions options_;
   assess::FleetProgress progress_;
+  std::optional<std::vector<analytics::SiteView>> site_views_;  // set while a weekly bundle is built
 };
 
 // UnitData as it stood at the end of `day` (later records dropped).

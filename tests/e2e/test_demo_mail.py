@@ -111,7 +111,7 @@ class DemoMail(SiteTestCase):
 
         files = {os.path.basename(f): f for f in glob.glob(os.path.join(bundle, "*"))}
         fleet = {n for n in files if n.startswith("ferrum-fleet-")}
-        self.assertEqual(len(fleet), 2, files)  # PDF and CSV
+        self.assertEqual(len(fleet), 3, files)  # PDF, ranking CSV and sites CSV
         got = {}
         for path, rcpt, msg in catcher.read_messages(self.mail):
             self.assertEqual(msg["To"], rcpt)  # saved under its recipient

@@ -334,6 +334,41 @@ class DemoStorylines(unittest.TestCase):
         self.assertGreater(doc["thermal"]["top_oil_discrepancy_k"], 5)
         self.assertTrue(any("cooling" in a["text"].lower() for a in doc["actions"]), doc["actions"])
 
+    def test_failed_fans_hot_spot_from_measured_top_oil(self):
+        # Measured top oil 10 K above the model (> [analysis] measured_top_oil_above_k, 5 K):
+        # hot spot and ageing from the measured top oil (IEC 60076-7:2018 §8.2.3, value from
+        # memory; verify); the sensor of CRW-T2 agrees with the model, so the model decides there.
+        self.assertEqual(self.docs["CRW-T3"]["thermal"]["hot_spot_basis"], "measured top oil")
+        self.assertEqual(self.docs["CRW-T2"]["thermal"]["hot_spot_basis"], "model")
+        self.assertTrue(any("measured top-oil" in m for m in self.docs["CRW-T3"]["methods"]))
+
+    def test_site_view_moves_no_load_onto_a_wet_or_unhealthy_unit(self):
+        # Site view (analytics/site_view.h): N-1 with the largest unit out and load-transfer
+        # targets; common planning practice, no published source. PLW-T1 is wet (water in paper
+        # above [analysis] site_wet_paper_pct, 2.5 %), so PLW-T2's advice must not name it.
+        sites = {s["site"]: s for s in self.ranking["sites"]}
+        self.assertEqual(sum(len(s["units"]) for s in sites.values()), len(self.docs))
+        doc = self.docs["PLW-T2"]
+        site = sites[doc["unit"]["site"]]
+        units = {u["unit_id"]: u for u in site["units"]}
+        self.assertTrue(units["PLW-T1"]["wet"])
+        self.assertFalse(units["PLW-T1"]["can_take_load"])
+        advice = [a["text"] for a in doc["actions"] if a["text"].startswith("Reduce the load")]
+        self.assertEqual(len(advice), 1, doc["actions"])
+        for u in site["units"]:
+            if not u["can_take_load"]:
+                self.assertNotIn("transfer load to " + u["unit_id"], advice[0])
+                self.assertNotIn("or " + u["unit_id"] + " (", advice[0])
+        self.assertIn("N-1", doc["site_summary"])
+        # The ranking row quotes the same advice as the unit's own document.
+        row = self.rows["PLW-T2"]
+        if row["first_action"]["text"].startswith("Reduce the load"):
+            self.assertEqual(row["first_action"]["text"], advice[0])
+        # A site of one unit cannot carry its load with that unit out.
+        for s in sites.values():
+            if len(s["units"]) == 1:
+                self.assertTrue(s["flagged"], s)
+
     def test_hot_connector_unit(self):
         findings = self.docs["TKQ-T1"]["infrared"]
         worst = max(findings, key=lambda f: f["severity"] or 0)

@@ -145,7 +145,7 @@ class WhoGetsWhat(MailCase):
         t1 = next(n for n in files if n.startswith("ferrum-T1-"))
         t2 = next(n for n in files if n.startswith("ferrum-T2-"))
         fleet = sorted(n for n in files if n.startswith("ferrum-fleet-"))
-        self.assertEqual(len(fleet), 2, files.keys())  # PDF and CSV
+        self.assertEqual(len(fleet), 3, files.keys())  # PDF, ranking CSV and sites CSV
         expected = {"anna@quillmere.example": {t1, "index.pdf"},      # planner of Quillmere: T1 only
                     "ben@ostrand.example": {t2, "index.pdf"},        # planner of Ostrand Yard: T2 only
                     "carla@utility.example": set(fleet) | {"index.pdf"}}  # manager: fleet PDF + CSV

@@ -7,6 +7,7 @@
 
 #include "report/alert_report.h"
 #include "report/plan_report.h"
+#include "report/site_section.h"
 #include "tests/report/pdf_tools.h"
 #include "tests/report/report_fixtures.h"
 
@@ -37,6 +38,40 @@ TEST_F(FleetReportTest, RankingChartsAlertsAndCoverage) {
   EXPECT_NE(text.find("4="), std::string::npos);
   // Coverage lists the empty unit's missing data.
   EXPECT_NE(text.find("oil: none"), std::string::npos);
+}
+
+// The site view in the fleet report and its CSV: a site that fails N-1 is
+// flagged, a rating of 7.5 MVA prints as 7.5 (N-1 and the sum of peaks:
+// common planning practice, no published source; the numbers are checked in
+// tests/analytics/site_view_test.cpp).
+TEST_F(FleetReportTest, SitesSectionFlagsNMinusOneAndCsvListsUnits) {
+  auto ranking = fixtures::small_ranking();
+  ranking.units[0].rated_mva = 7.5;
+  auto a = fixtures::filled_unit();
+  a.unit.unit_id = "T-204";
+  a.unit.site = "Kelder Road 132 kV";
+  a.unit.rated_mva = 45;
+  a.thermal.peak_load_pu = 0.8;
+  a.thermal.emergency_load_pu = 1.3;
+  auto b = a;
+  b.unit.unit_id = "T-205";
+  b.unit.rated_mva = 7.5;
+  b.oil.paper_moisture_pct = 3.4;  // wet: takes no transferred load
+  const std::vector<analytics::UnitAssessment> units = {a, b};
+  const auto sites = analytics::site_view(units, {});
+  ASSERT_TRUE(sites.at(0).flagged());
+  const std::string path = temp_path("fleet-sites.pdf");
+  render_fleet_report(ranking, units, {}, fixed_options(), path, nullptr, &sites);
+  ASSERT_TRUE(qpdf_check(path));
+  const std::string text = squash(pdf_raw_text(path));
+  for (const char* s : {"Sites and N-1", "FAILS", "Units that take no transferred load", "T-205 takes no transferred load",
+                        "wet paper (3.4 % water", "N-1 fails: with T-204", "7.5"})
+    EXPECT_NE(text.find(s), std::string::npos) << s;
+  const std::string csv = fleet_sites_csv(sites);
+  EXPECT_EQ(csv.rfind("site,installed_mva,site_peak_load_mva,largest_unit,n1_capacity_mva,n1_margin_mva,n1,unit_id,", 0), 0u);
+  EXPECT_NE(csv.find("Kelder Road 132 kV,52.5,"), std::string::npos);
+  EXPECT_NE(csv.find(",fail,T-205,7.5,"), std::string::npos);
+  EXPECT_NE(csv.find("wet paper (3.4 % water, above 2.5 %)"), std::string::npos);
 }
 
 // The plan section's heading follows the horizon; a plan that follows a smaller budget's

@@ -23,5 +23,31 @@ TEST(FmtPpm, DecimalsBelowTenAndBelowOne) {
   EXPECT_EQ(fmt_ppm(std::nullopt), kNoValue);
 }
 
+// A rating prints as written on the nameplate: 7.5 MVA is 7.5, never 8
+// (issue #16, "numbers printed two ways"; common practice, no published source).
+TEST(FmtMva, RatingKeepsItsDigits) {
+  EXPECT_EQ(fmt_mva(7.5), "7.5");
+  EXPECT_EQ(fmt_mva(40.0), "40");
+  EXPECT_EQ(fmt_mva(31.5, "MVA"), "31.5 MVA");
+  EXPECT_EQ(fmt_mva(0.315), "0.315");
+  EXPECT_EQ(fmt_mva(67.5), "67.5");
+  EXPECT_EQ(fmt_mva(0.0), kNoValue);
+  EXPECT_EQ(fmt_mva(std::nullopt), kNoValue);
+}
+
+// The equivalent ageing factor prints to three significant figures on every
+// page, so 0.00123 is neither "0.00" nor "0.001" (common practice, no
+// published source).
+TEST(FmtAgeingFactor, ThreeSignificantFigures) {
+  EXPECT_EQ(fmt_ageing_factor(0.001234), "0.00123");
+  EXPECT_EQ(fmt_ageing_factor(0.85), "0.850");
+  EXPECT_EQ(fmt_ageing_factor(1.25), "1.25");
+  EXPECT_EQ(fmt_ageing_factor(12.345), "12.3");
+  EXPECT_EQ(fmt_ageing_factor(150.4), "150");
+  EXPECT_EQ(fmt_ageing_factor(0.09996), "0.100");  // rounding into the next decade
+  EXPECT_EQ(fmt_ageing_factor(0.0), "0");
+  EXPECT_EQ(fmt_ageing_factor(std::nullopt), kNoValue);
+}
+
 }  // namespace
 }  // namespace ferrum::report

@@ -40,6 +40,32 @@ TEST_F(UnitReportTest, FilledUnitShowsEverySectionActionAndKeyNumber) {
   EXPECT_NE(text.find("Health index worse by 5 points"), std::string::npos);  // 63 -> 58
 }
 
+// Issue #16, "numbers printed two ways": the rating keeps its digits, the
+// score scale is stated beside the scores, the ageing factor has three
+// significant figures, the gas chart has a recent-years view beside the whole
+// history, and the site view's line and the measured-top-oil basis are shown
+// (common practice, no published source; IEC 60076-7:2018 for the basis).
+TEST_F(UnitReportTest, NumbersPrintOneWayAndRecentGasViewAndSiteLine) {
+  auto unit = fixtures::filled_unit();
+  unit.unit.rated_mva = 7.5;
+  unit.thermal.equivalent_ageing_factor = 0.001234;
+  unit.thermal.hot_spot_from_measured_top_oil = true;
+  unit.thermal.top_oil_discrepancy_k = 10.2;
+  unit.site_summary = "Site Kelder Road 132 kV: 2 units, 52.5 MVA installed, peak load 40.1 MVA (sum of the units' "
+                      "peaks). N-1 fails: with T-204 (45 MVA) out the other units carry 9.8 MVA.";
+  const std::string path = temp_path("numbers.pdf");
+  render_unit_report(unit, nullptr, fixtures::source_files(), fixed_options(), path);
+  const std::string text = squash(pdf_raw_text(path));
+  EXPECT_NE(text.find("7.5 MVA"), std::string::npos);
+  EXPECT_EQ(text.find(" 8 MVA"), std::string::npos);  // not rounded to a whole number
+  EXPECT_NE(text.find("0.00123"), std::string::npos);
+  EXPECT_NE(text.find("Score (0–4, 4 = best)"), std::string::npos);
+  EXPECT_NE(text.find("last 3 years"), std::string::npos);
+  EXPECT_NE(text.find("all samples since 2022-03-13"), std::string::npos);
+  EXPECT_NE(text.find("N-1 fails: with T-204"), std::string::npos);
+  EXPECT_NE(text.find("Hot spot and ageing from the measured top oil"), std::string::npos);
+}
+
 // An estimate at the planning horizon prints as "more than N years", never as
 // a figure the methods cannot support. // common practice, no published source
 TEST_F(UnitReportTest, LifeBeyondHorizonPrintsMoreThan) {

@@ -1,0 +1,187 @@
+#include "analytics/site_view.h"
+
+#include <algorithm>
+#include <cstdio>
+
+namespace ferrum::analytics {
+namespace {
+
+// MVA as written: a rating keeps its digits (7.5, 31.5, 40), a computed
+// load one decimal.
+std::string mva(double v, bool rating = false) {
+  char buf[32];
+  std::snprintf(buf, sizeof buf, rating ? "%.4g MVA" : "%.1f MVA", v);
+  return buf;
+}
+
+std::string pct(double v) {
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.1f %%", v);
+  return buf;
+}
+
+// The thermal part's load-reduce action (thermal_assessment.cpp), before or
+// after this module rewrote it.
+const char* kTransferText = "Reduce the load";
+
+SiteUnitView unit_view(const UnitAssessment& a, const SiteViewOptions& o) {
+  SiteUnitView u;
+  u.unit_id = a.unit.unit_id;
+  u.rated_mva = a.unit.rated_mva;
+  const auto& th = a.thermal;
+  if (th.peak_load_pu) u.peak_load_mva = *th.peak_load_pu * a.unit.rated_mva;
+  if (th.emergency_load_pu) u.emergency_mva = *th.emergency_load_pu * a.unit.rated_mva;
+  if (th.hours_above_normal_cyclic.value_or(0) > 0) {
+    u.constrained = true;
+    u.limits.push_back("loading limited (hot spot above " + std::to_string(static_cast<int>(th.normal_cyclic_limit_c)) +
+                       " °C)");
+  }
+  if (th.hot_spot_from_measured_top_oil) {
+    u.constrained = true;
+    u.limits.push_back("top oil runs above the model (cooling suspect)");
+  }
+  if (a.oil.paper_moisture_pct && *a.oil.paper_moisture_pct > o.wet_paper_pct) {
+    u.wet = true;
+    u.limits.push_back("wet paper (" + pct(*a.oil.paper_moisture_pct) + " water, above " + pct(o.wet_paper_pct) + ")");
+  }
+  std::vector<std::string> health;
+  if (a.unsafe_inspection) health.push_back("unsafe inspection item");
+  if (a.active_arcing) health.push_back("active arcing");
+  if (a.dga.c57104_2008_condition && *a.dga.c57104_2008_condition >= 3)
+    health.push_back("dissolved gases condition " + std::to_string(*a.dga.c57104_2008_condition));
+  const std::string& d = a.decision.action;
+  if (d == "replace" || d == "refurbish" || d == "repair") health.push_back("decision: " + d);
+  if (!health.empty()) {
+    u.unhealthy = true;
+    std::string s;
+    for (const auto& h : health) s += (s.empty() ? "" : ", ") + h;
+    u.limits.push_back("unhealthy (" + s + ")");
+  }
+  if (u.can_take_load() && u.peak_load_mva) u.spare_mva = std::max(0.0, u.rated_mva - *u.peak_load_mva);
+  return u;
+}
+
+void check_n1(SiteView& s) {
+  if (s.units.size() < 2) {
+    s.n1_ok = false;
+    s.n1_text = "N-1 fails: one unit, no other unit at the site carries its load when it is out";
+    return;
+  }
+  const SiteUnitView* out = &s.units.front();
+  for (const auto& u : s.units)
+    if (u.rated_mva > out->rated_mva ||
+        (u.rated_mva == out->rated_mva && u.peak_load_mva.value_or(0) > out->peak_load_mva.value_or(0)))
+      out = &u;
+  s.largest_unit = out->unit_id;
+  s.largest_mva = out->rated_mva;
+  if (!s.peak_load_mva) {
+    std::string names;
+    for (const auto& n : s.without_load) names += (names.empty() ? "" : ", ") + n;
+    s.n1_text = "N-1 not assessed: no load data for " + names;
+    return;
+  }
+  double capacity = 0;
+  std::vector<std::string> at_nameplate;
+  for (const auto& u : s.units) {
+    if (&u == out) continue;
+    const double cap = u.emergency_mva.value_or(u.rated_mva);
+    if (!u.emergency_mva) at_nameplate.push_back(u.unit_id);
+    capacity += u.can_take_load() ? cap : std::min(cap, u.peak_load_mva.value_or(0));
+  }
+  s.n1_capacity_mva = capacity;
+  s.n1_margin_mva = capacity - *s.peak_load_mva;
+  s.n1_ok = *s.n1_margin_mva >= 0;
+  s.n1_text = std::string(*s.n1_ok ? "N-1 passes" : "N-1 fails") + ": with " + out->unit_id + " (" +
+              mva(out->rated_mva, true) + ") out the other units carry " + mva(capacity) + " against a peak of " +
+              mva(*s.peak_load_mva) + " (" + (*s.n1_ok ? "margin " : "short by ") + mva(std::abs(*s.n1_margin_mva)) +
+              ")";
+  if (!at_nameplate.empty()) {
+    std::string names;
+    for (const auto& n : at_nameplate) names += (names.empty() ? "" : ", ") + n;
+    s.n1_text += "; " + names + " counted at nameplate (no load data)";
+  }
+}
+
+bool is_transfer_action(const Action& x) {
+  return x.need == "load-reduce" || x.text.rfind(kTransferText, 0) == 0;
+}
+
+}  // namespace
+
+std::vector<SiteView> site_view(std::span<const UnitAssessment> units, const SiteViewOptions& options) {
+  std::vector<SiteView> sites;
+  for (const auto& a : units) {
+    auto it = std::find_if(sites.begin(), sites.end(), [&](const SiteView& s) { return s.site == a.unit.site; });
+    if (it == sites.end()) {
+      sites.push_back({});
+      it = sites.end() - 1;
+      it->site = a.unit.site;
+    }
+    it->units.push_back(unit_view(a, options));
+  }
+  for (auto& s : sites) {
+    double peak = 0;
+    for (const auto& u : s.units) {
+      s.installed_mva += u.rated_mva;
+      if (u.peak_load_mva) peak += *u.peak_load_mva;
+      else s.without_load.push_back(u.unit_id);
+    }
+    if (s.without_load.empty()) s.peak_load_mva = peak;
+    check_n1(s);
+  }
+  return sites;
+}
+
+std::vector<const SiteUnitView*> transfer_targets(const SiteView& site, const std::string& unit_id) {
+  std::vector<const SiteUnitView*> out;
+  for (const auto& u : site.units)
+    if (u.unit_id != unit_id && u.can_take_load() && u.spare_mva && *u.spare_mva > 0) out.push_back(&u);
+  std::stable_sort(out.begin(), out.end(), [](auto* x, auto* y) { return *x->spare_mva > *y->spare_mva; });
+  return out;
+}
+
+std::string transfer_advice(const SiteView& site, const std::string& unit_id) {
+  const auto targets = transfer_targets(site, unit_id);
+  if (!targets.empty()) {
+    std::string s = "Reduce the load or transfer load to ";
+    for (std::size_t i = 0; i < targets.size(); ++i)
+      s += (i == 0 ? "" : i + 1 == targets.size() ? " or " : ", ") + targets[i]->unit_id + " (" +
+           mva(*targets[i]->spare_mva) + " spare at nameplate)";
+    return s;
+  }
+  std::string why;
+  for (const auto& u : site.units) {
+    if (u.unit_id == unit_id) continue;
+    std::string r;
+    for (const auto& l : u.limits) r += (r.empty() ? "" : ", ") + l;
+    if (r.empty()) r = u.spare_mva ? "no spare capacity at nameplate" : "no load data";
+    why += (why.empty() ? "" : "; ") + u.unit_id + ": " + r;
+  }
+  return "Reduce the load: no other unit at " + (site.site.empty() ? std::string("the site") : site.site) +
+         " can take load" + (why.empty() ? " (the only unit there)" : " (" + why + ")");
+}
+
+std::string site_line(const SiteView& s) {
+  std::string line = "Site " + (s.site.empty() ? std::string("(none)") : s.site) + ": " +
+                     std::to_string(s.units.size()) + (s.units.size() == 1 ? " unit, " : " units, ") +
+                     mva(s.installed_mva, true) + " installed, peak load " +
+                     (s.peak_load_mva ? mva(*s.peak_load_mva) + " (sum of the units' peaks)" : std::string("unknown")) +
+                     ". " + s.n1_text + ".";
+  return line;
+}
+
+void apply_site_view(UnitAssessment& a, std::span<const SiteView> sites) {
+  const auto it = std::find_if(sites.begin(), sites.end(), [&](const SiteView& s) { return s.site == a.unit.site; });
+  if (it == sites.end()) return;
+  a.site_summary = site_line(*it);
+  const std::string advice = transfer_advice(*it, a.unit.unit_id);
+  for (auto& x : a.actions)
+    if (is_transfer_action(x)) x.text = advice;
+  if (a.decision.first_action && is_transfer_action(*a.decision.first_action)) a.decision.first_action->text = advice;
+}
+
+void apply_site_view(std::vector<UnitAssessment>& units, std::span<const SiteView> sites) {
+  for (auto& a : units) apply_site_view(a, sites);
+}
+
+}  // namespace ferrum::analytics

@@ -1,0 +1,138 @@
+// Site view: load against installed capacity and N-1 with the largest unit
+// out (analytics/site_view.h). The N-1 criterion and the sum of unit peaks
+// are common planning practice, no published source; the capability of each
+// unit is its long-time emergency load (IEC 60076-7:2005 Table 4, 140 °C),
+// given here directly as the thermal part would have computed it.
+#include "analytics/site_view.h"
+
+#include <gtest/gtest.h>
+
+namespace ferrum::analytics {
+namespace {
+
+UnitAssessment unit(const std::string& id, const std::string& site, double mva, std::optional<double> peak_pu,
+                    std::optional<double> emergency_pu = 1.3) {
+  UnitAssessment a;
+  a.unit.unit_id = id;
+  a.unit.site = site;
+  a.unit.rated_mva = mva;
+  a.thermal.peak_load_pu = peak_pu;
+  if (peak_pu) a.thermal.emergency_load_pu = emergency_pu;
+  return a;
+}
+
+Action load_reduce() {
+  Action x;
+  x.priority = 3;
+  x.text = "Reduce the load or transfer load to other units";
+  x.reason = "model hot spot above 120 °C";
+  return x;
+}
+
+// Two 40 MVA units at half load: with one out, the other carries 1.3 × 40 =
+// 52 MVA against a 40 MVA peak (N-1, common practice; 1.3 p.u. stands for the
+// IEC 60076-7 long-time emergency capability).
+TEST(SiteView, NMinusOnePassesWhenTheOthersCarryThePeak) {
+  const std::vector<UnitAssessment> fleet = {unit("T1", "North", 40, 0.5), unit("T2", "North", 40, 0.45),
+                                             unit("T9", "South", 10, 0.2)};
+  const auto sites = site_view(fleet, {});
+  ASSERT_EQ(sites.size(), 2u);
+  const auto& s = sites[0];
+  EXPECT_EQ(s.site, "North");
+  EXPECT_DOUBLE_EQ(s.installed_mva, 80);
+  EXPECT_DOUBLE_EQ(*s.peak_load_mva, 38);  // 20 + 18: sum of the units' peaks
+  EXPECT_EQ(s.largest_unit, "T1");          // equal ratings: the higher peak goes out
+  EXPECT_DOUBLE_EQ(*s.n1_capacity_mva, 52);
+  EXPECT_DOUBLE_EQ(*s.n1_margin_mva, 14);
+  ASSERT_TRUE(s.n1_ok);
+  EXPECT_TRUE(*s.n1_ok);
+  EXPECT_FALSE(s.flagged());
+  EXPECT_NE(s.n1_text.find("N-1 passes"), std::string::npos);
+  // A site of one unit cannot carry its load with that unit out (N-1, common practice).
+  EXPECT_TRUE(sites[1].flagged());
+}
+
+// 40 + 20 MVA at 0.8 p.u.: 48 MVA of peak; with the 40 MVA unit out the
+// 20 MVA unit carries 1.3 × 20 = 26 MVA: short by 22 MVA (N-1 fails).
+TEST(SiteView, NMinusOneFailsAndIsFlagged) {
+  const std::vector<UnitAssessment> fleet = {unit("T1", "East", 40, 0.8), unit("T2", "East", 20, 0.8)};
+  const auto s = site_view(fleet, {}).at(0);
+  EXPECT_EQ(s.largest_unit, "T1");
+  EXPECT_DOUBLE_EQ(*s.peak_load_mva, 48);
+  EXPECT_DOUBLE_EQ(*s.n1_capacity_mva, 26);
+  EXPECT_DOUBLE_EQ(*s.n1_margin_mva, -22);
+  EXPECT_TRUE(s.flagged());
+  EXPECT_NE(s.n1_text.find("short by 22.0 MVA"), std::string::npos);
+  EXPECT_NE(site_line(s).find("60 MVA installed"), std::string::npos);
+}
+
+// A wet unit (water in paper 3.1 % > 2.5 %, [analysis] site_wet_paper_pct;
+// common practice) takes no transferred load: it counts with its own peak
+// only, so a site that passes with it fails without it, and no load-transfer
+// advice names it.
+TEST(SiteView, WetTargetTakesNoLoad) {
+  std::vector<UnitAssessment> fleet = {unit("T1", "West", 40, 0.6), unit("T2", "West", 40, 0.3)};
+  EXPECT_TRUE(*site_view(fleet, {}).at(0).n1_ok);  // 36 MVA peak, 52 MVA capability
+  EXPECT_NE(transfer_advice(site_view(fleet, {}).at(0), "T1").find("transfer load to T2"), std::string::npos);
+  fleet[1].oil.paper_moisture_pct = 3.1;
+  const auto sites = site_view(fleet, {});
+  const auto& s = sites.at(0);
+  EXPECT_TRUE(s.units[1].wet);
+  EXPECT_FALSE(s.units[1].can_take_load());
+  EXPECT_DOUBLE_EQ(*s.n1_capacity_mva, 12);  // T2 carries its own 12 MVA, no more
+  EXPECT_TRUE(s.flagged());
+  EXPECT_TRUE(transfer_targets(s, "T1").empty());
+  const std::string advice = transfer_advice(s, "T1");
+  EXPECT_EQ(advice.find("transfer load to"), std::string::npos);
+  EXPECT_NE(advice.find("no other unit at West can take load"), std::string::npos);
+  EXPECT_NE(advice.find("wet paper (3.1 % water"), std::string::npos);
+  // The threshold is the site's setting: 3.5 % makes 3.1 % acceptable.
+  SiteViewOptions o;
+  o.wet_paper_pct = 3.5;
+  EXPECT_TRUE(site_view(fleet, o).at(0).units[1].can_take_load());
+}
+
+// A constrained unit (hot spot above the 120 °C normal cyclic limit of
+// IEC 60076-7 Table 4 in the window) or an unhealthy one (unsafe inspection
+// item) is never a transfer target; a healthy neighbour with room is named
+// with its spare capacity at nameplate (rated − peak).
+TEST(SiteView, ConstrainedOrUnhealthyTargetExcluded) {
+  std::vector<UnitAssessment> fleet = {unit("T1", "Mill", 20, 1.1), unit("T2", "Mill", 20, 0.5),
+                                       unit("T3", "Mill", 20, 0.4), unit("T4", "Mill", 7.5, 0.2)};
+  fleet[0].thermal.hours_above_normal_cyclic = 30;
+  fleet[0].actions.push_back(load_reduce());
+  fleet[1].thermal.hours_above_normal_cyclic = 2;  // constrained
+  fleet[2].unsafe_inspection = true;               // unhealthy
+  const auto sites = site_view(fleet, {});
+  const auto& s = sites.at(0);
+  EXPECT_TRUE(s.units[1].constrained);
+  EXPECT_TRUE(s.units[2].unhealthy);
+  const auto targets = transfer_targets(s, "T1");
+  ASSERT_EQ(targets.size(), 1u);
+  EXPECT_EQ(targets[0]->unit_id, "T4");
+  EXPECT_DOUBLE_EQ(*targets[0]->spare_mva, 6);  // 7.5 − 1.5 MVA
+  apply_site_view(fleet, sites);
+  EXPECT_EQ(fleet[0].actions[0].text, "Reduce the load or transfer load to T4 (6.0 MVA spare at nameplate)");
+  EXPECT_NE(fleet[0].site_summary.find("Site Mill: 4 units, 67.5 MVA installed"), std::string::npos);
+  // With T4 unhealthy too, the advice says there is no target and why.
+  fleet[3].decision.action = "replace";
+  apply_site_view(fleet, site_view(fleet, {}));
+  EXPECT_EQ(fleet[0].actions[0].text.rfind("Reduce the load: no other unit at Mill can take load", 0), 0u);
+  EXPECT_NE(fleet[0].actions[0].text.find("T2: loading limited"), std::string::npos);
+  EXPECT_NE(fleet[0].actions[0].text.find("T4: unhealthy (decision: replace)"), std::string::npos);
+}
+
+// Without load data for a unit the site's peak is unknown: N-1 is not
+// assessed rather than guessed (absent data is absent).
+TEST(SiteView, MissingLoadLeavesNMinusOneUnknown) {
+  const std::vector<UnitAssessment> fleet = {unit("T1", "Hill", 40, 0.5), unit("T2", "Hill", 40, std::nullopt)};
+  const auto s = site_view(fleet, {}).at(0);
+  EXPECT_FALSE(s.peak_load_mva);
+  EXPECT_FALSE(s.n1_ok);
+  EXPECT_FALSE(s.flagged());
+  EXPECT_EQ(s.without_load, std::vector<std::string>{"T2"});
+  EXPECT_NE(s.n1_text.find("not assessed"), std::string::npos);
+}
+
+}  // namespace
+}  // namespace ferrum::analytics
