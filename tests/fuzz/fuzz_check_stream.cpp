@@ -72,6 +72,7 @@ struct CountingSink : ingest::RowSink {
   void inspection(const ingest::InspectionRow& r) override { seen(r.line); }
   void load_point(const ingest::LoadRow& r) override { seen(r.line); }
   void electrical(const ingest::ElectricalRow& r) override { seen(r.line); }
+  void work_status(const ingest::WorkStatusRow& r) override { seen(r.line); }
 };
 
 ingest::CheckOptions fixed_options() {
