@@ -7,6 +7,7 @@
 
 #include <algorithm>
 
+#include "analytics/action_plan.h"
 #include "analytics/iec60076_7_difference.h"
 
 namespace ferrum::analytics {
@@ -22,6 +23,12 @@ UnitData unit_with_hourly_load(double k, int days, double ambient = 20) {
   const Timestamp end = start_of(kAsOf + 1);
   for (Timestamp t = end - days * 86400LL; t < end; t += 3600) d.load.push_back({t, k, ambient});
   return d;
+}
+
+const Action* find_need(const UnitAssessment& a, const std::string& need) {
+  for (const auto& act : a.actions)
+    if (act.need == need) return &act;
+  return nullptr;
 }
 
 bool has_action(const UnitAssessment& a, const std::string& text, int priority) {
@@ -107,16 +114,32 @@ TEST(ThermalAssessment, InfraredAndUnsafeInspectionActions) {
   oil.rating = Rating::unsafe;
   d.inspections = {fans, oil};
   UnitAssessment a;
-  a.actions.push_back({3, kAsOf, "earlier action", "from another module"});
+  a.actions.push_back(dated_action(3, kAsOf, 0, "earlier action", "from another module", kSourceRegister, "other",
+                                   kCrewEngineering));
   assess_thermal(d, kAsOf, {}, a);
   ASSERT_EQ(a.infrared.size(), 1u);
   EXPECT_EQ(*a.infrared[0].severity, 4);
   EXPECT_TRUE(a.unsafe_inspection);
   ASSERT_FALSE(a.actions.empty());
   EXPECT_EQ(a.actions.front().priority, 1);  // unsafe item carried to the top
-  EXPECT_EQ(a.actions.front().due, kAsOf);
+  // Due dates count from the evidence, not from the assessment (issue #16):
+  // an unsafe item is due on the day it was found (common practice, no
+  // published source).
+  EXPECT_EQ(a.actions.front().found, kAsOf - 5);
+  EXPECT_EQ(a.actions.front().due, kAsOf - 5);
+  EXPECT_EQ(a.actions.front().need, "inspection:oil_level");
+  EXPECT_EQ(a.actions.front().source, kSourceInspection);
   EXPECT_TRUE(has_action(a, "Retighten or repair the LV bushing X2 connector immediately", 1));
+  const Action* ir = find_need(a, "ir-repair:LV bushing X2 connector");
+  ASSERT_NE(ir, nullptr);
+  EXPECT_EQ(ir->found, kAsOf - 10);      // the survey date
+  EXPECT_EQ(ir->due, kAsOf - 10 + 7);    // ferrum default: severity 4 within 7 days
+  EXPECT_TRUE(ir->outage);               // common practice, no published source: retightening needs an outage
+  EXPECT_EQ(ir->crew, kCrewMaintenance);
   EXPECT_TRUE(has_action(a, "Inspect fans", 3));  // overdue
+  const Action* visit = find_need(a, "inspection-visit");
+  ASSERT_NE(visit, nullptr);
+  EXPECT_EQ(visit->due, kAsOf - 400 + 365);  // ferrum interval 365 days (common practice): already past
   EXPECT_EQ(a.missing, std::vector<std::string>{"load series"});
 }
 
