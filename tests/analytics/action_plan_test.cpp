@@ -6,6 +6,7 @@
 #include <gtest/gtest.h>
 
 #include <algorithm>
+#include <tuple>
 
 #include "analytics/assess_unit.h"
 
@@ -200,26 +201,32 @@ TEST(ActionPlan, NoReclamationForAUnitToBeReplaced) {
   EXPECT_NE(find_need(a.actions, "replace")->reason.find("oil reclamation not proposed"), std::string::npos);
 }
 
+namespace {
+// Oil Class II from the sample of day 19800, paper water and DP as given.
+fa::UnitAssessment oil_class2_unit(double paper_water_pct, double dp) {
+  auto a = fresh_unit(80);
+  a.oil.paper_moisture_pct = paper_water_pct;
+  a.oil.sample_date = 19800;
+  a.paper.dp_estimate = dp;
+  a.actions.push_back(act(3, 19800, 180, "Recondition the oil (filtering, vacuum dehydration)", "oil Class II",
+                          "oil-recondition"));
+  return a;
+}
+}  // namespace
+
 // Wet paper is dried out with the active part; reconditioning the oil would
 // not dry it (paper water at or above 4 %: common practice, no published
 // source). The drying needs an outage and the maintenance crew.
 TEST(ActionPlan, WetPaperIsDriedOutInsteadOfReconditioningTheOil) {
-  auto a = fresh_unit(80);
-  a.oil.paper_moisture_pct = 6.5;
-  a.oil.sample_date = 19800;
-  a.paper.dp_estimate = 550;
-  a.actions.push_back(act(3, 19800, 180, "Recondition the oil (filtering, vacuum dehydration)", "oil Class II",
-                          "oil-recondition"));
+  auto a = oil_class2_unit(6.5, 550);
   fa::finalize_actions(a);
-  EXPECT_EQ(count_need(a.actions, "oil-recondition"), 0u);
   const fa::Action* d = find_need(a.actions, "dry-out");
   ASSERT_NE(d, nullptr);
-  EXPECT_TRUE(d->outage);
-  EXPECT_EQ(d->crew, fa::kCrewMaintenance);
-  EXPECT_EQ(d->found, 19800);
+  EXPECT_EQ(std::make_tuple(d->outage, d->crew, d->found), std::make_tuple(true, std::string(fa::kCrewMaintenance), 19800));
   EXPECT_EQ(d->due, 19800 + 180);  // the earlier due date of the reconditioning it replaces
   EXPECT_NE(d->reason.find("6.5 %"), std::string::npos);
   EXPECT_NE(d->reason.find("instead of oil reconditioning"), std::string::npos);
+  EXPECT_EQ(count_need(a.actions, "oil-recondition"), 0u);
   EXPECT_EQ(count_need(a.actions, "outage"), 1u);
 }
 
@@ -227,11 +234,7 @@ TEST(ActionPlan, WetPaperIsDriedOutInsteadOfReconditioningTheOil) {
 // the reconditioning stays and says why (common practice, no published
 // source).
 TEST(ActionPlan, BrittlePaperIsNotDriedOut) {
-  auto a = fresh_unit(80);
-  a.oil.paper_moisture_pct = 6.5;
-  a.paper.dp_estimate = 350;
-  a.actions.push_back(act(3, 19800, 180, "Recondition the oil (filtering, vacuum dehydration)", "oil Class II",
-                          "oil-recondition"));
+  auto a = oil_class2_unit(6.5, 350);
   fa::finalize_actions(a);
   EXPECT_EQ(count_need(a.actions, "dry-out"), 0u);
   const fa::Action* r = find_need(a.actions, "oil-recondition");
@@ -241,25 +244,28 @@ TEST(ActionPlan, BrittlePaperIsNotDriedOut) {
 
 // Dry paper (below 4 %): the oil is reconditioned, nothing is dried out.
 TEST(ActionPlan, DryPaperKeepsOilReconditioning) {
-  auto a = fresh_unit(80);
-  a.oil.paper_moisture_pct = 2.0;
-  a.paper.dp_estimate = 700;
-  a.actions.push_back(act(3, 19800, 180, "Recondition the oil (filtering, vacuum dehydration)", "oil Class II",
-                          "oil-recondition"));
+  auto a = oil_class2_unit(2.0, 700);
   fa::finalize_actions(a);
   EXPECT_EQ(count_need(a.actions, "dry-out"), 0u);
   EXPECT_EQ(count_need(a.actions, "oil-recondition"), 1u);
 }
 
+namespace {
+fa::UnitData onan_unit(const char* id, int year_built) {
+  fa::UnitData d;
+  d.info.unit_id = id;
+  d.info.cooling = "ONAN";
+  d.info.rated_mva = 20;
+  d.info.year_built = year_built;
+  return d;
+}
+}  // namespace
+
 // The whole assessment run twice, a week apart, on the same data: the due
 // dates of the same findings do not move (issue #16: dates anchored on the
 // evidence, not on the report date).
 TEST(ActionPlan, DueDatesHoldAWeekApart) {
-  fa::UnitData d;
-  d.info.unit_id = "T9";
-  d.info.cooling = "ONAN";
-  d.info.rated_mva = 20;
-  d.info.year_built = 1995;
+  fa::UnitData d = onan_unit("T9", 1995);
   fa::InfraredScan s;
   s.date = 20000 - 60;
   s.component = "HV bushing H1 connector";
@@ -303,11 +309,7 @@ TEST(ActionPlan, DueDatesHoldAWeekApart) {
 // the inspection date by rating (fair: next routine maintenance, 365 days;
 // poor: 90 days: ferrum defaults, common practice, no published source).
 TEST(ActionPlan, InspectionFindingsBecomeJobs) {
-  fa::UnitData d;
-  d.info.unit_id = "T8";
-  d.info.cooling = "ONAN";
-  d.info.rated_mva = 20;
-  d.info.year_built = 1980;
+  fa::UnitData d = onan_unit("T8", 1980);
   auto rec = [](fa::Day day, const char* item, fa::Rating r, const char* note) {
     fa::InspectionRecord x;
     x.date = day;
