@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <map>
 
 #include "analytics/action_plan.h"
 #include "analytics/ageing_rate.h"
@@ -172,16 +173,35 @@ void assess_infrared(const UnitData& data, Day as_of, const ThermalOptions& o, U
   }
 }
 
+// The first inspection of the unbroken run of inspections, up to the latest,
+// that rated the item as bad as now or worse: a finding re-inspected and
+// still there keeps the date it was found (issue #16). Same-day records: the
+// worst counts.
+Day finding_since(std::span<const InspectionRecord> records, const InspectionFinding& f) {
+  std::map<Day, Rating> worst;  // date -> worst rating of that day
+  for (const auto& r : records)
+    if (r.item == f.item && r.date <= f.date) {
+      auto [it, fresh] = worst.emplace(r.date, r.rating);
+      if (!fresh && static_cast<int>(r.rating) > static_cast<int>(it->second)) it->second = r.rating;
+    }
+  Day since = f.date;
+  for (auto it = worst.rbegin(); it != worst.rend() && static_cast<int>(it->second) >= static_cast<int>(f.rating); ++it)
+    since = it->first;
+  return since;
+}
+
 // The job an inspection finding calls for: an unsafe item is made safe at
 // once; any other item rated fair or worse is repaired by the maintenance
-// crew, due from the inspection date by its rating (sooner when it got worse).
-Action inspection_job(const InspectionFinding& f, const ThermalOptions& o) {
+// crew, due from the date it was found by its rating (sooner when it got
+// worse).
+Action inspection_job(const InspectionFinding& f, Day since, const ThermalOptions& o) {
   const int r = static_cast<int>(f.rating);  // 2 fair .. 5 unsafe
   const std::string item = words(f.item);
   const bool outage = std::find(o.outage_items.begin(), o.outage_items.end(), f.item) != o.outage_items.end();
-  const std::string note = f.note.empty() ? "" : " (" + f.note + ")";
+  const std::string note = (f.note.empty() ? "" : " (" + f.note + ")") +
+                           (since < f.date ? ", so rated since " + format_day(since) : "");
   if (f.rating == Rating::unsafe)
-    return dated_action(1, f.date, o.inspection_job_due_days[3], "Make safe or take out of service: " + item,
+    return dated_action(1, since, o.inspection_job_due_days[3], "Make safe or take out of service: " + item,
                         "inspection " + format_day(f.date) + " rated " + item + " unsafe" + note, kSourceInspection,
                         "inspection:" + f.item, kCrewMaintenance, false);
   int priority = 6 - r;  // fair 4, poor 3, very poor 2
@@ -192,7 +212,7 @@ Action inspection_job(const InspectionFinding& f, const ThermalOptions& o) {
     due_days = std::min(due_days, o.worse_item_due_days);
     reason += ", previously " + words(to_string(*f.previous));
   }
-  return dated_action(priority, f.date, due_days, "Repair or maintain the " + item + " (inspection finding)", reason,
+  return dated_action(priority, since, due_days, "Repair or maintain the " + item + " (inspection finding)", reason,
                       kSourceInspection, "inspection:" + f.item, kCrewMaintenance, outage);
 }
 
@@ -207,7 +227,8 @@ void assess_inspections(const UnitData& data, Day as_of, const ThermalOptions& o
   std::vector<Action> urgent;
   for (const auto& f : review.findings) {
     if (f.rating == Rating::good) continue;
-    (f.rating == Rating::unsafe ? urgent : out.actions).push_back(inspection_job(f, o));
+    const Day since = finding_since(data.inspections, f);
+    (f.rating == Rating::unsafe ? urgent : out.actions).push_back(inspection_job(f, since, o));
   }
   out.actions.insert(out.actions.begin(), urgent.begin(), urgent.end());
   if (!review.overdue_items.empty()) {

@@ -166,5 +166,33 @@ TEST(ThermalAssessment, ReductionKeepsBucketMaxima) {
   EXPECT_EQ(reduce_to_bucket_maxima(v, 1, &ThermalPoint::hot_spot_c).size(), 1u);
 }
 
+// A finding re-inspected and still there keeps the date it was first found:
+// the earth found unsafe and still unsafe at a spot check is due from the
+// first inspection (issue #16; make safe at once: common practice, no
+// published source). An item that was better in between starts afresh.
+TEST(ThermalAssessment, ReinspectedFindingKeepsItsFirstDate) {
+  auto rec = [](Day day, const char* item, Rating r) {
+    InspectionRecord x;
+    x.date = day;
+    x.item = item;
+    x.rating = r;
+    return x;
+  };
+  UnitData d;
+  d.inspections = {rec(kAsOf - 400, "grounding", Rating::good), rec(kAsOf - 47, "grounding", Rating::unsafe),
+                   rec(kAsOf - 12, "grounding", Rating::unsafe),
+                   rec(kAsOf - 400, "breather", Rating::poor), rec(kAsOf - 200, "breather", Rating::fair),
+                   rec(kAsOf - 12, "breather", Rating::poor)};
+  UnitAssessment a;
+  assess_thermal(d, kAsOf, {}, a);
+  const Action* earth = find_need(a, "inspection:grounding");
+  ASSERT_NE(earth, nullptr);
+  EXPECT_EQ(earth->found, kAsOf - 47);
+  EXPECT_EQ(earth->due, kAsOf - 47);
+  const Action* breather = find_need(a, "inspection:breather");
+  ASSERT_NE(breather, nullptr);
+  EXPECT_EQ(breather->found, kAsOf - 12);  // fair in between: this poor rating is a new finding
+}
+
 }  // namespace
 }  // namespace ferrum::analytics
