@@ -96,9 +96,9 @@ Day water_sample_date(const UnitAssessment& a) {
 // Coordination rules (see the header). Runs on the merged list.
 void coordinate(const ActionPlanOptions& o, UnitAssessment& a, const Decision& d) {
   auto& v = a.actions;
-  // No oil reclamation for a unit that is replaced: it does not restore the
-  // paper that ends the unit's life (IEEE C57.106 clause 7 scope: reclamation
-  // treats the oil only; the rule is common practice).
+  // No oil reclamation for a unit that is replaced: reclamation treats the
+  // oil, not the paper that ends the unit's life (common practice, no
+  // published source).
   if (d.action == "replace" && has_need(v, "oil-reclaim")) {
     v.erase(std::remove_if(v.begin(), v.end(), [](const Action& x) { return x.need == "oil-reclaim"; }), v.end());
     for (auto& x : v)

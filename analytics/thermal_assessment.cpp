@@ -227,7 +227,9 @@ void assess_inspections(const UnitData& data, Day as_of, const ThermalOptions& o
   std::vector<Action> urgent;
   for (const auto& f : review.findings) {
     if (f.rating == Rating::good) continue;
-    const Day since = finding_since(data.inspections, f);
+    // A fair item waits for the routine maintenance after the inspection
+    // that last reported it; poor or worse counts from when it was found.
+    const Day since = f.rating >= Rating::poor ? finding_since(data.inspections, f) : f.date;
     (f.rating == Rating::unsafe ? urgent : out.actions).push_back(inspection_job(f, since, o));
   }
   out.actions.insert(out.actions.begin(), urgent.begin(), urgent.end());

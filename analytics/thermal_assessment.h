@@ -38,10 +38,11 @@ struct ThermalOptions {
   std::array<int, 4> infrared_due_days = {365, 180, 30, 7};
   int cooling_check_due_days = 30;
   int worse_item_due_days = 90;          // an item rated worse than before: job due within at most this
-  // Inspection findings become maintenance jobs counted from the inspection
-  // date, by rating fair, poor, very poor, unsafe (common practice, no
-  // published source): at the next routine maintenance, within a quarter,
-  // within a month, at once.
+  // Inspection findings become maintenance jobs, by rating fair, poor, very
+  // poor, unsafe (common practice, no published source): at the next routine
+  // maintenance, within a quarter, within a month, at once. Counted from the
+  // inspection that last reported a fair item, and from the first of the
+  // unbroken run of inspections that found a poor or worse item.
   std::array<int, 4> inspection_job_due_days = {365, 90, 30, 0};
   // Items whose repair needs the unit out of service (common practice, no
   // published source).

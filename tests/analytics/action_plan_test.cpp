@@ -190,8 +190,8 @@ fa::UnitAssessment end_of_paper_life() {
 }  // namespace
 
 // Oil reclamation restores the oil, not the paper: not proposed for a unit
-// the decision replaces at the end of its paper life (IEEE C57.106-2015
-// clause 7 scope; the rule is common practice, no published source).
+// the decision replaces at the end of its paper life (common practice, no
+// published source).
 TEST(ActionPlan, NoReclamationForAUnitToBeReplaced) {
   auto a = end_of_paper_life();
   fa::finalize_actions(a);

@@ -182,7 +182,8 @@ TEST(ThermalAssessment, ReinspectedFindingKeepsItsFirstDate) {
   d.inspections = {rec(kAsOf - 400, "grounding", Rating::good), rec(kAsOf - 47, "grounding", Rating::unsafe),
                    rec(kAsOf - 12, "grounding", Rating::unsafe),
                    rec(kAsOf - 400, "breather", Rating::poor), rec(kAsOf - 200, "breather", Rating::fair),
-                   rec(kAsOf - 12, "breather", Rating::poor)};
+                   rec(kAsOf - 12, "breather", Rating::poor), rec(kAsOf - 400, "foundation", Rating::fair),
+                   rec(kAsOf - 12, "foundation", Rating::fair)};
   UnitAssessment a;
   assess_thermal(d, kAsOf, {}, a);
   const Action* earth = find_need(a, "inspection:grounding");
@@ -192,6 +193,12 @@ TEST(ThermalAssessment, ReinspectedFindingKeepsItsFirstDate) {
   const Action* breather = find_need(a, "inspection:breather");
   ASSERT_NE(breather, nullptr);
   EXPECT_EQ(breather->found, kAsOf - 12);  // fair in between: this poor rating is a new finding
+  // A fair item is maintained at the routine maintenance after the inspection
+  // that last reported it (ferrum default 365 days: common practice).
+  const Action* foundation = find_need(a, "inspection:foundation");
+  ASSERT_NE(foundation, nullptr);
+  EXPECT_EQ(foundation->found, kAsOf - 12);
+  EXPECT_EQ(foundation->due, kAsOf - 12 + 365);
 }
 
 }  // namespace
