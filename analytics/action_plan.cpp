@@ -5,8 +5,10 @@
 #include <cmath>
 #include <cstdio>
 #include <map>
+#include <optional>
 #include <tuple>
 
+#include "analytics/calendar.h"
 #include "analytics/health_index.h"
 #include "analytics/work_status.h"
 
@@ -48,24 +50,94 @@ void add_reason(std::string& reasons, const std::string& r) {
 }
 
 void add_data_actions(const ActionPlanOptions& o, UnitAssessment& a) {
+  const int stale_days = static_cast<int>(std::lround(o.stale_after_years * 365.25));
   for (const auto& f : data_freshness(a)) {
     const char* text = nullptr;
     int priority = 4;
+    const char* crew = kCrewMaintenance;
+    std::string need;
     if (f.kind == "oil") {
       text = "Take an oil sample for DGA, oil quality and furans";
       priority = 3;
+      crew = kCrewOilSampling;
+      need = "oil-resample";
     } else if (f.kind == "infrared") {
       text = "Carry out an infrared survey";
+      crew = kCrewThermography;
+      need = "ir-survey";
     } else if (f.kind == "inspection") {
       text = "Carry out a visual inspection";
+      need = "inspection-visit";
     }
     if (!text) continue;  // the load record is the daemon's, not a field task
+    // None on record: due data_due_days from the assessment. Stale: due
+    // data_due_days after the latest data went stale, so the date holds.
     if (!f.latest)
-      a.actions.push_back({priority, a.as_of + o.data_due_days, text, "no " + f.kind + " data on record"});
+      a.actions.push_back(dated_action(priority, a.as_of, o.data_due_days, text, "no " + f.kind + " data on record",
+                                       kSourceDataAge, need, crew));
     else if (f.age_years && *f.age_years > o.stale_after_years)
-      a.actions.push_back({priority, a.as_of + o.data_due_days, text,
-                           "latest " + f.kind + " data " + fmt(*f.age_years, 1) + " years old"});
+      a.actions.push_back(dated_action(priority, *f.latest, stale_days + o.data_due_days, text,
+                                       "latest " + f.kind + " data " + fmt(*f.age_years, 1) + " years old (" +
+                                           format_day(*f.latest) + ")",
+                                       kSourceDataAge, need, crew));
   }
+}
+
+bool has_need(const std::vector<Action>& v, const std::string& need) {
+  return std::any_of(v.begin(), v.end(), [&](const Action& x) { return x.need == need; });
+}
+
+// The oil sample that gave the paper's water content: the latest with water.
+Day water_sample_date(const UnitAssessment& a) {
+  for (const auto& act : a.actions)
+    if (act.need == "oil-recondition" && act.found) return act.found;
+  return a.oil.sample_date.value_or(a.as_of);
+}
+
+// Coordination rules (see the header). Runs on the merged list.
+void coordinate(const ActionPlanOptions& o, UnitAssessment& a, const Decision& d) {
+  auto& v = a.actions;
+  // No oil reclamation for a unit that is replaced: reclamation treats the
+  // oil, not the paper that ends the unit's life (common practice, no
+  // published source).
+  if (d.action == "replace" && has_need(v, "oil-reclaim")) {
+    v.erase(std::remove_if(v.begin(), v.end(), [](const Action& x) { return x.need == "oil-reclaim"; }), v.end());
+    for (auto& x : v)
+      if (x.need == "replace") add_reason(x.reason, "oil reclamation not proposed: it does not restore the paper");
+  }
+  // Wet paper: dry out the active part rather than recondition the oil.
+  const auto& pm = a.oil.paper_moisture_pct;
+  if (pm && *pm >= o.wet_paper_pct) {
+    const auto& dp = a.paper.dp_estimate;
+    const std::string wet = "paper water content " + fmt(*pm, 1) + " % (Fessler equilibrium from the oil), at or above " +
+                            fmt(o.wet_paper_pct, 1) + " %";
+    if (dp && *dp < o.decision.dry_out_min_dp) {
+      for (auto& x : v)
+        if (x.need == "oil-recondition")
+          add_reason(x.reason, wet + ", but drying out the active part is not advised: paper DP about " + fmt(*dp, 0) +
+                                   " is below " + fmt(o.decision.dry_out_min_dp, 0) + ", too brittle to dry out");
+    } else if (!has_need(v, "dry-out")) {
+      v.push_back(dated_action(3, water_sample_date(a), o.dry_out_due_days,
+                               "Dry out the active part (and the oil) during an outage",
+                               wet + ": oil reconditioning alone would not dry the paper", kSourceOilSample, "dry-out",
+                               kCrewMaintenance, true));
+    }
+  }
+  // Drying out the active part dries the oil too: it replaces reconditioning.
+  auto dry = std::find_if(v.begin(), v.end(), [](const Action& x) { return x.need == "dry-out"; });
+  auto rec = std::find_if(v.begin(), v.end(), [](const Action& x) { return x.need == "oil-recondition"; });
+  if (dry != v.end() && rec != v.end()) {
+    dry->priority = std::min(dry->priority, rec->priority);
+    if (rec->due < dry->due) dry->due = rec->due, dry->found = rec->found;
+    add_reason(dry->reason, "instead of oil reconditioning (" + rec->reason + ")");
+    v.erase(rec);
+  }
+}
+
+void sort_actions(std::vector<Action>& v) {
+  std::sort(v.begin(), v.end(), [](const Action& x, const Action& y) {
+    return std::tie(x.priority, x.due, x.text) < std::tie(y.priority, y.due, y.text);
+  });
 }
 
 }  // namespace
@@ -74,20 +146,43 @@ std::vector<Action> merge_actions(const std::vector<Action>& actions) {
   std::vector<Action> out;
   std::map<std::string, std::size_t> index;
   for (const auto& act : actions) {
-    auto [it, fresh] = index.emplace(merge_key(act.text), out.size());
+    auto [it, fresh] = index.emplace(act.need.empty() ? "text:" + merge_key(act.text) : act.need, out.size());
     if (fresh) {
       out.push_back(act);
       continue;
     }
     Action& m = out[it->second];
-    if (act.priority < m.priority) m.text = act.text;  // the most urgent wording leads
+    if (act.priority < m.priority) {  // the most urgent wording, evidence and crew lead
+      m.text = act.text;
+      m.source = act.source;
+      m.crew = act.crew;
+    }
     m.priority = std::min(m.priority, act.priority);
-    m.due = std::min(m.due, act.due);
+    if (act.due < m.due) m.due = act.due, m.found = act.found;
+    m.outage = m.outage || act.outage;
     add_reason(m.reason, act.reason);
   }
-  std::sort(out.begin(), out.end(), [](const Action& x, const Action& y) {
-    return std::tie(x.priority, x.due, x.text) < std::tie(y.priority, y.due, y.text);
-  });
+  sort_actions(out);
+  return out;
+}
+
+std::optional<Action> outage_action(const std::vector<Action>& actions) {
+  const Action* lead = nullptr;
+  std::string jobs;
+  int priority = 5;
+  for (const auto& x : actions) {
+    if (!x.outage || x.need == "outage") continue;
+    if (!lead || x.due < lead->due) lead = &x;
+    priority = std::min(priority, x.priority);
+    std::string job = x.text;
+    while (!job.empty() && job.back() == '.') job.pop_back();
+    if (!job.empty()) job[0] = static_cast<char>(std::tolower(static_cast<unsigned char>(job[0])));
+    jobs += (jobs.empty() ? "" : "; ") + job;
+  }
+  if (!lead) return std::nullopt;
+  Action out = dated_action(priority, lead->found, static_cast<int>(lead->due - lead->found), "Plan an outage for: " + jobs,
+                            "these jobs need the unit out of service: one outage, by the earliest due date",
+                            lead->source.c_str(), "outage", kCrewEngineering, true);
   return out;
 }
 
@@ -113,9 +208,20 @@ void finalize_actions(const ActionPlanOptions& o, UnitAssessment& a) {
   Decision d = decide(o.decision, a);
   for (auto& act : decision_actions(o.decision, a, d)) a.actions.push_back(std::move(act));
   a.actions = merge_actions(a.actions);
+  coordinate(o, a, d);
+  if (auto outage = outage_action(a.actions)) a.actions.push_back(std::move(*outage));
+  for (auto& act : a.actions) {
+    act.reference = action_reference(a.unit.unit_id, act.need.empty() ? merge_key(act.text) : act.need);
+    act.overdue = act.due < a.as_of;
+  }
+  // Planners' work status (booked, done, cancelled: the work-status kind of
+  // issue #16) is applied here, once references and overdue flags are set.
   apply_work_status(a.work_status, a.unit.unit_id, a.actions, a.closed_actions);
+  sort_actions(a.actions);
   if (!a.actions.empty()) d.first_action = a.actions.front();
-  if (!d.year) d.year = civil_from_days(d.first_action ? d.first_action->due : a.as_of + 365).year;
+  if (!d.year)
+    d.year = std::max(civil_from_days(a.as_of).year,
+                      civil_from_days(d.first_action ? d.first_action->due : a.as_of + 365).year);
   a.decision = std::move(d);
 }
 

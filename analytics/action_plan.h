@@ -1,10 +1,20 @@
 // Recommended actions of one assessment: merges the actions that the oil,
 // thermal and other parts appended, adds the actions that stale data and the
 // unit's decision (analytics/decision/decision.h: replace, refurbish, repair,
-// investigate, monitor, routine) call for, orders the list and records the
-// decision with the unit's most urgent action.
+// investigate, monitor, routine) call for, coordinates them, orders the list
+// and records the decision with the unit's most urgent action.
 //
-// The due dates of the stale-data actions are ferrum's own defaults.
+// Every action is anchored on its evidence (issue #16): due = found + an
+// interval, so due dates hold from week to week and fall overdue.
+// One need is one action (Action::need): duplicates merge. Coordination
+// (common practice, no published source):
+//  * no oil reclamation for a unit the decision replaces;
+//  * wet paper (water content at or above wet_paper_pct) is dried out with
+//    the active part, which oil reconditioning would not do; unless the
+//    paper's DP is below dry_out_min_dp, too brittle to dry out;
+//  * the jobs that need the unit out of service are gathered into one
+//    "Plan an outage for: ..." action.
+// The intervals of the stale-data actions are ferrum's own defaults.
 // Order: priority (1 = most urgent), then due date, then text.
 #pragma once
 
@@ -15,7 +25,13 @@ namespace ferrum::analytics {
 
 struct ActionPlanOptions {
   double stale_after_years = 1.0;      // oil / infrared / inspection data older than this
-  int data_due_days = 90;
+  int data_due_days = 90;             // after the data went stale
+  // Paper water content (%, Fessler equilibrium, analytics/moisture_oil_paper.h)
+  // at or above which the active part is dried out instead of the oil being
+  // reconditioned; 4 % is common practice (no published source). The DP
+  // below which drying is not advised is decision.dry_out_min_dp.
+  double wet_paper_pct = 4.0;
+  int dry_out_due_days = 365;        // from the oil sample that found the wet paper
   DecisionOptions decision;
 };
 
@@ -31,15 +47,25 @@ Action dated_action(int priority, Day found, int due_days, std::string text, std
 // Same as finalize_actions(ActionPlanOptions{}, a).
 void finalize_actions(UnitAssessment& a);
 // Adds the data-driven actions, decides (a.decision), adds the decision's
-// actions, merges actions whose text is the same (ignoring case, spacing and
-// a final full stop: the most urgent priority, the earliest due date and every
-// distinct reason are kept), sorts by priority, due date, text, and sets
+// actions, merges actions of one need (merge_actions), applies the
+// coordination rules above, adds the one outage action, sets each action's
+// reference (action_reference(unit id, need)) and overdue flag (due before
+// a.as_of), sorts by priority, due date, text, and sets
 // a.decision.first_action to the first of them and, for every action but a
-// replacement, a.decision.year to the year of that action's due date (the
-// year of next year's routine visit when there is no action).
+// replacement, a.decision.year to the year of that action's due date, never
+// before the as-of year (the year of next year's routine visit when there is
+// no action).
 void finalize_actions(const ActionPlanOptions& options, UnitAssessment& a);
 
-// The merge and sort step alone.
+// The merge and sort step alone: actions of one need (of the same text when
+// the need is empty, ignoring case, spacing and a final full stop) become
+// one, with the most urgent priority and wording, the earliest due date (and
+// its found date), every distinct reason, and an outage when any needs one.
 std::vector<Action> merge_actions(const std::vector<Action>& actions);
+
+// The one "Plan an outage for: ..." action (need "outage") gathering every
+// action with outage = true: the most urgent priority, the earliest due date.
+// nullopt when no action needs an outage.
+std::optional<Action> outage_action(const std::vector<Action>& actions);
 
 }  // namespace ferrum::analytics

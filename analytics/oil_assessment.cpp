@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cstdio>
 
+#include "analytics/action_plan.h"
 #include "analytics/dga_gases.h"
 #include "analytics/duval_triangle1.h"
 #include "analytics/iec60599_ratios.h"
@@ -191,7 +192,7 @@ bool has_full_quality_test(const OilSample& s) {
 }
 bool has_furan(const OilSample& s) { return s.furan_2fal_ppb.present(); }
 
-void assess_quality(const std::vector<OilSample>& samples, const UnitInfo& unit, Day as_of, const OilOptions& o,
+void assess_quality(const std::vector<OilSample>& samples, const UnitInfo& unit, Day /*as_of*/, const OilOptions& o,
                     UnitAssessment& out) {
   // Labs measure water with every DGA sample but the full quality tests
   // (breakdown, acidity, IFT, power factor, colour) less often: take the
@@ -216,13 +217,18 @@ void assess_quality(const std::vector<OilSample>& samples, const UnitInfo& unit,
   out.oil.oil_class = r.oil_class + (r.class_reason.empty() ? "" : " (" + r.class_reason + ")");
   out.oil.notes.insert(out.oil.notes.end(), r.notes.begin(), r.notes.end());
   out.methods.push_back(method_line(r.method, r.source));
+  // Counted from the newest sample the class rests on. Both treatments are
+  // done by an oil-processing (maintenance) crew and can run on line.
+  const Day found = std::max(q->date, m ? m->date : q->date);
   if (r.oil_class == "Class III")
-    out.actions.push_back(make_action(2, as_of + o.reclaim_due_days, "Reclaim the oil (Fuller's earth treatment)",
-                                      "oil Class III per IEEE C57.106 clause 7: " + r.class_reason));
+    out.actions.push_back(dated_action(2, found, o.reclaim_due_days, "Reclaim the oil (Fuller's earth treatment)",
+                                       "oil Class III per IEEE C57.106 clause 7: " + r.class_reason, kSourceOilSample,
+                                       "oil-reclaim", kCrewMaintenance));
   else if (r.oil_class == "Class II")
-    out.actions.push_back(make_action(3, as_of + o.recondition_due_days,
-                                      "Recondition the oil (filtering, vacuum dehydration)",
-                                      "oil Class II per IEEE C57.106 clause 7: " + r.class_reason));
+    out.actions.push_back(dated_action(3, found, o.recondition_due_days,
+                                       "Recondition the oil (filtering, vacuum dehydration)",
+                                       "oil Class II per IEEE C57.106 clause 7: " + r.class_reason, kSourceOilSample,
+                                       "oil-recondition", kCrewMaintenance));
 }
 
 void assess_water(const std::vector<OilSample>& samples, const OilOptions& o, UnitAssessment& out) {

@@ -3,7 +3,9 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <map>
 
+#include "analytics/action_plan.h"
 #include "analytics/ageing_rate.h"
 #include "analytics/words.h"
 
@@ -22,9 +24,6 @@ std::string join(const std::vector<std::string>& v) {
   return s;
 }
 
-Action action(int priority, Day due, std::string text, std::string reason) {
-  return Action{priority, due, std::move(text), std::move(reason)};
-}
 
 // Window of the summary: [as_of − summary_days + 1, as_of], whole days.
 struct Window {
@@ -53,18 +52,22 @@ void fill_parameters(const ThermalModel& model, const UnitInfo& unit, UnitAssess
     out.assumptions.push_back("cooling '" + unit.cooling + "' not recognised: treated as ONAN medium/large");
 }
 
+// Load and cooling actions count from the last load point of the summary
+// window (the evidence), falling back to as_of.
 void thermal_actions(const ThermalSummary& th, Day as_of, const ThermalOptions& o, const std::string& method,
                      UnitAssessment& out) {
+  const Day found = th.to ? day_of(*th.to) : as_of;
   if (th.top_oil_discrepancy_k && *th.top_oil_discrepancy_k > o.discrepancy_threshold_k)
-    out.actions.push_back(action(
-        2, as_of + o.cooling_check_due_days,
+    out.actions.push_back(dated_action(
+        2, found, o.cooling_check_due_days,
         "Check the cooling system (fans, pumps, radiators, valves, oil level) and the top-oil sensor",
         "measured top oil runs " + fmt("%.1f", *th.top_oil_discrepancy_k) + " K above the " + method +
-            " model on average (threshold " + fmt("%.1f", o.discrepancy_threshold_k) + " K)"));
+            " model on average (threshold " + fmt("%.1f", o.discrepancy_threshold_k) + " K)",
+        kSourceLoad, "cooling-check", kCrewMaintenance));
   if (th.hours_above_normal_cyclic.value_or(0) > 0) {
     const bool emergency = th.hours_above_long_emergency.value_or(0) > 0;
-    out.actions.push_back(action(
-        emergency ? 2 : 3, as_of + (emergency ? 30 : 90),
+    out.actions.push_back(dated_action(
+        emergency ? 2 : 3, found, emergency ? 30 : 90,
         "Reduce the load, or transfer load to a unit the site view names as able to take it",
         std::string(th.hot_spot_from_measured_top_oil ? "hot spot (from measured top oil)" : "model hot spot") +
             " above " + fmt("%.0f", th.normal_cyclic_limit_c) + " °C for " +
@@ -72,7 +75,8 @@ void thermal_actions(const ThermalSummary& th, Day as_of, const ThermalOptions& 
             (emergency ? " and above " + fmt("%.0f", th.long_emergency_limit_c) + " °C for " +
                              fmt("%.1f", *th.hours_above_long_emergency) + " h"
                        : std::string()) +
-            " in the last period (IEC 60076-7 loading limits)"));
+            " in the last period (IEC 60076-7 loading limits)",
+        kSourceLoad, "load-reduce", kCrewEngineering));
   }
 }
 
@@ -242,8 +246,56 @@ void assess_infrared(const UnitData& data, Day as_of, const ThermalOptions& o, U
     std::snprintf(text, sizeof text, kText[s - 1], f.component.c_str());
     std::string reason = "infrared survey " + format_day(f.date) + ": " + f.severity_text;
     if (f.corrected_rise_k) reason += ", " + fmt("%.1f", *f.corrected_rise_k) + " K at rated load";
-    out.actions.push_back(action(5 - s, as_of + o.infrared_due_days[s - 1], text, reason));
+    // Severity 3-4 (retighten or repair) takes the connection out of service;
+    // severity 2 is watched by the thermographer; severity 1 waits for the
+    // next planned outage (common practice, no published source).
+    out.actions.push_back(dated_action(5 - s, f.date, o.infrared_due_days[s - 1], text, reason, kSourceInfrared,
+                                       "ir-repair:" + f.component, s == 2 ? kCrewThermography : kCrewMaintenance,
+                                       s >= 3));
   }
+}
+
+// The first inspection of the unbroken run of inspections, up to the latest,
+// that rated the item as bad as now or worse: a finding re-inspected and
+// still there keeps the date it was found (issue #16). Same-day records: the
+// worst counts.
+Day finding_since(std::span<const InspectionRecord> records, const InspectionFinding& f) {
+  std::map<Day, Rating> worst;  // date -> worst rating of that day
+  for (const auto& r : records)
+    if (r.item == f.item && r.date <= f.date) {
+      auto [it, fresh] = worst.emplace(r.date, r.rating);
+      if (!fresh && static_cast<int>(r.rating) > static_cast<int>(it->second)) it->second = r.rating;
+    }
+  Day since = f.date;
+  for (auto it = worst.rbegin(); it != worst.rend() && static_cast<int>(it->second) >= static_cast<int>(f.rating); ++it)
+    since = it->first;
+  return since;
+}
+
+// The job an inspection finding calls for: an unsafe item is made safe at
+// once; any other item rated fair or worse is repaired by the maintenance
+// crew, due from the date it was found by its rating (sooner when it got
+// worse).
+Action inspection_job(const InspectionFinding& f, Day since, const ThermalOptions& o) {
+  const int r = static_cast<int>(f.rating);  // 2 fair .. 5 unsafe
+  const std::string item = words(f.item);
+  const bool outage = std::find(o.outage_items.begin(), o.outage_items.end(), f.item) != o.outage_items.end();
+  const std::string note = (f.note.empty() ? "" : " (" + f.note + ")") +
+                           (since < f.date ? ", so rated since " + format_day(since) : "");
+  if (f.rating == Rating::unsafe)
+    return dated_action(1, since, o.inspection_job_due_days[3], "Make safe or take out of service: " + item,
+                        "inspection " + format_day(f.date) + " rated " + item + " unsafe" + note, kSourceInspection,
+                        "inspection:" + f.item, kCrewMaintenance, false);
+  int priority = 6 - r;  // fair 4, poor 3, very poor 2
+  int due_days = o.inspection_job_due_days[r - 2];
+  std::string reason = item + " rated " + words(to_string(f.rating)) + " on " + format_day(f.date) + note;
+  if (f.worse) {
+    priority = std::min(priority, 3);
+    due_days = std::min(due_days, o.worse_item_due_days);
+    reason += ", previously " + words(to_string(*f.previous));
+  }
+  return dated_action(priority, since, due_days, "Repair or maintain the " + item + " (inspection finding)", reason,
+                      kSourceInspection, "inspection:" + f.item, kCrewMaintenance, outage);
 }
 
 void assess_inspections(const UnitData& data, Day as_of, const ThermalOptions& o, UnitAssessment& out) {
@@ -256,21 +308,26 @@ void assess_inspections(const UnitData& data, Day as_of, const ThermalOptions& o
   out.unsafe_inspection = !review.unsafe_items.empty();
   std::vector<Action> urgent;
   for (const auto& f : review.findings) {
-    if (f.rating == Rating::unsafe)
-      urgent.push_back(action(1, as_of, "Make safe or take out of service: " + words(f.item),
-                              "inspection " + format_day(f.date) + " rated " + words(f.item) + " unsafe" +
-                                  (f.note.empty() ? "" : " (" + f.note + ")")));
-    else if (f.worse)
-      out.actions.push_back(action(3, as_of + o.worse_item_due_days, "Re-inspect and plan repair of " + words(f.item),
-                                   words(f.item) + " rated " + words(to_string(f.rating)) + " on " + format_day(f.date) +
-                                       ", previously " + words(to_string(*f.previous))));
+    if (f.rating == Rating::good) continue;
+    // A fair item waits for the routine maintenance after the inspection
+    // that last reported it; poor or worse counts from when it was found.
+    const Day since = f.rating >= Rating::poor ? finding_since(data.inspections, f) : f.date;
+    (f.rating == Rating::unsafe ? urgent : out.actions).push_back(inspection_job(f, since, o));
   }
   out.actions.insert(out.actions.begin(), urgent.begin(), urgent.end());
-  if (!review.overdue_items.empty())
-    out.actions.push_back(action(3, as_of + o.overdue_inspection_due_days,
-                                 "Inspect " + words(join(review.overdue_items)),
-                                 "last inspection more than " + std::to_string(o.inspection.interval_days) +
-                                     " days before " + format_day(as_of) + " (ferrum inspection interval)"));
+  if (!review.overdue_items.empty()) {
+    // Due when the oldest of the overdue items fell due: its last inspection
+    // plus the interval (already past, so the visit shows as overdue).
+    Day oldest = as_of;
+    for (const auto& f : review.findings)
+      if (std::find(review.overdue_items.begin(), review.overdue_items.end(), f.item) != review.overdue_items.end())
+        oldest = std::min(oldest, f.date);
+    out.actions.push_back(dated_action(3, oldest, o.inspection.interval_days, "Inspect " + words(join(review.overdue_items)),
+                                       "last inspection of these items on " + format_day(oldest) + ", more than " +
+                                           std::to_string(o.inspection.interval_days) + " days before " +
+                                           format_day(as_of) + " (ferrum inspection interval)",
+                                       kSourceInspection, "inspection-visit", kCrewMaintenance));
+  }
 }
 
 }  // namespace

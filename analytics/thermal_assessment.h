@@ -41,8 +41,18 @@ struct ThermalOptions {
   // Days until an infrared repair is due, by severity 1..4 (NETA priority 4..1).
   std::array<int, 4> infrared_due_days = {365, 180, 30, 7};
   int cooling_check_due_days = 30;
-  int overdue_inspection_due_days = 30;
-  int worse_item_due_days = 90;
+  int worse_item_due_days = 90;          // an item rated worse than before: job due within at most this
+  // Inspection findings become maintenance jobs, by rating fair, poor, very
+  // poor, unsafe (common practice, no published source): at the next routine
+  // maintenance, within a quarter, within a month, at once. Counted from the
+  // inspection that last reported a fair item, and from the first of the
+  // unbroken run of inspections that found a poor or worse item.
+  std::array<int, 4> inspection_job_due_days = {365, 90, 30, 0};
+  // Items whose repair needs the unit out of service (common practice, no
+  // published source).
+  std::vector<std::string> outage_items{"bushings",       "gaskets_and_leaks",      "on_load_tap_changer",
+                                        "off_circuit_tap_changer", "buchholz_relay", "pressure_relief_device",
+                                        "surge_arresters", "connectors_and_clamps"};
 };
 
 // Fills out.thermal, out.infrared, out.inspection, out.unsafe_inspection and

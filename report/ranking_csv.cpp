@@ -36,7 +36,8 @@ std::string fleet_ranking_csv(const analytics::FleetRanking& ranking) {
   std::string csv =
       "rank,tied,unit_id,site,rated_mva,health_index,band,remaining_life_years,beyond_horizon,limiting_factor,"
       "probability_of_failure,failures_per_1000_unit_years,consequence,risk,recommended_action,action_year,"
-      "first_action_priority,first_action_due,first_action,action_reason,insufficient_data,note\n";
+      "first_action_priority,first_action_due,first_action_overdue,first_action_reference,first_action,action_reason,"
+      "insufficient_data,note\n";
   for (const auto& u : ranking.units) {
     const std::string fields[] = {u.insufficient_data ? "" : std::to_string(u.rank), u.tied ? "yes" : "no",
                                   quote(u.unit_id), quote(u.site), number(u.rated_mva), number(u.health_index),
@@ -46,6 +47,8 @@ std::string fleet_ranking_csv(const analytics::FleetRanking& ranking) {
                                   quote(u.recommended_action), integer(u.action_year),
                                   u.first_action ? std::to_string(u.first_action->priority) : "",
                                   u.first_action ? analytics::format_day(u.first_action->due) : "",
+                                  u.first_action ? (u.first_action->overdue ? "yes" : "no") : "",
+                                  quote(u.first_action ? u.first_action->reference : ""),
                                   quote(u.first_action ? u.first_action->text : ""), quote(u.action_reason),
                                   u.insufficient_data ? "yes" : "no", quote(u.note)};
     bool first = true;

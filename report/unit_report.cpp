@@ -133,11 +133,20 @@ void actions_table(PageFlow& flow, const UnitAssessment& a) {
   std::stable_sort(sorted.begin(), sorted.end(), [](const auto& x, const auto& y) {
     return x.priority != y.priority ? x.priority < y.priority : x.due < y.due;
   });
+  // Planner's columns (issue #16): the evidence the due date counts from,
+  // the due date and whether it is past, the crew and whether the unit must
+  // be out of service, and the reference quoted in a work-status file.
   Table t;
-  t.columns = {{"Priority", 0.95}, {"Due", 1.15}, {"Action", 3.6}, {"Why", 2.8}};
+  t.columns = {{"Priority", 0.8}, {"Found", 1.2}, {"Due", 1.2}, {"Action", 3.15}, {"Why", 2.3}, {"Crew", 1.35}};
   for (const auto& act : sorted) {
-    t.rows.push_back({priority_title(act.priority), fmt_day(act.due), act.text, act.reason});
-    t.emphasis.push_back(act.priority == 1);
+    const std::string found =
+        act.found ? fmt_day(act.found) + (act.source.empty() ? "" : "\n" + act.source) : act.source;
+    const std::string due = fmt_day(act.due) + (act.overdue ? "\nOVERDUE" : "");
+    const std::string action = act.text + (act.reference.empty() ? "" : "\nref. " + act.reference);
+    const std::string crew = (act.crew.empty() ? std::string("-") : act.crew) +
+                             (act.outage ? "\noutage: yes" : "\noutage: no");
+    t.rows.push_back({priority_title(act.priority), found, due, action, act.reason, crew});
+    t.emphasis.push_back(act.priority == 1 || act.overdue);
   }
   flow.table(t);
 }

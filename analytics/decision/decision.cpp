@@ -5,6 +5,7 @@
 #include <cstdio>
 #include <map>
 
+#include "analytics/action_plan.h"
 #include "analytics/electrical/electrical_assessment.h"
 #include "analytics/health_index.h"
 #include "analytics/words.h"
@@ -331,7 +332,15 @@ Decision decide(const DecisionOptions& o, const UnitAssessment& a) {
 }
 
 std::vector<Action> decision_actions(const DecisionOptions& o, const UnitAssessment& a, const Decision& d) {
+  // A decision on the whole unit rests on no one dated piece of evidence: its
+  // actions count from the assessment date (issue #16), except the treatment
+  // of the oil or the paper and a resample, which count from the latest oil
+  // sample.
   std::vector<Action> out;
+  std::optional<Day> last_oil = a.dga.sample_date;
+  for (const auto& d : {a.oil.sample_date, a.paper.sample_date})
+    if (d && (!last_oil || *d > *last_oil)) last_oil = d;
+  const Day sampled = last_oil.value_or(a.as_of);
   if (d.action == "replace" && d.year) {
     const double life = a.remaining_life.years.value_or(0);
     const Day in_service = days_after(a.as_of, std::max(life, lead_years(o)));
@@ -341,23 +350,34 @@ std::vector<Action> decision_actions(const DecisionOptions& o, const UnitAssessm
     // replace_priority_days it is a priority-2 action.
     const Day order_by = std::max(a.as_of, in_service - static_cast<Day>(std::lround(lead_years(o) * 365.25)));
     const bool soon = order_by <= a.as_of + o.replace_priority_days;
-    out.push_back({soon ? 2 : 3, order_by,
-                   "Start procurement of the replacement (" + std::to_string(o.lead_time_months) + "-month lead time)",
-                   d.reason});
-    out.push_back({3, in_service, "Replace the transformer (in service by " + std::to_string(*d.year) + ")",
-                   d.reason});
-    out.push_back({3, a.as_of + o.monitor_due_days,
-                   "Until the replacement: resample the oil for DGA every six months and keep the load within "
-                   "nameplate",
-                   "manage the risk until the new unit is in service"});
+    out.push_back(dated_action(soon ? 2 : 3, a.as_of, static_cast<int>(order_by - a.as_of),
+                               "Start procurement of the replacement (" + std::to_string(o.lead_time_months) +
+                                   "-month lead time)",
+                               d.reason, kSourceRegister, "procurement", kCrewEngineering));
+    // The replacement is a project with its own outage, planned with the
+    // procurement: it is not folded into the unit's maintenance outage.
+    out.push_back(dated_action(3, a.as_of, static_cast<int>(in_service - a.as_of),
+                               "Replace the transformer (in service by " + std::to_string(*d.year) + ")", d.reason,
+                               kSourceRegister, "replace", kCrewEngineering));
+    out.push_back(dated_action(3, sampled, o.monitor_due_days,
+                               "Until the replacement: resample the oil for DGA every six months and keep the load "
+                               "within nameplate",
+                               "manage the risk until the new unit is in service", last_oil ? kSourceOilSample : kSourceRegister, "oil-resample",
+                               kCrewOilSampling));
   } else if (d.action == "refurbish" && !d.treatment.empty()) {
-    out.push_back({2, a.as_of + 365, "Refurbish: " + d.treatment, d.reason});
+    const bool dry_out = d.treatment.rfind("dry out", 0) == 0;
+    const bool reclaim = d.treatment.rfind("reclaim", 0) == 0;
+    out.push_back(dated_action(2, sampled, 365, "Refurbish: " + d.treatment, d.reason, kSourceOilSample,
+                               dry_out ? "dry-out" : reclaim ? "oil-reclaim" : "oil-recondition", kCrewMaintenance,
+                               dry_out));
   } else if (d.action == "investigate" && a.health_index && d.defects.empty()) {
-    out.push_back({3, a.as_of + o.investigate_due_days, "Investigate the low health index with diagnostic tests",
-                   d.reason});
+    out.push_back(dated_action(3, a.as_of, o.investigate_due_days,
+                               "Investigate the low health index with diagnostic tests", d.reason, kSourceRegister,
+                               "index-investigate", kCrewEngineering));
   } else if (d.action == "monitor") {
-    out.push_back({3, a.as_of + o.monitor_due_days, "Monitor: resample the oil and repeat the surveys within six months",
-                   d.reason});
+    out.push_back(dated_action(3, sampled, o.monitor_due_days,
+                               "Monitor: resample the oil and repeat the surveys within six months", d.reason,
+                               last_oil ? kSourceOilSample : kSourceRegister, "oil-resample", kCrewOilSampling));
   }
   return out;
 }

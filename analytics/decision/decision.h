@@ -50,7 +50,8 @@
 // Years: a replacement cannot be in service before the procurement lead time
 // has passed (lead_time_months, default 24): its year is that of as_of +
 // max(remaining life, lead time), and until then the unit keeps the actions
-// that manage its risk. Every other action's year is the year of its due date.
+// that manage its risk. Every other action's year is the year of its due date,
+// never before the as-of year (an overdue action is due now).
 #pragma once
 
 #include <string>

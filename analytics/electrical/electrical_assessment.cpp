@@ -6,6 +6,7 @@
 #include <map>
 #include <tuple>
 
+#include "analytics/action_plan.h"
 #include "analytics/electrical/bushings.h"
 #include "analytics/electrical/excitation_current.h"
 #include "analytics/electrical/insulation_power_factor.h"
@@ -333,19 +334,27 @@ void check_leakage_reactance(const UnitData& d, ElectricalSummary& s) {
 
 // ----------------------------------------------------------------- actions
 
+// An action counted from the test date. Field tests are made with the unit
+// out of service by the testing (protection) crew; a bushing taken out of
+// service is the maintenance crew's work.
+Action test_action(int priority, Day tested, int due_days, std::string need, std::string text, std::string reason,
+                   const char* crew = kCrewProtection) {
+  return dated_action(priority, tested, due_days, std::move(text), std::move(reason), kSourceElectrical,
+                      std::move(need), crew, true);
+}
 
-void collect_defects(const ElectricalSummary& s, Day today, std::vector<ElectricalDefect>& out) {
+void collect_defects(const ElectricalSummary& s, std::vector<ElectricalDefect>& out) {
   for (const auto* r : latest_of(s.turns_ratio)) {
     if (!r->within_limit || *r->within_limit) continue;
     out.push_back({"winding", "a turns-ratio deviation of " + fmt(*r->deviation_pct, 2) + " % (limit ±0.5 %)" +
                                   (r->phase.empty() ? std::string() : " on phase " + r->phase) +
                                   (r->tap ? " at tap " + std::to_string(*r->tap) : std::string()),
-                   {2, today + 90,
+                   test_action(2, r->date, 90, "electrical:turns-ratio",
                          "Investigate the turns-ratio deviation: shorted turns or a tap-changer contact",
                          "turns ratio " + (r->phase.empty() ? std::string() : "phase " + r->phase + " ") +
                              (r->tap ? "tap " + std::to_string(*r->tap) + " " : "") + "on " + format_day(r->date) +
                              ": " + fmt(r->measured, 4) + " against " + fmt(*r->nameplate, 4) + " (" +
-                             fmt(*r->deviation_pct, 2) + " %, limit ±0.5 %, IEEE C57.12.00; verify)"}});
+                             fmt(*r->deviation_pct, 2) + " %, limit ±0.5 %, IEEE C57.12.00; verify)")});
   }
   // Bushings: the latest test of each bushing.
   std::map<std::pair<std::string, std::string>, const BushingResult*> latest_bushing;
@@ -360,65 +369,66 @@ void collect_defects(const ElectricalSummary& s, Day today, std::vector<Electric
     why += " " + b->verdict + " (IEEE C57.152, values from memory; verify)";
     const std::string finding = "bushing " + b->bushing + " " + b->insulation + " test: " + b->verdict;
     if (b->verdict == "out of service")
-      out.push_back({"bushing", finding, {1, today + 30,
+      out.push_back({"bushing", finding, test_action(1, b->date, 30, "electrical:bushing-" + b->bushing,
                            "Take bushing " + b->bushing + " out of service: repair or replace the bushing, not the unit",
-                           why}});
+                           why, kCrewMaintenance)});
     else  // to be confirmed by a retest before the bushing is repaired
-      out.push_back({"bushing_retest", finding, {2, today + 90,
+      out.push_back({"bushing_retest", finding, test_action(2, b->date, 90, "electrical:bushing-" + b->bushing,
                            "Retest and investigate bushing " + b->bushing +
                                "; if confirmed, repair or replace the bushing, not the unit",
-                           why}});
+                           why)});
   }
   std::map<std::string, const WindingResistanceResult*> worst_winding;
   for (const auto* r : latest_of(s.winding_resistance))
     if (r->within_limit && !*r->within_limit) worst_winding.emplace(r->winding, r);
   for (const auto& [winding, r] : worst_winding)
     out.push_back({"winding", "the " + winding + " winding resistance outside its limits",
-                   {2, today + 180,
+                   test_action(2, r->date, 180, "electrical:winding-resistance-" + winding,
                          "Investigate the " + winding +
                              " winding resistance: connections, tap-changer contacts or broken strands",
                          winding + " winding on " + format_day(r->date) +
                              (r->phase_spread_pct ? ": phase spread " + fmt(*r->phase_spread_pct, 1) + " %" : "") +
                              (r->change_pct ? ", change " + fmt(*r->change_pct, 1) + " % against " + r->change_basis : "") +
-                             " (limits 2 % spread, 5 % change: common practice, from memory)"}});
+                             " (limits 2 % spread, 5 % change: common practice, from memory)")});
   for (const auto* r : latest_of(s.insulation_power_factor)) {
     if (!r->within_limit || *r->within_limit) continue;
     out.push_back({"insulation", r->insulation + " insulation power factor " + fmt(*r->pf20_pct, 2) + " % at 20 °C",
-                   {2, today + 180,
+                   test_action(2, r->date, 180, "electrical:insulation-pf",
                          "Investigate the winding insulation power factor: moisture or contamination",
                          r->insulation + " power factor " + fmt(*r->pf20_pct, 2) + " % at 20 °C on " +
                              format_day(r->date) + " above " + fmt(r->limit_pct, 1) +
-                             " % (IEEE C57.152, from memory; verify)"}});
+                             " % (IEEE C57.152, from memory; verify)")});
   }
   for (const auto* r : latest_of(s.insulation_resistance)) {
     if (r->reading != "dangerous" && r->reading != "poor" && r->reading != "questionable") continue;
     // "questionable" asks for a retest in a year; only "poor" and "dangerous" are defects of the decision.
     out.push_back({r->reading == "questionable" ? "" : "insulation",
                    r->insulation + " insulation resistance " + r->reading,
-                   {r->reading == "questionable" ? 3 : 2, today + (r->reading == "questionable" ? 365 : 180),
+                   test_action(r->reading == "questionable" ? 3 : 2, r->date,
+                               r->reading == "questionable" ? 365 : 180, "electrical:insulation-resistance",
                          "Investigate the insulation resistance: moisture or contamination of the insulation",
                          r->insulation + " polarization index " + fmt(*r->polarization_index, 2) + " (" + r->reading +
-                             ") on " + format_day(r->date) + " (common practice scale, no published source)"}});
+                             ") on " + format_day(r->date) + " (common practice scale, no published source)")});
   }
   for (const auto* r : latest_of(s.excitation_current)) {
     if (!r->pattern_expected || *r->pattern_expected) continue;
     out.push_back({"winding", "an excitation-current pattern not as expected",
-                   {3, today + 365,
+                   test_action(3, r->date, 365, "electrical:excitation-current",
                          "Investigate the excitation-current pattern: core or winding fault, or residual magnetism "
                          "(demagnetise and retest)",
                          "excitation current on " + format_day(r->date) +
                              ": the outer phases are not similar and above the middle phase (IEEE C57.152, from "
-                             "memory; verify)"}});
+                             "memory; verify)")});
   }
   for (const auto* r : latest_of(s.leakage_reactance)) {
     if (!r->within_limit || *r->within_limit) continue;
     out.push_back({"winding", "a leakage-reactance change of " + fmt(*r->change_pct, 2) + " % (possible winding movement)",
-                   {2, today + 180,
+                   test_action(2, r->date, 180, "electrical:leakage-reactance",
                          "Investigate possible winding movement (leakage reactance change)",
                          "leakage reactance " + (r->phase.empty() ? std::string("three-phase") : "phase " + r->phase) +
                              " on " + format_day(r->date) + ": " + fmt(*r->change_pct, 2) + " % against " +
                              r->nameplate_basis + ", limit ±" + fmt(*r->limit_pct, 0) +
-                             " % (IEEE C57.152, from memory; verify)"}});
+                             " % (IEEE C57.152, from memory; verify)")});
   }
 }
 
@@ -440,7 +450,8 @@ std::optional<double> pf_correction_factor(const std::vector<std::pair<double, d
 
 std::vector<ElectricalDefect> electrical_defects(const ElectricalSummary& s, Day as_of) {
   std::vector<ElectricalDefect> out;
-  collect_defects(s, as_of, out);
+  (void)as_of;  // due dates count from each test's date
+  collect_defects(s, out);
   return out;
 }
 

@@ -52,7 +52,8 @@ void print_assessment_text(const analytics::UnitAssessment& a) {
               << ", Duval " << a.dga.duval_triangle_1.value_or("-") << ", IEC 60599 "
               << a.dga.iec60599_ratio_fault.value_or("-") << "\n";
   for (const auto& act : a.actions)
-    std::cout << "  [" << act.priority << "] by " << analytics::format_day(act.due) << ": " << act.text << "\n";
+    std::cout << "  [" << act.priority << "] by " << analytics::format_day(act.due) << (act.overdue ? " OVERDUE" : "")
+              << ": " << act.text << (act.reference.empty() ? "" : " (" + act.reference + ")") << "\n";
   for (const auto& m : a.missing) std::cout << "  missing: " << m << "\n";
 }
 

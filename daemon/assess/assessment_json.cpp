@@ -153,12 +153,25 @@ Object::Ptr thermal_json(const analytics::ThermalSummary& t) {
   return o;
 }
 
+// The planner's fields of an action (issue #16): evidence date and kind,
+// need and reference, overdue, outage, crew.
+void set_plan_fields(Object& x, const analytics::Action& a) {
+  x.set("found", a.found ? Var(analytics::format_day(a.found)) : Var());
+  x.set("source", text_or_null(a.source));
+  x.set("need", text_or_null(a.need));
+  x.set("reference", text_or_null(a.reference));
+  x.set("overdue", a.overdue);
+  x.set("outage", a.outage);
+  x.set("crew", text_or_null(a.crew));
+}
+
 Var action_json(const std::optional<analytics::Action>& a) {
   if (!a) return Var();
   Object::Ptr x = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
   x->set("priority", a->priority);
   x->set("due", analytics::format_day(a->due));
   x->set("text", a->text);
+  set_plan_fields(*x, *a);
   return x;
 }
 
@@ -295,6 +308,7 @@ Object::Ptr to_json(const analytics::UnitAssessment& a) {
     x->set("due", analytics::format_day(act.due));
     x->set("text", act.text);
     x->set("reason", act.reason);
+    set_plan_fields(*x, act);
     actions->add(x);
   }
   o->set("actions", actions);

@@ -76,6 +76,13 @@ Object::Ptr unit_to_json(const analytics::UnitAssessment& a) {
     x->set("due", f->due);
     x->set("text", f->text);
     x->set("reason", f->reason);
+    x->set("found", f->found);
+    x->set("source", f->source);
+    x->set("need", f->need);
+    x->set("reference", f->reference);
+    x->set("outage", f->outage);
+    x->set("crew", f->crew);
+    x->set("overdue", f->overdue);
     o->set("first_action", x);
   }
   Object::Ptr site = new Object;  // what the site view reads (analytics/site_view.h)
@@ -112,9 +119,21 @@ analytics::UnitAssessment unit_from_json(const Object::Ptr& o) {
   a.decision.action = o->getValue<std::string>("action");
   a.decision.year = get_opt<int>(o, "action_year");
   a.decision.reason = o->getValue<std::string>("action_reason");
-  if (const auto x = o->getObject("first_action"))
-    a.decision.first_action = analytics::Action{x->getValue<int>("priority"), x->getValue<analytics::Day>("due"),
-                                                x->getValue<std::string>("text"), x->getValue<std::string>("reason")};
+  if (const auto x = o->getObject("first_action")) {
+    analytics::Action f;
+    f.priority = x->getValue<int>("priority");
+    f.due = x->getValue<analytics::Day>("due");
+    f.text = x->getValue<std::string>("text");
+    f.reason = x->getValue<std::string>("reason");
+    f.found = x->optValue<analytics::Day>("found", 0);
+    f.source = x->optValue<std::string>("source", "");
+    f.need = x->optValue<std::string>("need", "");
+    f.reference = x->optValue<std::string>("reference", "");
+    f.outage = x->optValue<bool>("outage", false);
+    f.crew = x->optValue<std::string>("crew", "");
+    f.overdue = x->optValue<bool>("overdue", false);
+    a.decision.first_action = std::move(f);
+  }
   if (const auto x = o->getObject("site_inputs")) {
     a.thermal.peak_load_pu = get_opt<double>(x, "peak_load_pu");
     a.thermal.emergency_load_pu = get_opt<double>(x, "emergency_load_pu");

@@ -248,6 +248,9 @@ std::vector<Key> make_keys() {
       {"planning_window_years", 0, 50, "A correctable defect leads to replacement only when the remaining life is\n"
                                        "within this window; a unit whose life ends within it is planned for replacement (10)."},
       {"expected_life_years", 10, 150, "Expected life of a transformer, for the age estimate of remaining life (60)."},
+      {"wet_paper_pct", 1, 10, "Paper water content, %, at or above which the active part is dried out instead of\n"
+                               "the oil being reconditioned (4, common practice)."},
+      {"dry_out_min_dp", 100, 1000, "Paper DP below which drying out is not advised: too brittle (400)."},
   };
   for (const auto& r : kRanking) {
     const std::string name = r.name;

@@ -28,13 +28,15 @@ void gassing_t3(fa::UnitAssessment& a) {
 void arcing(fa::UnitAssessment& a) {
   a.active_arcing = a.dga.active_arcing = true;
   a.dga.duval_triangle_1 = "D2";
-  a.actions.push_back({1, kAsOf + 7, "Investigate acetylene: confirm with a resample and look for arcing", "acetylene"});
+  a.actions.push_back(fa::dated_action(1, kAsOf, 7, "Investigate acetylene: confirm with a resample and look for arcing",
+                                   "acetylene", fa::kSourceOilSample, "oil-acetylene", fa::kCrewOilSampling));
   a.health_index = 30;
 }
 void unsafe_grounding(fa::UnitAssessment& a) {
   a.unsafe_inspection = true;
   a.inspection.push_back({"grounding", fa::Rating::unsafe, kAsOf - 10, {}, false, ""});
-  a.actions.push_back({1, kAsOf, "Make safe or take out of service: grounding", "rated unsafe"});
+  a.actions.push_back(fa::dated_action(1, kAsOf, 0, "Make safe or take out of service: grounding", "rated unsafe",
+                                   fa::kSourceInspection, "inspection:grounding", fa::kCrewMaintenance));
   a.health_index = 30;
 }
 void hot_joint(fa::UnitAssessment& a) {
@@ -43,7 +45,9 @@ void hot_joint(fa::UnitAssessment& a) {
   f.component = "LV bushing X2 connector";
   f.severity = 4;
   a.infrared.push_back(f);
-  a.actions.push_back({1, kAsOf + 7, "Retighten or repair the LV bushing X2 connector immediately", "infrared"});
+  a.actions.push_back(fa::dated_action(1, kAsOf, 7, "Retighten or repair the LV bushing X2 connector immediately",
+                                   "infrared", fa::kSourceInfrared, "ir-repair:LV bushing X2 connector", fa::kCrewMaintenance,
+                                   true));
   a.health_index = 50;
 }
 void wet_oil(fa::UnitAssessment& a) {

@@ -7,6 +7,7 @@
 
 #include <algorithm>
 
+#include "analytics/action_plan.h"
 #include "analytics/iec60076_7_difference.h"
 
 namespace ferrum::analytics {
@@ -22,6 +23,12 @@ UnitData unit_with_hourly_load(double k, int days, double ambient = 20) {
   const Timestamp end = start_of(kAsOf + 1);
   for (Timestamp t = end - days * 86400LL; t < end; t += 3600) d.load.push_back({t, k, ambient});
   return d;
+}
+
+const Action* find_need(const UnitAssessment& a, const std::string& need) {
+  for (const auto& act : a.actions)
+    if (act.need == need) return &act;
+  return nullptr;
 }
 
 bool has_action(const UnitAssessment& a, const std::string& text, int priority) {
@@ -169,16 +176,32 @@ TEST(ThermalAssessment, InfraredAndUnsafeInspectionActions) {
   oil.rating = Rating::unsafe;
   d.inspections = {fans, oil};
   UnitAssessment a;
-  a.actions.push_back({3, kAsOf, "earlier action", "from another module"});
+  a.actions.push_back(dated_action(3, kAsOf, 0, "earlier action", "from another module", kSourceRegister, "other",
+                                   kCrewEngineering));
   assess_thermal(d, kAsOf, {}, a);
   ASSERT_EQ(a.infrared.size(), 1u);
   EXPECT_EQ(*a.infrared[0].severity, 4);
   EXPECT_TRUE(a.unsafe_inspection);
   ASSERT_FALSE(a.actions.empty());
   EXPECT_EQ(a.actions.front().priority, 1);  // unsafe item carried to the top
-  EXPECT_EQ(a.actions.front().due, kAsOf);
+  // Due dates count from the evidence, not from the assessment (issue #16):
+  // an unsafe item is due on the day it was found (common practice, no
+  // published source).
+  EXPECT_EQ(a.actions.front().found, kAsOf - 5);
+  EXPECT_EQ(a.actions.front().due, kAsOf - 5);
+  EXPECT_EQ(a.actions.front().need, "inspection:oil_level");
+  EXPECT_EQ(a.actions.front().source, kSourceInspection);
   EXPECT_TRUE(has_action(a, "Retighten or repair the LV bushing X2 connector immediately", 1));
+  const Action* ir = find_need(a, "ir-repair:LV bushing X2 connector");
+  ASSERT_NE(ir, nullptr);
+  EXPECT_EQ(ir->found, kAsOf - 10);      // the survey date
+  EXPECT_EQ(ir->due, kAsOf - 10 + 7);    // ferrum default: severity 4 within 7 days
+  EXPECT_TRUE(ir->outage);               // common practice, no published source: retightening needs an outage
+  EXPECT_EQ(ir->crew, kCrewMaintenance);
   EXPECT_TRUE(has_action(a, "Inspect fans", 3));  // overdue
+  const Action* visit = find_need(a, "inspection-visit");
+  ASSERT_NE(visit, nullptr);
+  EXPECT_EQ(visit->due, kAsOf - 400 + 365);  // ferrum interval 365 days (common practice): already past
   EXPECT_EQ(a.missing, std::vector<std::string>{"load series"});
 }
 
@@ -203,6 +226,41 @@ TEST(ThermalAssessment, ReductionKeepsBucketMaxima) {
   ASSERT_EQ(r.size(), 2u);
   EXPECT_EQ(r[1].value, 150);
   EXPECT_EQ(reduce_to_bucket_maxima(v, 1, &ThermalPoint::hot_spot_c).size(), 1u);
+}
+
+// A finding re-inspected and still there keeps the date it was first found:
+// the earth found unsafe and still unsafe at a spot check is due from the
+// first inspection (issue #16; make safe at once: common practice, no
+// published source). An item that was better in between starts afresh.
+TEST(ThermalAssessment, ReinspectedFindingKeepsItsFirstDate) {
+  auto rec = [](Day day, const char* item, Rating r) {
+    InspectionRecord x;
+    x.date = day;
+    x.item = item;
+    x.rating = r;
+    return x;
+  };
+  UnitData d;
+  d.inspections = {rec(kAsOf - 400, "grounding", Rating::good), rec(kAsOf - 47, "grounding", Rating::unsafe),
+                   rec(kAsOf - 12, "grounding", Rating::unsafe),
+                   rec(kAsOf - 400, "breather", Rating::poor), rec(kAsOf - 200, "breather", Rating::fair),
+                   rec(kAsOf - 12, "breather", Rating::poor), rec(kAsOf - 400, "foundation", Rating::fair),
+                   rec(kAsOf - 12, "foundation", Rating::fair)};
+  UnitAssessment a;
+  assess_thermal(d, kAsOf, {}, a);
+  const Action* earth = find_need(a, "inspection:grounding");
+  ASSERT_NE(earth, nullptr);
+  EXPECT_EQ(earth->found, kAsOf - 47);
+  EXPECT_EQ(earth->due, kAsOf - 47);
+  const Action* breather = find_need(a, "inspection:breather");
+  ASSERT_NE(breather, nullptr);
+  EXPECT_EQ(breather->found, kAsOf - 12);  // fair in between: this poor rating is a new finding
+  // A fair item is maintained at the routine maintenance after the inspection
+  // that last reported it (ferrum default 365 days: common practice).
+  const Action* foundation = find_need(a, "inspection:foundation");
+  ASSERT_NE(foundation, nullptr);
+  EXPECT_EQ(foundation->found, kAsOf - 12);
+  EXPECT_EQ(foundation->due, kAsOf - 12 + 365);
 }
 
 }  // namespace

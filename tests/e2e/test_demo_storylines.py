@@ -506,5 +506,75 @@ class DemoStorylines(unittest.TestCase):
         self.assertNotIn("VNM-T4", self.docs)
 
 
+    # ------------------------------------------------------------ actions a planner can schedule (issue #16)
+    def test_due_dates_hold_a_week_later(self):
+        # The same data assessed a week later: every action anchored on its
+        # evidence (found before the as-of day) keeps its due date, found
+        # date and reference (issue #16; common practice, no published source).
+        later = {d["unit_id"]: d for d in json.loads(
+            run("assess", "--root", self.root, "--as-of", "2026-12-07", "--json").stdout)}
+        compared = 0
+        for unit, doc in self.docs.items():
+            before = {a["reference"]: a for a in doc["actions"] if a["need"] and a["found"] and a["found"] < AS_OF}
+            after = {a["reference"]: a for a in later[unit]["actions"]}
+            for ref, a in before.items():
+                with self.subTest(reference=ref):
+                    self.assertIn(ref, after)
+                    self.assertEqual((after[ref]["found"], after[ref]["due"]), (a["found"], a["due"]))
+                    compared += 1
+        self.assertGreater(compared, 20)
+
+    def test_unsafe_earth_is_overdue_from_its_inspection(self):
+        # TKQ-T2's earth was found cut on 2026-10-14: due that day (make safe
+        # at once: common practice, no published source), overdue on 2026-11-30.
+        a = {x["need"]: x for x in self.docs["TKQ-T2"]["actions"]}["inspection:grounding"]
+        self.assertEqual((a["found"], a["due"], a["overdue"]), ("2026-10-14", "2026-10-14", True))
+        self.assertEqual((a["source"], a["crew"], a["reference"]), ("inspection", "maintenance", "TKQ-T2/inspection:grounding"))
+
+    def test_one_need_is_one_action_and_one_outage(self):
+        # One need is one action; every job that needs an outage is gathered in
+        # one "Plan an outage" action (issue #16; common practice).
+        for unit, doc in self.docs.items():
+            with self.subTest(unit=unit):
+                refs = [a["reference"] for a in doc["actions"]]
+                self.assertEqual(len(refs), len(set(refs)), refs)
+                outage_jobs = [a for a in doc["actions"] if a["outage"] and a["need"] != "outage"]
+                plans = [a for a in doc["actions"] if a["need"] == "outage"]
+                self.assertEqual(len(plans), 1 if outage_jobs else 0)
+                if plans:
+                    self.assertEqual(plans[0]["due"], min(a["due"] for a in outage_jobs))
+                    self.assertEqual(plans[0]["priority"], min(a["priority"] for a in outage_jobs))
+                    self.assertTrue(plans[0]["text"].startswith("Plan an outage for: "))
+
+    def test_inspection_findings_become_jobs(self):
+        # CRW-T1: active leaks with quarterly top-ups, the diverter overdue for
+        # maintenance (demo-site/generate.cpp storylines): maintenance jobs
+        # counted from the inspection (ferrum defaults, common practice).
+        needs = {a["need"]: a for a in self.docs["CRW-T1"]["actions"]}
+        for item in ("inspection:gaskets_and_leaks", "inspection:on_load_tap_changer"):
+            with self.subTest(item=item):
+                self.assertIn(item, needs)
+                self.assertEqual(needs[item]["crew"], "maintenance")
+                self.assertEqual(needs[item]["source"], "inspection")
+                self.assertTrue(needs[item]["outage"])
+
+    def test_no_reclamation_for_a_unit_to_be_replaced(self):
+        # Reclaiming the oil does not restore the paper that ends the unit's life.
+        replaced = [u for u, d in self.docs.items() if d["decision"]["action"] == "replace"]
+        self.assertTrue(replaced)
+        for unit in replaced:
+            with self.subTest(unit=unit):
+                self.assertNotIn("oil-reclaim", [a["need"] for a in self.docs[unit]["actions"]])
+
+    def test_ranking_first_action_carries_due_overdue_and_reference(self):
+        for unit, row in self.rows.items():
+            if row["first_action"]:
+                with self.subTest(unit=unit):
+                    first = self.docs[unit]["actions"][0]
+                    self.assertEqual(row["first_action"]["reference"], first["reference"])
+                    self.assertEqual(row["first_action"]["overdue"], first["overdue"])
+                    self.assertEqual(row["first_action"]["due"], first["due"])
+
+
 if __name__ == "__main__":
     unittest.main()

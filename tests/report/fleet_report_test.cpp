@@ -193,20 +193,30 @@ TEST(RankingCsv, HeaderRowsQuotingAndEmptyFields) {
   const std::string header =
       "rank,tied,unit_id,site,rated_mva,health_index,band,remaining_life_years,beyond_horizon,limiting_factor,"
       "probability_of_failure,failures_per_1000_unit_years,consequence,risk,recommended_action,action_year,"
-      "first_action_priority,first_action_due,first_action,action_reason,insufficient_data,note\n";
+      "first_action_priority,first_action_due,first_action_overdue,first_action_reference,first_action,action_reason,"
+      "insufficient_data,note\n";
   ASSERT_EQ(csv.substr(0, header.size()), header);
   EXPECT_NE(csv.find("1,no,T-204,Kelder Road 132 kV,45,57.6,fair,11.5,no,paper,0.021,21,4,0.084,refurbish,2028,1,"
-                     "2026-12-07,Make safe or take out of service: grounding,,no,\n"),
+                     "2026-12-07,no,T-204/inspection:grounding,Make safe or take out of service: grounding,,no,\n"),
             std::string::npos) << csv;
   EXPECT_NE(csv.find("T-031,Harbour West,60,81,good,40,yes,"), std::string::npos) << csv;
   EXPECT_NE(csv.find("\"Northgate, \"\"old\"\" yard\""), std::string::npos);
   EXPECT_NE(csv.find("4,yes,T-032"), std::string::npos);
   // Insufficient data: no rank, empty fields for absent values, the note quoted (it holds commas).
-  EXPECT_NE(csv.find("\n,no,T-990,Marsh Lane,0,,,,no,,,,3,,,,,,,,yes,\"no oil, load or inspection data\"\n"), std::string::npos)
+  EXPECT_NE(csv.find("\n,no,T-990,Marsh Lane,0,,,,no,,,,3,,,,,,,,,,yes,\"no oil, load or inspection data\"\n"), std::string::npos)
       << csv;
   EXPECT_EQ(std::count(csv.begin(), csv.end(), '\n'), 8);  // header + 6 units + caution
   // The caution is the last line, a comment (report/safety_text.h).
   EXPECT_EQ(csv.substr(csv.size() - csv_caution_line().size() - 1), csv_caution_line() + "\n");
+}
+
+// An overdue first action says so, with the reference a planner quotes
+// (issue #16).
+TEST(RankingCsv, OverdueFirstActionMarked) {
+  auto ranking = fixtures::small_ranking();
+  ranking.units[0].first_action->overdue = true;
+  const std::string csv = fleet_ranking_csv(ranking);
+  EXPECT_NE(csv.find(",2026-12-07,yes,T-204/inspection:grounding,"), std::string::npos) << csv;
 }
 
 TEST(RankingCsv, EmptyRankingIsHeaderAndCaution) {

@@ -8,6 +8,7 @@
 #include <optional>
 #include <vector>
 
+#include "analytics/action_plan.h"
 #include "analytics/assessment.h"
 #include "report/unit_report.h"
 
@@ -144,11 +145,19 @@ inline UnitAssessment filled_unit() {
       {"radiators", Rating::poor, days_from_civil(2026, 9, 21), Rating::fair, true, "Weeping at the lower header flange of radiator 3; oil on the plinth."},
       {"bushings", Rating::fair, days_from_civil(2026, 9, 21), Rating::fair, false, "Porcelain clean; oil level visible."},
       {"breather", Rating::good, days_from_civil(2026, 9, 21), Rating::poor, false, "Silica gel replaced."}};
+  // Dated on their evidence (issue #16); the radiator job is overdue.
+  const Day oil_sample = days_from_civil(2026, 10, 13), survey = days_from_civil(2026, 7, 2),
+            inspected = days_from_civil(2026, 9, 21);
+  auto planned = [&](Action x) {
+    x.reference = action_reference(a.unit.unit_id, x.need);
+    x.overdue = x.due < a.as_of;
+    return x;
+  };
   a.actions = {
-      {1, days_from_civil(2026, 12, 15), "Resample oil for DGA within two weeks and confirm the acetylene trend before any switching of this unit.", "C₂H₂ rising across four samples; IEEE C57.104-2019 status 2"},
-      {2, days_from_civil(2027, 1, 31), "Repair the connector of the HV bushing B-phase during the next outage.", "Infrared ΔT 18 K to reference (NETA priority 2)"},
-      {3, days_from_civil(2027, 6, 30), "Plan oil reclamation: acidity and interfacial tension are outside their limits, which points to sludge forming in the windings and cooling ducts.", "IEEE C57.106-2015 Table 5"},
-      {3, days_from_civil(2027, 3, 31), "Repair the radiator 3 header gasket.", "Inspection: radiators worse"}};
+      planned(dated_action(1, oil_sample, days_from_civil(2026, 12, 15) - oil_sample, "Resample oil for DGA within two weeks and confirm the acetylene trend before any switching of this unit.", "C₂H₂ rising across four samples; IEEE C57.104-2019 status 2", kSourceOilSample, "oil-resample", kCrewOilSampling)),
+      planned(dated_action(2, survey, days_from_civil(2027, 1, 31) - survey, "Repair the connector of the HV bushing B-phase during the next outage.", "Infrared ΔT 18 K to reference (NETA priority 2)", kSourceInfrared, "ir-repair:HV bushing B-phase connector", kCrewMaintenance, true)),
+      planned(dated_action(3, oil_sample, days_from_civil(2027, 6, 30) - oil_sample, "Plan oil reclamation: acidity and interfacial tension are outside their limits, which points to sludge forming in the windings and cooling ducts.", "IEEE C57.106-2015 Table 5", kSourceOilSample, "oil-reclaim", kCrewMaintenance)),
+      planned(dated_action(3, inspected, 60, "Repair the radiator 3 header gasket.", "Inspection: radiators worse", kSourceInspection, "inspection:radiators", kCrewMaintenance, true))};
   a.missing = {"turns-ratio and winding-resistance tests (no field test file)"};
   a.freshness = {{"oil", days_from_civil(2026, 10, 13), 0.13}, {"infrared", days_from_civil(2026, 7, 2), 0.41},
                  {"inspection", days_from_civil(2026, 9, 21), 0.19}, {"load", days_from_civil(2026, 11, 29), 0.0}};
@@ -235,7 +244,10 @@ inline FleetRanking small_ranking() {
       ranked_row(5, true, "T-033", "Harbour East", 20, 86.0, "very good", 28.0, "condition", 0.003, 5, 0.015, "routine", std::nullopt, false, ""),
       ranked_row(0, false, "T-990", "Marsh Lane", 0, std::nullopt, "", std::nullopt, "", std::nullopt, 3, std::nullopt, "", std::nullopt, true,
                  "no oil, load or inspection data")};
-  r.units[0].first_action = Action{1, days_from_civil(2026, 12, 7), "Make safe or take out of service: grounding", "unsafe"};
+  r.units[0].first_action = dated_action(1, days_from_civil(2026, 11, 23), 14,
+                                         "Make safe or take out of service: grounding", "unsafe", kSourceInspection,
+                                         "inspection:grounding", kCrewMaintenance);
+  r.units[0].first_action->reference = action_reference("T-204", "inspection:grounding");
   r.units[2].beyond_horizon = true;
   r.units[2].remaining_life_years = 40;
   r.outlook.push_back({"T-117", "Northgate", 30, 6.0, 2032, "thermal", "replace", 2030});

@@ -66,6 +66,25 @@ TEST_F(UnitReportTest, NumbersPrintOneWayAndRecentGasViewAndSiteLine) {
   EXPECT_NE(text.find("Hot spot and ageing from the measured top oil"), std::string::npos);
 }
 
+// The action table is a planner's: the evidence date and kind, the due date
+// with an OVERDUE marker, the crew, whether an outage is needed and the
+// reference quoted in a work-status file (issue #16).
+TEST_F(UnitReportTest, ActionTableCarriesThePlannersColumns) {
+  const auto unit = fixtures::filled_unit();
+  const std::string path = temp_path("actions-planner.pdf");
+  render_unit_report(unit, nullptr, fixtures::source_files(), fixed_options(), path);
+  ASSERT_TRUE(qpdf_check(path));
+  const std::string text = squash(pdf_raw_text(path));
+  for (const char* s : {"Found", "Crew", "2026-09-21", "inspection", "2026-11-20", "OVERDUE", "infrared survey",
+                        "outage: yes", "outage: no", "oil sampling", "ref. T-204/inspection:radiators",
+                        "ref. T-204/oil-resample"})
+    EXPECT_NE(text.find(s), std::string::npos) << s;
+  // Only the radiator job (2026-09-21 + 60 days) is past the as-of day.
+  std::size_t n = 0;
+  for (auto at = text.find("OVERDUE"); at != std::string::npos; at = text.find("OVERDUE", at + 1)) ++n;
+  EXPECT_EQ(n, 1u);
+}
+
 // An estimate at the planning horizon prints as "more than N years", never as
 // a figure the methods cannot support. // common practice, no published source
 TEST_F(UnitReportTest, LifeBeyondHorizonPrintsMoreThan) {
