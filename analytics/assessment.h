@@ -160,6 +160,9 @@ struct InfraredFinding {
   std::string severity_text;
   bool low_load = false;                    // scan below the reliable load, correction unreliable
   std::string source;
+  std::optional<double> load_pct;           // load at survey time, % of rated, as recorded
+  std::string image_ref;                    // thermogram reference, as recorded ("" when none)
+  std::string note;                         // the thermographer's note, as recorded
 };
 
 struct InspectionFinding {
@@ -286,6 +289,8 @@ struct UnitAssessment {
   std::vector<GasHistoryPoint> gas_history;
   bool unsafe_inspection = false;
   bool active_arcing = false;
+  // Rejected files holding newer results than the store (analytics/held_back.h).
+  std::vector<HeldBack> held_back;
 };
 
 // One row of the fleet ranking.
