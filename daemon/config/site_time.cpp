@@ -43,7 +43,10 @@ SiteTimeZone SiteTimeZone::load(const std::string& name, const std::string& zone
   std::size_t at = 0;
   int time_bytes = 4;
   auto counts = [&](std::size_t h, std::int64_t c[6]) {
-    for (int i = 0; i < 6; ++i) c[i] = be(&b[h + 20 + 4 * i], 4);
+    for (int i = 0; i < 6; ++i) {
+      c[i] = be(&b[h + 20 + 4 * i], 4);
+      if (c[i] < 0 || c[i] > (1 << 20)) throw bad();  // a damaged file, not a zone
+    }
   };
   std::int64_t c[6];  // isutcnt, isstdcnt, leapcnt, timecnt, typecnt, charcnt
   counts(0, c);
