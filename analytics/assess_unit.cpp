@@ -1,6 +1,8 @@
 #include "analytics/assess_unit.h"
 
 #include "analytics/action_plan.h"
+#include "analytics/held_back.h"
+#include "analytics/site_earth_check.h"
 #include "analytics/standard_tables.h"
 #include "analytics/electrical/electrical_assessment.h"
 
@@ -14,6 +16,8 @@ UnitAssessment assess_unit(const UnitData& data, Day as_of, const AssessmentOpti
   assess_oil(data, as_of, options.oil, a);
   assess_thermal(data, as_of, options.thermal, a);
   assess_electrical(data, options.electrical, a);
+  add_site_earth_check(data, as_of, options.site_earth, a);
+  a.held_back = newer_held_back(data);
   // The index reads the oil and thermal parts; the life reads the index.
   score_health(options.health, a);
   estimate_remaining_life(options.life, a);

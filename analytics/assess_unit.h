@@ -10,6 +10,7 @@
 #pragma once
 
 #include "analytics/action_plan.h"
+#include "analytics/site_earth_check.h"
 #include "analytics/assessment.h"
 #include "analytics/electrical/electrical_assessment.h"
 #include "analytics/health_index.h"
@@ -27,6 +28,7 @@ struct AssessmentOptions {
   HealthIndexOptions health;
   RemainingLifeOptions life;
   ActionPlanOptions actions;  // with the decision's thresholds ([ranking] in ferrum.ini)
+  SiteEarthOptions site_earth;  // an earth stolen at another unit of the site: check this one's
 };
 
 // Sets unit and as_of, then runs assess_oil, assess_thermal, assess_electrical, score_health,

@@ -173,6 +173,9 @@ struct InfraredFinding {
   std::string severity_text;
   bool low_load = false;                    // scan below the reliable load, correction unreliable
   std::string source;
+  std::optional<double> load_pct;           // load at survey time, % of rated, as recorded
+  std::string image_ref;                    // thermogram reference, as recorded ("" when none)
+  std::string note;                         // the thermographer's note, as recorded
 };
 
 struct InspectionFinding {
@@ -306,6 +309,8 @@ struct UnitAssessment {
   // One line on the unit's site: load against capacity and N-1
   // (analytics/site_view.h, apply_site_view); empty when not computed.
   std::string site_summary;
+  // Rejected files holding newer results than the store (analytics/held_back.h).
+  std::vector<HeldBack> held_back;
 };
 
 // One row of the fleet ranking.

@@ -30,12 +30,14 @@ struct Reading {
   std::optional<double> measured, corrected;
 };
 
+// A rise below the resolution is measured but never corrected to rated load.
 Reading reading(double spot, const std::optional<double>& base, const std::optional<double>& load_pct,
-                double n) {
+                double n, double resolution_k) {
   Reading r;
   if (!base) return r;
   r.measured = spot - *base;
-  if (load_pct && *load_pct > 0) r.corrected = rise_at_rated_load(*r.measured, *load_pct, n);
+  if (load_pct && *load_pct > 0 && !below_resolution(*r.measured, resolution_k))
+    r.corrected = rise_at_rated_load(*r.measured, *load_pct, n);
   return r;
 }
 
@@ -64,6 +66,8 @@ int neta_priority_over_reference(double rise) {
   return priority_from_rows(standard_tables().delta_t_reference, rise);
 }
 
+bool below_resolution(double rise_k, double resolution_k) { return rise_k < resolution_k; }
+
 int neta_priority_over_ambient(double rise) { return priority_from_rows(standard_tables().delta_t_ambient, rise); }
 
 double rise_at_rated_load(double rise_k, double load_pct, double exponent) {
@@ -81,10 +85,13 @@ InfraredFinding assess_infrared_scan(const InfraredScan& scan, const InfraredOpt
   InfraredFinding f;
   f.date = scan.date;
   f.component = scan.component;
+  f.load_pct = scan.load_pct;
+  f.image_ref = scan.image_ref;
+  f.note = scan.note;
   f.source = kSource;
   const double n = std::clamp(options.load_exponent, 1.6, 2.0);
-  const Reading ref = reading(scan.spot_c, scan.reference_c, scan.load_pct, n);
-  const Reading amb = reading(scan.spot_c, scan.ambient_c, scan.load_pct, n);
+  const Reading ref = reading(scan.spot_c, scan.reference_c, scan.load_pct, n, options.resolution_k);
+  const Reading amb = reading(scan.spot_c, scan.ambient_c, scan.load_pct, n, options.resolution_k);
   f.rise_over_reference_k = ref.measured;
   f.rise_over_ambient_k = amb.measured;
   f.corrected_rise_k = ref.corrected ? ref.corrected : amb.corrected;
@@ -107,6 +114,17 @@ InfraredFinding assess_infrared_scan(const InfraredScan& scan, const InfraredOpt
   // one (a component a few kelvin above ambient under load is normal).
   int p_ref = 0, p_amb = 0;
   std::string basis;
+  const Reading& decisive = ref.measured ? ref : amb;
+  if (below_resolution(*decisive.measured, options.resolution_k)) {
+    char buf[200];
+    std::snprintf(buf, sizeof buf,
+                  "no finding: rise of %.1f K %s is below the camera resolution of %.1f K, not corrected to rated load",
+                  *decisive.measured, ref.measured ? "over a similar component" : "over ambient",
+                  options.resolution_k);
+    f.severity_text = buf;
+    f.corrected_rise_k.reset();  // nothing is extrapolated from the decisive rise
+    return f;
+  }
   if (classified(ref)) {
     p_ref = neta_priority_over_reference(*classified(ref));
     basis = "over a similar component";

@@ -16,6 +16,10 @@
 // * Load correction ΔT_corr = ΔT·(I_rated/I_meas)^n, n 1.6..2.0, default 2
 //   (Infraspection Institute practice). Load in % of
 //   rated power stands for % of rated current.
+// * A measured rise below the camera's resolution (InfraredOptions::resolution_k,
+//   default 1 K) is not extrapolated to rated load: the I² correction would
+//   magnify the camera's error into a job (issue #16; common practice, no
+//   published source).
 // * Scans below about 40 % load are unreliable for correction (common
 //   practice, from memory).
 //
@@ -45,6 +49,11 @@ namespace ferrum::analytics {
 struct InfraredOptions {
   double load_exponent = 2.0;  // n in the load correction; accepted range 1.6..2.0, clamped into it
   double low_load_pct = 40;    // scans below this load (% of rated) are flagged unreliable
+  // Rises below this (K) are within the camera's resolution and accuracy: they are
+  // neither corrected to rated load nor classified (ferrum.ini [analysis]
+  // infrared_resolution_k; common practice, no published source: a camera's
+  // stated accuracy is about ±1..2 K).
+  double resolution_k = 1.0;
 };
 
 // NETA priority 1..4 (1 most severe), or 0 for no finding (rise below 1 °C).
@@ -52,6 +61,9 @@ int neta_priority_over_reference(double rise_k);
 int neta_priority_over_ambient(double rise_k);
 // 1 least .. 4 most severe; 0 stays 0.
 inline int severity_from_neta_priority(int priority) { return priority == 0 ? 0 : 5 - priority; }
+
+// True when a measured rise is below the camera's resolution (not corrected, not classified).
+bool below_resolution(double rise_k, double resolution_k);
 
 // Rise corrected to rated load. REQUIRES: load_pct > 0.
 double rise_at_rated_load(double rise_k, double load_pct, double exponent);

@@ -147,6 +147,21 @@ struct WorkStatus {
   std::string note;
 };
 
+// A rejected file (quarantine) that named this unit: the newest date its rows
+// of one kind carry (analytics/held_back.h).
+struct HeldBack {
+  std::string kind;         // "oil", "infrared", "inspection", "electrical", "load"
+  Day newest = 0;           // newest date in the rejected file's rows for this unit
+  std::string rejected_on;  // when the file was rejected, as the receipt says (UTC)
+  std::string file;         // the file's name as dropped, PARTY/NAME
+};
+
+// An inspection record of another unit at the same site (analytics/site_earth_check.h).
+struct SiteInspection {
+  std::string unit_id;
+  InspectionRecord record;
+};
+
 struct UnitData {
   UnitInfo info;
   std::vector<OilSample> oil_samples;
@@ -155,6 +170,10 @@ struct UnitData {
   std::vector<InspectionRecord> inspections;
   std::vector<ElectricalTest> electrical;  // sorted by date
   std::vector<WorkStatus> work_status;     // sorted by date; the latest row per reference wins
+  // The "grounding" inspections of the other units at this unit's site, by date
+  // (site_earth_check.h: an earth stolen at one unit prompts a check of the others).
+  std::vector<SiteInspection> site_inspections;
+  std::vector<HeldBack> held_back;  // from rejected files, one per kind (the daemon's record)
 };
 
 const char* to_string(Rating r);

@@ -21,6 +21,7 @@ std::string alert_title(const std::string& kind) {
       {"dga_status", "DGA status worse (IEEE C57.104-2019)"},
       {"hot_spot", "Hot spot above the emergency limit"},
       {"unsafe_inspection", "Unsafe item found at inspection"},
+      {"infrared_priority_1", "Infrared finding: repair immediately (priority 1)"},
   };
   for (const auto& [k, title] : titles)
     if (kind == k) return title;

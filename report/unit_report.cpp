@@ -1,6 +1,9 @@
 #include "report/unit_report.h"
 
+#include "analytics/held_back.h"
+
 #include <algorithm>
+#include <cctype>
 
 #include "report/assessment_changes.h"
 #include "report/decision_text.h"
@@ -166,6 +169,17 @@ void freshness_table(PageFlow& flow, const UnitAssessment& a) {
     for (const auto& m : a.missing) s += (s.empty() ? "" : "; ") + m;
     return s;
   }(), type::body, FontFace::regular, palette::ink);
+  // Rejected files holding newer results than this report uses (analytics/held_back.h).
+  if (!a.held_back.empty()) {
+    flow.paragraph("Data held back", type::body, FontFace::bold, palette::ink);
+    std::vector<std::string> lines;
+    for (const auto& h : a.held_back) {
+      std::string line = analytics::held_back_text(h);
+      line[0] = static_cast<char>(std::toupper(static_cast<unsigned char>(line[0])));
+      lines.push_back(line + ".");
+    }
+    flow.bullets(lines, type::small + 0.3);
+  }
 }
 
 }  // namespace

@@ -303,18 +303,30 @@ void findings_section(PageFlow& flow, const UnitAssessment& a) {
   } else {
     Table t;
     t.font_size = 7.6;
-    t.columns = {{"Date", 1.0}, {"Component", 1.6}, {"ΔT to reference", 0.95, Align::right}, {"ΔT to ambient", 0.95, Align::right},
+    t.columns = {{"Date", 1.0}, {"Component", 1.6}, {"Load at survey", 0.8, Align::right},
+                 {"ΔT to reference", 0.95, Align::right}, {"ΔT to ambient", 0.95, Align::right},
                  {"At rated load", 0.95, Align::right}, {"Priority (1 = most urgent)", 2.6}};
+    std::vector<std::string> survey_notes;  // image reference and thermographer's note, where recorded
     // The maintenance-testing priority, spelled out, is the only label here:
     // ferrum's severity number (4 = worst, the other way round) stays in JSON.
     for (const auto& f : a.infrared) {
       std::string sev = f.severity_text.empty() ? std::string(kNoValue) : f.severity_text;
       if (f.low_load) sev += " (scan at low load: correction unreliable)";
-      t.rows.push_back({analytics::format_day(f.date), f.component, fmt_number(f.rise_over_reference_k, 1, "K"),
-                        fmt_number(f.rise_over_ambient_k, 1, "K"), fmt_number(f.corrected_rise_k, 1, "K"), sev});
+      t.rows.push_back({analytics::format_day(f.date), f.component, fmt_number(f.load_pct, 0, "%"),
+                        fmt_number(f.rise_over_reference_k, 1, "K"), fmt_number(f.rise_over_ambient_k, 1, "K"),
+                        fmt_number(f.corrected_rise_k, 1, "K"), sev});
       t.emphasis.push_back(f.severity && *f.severity >= 4);
+      if (!f.image_ref.empty() || !f.note.empty())
+        survey_notes.push_back(analytics::format_day(f.date) + " " + f.component + ": " +
+                               (f.image_ref.empty() ? "" : "image " + f.image_ref) +
+                               (f.image_ref.empty() || f.note.empty() ? "" : "; ") +
+                               (f.note.empty() ? "" : "thermographer's note: " + f.note));
     }
     flow.table(t);
+    if (!survey_notes.empty()) {
+      flow.paragraph("Images and notes of the survey", type::small, FontFace::bold, palette::muted);
+      flow.bullets(survey_notes, type::small);
+    }
   }
   flow.subsection("Inspection findings");
   if (a.inspection.empty()) {

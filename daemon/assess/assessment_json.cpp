@@ -6,6 +6,7 @@
 #include <sstream>
 
 #include "daemon/assess/electrical_json.h"
+#include "analytics/held_back.h"
 
 namespace ferrum::assess {
 namespace {
@@ -284,6 +285,9 @@ Object::Ptr to_json(const analytics::UnitAssessment& a) {
     x->set("severity", opt(f.severity));
     x->set("severity_text", text_or_null(f.severity_text));
     x->set("low_load", f.low_load);
+    x->set("load_pct", opt(f.load_pct));
+    x->set("image_ref", text_or_null(f.image_ref));
+    x->set("note", text_or_null(f.note));
     x->set("source", text_or_null(f.source));
     ir->add(x);
   }
@@ -323,6 +327,17 @@ Object::Ptr to_json(const analytics::UnitAssessment& a) {
     fresh->add(x);
   }
   o->set("freshness", fresh);
+  Array::Ptr held = new Array;  // rejected files holding newer results (analytics/held_back.h)
+  for (const auto& h : a.held_back) {
+    Object::Ptr x = new Object;
+    x->set("kind", h.kind);
+    x->set("newest", analytics::format_day(h.newest));
+    x->set("rejected_on", h.rejected_on);
+    x->set("file", text_or_null(h.file));
+    x->set("text", analytics::held_back_text(h));
+    held->add(x);
+  }
+  o->set("held_back", held);
   o->set("methods", strings(a.methods));
   o->set("assumptions", strings(a.assumptions));
   o->set("unsafe_inspection", a.unsafe_inspection);

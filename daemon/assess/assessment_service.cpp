@@ -13,6 +13,7 @@
 #include <thread>
 
 #include "daemon/assess/site_tables.h"
+#include "daemon/pipeline/held_back_record.h"
 #include "daemon/reporting/report_writer.h"
 
 namespace ferrum::assess {
@@ -25,6 +26,7 @@ analytics::AssessmentOptions options_from_config(const config::SiteConfig& confi
                                                             : analytics::ThermalMethod::iec60076_7;
   o.thermal.inspection.interval_days = config.inspection_interval_days;
   o.thermal.measured_top_oil_above_k = config.measured_top_oil_above_k;
+  o.thermal.infrared.resolution_k = config.infrared_resolution_k;
   auto& h = o.health;
   for (const auto& [factor, w] : config.health_weights) {
     if (factor == "dga") h.weight_dga = w;
@@ -72,7 +74,8 @@ analytics::AssessmentOptions options_from_config(const config::SiteConfig& confi
 
 analytics::UnitAssessment assess_unit(store::Store& store, const std::string& unit_id, analytics::Day as_of,
                                       const analytics::AssessmentOptions& options) {
-  const analytics::UnitData data = reporting::data_as_of(store.unit_data(unit_id), as_of);
+  analytics::UnitData data = reporting::data_as_of(store.unit_data(unit_id), as_of);
+  data.held_back = ingest::held_back_of(store, unit_id);
   return analytics::assess_unit(data, as_of, options);
 }
 

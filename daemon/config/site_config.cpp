@@ -107,6 +107,9 @@ std::vector<Key> make_keys() {
                  c.utc_offset_minutes = parse_utc_offset(v);
                  c.utc_offset_text = v;
                }});
+  k.push_back({"site", "time_zone", Type::text, "UTC", true,
+               "IANA time zone of the site (e.g. Europe/Berlin): alert times are printed in it.",
+               [](SiteConfig& c, const std::string& v) { c.time_zone = SiteTimeZone::load(v); }});
   k.push_back({"site", "paper", Type::text, "a4", true, "Report paper size: a4 or letter.",
                [](SiteConfig& c, const std::string& v) {
                  const std::string p = Poco::toLower(v);
@@ -173,6 +176,12 @@ std::vector<Key> make_keys() {
                "Site view: a unit with more water in paper than this (%) takes no transferred load.",
                [](SiteConfig& c, const std::string& v) {
                  c.site_wet_paper_pct = parse_number("analysis.site_wet_paper_pct", v, 0, 20);
+               }});
+  k.push_back({"analysis", "infrared_resolution_k", Type::number, "1", true,
+               "Infrared rises below this (K, the camera's resolution) are not corrected to rated load\n"
+               "and give no finding.",
+               [](SiteConfig& c, const std::string& v) {
+                 c.infrared_resolution_k = parse_number("analysis.infrared_resolution_k", v, 0, 10);
                }});
   for (const char* f : kHealthFactors) {
     const std::string name = std::string("weight_") + f;
@@ -452,6 +461,7 @@ std::vector<std::string> describe_changes(const SiteConfig& a, const SiteConfig&
   cmp("site.name", a.utility_name, b.utility_name);
   cmp("site.utc_offset", a.utc_offset_text, b.utc_offset_text);
   cmp("site.paper", a.paper, b.paper);
+  cmp("site.time_zone", a.time_zone.name(), b.time_zone.name());
   cmp("ingest.settle_seconds", a.settle_seconds, b.settle_seconds);
   cmp("ingest.rescan_seconds", a.rescan_seconds, b.rescan_seconds);
   cmp("ingest.max_file_bytes", a.max_file_bytes, b.max_file_bytes);
@@ -462,6 +472,7 @@ std::vector<std::string> describe_changes(const SiteConfig& a, const SiteConfig&
   cmp("analysis.inspection_interval_days", a.inspection_interval_days, b.inspection_interval_days);
   cmp("analysis.measured_top_oil_above_k", a.measured_top_oil_above_k, b.measured_top_oil_above_k);
   cmp("analysis.site_wet_paper_pct", a.site_wet_paper_pct, b.site_wet_paper_pct);
+  cmp("analysis.infrared_resolution_k", a.infrared_resolution_k, b.infrared_resolution_k);
   cmp("log.level", a.log_level, b.log_level);
   if (a.health_weights != b.health_weights) out.push_back("health weights changed");
   if (a.ranking != b.ranking) out.push_back("ranking settings changed");

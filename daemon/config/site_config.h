@@ -16,6 +16,7 @@
 #include <vector>
 
 #include "daemon/config/mail_settings.h"
+#include "daemon/config/site_time.h"
 #include "daemon/config/store_config.h"
 #include "daemon/ingest/field_parsers.h"
 #include "daemon/ingest/header_map.h"
@@ -56,6 +57,7 @@ struct SiteConfig {
   int utc_offset_minutes = 0;        // applied to times written without an offset
   std::string utc_offset_text = "+00:00";
   std::string paper = "a4";          // a4 or letter
+  SiteTimeZone time_zone;            // [site] time_zone (IANA), alert times (site_time.h)
   // [ingest]
   int settle_seconds = 5;
   int rescan_seconds = 30;
@@ -70,6 +72,7 @@ struct SiteConfig {
   int inspection_interval_days = 365;
   double measured_top_oil_above_k = 5;  // K: hot spot from measured top oil above this discrepancy
   double site_wet_paper_pct = 2.5;       // %: site view, no transfer onto wetter paper
+  double infrared_resolution_k = 1.0;  // rises below it: no load correction, no finding
   std::map<std::string, double> health_weights;  // factor name -> weight override
   std::map<std::string, std::vector<double>> health_bands;  // band key -> cut points override
   // [electrical]

@@ -90,7 +90,9 @@ bool ElectricalRowParser::parse(std::span<const std::string_view> fields, std::i
   bool known = false;
   const analytics::UnitInfo* info = unit(column("unit_id"), known);
   out.unit_id = cell(column("unit_id"));
-  t.date = date(column("test_date"), true).value_or(0);
+  const auto day = date(column("test_date"), true);
+  t.date = day.value_or(0);
+  if (day && !out.unit_id.empty() && options_.on_dated_row) options_.on_dated_row(out.unit_id, *day);
   const ColumnBinding& test = column("test");
   const std::string name = to_snake_case(required_text(test, "test"));
   bool test_known = false;

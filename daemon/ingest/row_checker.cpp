@@ -42,7 +42,9 @@ std::optional<Day> RowChecker::begin_measurement_row(std::span<const std::string
   bool known = false;
   unit(column("unit_id"), known);
   unit_id = cell(column("unit_id"));
-  return date(column(date_column), true);
+  const auto day = date(column(date_column), true);
+  if (day && !unit_id.empty() && options_.on_dated_row) options_.on_dated_row(unit_id, *day);
+  return day;
 }
 
 std::string_view RowChecker::cell(const ColumnBinding& b) const {

@@ -87,6 +87,9 @@ struct ParseOptions {
   // Accepted inspection items, snake_case (default: the list above).
   std::vector<std::string> inspection_items = default_inspection_items();
   ValidationLimits limits;
+  // Called for each measurement row whose unit id and date could be read, even
+  // when another cell of the row has a problem: what a rejected file holds back.
+  std::function<void(std::string_view unit_id, analytics::Day day)> on_dated_row;
 };
 
 struct UnitRow {

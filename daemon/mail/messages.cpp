@@ -48,7 +48,7 @@ std::string read_or(const fs::path& p, const std::string& fallback) {
 }  // namespace
 
 int queue_alert(Outbox& outbox, const config::SiteConfig& config, const std::string& unit_id, const std::string& site,
-                const std::string& text, const fs::path& pdf, std::int64_t now) {
+                const std::string& text, const fs::path& pdf, const std::string& raised_at, std::int64_t now) {
   if (!config.mail.enabled()) return 0;
   int n = 0;
   for (const auto& [name, r] : config.recipients) {
@@ -58,7 +58,7 @@ int queue_alert(Outbox& outbox, const config::SiteConfig& config, const std::str
     m.to = r.email;
     m.subject = config.mail.subject_prefix + " ALERT " + unit_id + " (" + site + "): " + text;
     if (m.subject.size() > 200) m.subject = m.subject.substr(0, 197) + "...";
-    m.body = opening() + "ALERT for unit " + unit_id + " at " + site + ", raised " + analytics::format_utc(now) +
+    m.body = opening() + "ALERT for unit " + unit_id + " at " + site + ", raised " + raised_at +
              ":\n  " + text + "\n\nThe attached alert report states the first step. A qualified engineer decides "
              "what is done.\n\n" + config.utility_name + " - ferrum\n";
     attach_or_list(m, {pdf}, config.mail.max_bytes);

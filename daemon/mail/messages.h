@@ -20,9 +20,11 @@
 namespace ferrum::mail {
 
 // Queues the alert for every recipient with `alerts` whose sites include `site`.
-// Returns how many messages were queued.
+// `raised_at` is the alert's time as its PDF and alerts.csv print it
+// (config::site_timestamp). Returns how many messages were queued.
 int queue_alert(Outbox& outbox, const config::SiteConfig& config, const std::string& unit_id, const std::string& site,
-                const std::string& text, const std::filesystem::path& pdf, std::int64_t now);
+                const std::string& text, const std::filesystem::path& pdf, const std::string& raised_at,
+                std::int64_t now);
 
 struct WeeklyQueued {
   std::vector<std::string> queued, already;  // recipient names

@@ -280,6 +280,14 @@ void import_source(RecordSource& reader, const ImportSettings& s, store::Store& 
   if (s.config)
     for (const auto& item : s.config->extra_inspection_items) po.inspection_items.push_back(item);
   po.date_order = formats.date_order;
+  po.on_dated_row = [&r](std::string_view unit, analytics::Day day) {
+    auto it = r.newest_day.find(std::string(unit));
+    if (it == r.newest_day.end()) {
+      if (r.newest_day.size() < ImportResult::kMaxNamedUnits) r.newest_day.emplace(unit, day);
+    } else if (day > it->second) {
+      it->second = day;
+    }
+  };
   const bool comma = uses_decimal_comma(formats.decimal, reader.decimal_comma());
   RowCounts counts;
 

@@ -8,6 +8,7 @@
 #include <istream>
 #include <optional>
 #include <stdexcept>
+#include <map>
 #include <set>
 #include <string>
 #include <vector>
@@ -48,6 +49,10 @@ struct ImportResult {
   // kMaxNamedUnits: whose results a rejected file holds up.
   std::set<std::string> named_units;
   static constexpr std::size_t kMaxNamedUnits = 200;
+  // Per named unit, the newest date of its measurement rows whose unit id and
+  // date could be read (good rows and rows with a problem; at most
+  // kMaxNamedUnits units): what a rejected file holds back.
+  std::map<std::string, analytics::Day> newest_day;
   std::optional<std::int64_t> first_day, last_day;  // date range of the rows taken (days since 1970-01-01)
   // Of the rows taken, how many were new and how many were already on file
   // (an earlier file delivered the same key; see store::RowInsert). Set when

@@ -14,6 +14,7 @@
 #include <sstream>
 
 #include "analytics/calendar.h"
+#include "daemon/pipeline/held_back_record.h"
 #include "daemon/pipeline/import_bridge.h"
 #include "daemon/site/atomic_file.h"
 
@@ -395,6 +396,8 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
     r.stored_as = fs::relative(destination("rejected", name, r.sha256, now), root_.root).string();
     store_.add_file({0, r.sha256, party, name, r.kind, "rejected", r.rows, r.problem_count, received_at, r.stored_as,
                      r.to_json()});
+    // Newer results this file held back, per unit: the unit report says so.
+    record_held_back(store_, result.kind, result.newest_day, received_at, party + "/" + name);
   } else {
     out.units = r.units;
     out.unsafe_items = result.unsafe_items;

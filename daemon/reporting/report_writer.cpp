@@ -12,6 +12,7 @@
 #include "daemon/assess/assessment_service.h"
 #include "daemon/assess/plan_service.h"
 #include "daemon/config/plan_config.h"
+#include "daemon/pipeline/held_back_record.h"
 #include "daemon/site/atomic_file.h"
 #include "report/alert_report.h"
 #include "report/fleet_report.h"
@@ -71,6 +72,9 @@ analytics::UnitData data_as_of(const analytics::UnitData& d, analytics::Day day)
   // Work done or cancelled by then; a booking counts whatever its date (it lies ahead).
   for (const auto& w : d.work_status)
     if (w.date <= day || w.status == "booked") out.work_status.push_back(w);
+  for (const auto& s : d.site_inspections)
+    if (s.record.date <= day) out.site_inspections.push_back(s);
+  out.held_back = d.held_back;
   return out;
 }
 
@@ -99,7 +103,8 @@ static report::ReportOptions report_options(const config::SiteConfig& c) {
 
 fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as_of, const fs::path& out_dir) {
   if (!store_.find_unit(unit_id)) throw std::runtime_error("unit " + unit_id + " is not in the register");
-  const analytics::UnitData data = store_.unit_data(unit_id);
+  analytics::UnitData data = store_.unit_data(unit_id);
+  data.held_back = ingest::held_back_of(store_, unit_id);
   analytics::UnitAssessment current = analytics::assess_unit(data_as_of(data, as_of), as_of, options_);
   const auto sites = site_of(current, as_of);
   analytics::apply_site_view(current, sites);
@@ -227,14 +232,21 @@ fs::path ReportWriter::weekly_bundle(analytics::Day as_of) {
 }
 
 fs::path ReportWriter::alert(const std::string& unit_id, const std::string& kind, const std::string& text,
-                             const std::string& first_step, const std::string& raised_at) {
+                             const std::string& first_step, std::int64_t at_utc) {
+  // Printed in site time, by the one function the mail uses too.
+  const std::string raised_at = config::site_timestamp(at_utc, config_.time_zone);
   fs::create_directories(root_.alerts());
   const auto unit = store_.find_unit(unit_id);
   report::AlertInfo info{unit_id, unit ? unit->site : "", kind, raised_at, text, first_step};
-  std::string stamp = raised_at;
+  std::string stamp = raised_at.substr(0, raised_at.find(" ("));  // "2026-11-30 07:10:05 CET"
   std::replace(stamp.begin(), stamp.end(), ':', '-');
-  const fs::path pdf = root_.alerts() / ("alert-" + safe_component(unit_id) + "-" + safe_component(kind) + "-" +
-                                         safe_component(stamp) + ".pdf");
+  std::replace(stamp.begin(), stamp.end(), ' ', '_');
+  // One alert, one PDF: a second finding of the same kind and second gets
+  // its own file (-2, -3, ...), so each alerts.csv line names the PDF that
+  // shows its finding.
+  const std::string base = "alert-" + safe_component(unit_id) + "-" + safe_component(kind) + "-" + safe_component(stamp);
+  fs::path pdf = root_.alerts() / (base + ".pdf");
+  for (int n = 2; fs::exists(pdf); ++n) pdf = root_.alerts() / (base + "-" + std::to_string(n) + ".pdf");
   report::render_alert(info, report_options(config_), pdf.string());
   // alerts.csv is appended, one line per alert (a header when new).
   const fs::path csv = root_.alerts() / "alerts.csv";
@@ -248,7 +260,7 @@ fs::path ReportWriter::alert(const std::string& unit_id, const std::string& kind
   store::Alert a;
   a.unit_id = unit_id;
   a.kind = kind;
-  a.raised_at = raised_at.empty() ? iso_now() : raised_at;
+  a.raised_at = at_utc > 0 ? analytics::format_utc(at_utc) : iso_now();  // the store keeps UTC: it sorts
   a.text = text;
   store_.add_alert(a);
   spdlog::warn("ALERT {} {}: {}", unit_id, kind, text);

@@ -4,6 +4,7 @@
 // temporary name and renames).
 #pragma once
 
+#include <cstdint>
 #include <filesystem>
 #include <optional>
 #include <string>
@@ -42,9 +43,12 @@ class ReportWriter {
   // An existing week folder is left untouched; returns its path either way.
   std::filesystem::path weekly_bundle(analytics::Day as_of);
 
-  // reports/alerts/alert-UNIT-TIME.pdf and a line in reports/alerts/alerts.csv.
+  // reports/alerts/alert-UNIT-KIND-TIME.pdf (one per alert: -2, -3 when the
+  // name is taken) and a line in reports/alerts/alerts.csv naming it. The time
+  // (UTC seconds) is printed in site time (config::site_timestamp); the store
+  // keeps it in UTC.
   std::filesystem::path alert(const std::string& unit_id, const std::string& kind, const std::string& text,
-                              const std::string& first_step, const std::string& raised_at);
+                              const std::string& first_step, std::int64_t at_utc);
 
   // Assessment of a unit (also used for alerts).
   analytics::UnitAssessment assess(const std::string& unit_id, analytics::Day as_of);

@@ -9,6 +9,7 @@
 #include <unistd.h>
 
 #include <chrono>
+#include <cstdio>
 #include <sstream>
 #include <thread>
 
@@ -133,14 +134,16 @@ struct Server::Impl {
   std::chrono::steady_clock::time_point next_mail_check{};
 
   // An alert: its PDF and line (ReportWriter), then mail at once to everyone
-  // whose sites it concerns (through the outbox).
+  // whose sites it concerns (through the outbox). One alert is one finding: its own PDF, one alerts.csv line and one mail.
+  // Its time is printed once, in site time ([site] time_zone), for all three.
   void raise_alert(const std::string& unit, const std::string& kind, const std::string& text,
-                   const std::string& first_step, const std::string& at) {
-    const fs::path pdf = writer->alert(unit, kind, text, first_step, at);
+                   const std::string& first_step, std::int64_t at_utc) {
+    const std::string at = config::site_timestamp(at_utc, config.time_zone);
+    const fs::path pdf = writer->alert(unit, kind, text, first_step, at_utc);
     try {
       const auto info = store->find_unit(unit);
       mail::Outbox outbox(root);
-      mail::queue_alert(outbox, config, unit, info ? info->site : "", text, pdf, now_utc());
+      mail::queue_alert(outbox, config, unit, info ? info->site : "", text, pdf, at, now_utc());
     } catch (const std::exception& e) {
       spdlog::error("alert mail for {} not queued: {}", unit, e.what());
     }
@@ -224,7 +227,21 @@ struct Server::Impl {
       const std::string unit = item.substr(0, colon);
       raise_alert(unit, "unsafe_inspection", "inspection rated an item UNSAFE: " + item.substr(colon + 2),
                     "Keep people away from the unit and have a qualified engineer assess it before any work.",
-                    analytics::format_utc(now_utc()));
+                    now_utc());
+      // An unsafe earth: the other units of the site get a site-earth-check
+      // action (analytics/site_earth_check.h), so their reports are redone too.
+      if (item.compare(colon + 2, 9, "grounding") == 0) mark_site_dirty(unit, now);
+    }
+  }
+
+  void mark_site_dirty(const std::string& unit, std::chrono::steady_clock::time_point now) {
+    try {
+      const auto info = store->find_unit(unit);
+      if (!info) return;
+      for (const auto& u : store->units())
+        if (u.site == info->site) dirty_units.emplace(u.unit_id, now);
+    } catch (const std::exception& e) {
+      spdlog::error("units of the site of {} not marked for a new report: {}", unit, e.what());
     }
   }
 
@@ -326,7 +343,7 @@ struct Server::Impl {
     const Snapshot now = Snapshot::of(a);
     const auto stored = store->state("snapshot:" + unit);
     const Snapshot before = stored ? Snapshot::decode(*stored) : Snapshot{};
-    const std::string at = analytics::format_utc(now_utc());
+    const std::int64_t at = now_utc();
     // Appearing, or rising by more than the repeatability of a lab
     // measurement (10 % + 0.5 ppm: common practice, no published source).
     if (now.c2h2 > 0 && (before.c2h2 <= 0 || now.c2h2 > before.c2h2 * 1.1 + 0.5))
@@ -355,6 +372,36 @@ struct Server::Impl {
                         " °C, above the long-time emergency limit of " + std::to_string(static_cast<int>(emergency)) + " °C",
                     "Reduce the load and check the cooling; review the loading with an engineer.", at);
     store->set_state("snapshot:" + unit, now.encode());
+    check_infrared_alerts(unit, a, at);
+  }
+
+  // An infrared finding of NETA priority 1 ("repair immediately"; ferrum
+  // severity 4) raises one alert per finding (component and survey date),
+  // once: the findings already alerted are kept in the store's state.
+  void check_infrared_alerts(const std::string& unit, const analytics::UnitAssessment& a, std::int64_t at) {
+    const std::string key = "infrared_alerted:" + unit;
+    std::string alerted = store->state(key).value_or("");
+    bool changed = false;
+    for (const auto& f : a.infrared) {
+      if (f.severity.value_or(0) < 4) continue;
+      const std::string id = analytics::format_day(f.date) + " " + f.component + "\n";
+      if (("\n" + alerted).find("\n" + id) != std::string::npos) continue;
+      std::string text = "infrared survey " + analytics::format_day(f.date) + ": " + f.component + ", " +
+                         f.severity_text;
+      if (f.corrected_rise_k) {
+        char rise[48];
+        std::snprintf(rise, sizeof rise, ", %.1f K at rated load", *f.corrected_rise_k);
+        text += rise;
+      }
+      raise_alert(unit, "infrared_priority_1", text,
+                  "Have the connection repaired immediately, under an outage and permit as a qualified engineer "
+                  "decides; until then reduce the load on the unit where possible and keep people away from "
+                  "the hot part.",
+                  at);
+      alerted += id;
+      changed = true;
+    }
+    if (changed) store->set_state(key, alerted);
   }
 
   void weekly() {

@@ -398,6 +398,14 @@ class PgStore final : public Store {
                        " ORDER BY inspection_day, item COLLATE \"C\"", Params().add(key));
       for (int i = 0; i < r.rows(); ++i) d.inspections.push_back(read_inspection_row(r.row(i)));
     }
+    {
+      // The earth inspections of the other units at this site (site_earth_check.h).
+      auto r = db_.run("SELECT n.inspection_day, n.item, n.rating, n.note, n.inspector, u.unit_id FROM inspections n"
+                       " JOIN units u USING(unit_key) WHERE lower(u.site)=lower($1) AND n.unit_key<>$2 AND"
+                       " n.item='grounding' ORDER BY n.inspection_day, u.unit_id COLLATE \"C\"",
+                       Params().add(d.info.site).add(key));
+      for (int i = 0; i < r.rows(); ++i) d.site_inspections.push_back({r.row(i).text(5), read_inspection_row(r.row(i))});
+    }
     read_electrical(key, d.electrical);
     {
       auto r = db_.run("SELECT reference, status, status_day, note FROM work_status WHERE unit_key=$1"

@@ -439,6 +439,15 @@ class SqliteStore final : public Store {
       while (s.step()) d.inspections.push_back(read_inspection_row(s));
       s.reset();
     }
+    {
+      // The earth inspections of the other units at this site (site_earth_check.h).
+      auto& s = stmt("SELECT n.inspection_day, n.item, n.rating, n.note, n.inspector, u.unit_id FROM inspections n"
+                     " JOIN units u USING(unit_key) WHERE lower(u.site)=lower(?) AND n.unit_key<>? AND"
+                     " n.item='grounding' ORDER BY n.inspection_day, u.unit_id");
+      s.bind(1, d.info.site).bind(2, key);
+      while (s.step()) d.site_inspections.push_back({s.text(5), read_inspection_row(s)});
+      s.reset();
+    }
     read_electrical(key, d.electrical);
     {
       auto& s = stmt("SELECT reference, status, status_day, note FROM work_status WHERE unit_key=?"

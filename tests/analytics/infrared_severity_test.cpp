@@ -2,6 +2,10 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
+
+#include "analytics/thermal_assessment.h"
+
 namespace ferrum::analytics {
 namespace {
 
@@ -138,6 +142,71 @@ TEST(InfraredSeverity, SurveyKeepsLatestPerComponentUpToAsOf) {
   ASSERT_EQ(f.size(), 2u);
   EXPECT_EQ(f[0].component, "B");  // 20 K over reference: most severe first
   EXPECT_EQ(f[1].date, 200);
+}
+
+// Issue #16: a rise below the camera's resolution (default 1 K) is not
+// extrapolated to rated load and is no job; a rise above it is corrected and
+// classified as before.
+InfraredScan scan_at_load(double rise_k, double load_pct) {
+  InfraredScan s;
+  s.date = days_from_civil(2026, 9, 22);
+  s.component = "LV bushing X2 clamp";
+  s.reference_c = 30;
+  s.spot_c = 30 + rise_k;
+  s.ambient_c = 20;
+  s.load_pct = load_pct;
+  s.image_ref = "IR-0457.jpg";
+  s.note = "clamp discoloured";
+  return s;
+}
+
+std::size_t infrared_jobs(const InfraredScan& s, const ThermalOptions& o = {}) {
+  UnitData d;
+  d.info.unit_id = "T9";
+  d.infrared.push_back(s);
+  UnitAssessment a;
+  assess_thermal(d, days_from_civil(2026, 12, 1), o, a);
+  return static_cast<std::size_t>(std::count_if(a.actions.begin(), a.actions.end(), [](const Action& x) {
+    return x.text.find("LV bushing X2 clamp") != std::string::npos;
+  }));
+}
+
+TEST(InfraredSeverity, RiseBelowResolutionIsNotCorrectedAndNoJob) {
+  // 0.4 K at 25 % load would be 6.4 K at rated load (x 16, Infraspection
+  // Institute correction with n = 2) and NETA priority 3; it is within a
+  // camera's accuracy (common practice, no published source), so no finding.
+  const auto f = assess_infrared_scan(scan_at_load(0.4, 25), {});
+  EXPECT_NEAR(*f.rise_over_reference_k, 0.4, 1e-9);
+  EXPECT_FALSE(f.corrected_rise_k);
+  EXPECT_FALSE(f.severity);
+  EXPECT_NE(f.severity_text.find("below the camera resolution of 1.0 K"), std::string::npos) << f.severity_text;
+  EXPECT_EQ(infrared_jobs(scan_at_load(0.4, 25)), 0u);
+}
+
+TEST(InfraredSeverity, RiseAboveResolutionIsCorrectedAndAJob) {
+  // 1.5 K at 50 % load -> 6.0 K at rated load (Infraspection Institute
+  // correction, n = 2): 3..15 K over a similar component, NETA priority 3
+  // (ANSI/NETA MTS ΔT table), severity 2.
+  const auto f = assess_infrared_scan(scan_at_load(1.5, 50), {});
+  EXPECT_NEAR(*f.corrected_rise_k, 6.0, 1e-9);
+  EXPECT_EQ(f.severity, 2);
+  EXPECT_EQ(infrared_jobs(scan_at_load(1.5, 50)), 1u);
+}
+
+TEST(InfraredSeverity, ResolutionIsConfigurable) {
+  // With a coarser camera (2 K, ferrum.ini [analysis] infrared_resolution_k)
+  // the 1.5 K rise is no longer a job (common practice, no published source).
+  ThermalOptions o;
+  o.infrared.resolution_k = 2.0;
+  EXPECT_FALSE(assess_infrared_scan(scan_at_load(1.5, 50), o.infrared).severity);
+  EXPECT_EQ(infrared_jobs(scan_at_load(1.5, 50), o), 0u);
+}
+
+TEST(InfraredSeverity, FindingKeepsLoadImageAndNote) {
+  const auto f = assess_infrared_scan(scan_at_load(12, 80), {});
+  EXPECT_EQ(f.load_pct, 80);
+  EXPECT_EQ(f.image_ref, "IR-0457.jpg");
+  EXPECT_EQ(f.note, "clamp discoloured");
 }
 
 }  // namespace

@@ -139,8 +139,10 @@ inline UnitAssessment filled_unit() {
     th.hot_spot_series.push_back({t, 62 + 48 * load * load + 4 * std::sin(dday / 6.0) - 6 * season});
   }
   a.infrared = {
-      {days_from_civil(2026, 7, 2), "HV bushing B-phase connector", 18.0, 31.0, 34.5, 3, "probable deficiency; repair as time permits", false, "NETA MTS Table 100.18"},
-      {days_from_civil(2026, 7, 2), "Cooling fan motor 2", 2.5, 9.0, std::nullopt, 1, "possible deficiency", true, "NETA MTS Table 100.18"}};
+      {days_from_civil(2026, 7, 2), "HV bushing B-phase connector", 18.0, 31.0, 34.5, 3, "probable deficiency; repair as time permits", false, "NETA MTS Table 100.18",
+       80.0, "IR-0103", "connector discoloured"},
+      {days_from_civil(2026, 7, 2), "Cooling fan motor 2", 2.5, 9.0, std::nullopt, 1, "possible deficiency", true, "NETA MTS Table 100.18",
+       std::nullopt, "", ""}};
   a.inspection = {
       {"radiators", Rating::poor, days_from_civil(2026, 9, 21), Rating::fair, true, "Weeping at the lower header flange of radiator 3; oil on the plinth."},
       {"bushings", Rating::fair, days_from_civil(2026, 9, 21), Rating::fair, false, "Porcelain clean; oil level visible."},
