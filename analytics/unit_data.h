@@ -5,6 +5,7 @@
 
 #include <cmath>
 #include <limits>
+#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
@@ -147,6 +148,8 @@ struct WorkStatus {
   std::string note;
 };
 
+struct LoadHistory;  // load_history.h
+
 struct UnitData {
   UnitInfo info;
   std::vector<OilSample> oil_samples;
@@ -155,6 +158,9 @@ struct UnitData {
   std::vector<InspectionRecord> inspections;
   std::vector<ElectricalTest> electrical;  // sorted by date
   std::vector<WorkStatus> work_status;     // sorted by date; the latest row per reference wins
+  // The load series' days older than `load` that the retention summarised
+  // ([store] keep_load_points_years); null when none were.
+  std::shared_ptr<const LoadHistory> load_history;
 };
 
 const char* to_string(Rating r);

@@ -67,6 +67,7 @@ analytics::UnitData data_as_of(const analytics::UnitData& d, analytics::Day day)
     if (s.date <= day) out.inspections.push_back(s);
   for (const auto& t : d.electrical)
     if (t.date <= day) out.electrical.push_back(t);
+  out.load_history = d.load_history;  // summarised days: the assessment reads those before its window's end
   return out;
 }
 
