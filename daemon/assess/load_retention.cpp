@@ -2,7 +2,7 @@
 
 #include <spdlog/spdlog.h>
 
-#include <algorithm>
+#include <climits>
 #include <memory>
 
 #include "analytics/load_history.h"
@@ -27,13 +27,11 @@ std::size_t apply_load_retention(store::Store& store, const config::SiteConfig& 
   const auto options = options_from_config(config, root).thermal;
   std::size_t changed = 0;
   for (const auto& unit : store.units()) {
-    const auto data = store.unit_data(unit.unit_id);
-    const auto first_kept = std::lower_bound(data.load.begin(), data.load.end(), cut,
-                                             [](const analytics::LoadPoint& p, analytics::Timestamp t) { return p.t < t; });
-    if (first_kept == data.load.begin()) continue;  // nothing older than the limit
+    // Only the points older than the limit are read (one day of them, run daily).
+    const auto old = store.load_points(unit.unit_id, INT64_MIN, cut - 1);
+    if (old.empty()) continue;
+    const auto data = store.unit_data(unit.unit_id);  // the summarised days so far, if any
     analytics::LoadHistory history = data.load_history ? *data.load_history : analytics::LoadHistory{};
-    const std::span<const analytics::LoadPoint> old(data.load.data(),
-                                                   static_cast<std::size_t>(first_kept - data.load.begin()));
     analytics::summarise_load_before(analytics::resolve_thermal_model(data.info, options.method), options.gaps,
                                      options.limits, old, cut, history);
     store.begin();
