@@ -84,6 +84,16 @@ class SharedPostgresql(unittest.TestCase):
         p = run("ingest", "--root", self.roots[root], check=False)
         self.assertEqual(p.returncode, 0, p.stdout + p.stderr)
 
+    def server_back_and_file_imported(self, root):
+        """The server started again: lab-n.csv, waiting in work/, is imported whole."""
+        self.server.start(database=None)
+        receipt = os.path.join(root, "drop", "planning", "receipts", "lab-n.csv.json")
+        deadline = time.time() + 120
+        while not os.path.exists(receipt) and time.time() < deadline:
+            time.sleep(0.2)
+        self.assertEqual(self.receipt("north", "lab-n.csv")["status"], "accepted")
+        self.assertEqual(self.rows("SELECT count(*) FROM oil_samples"), ["1"])
+
     def rows(self, sql):
         return self.server.psql(sql).split()
 
@@ -170,13 +180,7 @@ class SharedPostgresql(unittest.TestCase):
         self.assertIsNone(self.daemon.poll(), "the daemon must keep running")
         waiting = [f for d, _, fs in os.walk(os.path.join(root, "work")) for f in fs]
         self.assertEqual(len(waiting), 1, waiting)  # nothing lost: the file waits in work/
-        self.server.start(database=None)
-        receipt = os.path.join(root, "drop", "planning", "receipts", "lab-n.csv.json")
-        deadline = time.time() + 120
-        while not os.path.exists(receipt) and time.time() < deadline:
-            time.sleep(0.2)
-        self.assertEqual(self.receipt("north", "lab-n.csv")["status"], "accepted")
-        self.assertEqual(self.rows("SELECT count(*) FROM oil_samples"), ["1"])
+        self.server_back_and_file_imported(root)
         self.daemon.send_signal(signal.SIGTERM)
         self.daemon.communicate(timeout=30)
 
@@ -213,13 +217,7 @@ class SharedPostgresql(unittest.TestCase):
         time.sleep(3)  # a few retries with back-off while the database is still down
         self.assertIsNone(self.daemon.poll(), "the daemon must keep running")
         self.assertEqual([f for d, _, fs in os.walk(work) for f in fs], waiting)
-        self.server.start(database=None)
-        receipt = os.path.join(root, "drop", "planning", "receipts", "lab-n.csv.json")
-        deadline = time.time() + 120
-        while not os.path.exists(receipt) and time.time() < deadline:
-            time.sleep(0.2)
-        self.assertEqual(self.receipt("north", "lab-n.csv")["status"], "accepted")
-        self.assertEqual(self.rows("SELECT count(*) FROM oil_samples"), ["1"])
+        self.server_back_and_file_imported(root)
         self.assertEqual([f for d, _, fs in os.walk(work) for f in fs], [])
         deadline = time.time() + 30
         while time.time() < deadline:
