@@ -52,33 +52,45 @@ LoadIndicators load_indicators(std::span<const ThermalPoint> points, const Loadi
   return r;
 }
 
-LoadGrowth load_growth(std::span<const ThermalPoint> points, double min_span_days) {
+void GrowthSums::add_shifted(const GrowthSums& later, double a) {
+  // Σw(a+u) = aΣw + Σwu; Σw(a+u)² = a²Σw + 2aΣwu + Σwu²; Σw(a+u)y = aΣwy + Σwuy.
+  w += later.w;
+  x += a * later.w + later.x;
+  y += later.y;
+  xx += a * a * later.w + 2 * a * later.x + later.xx;
+  xy += a * later.y + later.xy;
+}
+
+LoadGrowth load_growth(const GrowthSums& earlier, Timestamp first_t, std::span<const ThermalPoint> points,
+                       Timestamp last_t, std::size_t count, double min_span_days) {
   LoadGrowth g;
-  if (points.size() < 2) {
+  if (count < 2) {
     g.note = "fewer than two load points";
     return g;
   }
-  const Timestamp t0 = points.front().t;
-  g.span_years = (points.back().t - t0) / (365.25 * 86400);
+  const Timestamp t0 = first_t;
+  g.span_years = (last_t - t0) / kSecondsPerYear;
   if (g.span_years * 365.25 < min_span_days) {
     g.note = "load history shorter than " + std::to_string(static_cast<int>(min_span_days)) + " days";
     return g;
   }
   // Weighted least squares of load on time (years), weights = step_h.
-  double sw = 0, sx = 0, sy = 0, sxx = 0, sxy = 0;
-  for (const auto& p : points) {
-    const double w = p.step_h, x = (p.t - t0) / (365.25 * 86400), y = p.load_pu;
-    sw += w, sx += w * x, sy += w * y, sxx += w * x * x, sxy += w * x * y;
-  }
-  const double den = sw * sxx - sx * sx;
-  if (sw <= 0 || den <= 0 || sy <= 0) {
+  GrowthSums s = earlier;
+  for (const auto& p : points) s.add(p.step_h, (p.t - t0) / kSecondsPerYear, p.load_pu);
+  const double den = s.w * s.xx - s.x * s.x;
+  if (s.w <= 0 || den <= 0 || s.y <= 0) {
     g.note = "load series without spread in time or load";
     return g;
   }
-  const double slope = (sw * sxy - sx * sy) / den;
-  g.pct_per_year = 100.0 * slope / (sy / sw);
+  const double slope = (s.w * s.xy - s.x * s.y) / den;
+  g.pct_per_year = 100.0 * slope / (s.y / s.w);
   g.note = "least-squares slope of load over time, relative to the mean load";
   return g;
+}
+
+LoadGrowth load_growth(std::span<const ThermalPoint> points, double min_span_days) {
+  if (points.empty()) return load_growth(GrowthSums{}, 0, points, 0, 0, min_span_days);
+  return load_growth(GrowthSums{}, points.front().t, points, points.back().t, points.size(), min_span_days);
 }
 
 }  // namespace ferrum::analytics

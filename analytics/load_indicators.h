@@ -51,6 +51,18 @@ struct LoadIndicators {
 // Indicators over all given points. Each point stands for its step_h.
 LoadIndicators load_indicators(std::span<const ThermalPoint> points, const LoadingLimits& limits);
 
+// Sums of the time-weighted least-squares fit of load on time (weights
+// step_h, x in years from an origin, y load per unit).
+struct GrowthSums {
+  double w = 0, x = 0, y = 0, xx = 0, xy = 0;
+  void add(double weight, double x_years, double load_pu) {
+    w += weight, x += weight * x_years, y += weight * load_pu;
+    xx += weight * x_years * x_years, xy += weight * x_years * load_pu;
+  }
+  // `later` with its origin `shift_years` after this one's.
+  void add_shifted(const GrowthSums& later, double shift_years);
+};
+
 struct LoadGrowth {
   std::optional<double> pct_per_year;
   double span_years = 0;
@@ -60,5 +72,12 @@ struct LoadGrowth {
 // Trend over all points; needs at least min_span_days of data, since a
 // shorter span mostly measures the season.
 LoadGrowth load_growth(std::span<const ThermalPoint> points, double min_span_days = 365);
+
+// The same from sums already taken (origin t0, the first point), and the
+// points after them; first_t/last_t: the first and last point of it all.
+LoadGrowth load_growth(const GrowthSums& earlier, Timestamp first_t, std::span<const ThermalPoint> points,
+                       Timestamp last_t, std::size_t count, double min_span_days = 365);
+
+inline constexpr double kSecondsPerYear = 365.25 * 86400;
 
 }  // namespace ferrum::analytics

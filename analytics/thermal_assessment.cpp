@@ -1,12 +1,14 @@
 #include "analytics/thermal_assessment.h"
 
 #include <algorithm>
+#include <climits>
 #include <cmath>
 #include <cstdio>
 #include <map>
 
 #include "analytics/action_plan.h"
 #include "analytics/ageing_rate.h"
+#include "analytics/load_history.h"
 #include "analytics/words.h"
 
 namespace ferrum::analytics {
@@ -140,13 +142,82 @@ std::optional<double> emergency_load(const ThermalModel& m, double ambient_c, do
   return 0.5 * (lo + hi);
 }
 
-void summarise_window(std::span<const ThermalPoint> all, Window w, const ThermalOptions& o, ThermalSummary& th) {
+// Days of the retention's summaries (load_history.h) with their start in [from, to).
+std::span<const LoadDay> days_in(const LoadHistory* h, Timestamp from, Timestamp to) {
+  if (!h) return {};
+  auto first = std::find_if(h->days.begin(), h->days.end(), [&](const LoadDay& d) { return start_of(d.day) >= from; });
+  auto last = std::find_if(first, h->days.end(), [&](const LoadDay& d) { return start_of(d.day) >= to; });
+  return {first, last};
+}
+
+// The load-growth trend over the summarised days before the raw points, then
+// the raw points: the same least squares as over the raw points alone.
+LoadGrowth growth_over(std::span<const LoadDay> days, std::span<const ThermalPoint> all, double min_span_days) {
+  if (days.empty()) return load_growth(all, min_span_days);
+  GrowthSums sums;
+  const Timestamp t0 = days.front().first_t;
+  std::size_t count = 0;
+  for (const auto& d : days) {
+    sums.add_shifted(d.growth, (start_of(d.day) - t0) / kSecondsPerYear);
+    count += 2;  // at least one point a day; two days or more give a span
+  }
+  const Timestamp last = all.empty() ? days.back().last_t : all.back().t;
+  return load_growth(sums, t0, all, last, count + all.size(), min_span_days);
+}
+
+// Adds the summarised days of the window to the indicators of its raw points.
+void add_days(std::span<const LoadDay> days, LoadIndicators& ind) {
+  double excess = ind.top_oil_discrepancy_k.value_or(0) * static_cast<double>(ind.top_oil_measurements);
+  for (const auto& d : days) {
+    ind.period_h += d.covered_h;
+    ind.bridged_h += d.bridged_h;
+    ind.loss_of_life_h += d.ageing_h;
+    ind.peak_load_pu = std::max(ind.peak_load_pu.value_or(d.peak_load_pu), d.peak_load_pu);
+    ind.peak_hot_spot_c = std::max(ind.peak_hot_spot_c.value_or(d.peak_hot_spot_c), d.peak_hot_spot_c);
+    ind.peak_top_oil_c = std::max(ind.peak_top_oil_c.value_or(d.peak_top_oil_c), d.peak_top_oil_c);
+    ind.hours_above_nameplate += d.hours_above_nameplate;
+    ind.hours_above_normal_cyclic += d.hours_above_normal_cyclic;
+    ind.hours_above_long_emergency += d.hours_above_long_emergency;
+    ind.hours_above_short_emergency += d.hours_above_short_emergency;
+    excess += d.top_oil_excess_k;
+    ind.top_oil_measurements += static_cast<std::size_t>(d.top_oil_measurements);
+  }
+  if (ind.top_oil_measurements > 0) ind.top_oil_discrepancy_k = excess / static_cast<double>(ind.top_oil_measurements);
+}
+
+// Chart points of the summarised days: each day's peak at its time.
+std::vector<ThermalPoint> day_peaks(std::span<const LoadDay> days, std::span<const ThermalPoint> window,
+                                    bool hot_spot) {
+  std::vector<ThermalPoint> out;
+  for (const auto& d : days) {
+    ThermalPoint p;
+    p.t = hot_spot ? d.peak_hot_spot_t : d.peak_load_t;
+    p.load_pu = d.peak_load_pu;
+    p.hot_spot_c = d.peak_hot_spot_c;
+    out.push_back(p);
+  }
+  out.insert(out.end(), window.begin(), window.end());
+  return out;
+}
+
+void summarise_window(std::span<const ThermalPoint> all, const LoadHistory* history, Window w,
+                      const ThermalOptions& o, ThermalSummary& th) {
   std::vector<ThermalPoint> window;
   for (const auto& p : all)
     if (p.t >= w.from && p.t < w.to) window.push_back(p);
-  const auto ind = load_indicators(window, o.limits);
-  const auto growth = load_growth(all, o.min_growth_span_days);
+  const auto old_days = days_in(history, w.from, w.to);
+  auto ind = load_indicators(window, o.limits);
+  const auto growth = growth_over(days_in(history, INT64_MIN, w.to), all, o.min_growth_span_days);
   if (!window.empty()) th.from = window.front().t, th.to = window.back().t;
+  if (!old_days.empty()) {
+    add_days(old_days, ind);
+    th.from = old_days.front().first_t;
+    if (window.empty()) th.to = old_days.back().last_t;
+    th.notes.push_back("load points before " + format_day(day_of(history->raw_from)) +
+                       " summarised by day (store.keep_load_points_years): the 99th-percentile load is of the " +
+                       "later points only");
+    if (window.empty()) ind.p99_load_pu.reset();
+  }
   th.covered_hours = ind.period_h;
   th.bridged_hours = ind.bridged_h;
   th.peak_hot_spot_c = ind.peak_hot_spot_c;
@@ -166,9 +237,16 @@ void summarise_window(std::span<const ThermalPoint> all, Window w, const Thermal
     th.loss_of_life_hours = age.loss_of_life_h;
     th.loss_of_life_pct = age.loss_of_life_pct;
   }
-  th.ambient_from_profile = std::any_of(window.begin(), window.end(), [](auto& p) { return p.ambient_from_profile; });
-  th.load_series = reduce_to_bucket_maxima(window, o.chart_points, &ThermalPoint::load_pu);
-  th.hot_spot_series = reduce_to_bucket_maxima(window, o.chart_points, &ThermalPoint::hot_spot_c);
+  th.ambient_from_profile = std::any_of(window.begin(), window.end(), [](auto& p) { return p.ambient_from_profile; }) ||
+                            std::any_of(old_days.begin(), old_days.end(), [](auto& d) { return d.ambient_from_profile; });
+  if (old_days.empty()) {
+    th.load_series = reduce_to_bucket_maxima(window, o.chart_points, &ThermalPoint::load_pu);
+    th.hot_spot_series = reduce_to_bucket_maxima(window, o.chart_points, &ThermalPoint::hot_spot_c);
+  } else {
+    th.load_series = reduce_to_bucket_maxima(day_peaks(old_days, window, false), o.chart_points, &ThermalPoint::load_pu);
+    th.hot_spot_series =
+        reduce_to_bucket_maxima(day_peaks(old_days, window, true), o.chart_points, &ThermalPoint::hot_spot_c);
+  }
 }
 
 void assess_load(const UnitData& data, Day as_of, const ThermalOptions& o, UnitAssessment& out) {
@@ -183,9 +261,13 @@ void assess_load(const UnitData& data, Day as_of, const ThermalOptions& o, UnitA
     if (p.t < w.to) history.push_back(p);
   const ThermalModel model = resolve_thermal_model(data.info, o.method);
   std::vector<ThermalPoint> points(history.size());
-  const SimulationStats st = simulate_thermal(model, history, o.gaps, points);
+  // After the retention, the model goes on from where the summarised points left it.
+  const LoadHistory* summarised = data.load_history.get();
+  SimulationResume resume = summarised ? summarised->resume : SimulationResume{};
+  const SimulationStats st = simulate_thermal(model, history, o.gaps, points, resume);
   points.resize(st.written);
-  if (std::none_of(points.begin(), points.end(), [&](auto& p) { return p.t >= w.from; })) {
+  if (std::none_of(points.begin(), points.end(), [&](auto& p) { return p.t >= w.from; }) &&
+      days_in(summarised, w.from, w.to).empty()) {
     out.missing.push_back("load series");
     return;
   }
@@ -195,16 +277,18 @@ void assess_load(const UnitData& data, Day as_of, const ThermalOptions& o, UnitA
   th.measured_top_oil_above_k = o.measured_top_oil_above_k;
   th.hot_spot_from_measured_top_oil = discrepancy && *discrepancy > o.measured_top_oil_above_k;
   if (th.hot_spot_from_measured_top_oil) th.measured_top_oil_points = use_measured_top_oil(points, data.info.paper);
-  summarise_window(points, w, o, th);
+  summarise_window(points, summarised, w, o, th);
   th.top_oil_discrepancy_k = discrepancy;  // measured minus the model, whatever the hot spot's basis
   if (th.peak_load_pu) {
     const auto peak = std::find_if(points.begin(), points.end(), [&](const ThermalPoint& p) {
       return p.t >= w.from && p.t < w.to && p.load_pu == *th.peak_load_pu;
     });
-    th.emergency_ambient_c = peak->ambient_c;
-    th.emergency_load_pu = emergency_load(model, peak->ambient_c,
-                                          th.hot_spot_from_measured_top_oil ? *discrepancy : 0.0,
-                                          o.limits.long_emergency_c);
+    if (peak != points.end()) {  // the peak may lie in a day the retention summarised
+      th.emergency_ambient_c = peak->ambient_c;
+      th.emergency_load_pu = emergency_load(model, peak->ambient_c,
+                                            th.hot_spot_from_measured_top_oil ? *discrepancy : 0.0,
+                                            o.limits.long_emergency_c);
+    }
   }
   out.methods.push_back(std::string("hot-spot and top-oil temperature: ") +
                         (o.method == ThermalMethod::iec60076_7

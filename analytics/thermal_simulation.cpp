@@ -102,6 +102,19 @@ class Integrator {
   // Ageing rate (V or F_AA) at the current hot-spot.
   double rate() const { return rate_; }
 
+  void save(SimulationResume& r) const {
+    r.iec = iec_;
+    r.ieee = ieee_;
+    r.ambient_c = ambient_;
+    r.ageing_rate = rate_;
+  }
+  void restore(const SimulationResume& r) {
+    iec_ = r.iec;
+    ieee_ = r.ieee;
+    ambient_ = r.ambient_c;
+    rate_ = r.ageing_rate;
+  }
+
  private:
   // The load terms of a step (two powers) for load k, remembered by the exact
   // value of k in a small direct-mapped table: loads come as a meter or a
@@ -187,15 +200,30 @@ ThermalModel resolve_thermal_model(const UnitInfo& unit, ThermalMethod method) {
 
 SimulationStats simulate_thermal(const ThermalModel& model, std::span<const LoadPoint> load,
                                  const GapOptions& gaps, std::span<ThermalPoint> out) {
+  SimulationResume fresh;
+  return simulate_thermal(model, load, gaps, out, fresh);
+}
+
+SimulationStats simulate_thermal(const ThermalModel& model, std::span<const LoadPoint> load,
+                                 const GapOptions& gaps, std::span<ThermalPoint> out, SimulationResume& resume) {
   SimulationStats st;
-  st.expected_interval_s = gaps.expected_interval_s > 0 ? gaps.expected_interval_s : infer_interval(load);
+  Integrator model_state(model);
+  bool started = resume.started && resume.method == model.method;
+  Timestamp last_t = 0;
+  double last_k = 0, last_amb = 0;
+  if (started) {  // go on where an earlier run stopped, with its interval
+    st = resume.stats;
+    st.written = 0;
+    model_state.restore(resume);
+    last_t = resume.last_t;
+    last_k = resume.last_load_pu;
+    last_amb = resume.last_ambient_c;
+  } else {
+    st.expected_interval_s = gaps.expected_interval_s > 0 ? gaps.expected_interval_s : infer_interval(load);
+  }
   const Timestamp expected = st.expected_interval_s;
   // An interval is a gap when more than half an interval is missing.
   const Timestamp gap_from = expected + expected / 2;
-  Integrator model_state(model);
-  bool started = false;
-  Timestamp last_t = 0;
-  double last_k = 0, last_amb = 0;
 
   for (const LoadPoint& p : load) {
     if (!valid_load(p.load_pu)) {
@@ -237,6 +265,15 @@ SimulationStats simulate_thermal(const ThermalModel& model, std::span<const Load
     last_t = p.t;
     last_k = p.load_pu;
     last_amb = amb;
+  }
+  if (started) {
+    resume.started = true;
+    resume.method = model.method;
+    resume.last_t = last_t;
+    resume.last_load_pu = last_k;
+    resume.last_ambient_c = last_amb;
+    model_state.save(resume);
+    resume.stats = st;
   }
   return st;
 }

@@ -106,4 +106,25 @@ struct SimulationStats {
 SimulationStats simulate_thermal(const ThermalModel& model, std::span<const LoadPoint> load,
                                  const GapOptions& gaps, std::span<ThermalPoint> out);
 
+// Where a simulation stopped: the model's state after its last accepted
+// point and the counts so far, so that a later run goes on exactly as if the
+// series had continued (the same numbers, bit for bit). The load history's
+// retention keeps this in place of the raw points it removes.
+struct SimulationResume {
+  bool started = false;        // false: nothing simulated yet
+  ThermalMethod method = ThermalMethod::iec60076_7;  // whose state this is (another method starts afresh)
+  Timestamp last_t = 0;        // last accepted point
+  double last_load_pu = 0, last_ambient_c = 0;
+  IecThermalState iec;
+  IeeeThermalState ieee;
+  double ambient_c = 20;       // the model's ambient
+  double ageing_rate = 0;      // V or F_AA at the last hot spot
+  SimulationStats stats;       // of everything simulated so far (written: points written)
+};
+
+// The same, going on from `resume` (when started) and leaving there the
+// state after the last point. The stats returned are the totals.
+SimulationStats simulate_thermal(const ThermalModel& model, std::span<const LoadPoint> load,
+                                 const GapOptions& gaps, std::span<ThermalPoint> out, SimulationResume& resume);
+
 }  // namespace ferrum::analytics

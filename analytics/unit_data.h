@@ -5,6 +5,7 @@
 
 #include <cmath>
 #include <limits>
+#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
@@ -162,6 +163,8 @@ struct SiteInspection {
   InspectionRecord record;
 };
 
+struct LoadHistory;  // load_history.h
+
 struct UnitData {
   UnitInfo info;
   std::vector<OilSample> oil_samples;
@@ -174,6 +177,9 @@ struct UnitData {
   // (site_earth_check.h: an earth stolen at one unit prompts a check of the others).
   std::vector<SiteInspection> site_inspections;
   std::vector<HeldBack> held_back;  // from rejected files, one per kind (the daemon's record)
+  // The load series' days older than `load` that the retention summarised
+  // ([store] keep_load_points_years); null when none were.
+  std::shared_ptr<const LoadHistory> load_history;
 };
 
 const char* to_string(Rating r);

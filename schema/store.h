@@ -15,6 +15,7 @@
 #include <string_view>
 #include <vector>
 
+#include "analytics/load_history.h"
 #include "analytics/unit_data.h"
 
 namespace ferrum::store {
@@ -95,6 +96,13 @@ class Store {
   // Of every root sharing the database: the same content dropped in a
   // second root is a duplicate there.
   virtual std::optional<FileRecord> accepted_file_with_hash(const std::string& sha256) = 0;
+  // Inside the open transaction: waits until no other daemon's transaction
+  // holds the same content, and holds it until commit or rollback, so that a
+  // second look at accepted_file_with_hash decides for good (the same content
+  // dropped in two roots at once is accepted once, a duplicate in the other).
+  // PostgreSQL: a transaction advisory lock on the digest. SQLite: nothing to
+  // do (BEGIN IMMEDIATE already lets one writer in at a time).
+  virtual void hold_content(const std::string& sha256) = 0;
   // The newest record of a file with this content, whatever its status.
   // This root's records only (recovery of its own work/).
   virtual std::optional<FileRecord> latest_file_with_hash(const std::string& sha256) = 0;
@@ -164,6 +172,12 @@ class Store {
   virtual std::vector<analytics::LoadPoint> load_points(std::string_view unit_id,
                                                         analytics::Timestamp from,
                                                         analytics::Timestamp to) = 0;
+  // The retention of the load series ([store] keep_load_points_years): keeps
+  // the unit's summarised history (its days not stored yet, and the model's
+  // state where the raw points were cut) and deletes its raw load points
+  // before history.raw_from. Within the caller's transaction. unit_data()
+  // hands the history back in UnitData::load_history.
+  virtual void keep_load_history(const std::string& unit_id, const analytics::LoadHistory& history) = 0;
   // Row counts per table, for status and tests.
   virtual long count_rows(const std::string& table) = 0;
 
@@ -210,6 +224,11 @@ std::unique_ptr<Store> open_sqlite_store(const std::string& path, int load_batch
 // StoreUnavailable when the server cannot be reached.
 std::unique_ptr<Store> open_postgresql_store(const std::string& conninfo, const std::string& root,
                                              int load_batch = kSqliteLoadBatch);
+
+// The same, for a daemon that must start while the server is down: a server
+// that cannot be reached yet is not an error; every call connects (and
+// migrates) first, and throws StoreUnavailable until the server is up.
+std::unique_ptr<Store> open_postgresql_store_when_reachable(const std::string& conninfo, const std::string& root);
 
 // Why a libpq connection string cannot be used in ferrum.ini, or "" when
 // it can: it does not parse, or it holds a password (passwords come from

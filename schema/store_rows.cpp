@@ -1,5 +1,6 @@
 #include "schema/store_rows.h"
 
+#include <charconv>
 #include <cstdio>
 #include <sstream>
 
@@ -50,6 +51,54 @@ std::string unit_json(const analytics::UnitInfo& u) {
     o << ",\"replacement_cost\":" << opt(u.replacement_cost) << ",\"refurbishment_cost\":" << opt(u.refurbishment_cost);
   o << "}";
   return o.str();
+}
+
+namespace {
+constexpr const char* kResumeVersion = "resume-1";
+}
+
+std::string encode_resume(const analytics::SimulationResume& r) {
+  std::string out = kResumeVersion;
+  auto num = [&](auto v) {
+    char buf[32];
+    out += ' ';
+    out.append(buf, std::to_chars(buf, buf + sizeof buf, v).ptr);  // shortest text that reads back the same
+  };
+  const auto& st = r.stats;
+  num(static_cast<int>(r.started)), num(static_cast<int>(r.method)), num(r.last_t), num(r.last_load_pu), num(r.last_ambient_c);
+  num(r.iec.top_oil_c), num(r.iec.dh1_k), num(r.iec.dh2_k), num(r.ieee.top_oil_rise_k), num(r.ieee.hot_spot_rise_k);
+  num(r.ambient_c), num(r.ageing_rate);
+  num(st.written), num(st.covered_h), num(st.bridged_h), num(st.unbridged_h), num(st.restarts), num(st.duplicates);
+  num(st.backward_jumps), num(st.invalid_loads), num(st.ambient_from_profile), num(st.loss_of_life_h);
+  num(st.expected_interval_s);
+  return out;
+}
+
+std::optional<analytics::SimulationResume> decode_resume(const std::string& text) {
+  const std::string head = std::string(kResumeVersion) + " ";
+  if (text.compare(0, head.size(), head) != 0) return std::nullopt;
+  const char* p = text.data() + head.size();
+  const char* end = text.data() + text.size();
+  bool ok = true;
+  auto num = [&](auto& v) {
+    while (p < end && *p == ' ') ++p;
+    const auto r = std::from_chars(p, end, v);
+    ok = ok && r.ec == std::errc();
+    p = r.ptr;
+  };
+  analytics::SimulationResume r;
+  auto& st = r.stats;
+  int started = 0, method = 0;
+  num(started), num(method), num(r.last_t), num(r.last_load_pu), num(r.last_ambient_c);
+  num(r.iec.top_oil_c), num(r.iec.dh1_k), num(r.iec.dh2_k), num(r.ieee.top_oil_rise_k), num(r.ieee.hot_spot_rise_k);
+  num(r.ambient_c), num(r.ageing_rate);
+  num(st.written), num(st.covered_h), num(st.bridged_h), num(st.unbridged_h), num(st.restarts), num(st.duplicates);
+  num(st.backward_jumps), num(st.invalid_loads), num(st.ambient_from_profile), num(st.loss_of_life_h);
+  num(st.expected_interval_s);
+  r.started = started != 0;
+  r.method = method == 1 ? analytics::ThermalMethod::ieee_c57_91 : analytics::ThermalMethod::iec60076_7;
+  if (!ok || p != end) return std::nullopt;
+  return r;
 }
 
 }  // namespace ferrum::store

@@ -10,6 +10,7 @@
 #include <string>
 #include <vector>
 
+#include "analytics/load_history.h"
 #include "analytics/unit_data.h"
 #include "schema/store.h"
 
@@ -19,6 +20,12 @@
   "unit_id, site, serial, rated_mva, hv_kv, lv_kv, cooling, year_built, phases, vector_group, oil_type, paper," \
   " oil_volume_l, criticality, customers_served, top_oil_rise_k, hot_spot_gradient_k, load_loss_ratio,"       \
   " oil_treated_day, conductor, tap_positions, tap_nominal, tap_step_pct, impedance_pct, replacement_cost, refurbishment_cost"
+
+#define LOAD_DAY_COLUMNS                                                                                   \
+  "day, first_ts, last_ts, covered_h, bridged_h, ageing_h, peak_load_pu, peak_load_ts, peak_hot_spot_c,"   \
+  " peak_hot_spot_ts, peak_top_oil_c, hours_above_nameplate, hours_above_normal_cyclic,"                  \
+  " hours_above_long_emergency, hours_above_short_emergency, top_oil_excess_k, top_oil_measurements,"     \
+  " ambient_from_profile, growth_w, growth_x, growth_y, growth_xx, growth_xy"
 
 namespace ferrum::store {
 
@@ -52,7 +59,8 @@ inline constexpr OilField kOilFields[] = {
 // these before it goes into SQL).
 inline constexpr const char* kCountedTables[] = {"files", "units", "unit_history", "oil_samples", "oil_values",
                                                  "load_points", "infrared_scans", "inspections", "alerts",
-                                                 "conversions", "electrical_tests", "work_status"};
+                                                 "conversions", "electrical_tests", "work_status", "load_days",
+                                                 "load_history"};
 
 
 analytics::Rating rating_from(const std::string& s);
@@ -183,6 +191,50 @@ analytics::LoadPoint read_load_point_row(const Row& s) {
   p.top_oil_c = s.real_or_nan(3);
   return p;
 }
+
+// The values of a load_days row in the order of LOAD_DAY_COLUMNS, each
+// handed to put(value) (a backend binds them).
+template <class Put>
+void put_load_day(const analytics::LoadDay& d, Put&& put) {
+  put(static_cast<std::int64_t>(d.day)), put(d.first_t), put(d.last_t), put(d.covered_h), put(d.bridged_h);
+  put(d.ageing_h), put(d.peak_load_pu), put(d.peak_load_t), put(d.peak_hot_spot_c), put(d.peak_hot_spot_t);
+  put(d.peak_top_oil_c), put(d.hours_above_nameplate), put(d.hours_above_normal_cyclic);
+  put(d.hours_above_long_emergency), put(d.hours_above_short_emergency), put(d.top_oil_excess_k);
+  put(static_cast<std::int64_t>(d.top_oil_measurements)), put(static_cast<std::int64_t>(d.ambient_from_profile));
+  put(d.growth.w), put(d.growth.x), put(d.growth.y), put(d.growth.xx), put(d.growth.xy);
+}
+
+// A day's summary from a row of LOAD_DAY_COLUMNS.
+template <class Row>
+analytics::LoadDay read_load_day_row(const Row& s) {
+  analytics::LoadDay d;
+  d.day = s.i32(0);
+  d.first_t = s.i64(1);
+  d.last_t = s.i64(2);
+  d.covered_h = s.real(3);
+  d.bridged_h = s.real(4);
+  d.ageing_h = s.real(5);
+  d.peak_load_pu = s.real(6);
+  d.peak_load_t = s.i64(7);
+  d.peak_hot_spot_c = s.real(8);
+  d.peak_hot_spot_t = s.i64(9);
+  d.peak_top_oil_c = s.real(10);
+  d.hours_above_nameplate = s.real(11);
+  d.hours_above_normal_cyclic = s.real(12);
+  d.hours_above_long_emergency = s.real(13);
+  d.hours_above_short_emergency = s.real(14);
+  d.top_oil_excess_k = s.real(15);
+  d.top_oil_measurements = static_cast<long>(s.i64(16));
+  d.ambient_from_profile = s.i64(17) != 0;
+  d.growth = {s.real(18), s.real(19), s.real(20), s.real(21), s.real(22)};
+  return d;
+}
+
+// The thermal model's state where the raw points were cut (load_history.resume),
+// as text that reads back the same numbers bit for bit; nullopt when the
+// text is not one this build wrote.
+std::string encode_resume(const analytics::SimulationResume& r);
+std::optional<analytics::SimulationResume> decode_resume(const std::string& text);
 
 // Oil samples with their values from the rows, in order, of "s.id,
 // s.sample_day, s.lab_ref, s.sample_point, s.breakdown_method, v.test,

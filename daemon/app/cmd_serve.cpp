@@ -46,7 +46,9 @@ void check_serve_can_start(const std::string& root_option, const std::string& pi
       throw std::runtime_error("another ferrum process" + (pid ? " (pid " + std::to_string(pid) + ")" : std::string()) +
                                " is working on " + root.root.string());
     }
-    open_store(root, config::load_site_config(root.config().string()));  // throws IncompatibleStore; closed again at once
+    // Throws IncompatibleStore (a database that is up but not ours); a shared
+    // database that is down is no reason not to start. Closed again at once.
+    open_store(root, config::load_site_config(root.config().string()), true);
   }
   if (!pidfile.empty()) {
     const auto dir = std::filesystem::path(pidfile).parent_path();
@@ -60,7 +62,7 @@ int cmd_serve(const Invocation& inv) {
   // Everything that can fail is checked here, before any thread starts, so
   // that a misconfigured daemon says why (with --daemon, FerrumApp::run has
   // checked it once more before forking: docs/implementation-notes.md).
-  auto site = open_site(inv, Access::write);
+  auto site = open_site(inv, Access::serve);
   PidFile pidfile(inv.get("pidfile"));
   watch::start_signal_thread();
   watch::ServerOptions options;

@@ -19,7 +19,7 @@ std::unique_ptr<SiteContext> open_site(const Invocation& inv, Access access) {
   s->config = config::load_site_config(s->root.config().string());
   site::create_layout(s->root);
   init_site_logging(s->root.log_dir(), s->config.log_level, s->config.log_file_mb, s->config.log_files);
-  if (access == Access::write) {
+  if (access != Access::read) {
     s->lock = std::make_unique<site::RootLock>();
     if (!s->lock->try_acquire(s->root, inv.command)) {
       const long pid = site::RootLock::holder_pid(s->root);
@@ -28,16 +28,18 @@ std::unique_ptr<SiteContext> open_site(const Invocation& inv, Access access) {
                                "; drop files into drop/PARTY/ and the running daemon takes them");
     }
   }
-  s->store = open_store(s->root, s->config);
+  s->store = open_store(s->root, s->config, access == Access::serve);
   return s;
 }
 
-std::unique_ptr<store::Store> open_store(const site::SiteRoot& root, const config::SiteConfig& config) {
+std::unique_ptr<store::Store> open_store(const site::SiteRoot& root, const config::SiteConfig& config,
+                                         bool wait_for_database) {
   if (!config.store.shared()) return store::open_sqlite_store(root.database().string());
   std::error_code ec;
   const auto path = std::filesystem::weakly_canonical(root.root, ec);
-  return store::open_postgresql_store(config.store.postgresql,
-                                      Poco::Environment::nodeName() + ":" + (ec ? root.root : path).string());
+  const std::string name = Poco::Environment::nodeName() + ":" + (ec ? root.root : path).string();
+  if (wait_for_database) return store::open_postgresql_store_when_reachable(config.store.postgresql, name);
+  return store::open_postgresql_store(config.store.postgresql, name);
 }
 
 int today(const Invocation& inv, const config::SiteConfig& config) {

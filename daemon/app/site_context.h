@@ -19,7 +19,9 @@ struct SiteContext {
   std::unique_ptr<site::RootLock> lock;  // held by ingest and serve
 };
 
-enum class Access { read, write };
+// serve: write, and a shared database that cannot be reached yet is no
+// error (the daemon starts, files wait in work/ until it is up).
+enum class Access { read, write, serve };
 
 // Opens the site named by --root (or $FERRUM_ROOT, or the current folder).
 // With Access::write, takes the root lock and fails when another process
@@ -29,8 +31,11 @@ std::unique_ptr<SiteContext> open_site(const Invocation& inv, Access access);
 
 // The site's store as ferrum.ini says: SQLite in ROOT/ferrum.db (default),
 // or the shared PostgreSQL database, where this root is known by its host
-// name and path ("host:/path").
-std::unique_ptr<store::Store> open_store(const site::SiteRoot& root, const config::SiteConfig& config);
+// name and path ("host:/path"). `wait_for_database`: a PostgreSQL server
+// that cannot be reached yet is connected to by the store's first call that
+// finds it up (open_postgresql_store_when_reachable).
+std::unique_ptr<store::Store> open_store(const site::SiteRoot& root, const config::SiteConfig& config,
+                                         bool wait_for_database = false);
 
 // Today as a day number: --as-of when given, else the clock, in the site's offset.
 int today(const Invocation& inv, const config::SiteConfig& config);

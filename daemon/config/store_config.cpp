@@ -26,6 +26,9 @@ const std::vector<StoreKey>& store_keys() {
       {"store", "postgresql", "", false,
        "libpq connection string of the shared database, e.g. host=/var/run/postgresql dbname=ferrum user=ferrum.\n"
        "No password here: it comes from the libpq password file (~/.pgpass of the daemon's user)."},
+      {"store", "keep_load_points_years", "", true,
+       "Raw load points older than this many years are replaced by daily thermal summaries (peak hot spot,\n"
+       "peak top oil, ageing consumed, hours above each limit); assessments read the summaries. Empty: keep all."},
   };
   return k;
 }
@@ -48,6 +51,19 @@ void apply_store_key(StoreSettings& s, const StoreKey& key, const std::string& v
     if (b != "sqlite" && b != "postgresql")
       throw ConfigError("store.backend: '" + value + "' must be sqlite or postgresql");
     s.backend = b;
+  } else if (name == "keep_load_points_years") {
+    int years = 0;
+    if (!value.empty()) {
+      std::size_t used = 0;
+      try {
+        years = std::stoi(value, &used);
+      } catch (const std::exception&) {
+        used = 0;
+      }
+      if (used != value.size() || years < 1 || years > 100)
+        throw ConfigError("store.keep_load_points_years: '" + value + "' must be a whole number of years, 1 to 100, or empty");
+    }
+    s.keep_load_points_years = years;
   } else if (name == "postgresql") {
     if (!value.empty()) {
       const std::string problem = store::postgresql_conninfo_problem(value);

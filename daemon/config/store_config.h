@@ -14,6 +14,9 @@ struct StoreSettings {
   // [site] serves: the substations whose unit reports this root writes;
   // empty = every one ("*").
   std::vector<std::string> serves;
+  // [store] keep_load_points_years: raw load points older than this many
+  // years are replaced by daily thermal summaries; 0 = keep them all.
+  int keep_load_points_years = 0;
 
   bool shared() const { return backend == "postgresql"; }
   // True when this root writes the unit reports of units at `site`.

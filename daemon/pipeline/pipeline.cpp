@@ -320,16 +320,17 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
   r.sha256 = sha256_of_file(claimed);
   const std::int64_t now = clock_();
 
-  if (auto earlier = store_.accepted_file_with_hash(r.sha256)) {
+  auto duplicate_of = [&](const store::FileRecord& earlier) {
     r.status = "duplicate";
-    r.kind = earlier->kind;
-    r.duplicate_of_received_at = earlier->received_at;
-    r.duplicate_of_stored_as = earlier->stored_as;
+    r.kind = earlier.kind;
+    r.duplicate_of_received_at = earlier.received_at;
+    r.duplicate_of_stored_as = earlier.stored_as;
     r.stored_as = fs::relative(destination("duplicate", name, r.sha256, now), root_.root).string();
     store_.add_file({0, r.sha256, party, name, r.kind, "duplicate", 0, 0, received_at, r.stored_as, r.to_json()});
     finish(out, claimed);
     return out;
-  }
+  };
+  if (auto earlier = store_.accepted_file_with_hash(r.sha256)) return duplicate_of(*earlier);
 
   const config::Party* p = config_.party(party);
   ImportSettings settings;
@@ -341,6 +342,13 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
   ImportResult result;
   store_.begin();
   try {
+    // Another root of a shared database may be importing the same content
+    // right now: wait for it, then look again (its commit decides).
+    store_.hold_content(r.sha256);
+    if (auto earlier = store_.accepted_file_with_hash(r.sha256)) {
+      store_.rollback();
+      return duplicate_of(*earlier);
+    }
     store::FileRecord rec{0, r.sha256, party, name, "", "importing", 0, 0, received_at, "", "{}"};
     rec.id = store_.add_file(rec);
     settings.file_id = rec.id;

@@ -75,6 +75,7 @@ analytics::UnitData data_as_of(const analytics::UnitData& d, analytics::Day day)
   for (const auto& s : d.site_inspections)
     if (s.record.date <= day) out.site_inspections.push_back(s);
   out.held_back = d.held_back;
+  out.load_history = d.load_history;  // summarised days: the assessment reads those before its window's end
   return out;
 }
 

@@ -15,6 +15,7 @@
 
 #include "analytics/calendar.h"
 #include "daemon/app/logging.h"
+#include "daemon/assess/load_retention.h"
 #include "daemon/mail/messages.h"
 #include "daemon/mail/outbox.h"
 #include "daemon/pipeline/import_bridge.h"
@@ -123,6 +124,7 @@ struct Server::Impl {
   std::chrono::steady_clock::time_point weekly_retry_at{};  // after a failed bundle
   std::vector<fs::path> retry;  // files whose import failed for a reason not theirs
   std::string store_problem;    // the shared database's last error while it cannot be reached
+  bool recovery_due = false;    // the start's recovery waits for the shared database
   std::string progress_file;    // the file whose import progress is being timed
   std::uint64_t progress_done = 0;
   std::chrono::steady_clock::time_point progress_started, progress_logged;
@@ -132,6 +134,7 @@ struct Server::Impl {
   std::size_t files_processed = 0;
   std::string stopped_at;
   std::chrono::steady_clock::time_point next_mail_check{};
+  analytics::Day retention_day = 0;  // the day the load retention last ran
 
   // An alert: its PDF and line (ReportWriter), then mail at once to everyone
   // whose sites it concerns (through the outbox). One alert is one finding: its own PDF, one alerts.csv line and one mail.
@@ -270,15 +273,19 @@ struct Server::Impl {
       watcher->rescan();
       next_rescan = now + std::chrono::seconds(config.rescan_seconds);
     }
-    if (!retry.empty() && now >= retry_at) {
+    if ((!retry.empty() || recovery_due) && now >= retry_at) {
       auto again = std::move(retry);
       retry.clear();
       try {
         // Files left in work/ by the failure are finished or imported again.
+        if (recovery_due) load_dirty_units();
         for (const auto& o : pipeline->recover()) note_outcome(o);
+        if (recovery_due) spdlog::info("database reachable again: the start's recovery is done");
+        recovery_due = false;
         backoff = std::chrono::seconds(1);
       } catch (const std::exception& e) {
         // Still failing: keep the files where they are and try again later.
+        if (dynamic_cast<const store::StoreUnavailable*>(&e)) store_problem = e.what();
         spdlog::error("retry failed: {}; next try in {} s", e.what(), backoff.count());
         retry = std::move(again);
         retry_at = now + backoff;
@@ -434,6 +441,23 @@ struct Server::Impl {
     }
   }
 
+  // [store] keep_load_points_years, once a day, by the fleet lead (one
+  // daemon for a shared database).
+  void load_retention() {
+    if (config.store.keep_load_points_years <= 0 || retention_day == today()) return;
+    if (!store->hold_fleet_lead()) return;
+    retention_day = today();
+    try {
+      const auto n = assess::apply_load_retention(*store, config, &root, retention_day);
+      if (n > 0) spdlog::info("load retention: old load points of {} unit(s) summarised by day", n);
+    } catch (const store::StoreUnavailable&) {
+      retention_day = 0;  // tried again once the database is back
+      throw;
+    } catch (const std::exception& e) {
+      spdlog::error("load retention failed: {}; next try tomorrow", e.what());
+    }
+  }
+
   void queue_weekly_mail(const fs::path& dir) {
     if (!config.mail.enabled()) return;
     try {
@@ -505,8 +529,18 @@ int Server::run() {
   Impl& s = *impl_;
   s.rebuild();
   spdlog::info("ferrum serving {} (pid {}); parties: {}", s.root.root.string(), ::getpid(), s.config.parties.size());
-  s.load_dirty_units();
-  for (const auto& o : s.pipeline->recover()) s.note_outcome(o);
+  try {
+    s.load_dirty_units();
+    for (const auto& o : s.pipeline->recover()) s.note_outcome(o);
+  } catch (const store::StoreUnavailable& e) {
+    // Started while the shared database is down: keep running; the recovery
+    // (and the files that arrive meanwhile, claimed into work/) wait for it,
+    // retried with back-off; status says why.
+    spdlog::error("database unreachable at start: {}; files wait in work/ and are retried", e.what());
+    s.store_problem = e.what();
+    s.recovery_due = true;
+    s.retry_at = std::chrono::steady_clock::now() + s.backoff;
+  }
   auto last_status = std::chrono::steady_clock::now() - 10s;
   for (;;) {
     if (reload_requested.exchange(false)) s.reload();
@@ -515,7 +549,8 @@ int Server::run() {
     try {
       s.render_dirty(s.options.once);
       s.weekly();
-      if (s.retry.empty()) s.store_problem.clear();
+      s.load_retention();
+      if (s.retry.empty() && !s.recovery_due) s.store_problem.clear();
     } catch (const store::StoreUnavailable& e) {
       // The shared database is gone for now: the daemon keeps running, files
       // wait in work/ and are retried with back-off; status says why.
@@ -527,7 +562,8 @@ int Server::run() {
       s.write_status();
       last_status = std::chrono::steady_clock::now();
     }
-    if (s.options.once && s.watcher->pending() == 0 && s.dirty_units.empty() && s.retry.empty()) break;
+    if (s.options.once && s.watcher->pending() == 0 && s.dirty_units.empty() && s.retry.empty() && !s.recovery_due)
+      break;
     std::this_thread::sleep_for(200ms);
   }
   // Stopping: nothing in flight (files are processed one at a time on this

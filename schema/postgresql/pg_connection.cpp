@@ -33,8 +33,9 @@ double Result::Row::real(int c) const {
   return d;
 }
 
-Connection::Connection(std::string conninfo) : conninfo_(std::move(conninfo)) {
+Connection::Connection(std::string conninfo, bool must_connect) : conninfo_(std::move(conninfo)) {
   conn_ = PQconnectdb(conninfo_.c_str());
+  if (PQstatus(conn_) != CONNECTION_OK && !must_connect) return;  // reconnect_if_lost() tries again
   if (PQstatus(conn_) != CONNECTION_OK) {
     std::string msg = conn_ ? PQerrorMessage(conn_) : "out of memory";
     while (!msg.empty() && (msg.back() == '\n' || msg.back() == ' ')) msg.pop_back();
@@ -51,7 +52,8 @@ Connection::~Connection() { PQfinish(conn_); }
 
 bool Connection::reconnect_if_lost() {
   if (PQstatus(conn_) == CONNECTION_OK) return false;
-  PQreset(conn_);
+  if (conn_) PQreset(conn_);
+  else conn_ = PQconnectdb(conninfo_.c_str());
   prepared_.clear();
   if (PQstatus(conn_) != CONNECTION_OK) fail("cannot reconnect to PostgreSQL");
   PQsetNoticeProcessor(conn_, [](void*, const char*) {}, nullptr);

@@ -99,8 +99,10 @@ class Result {
 
 class Connection {
  public:
-  // Connects; throws StoreUnavailable when the server cannot be reached.
-  explicit Connection(std::string conninfo);
+  // Connects; throws StoreUnavailable when the server cannot be reached,
+  // unless `must_connect` is false: then it stays unconnected (ok() false)
+  // and reconnect_if_lost() tries again.
+  explicit Connection(std::string conninfo, bool must_connect = true);
   ~Connection();
   Connection(const Connection&) = delete;
   Connection& operator=(const Connection&) = delete;

@@ -72,10 +72,12 @@ std::optional<FileRecord> first_file(const Result& r) {
 
 class PgStore final : public Store {
  public:
-  PgStore(std::string conninfo, std::string root, int load_batch)
+  // `must_connect` false: a server that cannot be reached yet is no error;
+  // the first call that finds it up connects and migrates.
+  PgStore(std::string conninfo, std::string root, int load_batch, bool must_connect = true)
       : conninfo_(std::move(conninfo)), root_(std::move(root)), load_batch_size_(std::max(1, load_batch)),
-        db_(conninfo_) {
-    migrate();
+        db_(conninfo_, must_connect) {
+    if (db_.ok()) migrate();
   }
   ~PgStore() override = default;
 
@@ -136,6 +138,15 @@ class PgStore final : public Store {
     reconnect_if_lost();
     return first_file(db_.run("SELECT " FILE_COLUMNS " FROM files WHERE sha256=$1 AND status='accepted'"
                               " ORDER BY id LIMIT 1", Params().add(sha)));
+  }
+  // The lock's key: the digest's first 60 bits (a collision only makes two
+  // imports of different content wait for each other), in the two-key space
+  // of advisory locks, apart from the single-key locks above.
+  void hold_content(const std::string& sha) override {
+    if (!in_transaction_) throw StoreError("hold_content(): no transaction is open");
+    const std::uint64_t bits = sha.size() >= 15 ? std::stoull(sha.substr(0, 15), nullptr, 16) : 0;
+    db_.run("SELECT pg_advisory_xact_lock($1, $2)",
+            Params().add(static_cast<std::int64_t>(bits >> 30)).add(static_cast<std::int64_t>(bits & 0x3fffffff)));
   }
   std::optional<FileRecord> latest_file_with_hash(const std::string& sha) override {
     reconnect_if_lost();
@@ -387,6 +398,7 @@ class PgStore final : public Store {
     const std::int64_t key = unit_key(std::string(unit_id));
     read_oil(key, d.oil_samples);
     d.load = load_points(unit_id, INT64_MIN, INT64_MAX);
+    d.load_history = load_history(key, unit_id);
     {
       auto r = db_.run("SELECT survey_day, component, spot_c, reference_c, ambient_c, load_pct, emissivity,"
                        " image_ref, note FROM infrared_scans WHERE unit_key=$1"
@@ -416,6 +428,39 @@ class PgStore final : public Store {
       }
     }
     return d;
+  }
+
+  void keep_load_history(const std::string& unit_id, const analytics::LoadHistory& h) override {
+    write_queued_load();
+    const std::int64_t key = unit_key(unit_id);
+    auto r = db_.run("SELECT raw_from FROM load_history WHERE unit_key=$1", Params().add(key));
+    const analytics::Timestamp stored_to = r.rows() ? r.row(0).i64(0) : INT64_MIN;  // days before it: stored
+    for (const auto& d : h.days) {
+      if (analytics::start_of(d.day) < stored_to) continue;
+      Params p;
+      p.add(key);
+      put_load_day(d, [&](auto v) { p.add(v); });
+      db_.run("INSERT INTO load_days(unit_key, " LOAD_DAY_COLUMNS ") VALUES($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12,"
+              "$13,$14,$15,$16,$17,$18,$19,$20,$21,$22,$23,$24) ON CONFLICT DO NOTHING",
+              p);
+    }
+    db_.run("INSERT INTO load_history(unit_key, raw_from, resume) VALUES($1,$2,$3)"
+            " ON CONFLICT(unit_key) DO UPDATE SET raw_from=excluded.raw_from, resume=excluded.resume",
+            Params().add(key).add(h.raw_from).add(encode_resume(h.resume)));
+    db_.run("DELETE FROM load_points WHERE unit_key=$1 AND ts<$2", Params().add(key).add(h.raw_from));
+  }
+
+  std::shared_ptr<const analytics::LoadHistory> load_history(std::int64_t key, std::string_view unit_id) {
+    auto r = db_.run("SELECT raw_from, resume FROM load_history WHERE unit_key=$1", Params().add(key));
+    if (r.rows() == 0) return nullptr;
+    auto h = std::make_shared<analytics::LoadHistory>();
+    h->raw_from = r.row(0).i64(0);
+    const auto resume = decode_resume(r.row(0).text(1));
+    if (!resume) throw StoreError("the summarised load history of unit " + std::string(unit_id) + " cannot be read");
+    h->resume = *resume;
+    auto days = db_.run("SELECT " LOAD_DAY_COLUMNS " FROM load_days WHERE unit_key=$1 ORDER BY day", Params().add(key));
+    for (int i = 0; i < days.rows(); ++i) h->days.push_back(read_load_day_row(days.row(i)));
+    return h;
   }
 
   std::vector<analytics::LoadPoint> load_points(std::string_view unit_id, analytics::Timestamp from,
@@ -498,6 +543,7 @@ class PgStore final : public Store {
       has_lead_ = false;
       known_months_.clear();
     }
+    if (!migrated_) migrate();  // opened while the server was down
   }
 
   std::optional<LoadDuplicate> take_duplicate() {
@@ -681,6 +727,7 @@ class PgStore final : public Store {
       throw;
     }
     db_.run("SELECT pg_advisory_unlock($1)", Params().add(kLockMigrate));
+    migrated_ = true;
   }
 
   const std::string conninfo_;
@@ -691,6 +738,7 @@ class PgStore final : public Store {
   bool in_transaction_ = false;
   bool stage_ready_ = false;
   bool has_lead_ = false;
+  bool migrated_ = false;  // migrate() done on this store's first connection
   std::set<int> known_months_;  // partitions known to exist, by month index
   std::unordered_map<std::string, std::int64_t> unit_keys_;
   std::vector<QueuedPoint> queue_;
@@ -706,6 +754,10 @@ class PgStore final : public Store {
 
 std::unique_ptr<Store> open_postgresql_store(const std::string& conninfo, const std::string& root, int load_batch) {
   return std::make_unique<PgStore>(conninfo, root, load_batch);
+}
+
+std::unique_ptr<Store> open_postgresql_store_when_reachable(const std::string& conninfo, const std::string& root) {
+  return std::make_unique<PgStore>(conninfo, root, kSqliteLoadBatch, false);
 }
 
 }  // namespace ferrum::store

@@ -153,6 +153,7 @@ class SqliteStore final : public Store {
   std::optional<FileRecord> accepted_file_with_hash(const std::string& sha) override {
     return one_file("SELECT " FILE_COLUMNS " FROM files WHERE sha256=? AND status='accepted' ORDER BY id LIMIT 1", sha);
   }
+  void hold_content(const std::string&) override {}  // BEGIN IMMEDIATE: one writer at a time already
   std::optional<FileRecord> latest_file_with_hash(const std::string& sha) override {
     return one_file("SELECT " FILE_COLUMNS " FROM files WHERE sha256=? ORDER BY id DESC LIMIT 1", sha);
   }
@@ -425,6 +426,7 @@ class SqliteStore final : public Store {
     const std::int64_t key = unit_key(std::string(unit_id));
     read_oil(key, d.oil_samples);
     d.load = load_points(unit_id, INT64_MIN, INT64_MAX);
+    d.load_history = load_history(key, unit_id);
     {
       auto& s = stmt("SELECT survey_day, component, spot_c, reference_c, ambient_c, load_pct, emissivity,"
                      " image_ref, note FROM infrared_scans WHERE unit_key=? ORDER BY survey_day, component");
@@ -457,6 +459,53 @@ class SqliteStore final : public Store {
       s.reset();
     }
     return d;
+  }
+
+  void keep_load_history(const std::string& unit_id, const analytics::LoadHistory& h) override {
+    write_queued_load();
+    const std::int64_t key = unit_key(unit_id);
+    analytics::Timestamp stored_to = INT64_MIN;  // days before the earlier cut are stored already
+    {
+      auto& s = stmt("SELECT raw_from FROM load_history WHERE unit_key=?");
+      s.bind(1, key);
+      if (s.step()) stored_to = s.i64(0);
+      s.reset();
+    }
+    for (const auto& d : h.days) {
+      if (analytics::start_of(d.day) < stored_to) continue;
+      auto& s = stmt("INSERT OR IGNORE INTO load_days(unit_key, " LOAD_DAY_COLUMNS
+                     ") VALUES(?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)");
+      int i = 1;
+      s.bind(i++, key);
+      put_load_day(d, [&](auto v) { s.bind(i++, v); });
+      s.run();
+    }
+    auto& s = stmt("INSERT OR REPLACE INTO load_history(unit_key, raw_from, resume) VALUES(?,?,?)");
+    s.bind(1, key).bind(2, h.raw_from).bind(3, encode_resume(h.resume));
+    s.run();
+    auto& del = stmt("DELETE FROM load_points WHERE unit_key=? AND ts<?");
+    del.bind(1, key).bind(2, h.raw_from);
+    del.run();
+  }
+
+  std::shared_ptr<const analytics::LoadHistory> load_history(std::int64_t key, std::string_view unit_id) {
+    auto& s = stmt("SELECT raw_from, resume FROM load_history WHERE unit_key=?");
+    s.bind(1, key);
+    if (!s.step()) {
+      s.reset();
+      return nullptr;
+    }
+    auto h = std::make_shared<analytics::LoadHistory>();
+    h->raw_from = s.i64(0);
+    const auto resume = decode_resume(s.text(1));
+    s.reset();
+    if (!resume) throw StoreError("the summarised load history of unit " + std::string(unit_id) + " cannot be read");
+    h->resume = *resume;
+    auto& d = stmt("SELECT " LOAD_DAY_COLUMNS " FROM load_days WHERE unit_key=? ORDER BY day");
+    d.bind(1, key);
+    while (d.step()) h->days.push_back(read_load_day_row(d));
+    d.reset();
+    return h;
   }
 
   std::vector<analytics::LoadPoint> load_points(std::string_view unit_id, analytics::Timestamp from,

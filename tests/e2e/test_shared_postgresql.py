@@ -84,6 +84,16 @@ class SharedPostgresql(unittest.TestCase):
         p = run("ingest", "--root", self.roots[root], check=False)
         self.assertEqual(p.returncode, 0, p.stdout + p.stderr)
 
+    def server_back_and_file_imported(self, root):
+        """The server started again: lab-n.csv, waiting in work/, is imported whole."""
+        self.server.start(database=None)
+        receipt = os.path.join(root, "drop", "planning", "receipts", "lab-n.csv.json")
+        deadline = time.time() + 120
+        while not os.path.exists(receipt) and time.time() < deadline:
+            time.sleep(0.2)
+        self.assertEqual(self.receipt("north", "lab-n.csv")["status"], "accepted")
+        self.assertEqual(self.rows("SELECT count(*) FROM oil_samples"), ["1"])
+
     def rows(self, sql):
         return self.server.psql(sql).split()
 
@@ -105,6 +115,29 @@ class SharedPostgresql(unittest.TestCase):
             ranked = json.loads(run("rank", "--root", self.roots[root], "--as-of", AS_OF, "--json").stdout)
             units = sorted(u["unit_id"] for u in (ranked["units"] if isinstance(ranked, dict) else ranked))
             self.assertEqual(units, ["N1", "S1"], root)
+
+    def test_same_content_in_two_roots_at_once_is_one_import(self):
+        # Two processes on two roots import the same content at the same
+        # moment: the file is long enough (60,000 load points, about a second
+        # to import) that both look for an accepted copy before either commits.
+        self.drop("north", "units.csv", REGISTER)
+        self.ingest("north")
+        start = (int(time.time()) // 86400 - 640) * 86400  # 60,000 quarter-hours end before today
+        content = "unit_id,timestamp,load_mva,ambient_c\n" + "".join(
+            "N1,%s,%.1f,%.1f\n" % (time.strftime("%Y-%m-%dT%H:%MZ", time.gmtime(start + 900 * i)),
+                                   20 + (i % 96) / 8, 5 + (i % 96) / 10) for i in range(60000))
+        for root in ("north", "south"):
+            self.drop(root, "load.csv", content)
+        racers = [subprocess.Popen([FERRUM, "ingest", "--root", self.roots[root]], stdout=subprocess.PIPE,
+                                   stderr=subprocess.PIPE, text=True) for root in ("north", "south")]
+        for p in racers:
+            out, err = p.communicate(timeout=300)
+            self.assertEqual(p.returncode, 0, out + err)
+        statuses = sorted(self.receipt(root, "load.csv")["status"] for root in ("north", "south"))
+        self.assertEqual(statuses, ["accepted", "duplicate"])
+        self.assertEqual(self.rows("SELECT count(*) FROM files WHERE original_name = 'load.csv' AND status = 'accepted'"),
+                         ["1"])
+        self.assertEqual(self.rows("SELECT count(*) FROM load_points"), ["60000"])
 
     def test_each_root_reports_its_own_substations(self):
         self.drop("north", "units.csv", REGISTER)
@@ -147,13 +180,53 @@ class SharedPostgresql(unittest.TestCase):
         self.assertIsNone(self.daemon.poll(), "the daemon must keep running")
         waiting = [f for d, _, fs in os.walk(os.path.join(root, "work")) for f in fs]
         self.assertEqual(len(waiting), 1, waiting)  # nothing lost: the file waits in work/
-        self.server.start(database=None)
-        receipt = os.path.join(root, "drop", "planning", "receipts", "lab-n.csv.json")
-        deadline = time.time() + 120
-        while not os.path.exists(receipt) and time.time() < deadline:
+        self.server_back_and_file_imported(root)
+        self.daemon.send_signal(signal.SIGTERM)
+        self.daemon.communicate(timeout=30)
+
+    def test_serve_starts_while_the_database_is_down(self):
+        self.drop("north", "units.csv", REGISTER)
+        self.ingest("north")
+        root = self.roots["north"]
+        self.server.stop()
+        self.daemon = subprocess.Popen([FERRUM, "serve", "--root", root],
+                                       stdout=subprocess.PIPE, stderr=subprocess.PIPE, text=True)
+        status = os.path.join(root, "status.json")
+        deadline = time.time() + 30
+        problem = ""
+        while time.time() < deadline and not problem:
+            self.assertIsNone(self.daemon.poll(), "the daemon must start and keep running without its database")
+            try:
+                with open(status) as f:
+                    problem = json.load(f).get("store_problem", "")
+            except (OSError, ValueError):
+                pass
             time.sleep(0.2)
-        self.assertEqual(self.receipt("north", "lab-n.csv")["status"], "accepted")
-        self.assertEqual(self.rows("SELECT count(*) FROM oil_samples"), ["1"])
+        self.assertIn("connect", problem)  # why: libpq's own reason
+        text = run("status", "--root", root, check=False).stdout
+        self.assertIn("unreachable", text)
+        self.assertIn(problem, text)
+        self.drop("north", "lab-n.csv", LAB_N)
+        work = os.path.join(root, "work")
+        deadline = time.time() + 30
+        waiting = []
+        while time.time() < deadline and not waiting:
+            waiting = [f for d, _, fs in os.walk(work) for f in fs]
+            time.sleep(0.2)
+        self.assertEqual(len(waiting), 1, waiting)  # nothing lost: the file waits in work/
+        time.sleep(3)  # a few retries with back-off while the database is still down
+        self.assertIsNone(self.daemon.poll(), "the daemon must keep running")
+        self.assertEqual([f for d, _, fs in os.walk(work) for f in fs], waiting)
+        self.server_back_and_file_imported(root)
+        self.assertEqual([f for d, _, fs in os.walk(work) for f in fs], [])
+        deadline = time.time() + 30
+        while time.time() < deadline:
+            with open(status) as f:
+                if not json.load(f).get("store_problem"):
+                    break
+            time.sleep(0.2)
+        with open(status) as f:
+            self.assertEqual(json.load(f).get("store_problem"), "")  # status no longer blames the database
         self.daemon.send_signal(signal.SIGTERM)
         self.daemon.communicate(timeout=30)
 

@@ -90,7 +90,7 @@ class SharedCrash(unittest.TestCase):
         run("ingest", "--root", self.roots["north"])
         self.start("north")
         self.start("south")
-        # Started: a daemon needs its database at start-up (README), not later.
+        # Started (and connected: the files below are to meet running daemons).
         deadline = time.time() + 30
         while not all(os.path.exists(os.path.join(r, "status.json")) for r in self.roots.values()):
             self.assertLess(time.time(), deadline, "the daemons did not start")
