@@ -72,6 +72,9 @@ struct DgaSummary {
   // its own follow-up: "CO2 4200 ppm (Condition 3): paper ageing, ...".
   std::vector<std::string> c57104_2008_single_gases;
   std::optional<int> c57104_2019_status;     // 1..3
+  // The status from the fault gases alone (CO and CO2 left out, as for the
+  // 2008 fault condition): what decisions and caps read.
+  std::optional<int> c57104_2019_fault_status;
   std::optional<std::string> duval_triangle_1;     // "PD","T1","T2","T3","D1","D2","DT"
   std::optional<std::string> duval_pentagon_1;
   std::optional<std::string> iec60599_ratio_fault; // "PD","D1","D2","T1","T2","T3"

@@ -274,8 +274,8 @@ std::vector<CapHit> triggered_caps(const HealthIndexOptions& o, const UnitAssess
       hits.push_back({"inspection", "an inspection item rated unsafe", c.cap, true});
     else if (c.trigger == "dga_condition_4" && a.dga.c57104_2008_fault_condition == 4)
       hits.push_back({"dga", "DGA fault-gas condition 4 (IEEE C57.104-2008, CO and CO2 left out)", c.cap, true});
-    else if (c.trigger == "dga_status_3" && a.dga.c57104_2019_status == 3)
-      hits.push_back({"dga", "DGA status 3 (IEEE C57.104-2019)", c.cap, true});
+    else if (c.trigger == "dga_status_3" && a.dga.c57104_2019_fault_status == 3)
+      hits.push_back({"dga", "DGA status 3 from fault gases (IEEE C57.104-2019)", c.cap, true});
     else if (c.trigger == "active_arcing" && (a.active_arcing || a.dga.active_arcing))
       hits.push_back({"dga", "active arcing", c.cap, true});
     else if (c.trigger == "infrared_severity_4" &&

@@ -231,6 +231,12 @@ DgaWork summarise_dga(const std::vector<OilSample>& history, const UnitInfo& uni
   w.summary.c57104_2019_status = s19.status;
   w.summary.c57104_2019_reason = s19.applicable ? s19.reason : s19.why_not;
   w.s19_drivers = s19.drivers;
+  if (s19.applicable) {
+    int fault = 1;
+    for (const auto& d : s19.drivers)
+      if (d.gas != "CO" && d.gas != "CO2") fault = std::max(fault, d.status);
+    w.summary.c57104_2019_fault_status = fault;
+  }
   w.methods.push_back(method_line(s19.method, s19.source));
 
   apply_fault_typing(w, samples, o);

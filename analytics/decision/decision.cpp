@@ -62,7 +62,7 @@ void add_gassing(const UnitAssessment& a, std::vector<Evidence>& out) {
   const bool arcing = a.active_arcing || d.active_arcing;
   // The fault-gas condition: CO and CO2 alone mark paper ageing, not a gassing fault.
   const bool c08 = d.c57104_2008_fault_condition && *d.c57104_2008_fault_condition >= 3;
-  const bool s19 = d.c57104_2019_status && *d.c57104_2019_status == 3;
+  const bool s19 = d.c57104_2019_fault_status && *d.c57104_2019_fault_status == 3;
   if (!arcing && !c08 && !s19) return;
   std::string text = arcing ? "active arcing in oil (acetylene appearing or rising)" : "an active gassing fault";
   if (d.duval_triangle_1) text += ", Duval Triangle 1 points to " + fault_words(*d.duval_triangle_1);
@@ -207,7 +207,8 @@ bool minor_signals(const UnitAssessment& a, std::string& why) {
   if (a.thermal.hours_above_normal_cyclic.value_or(0) > 0)
     w.push_back("hot spot above the normal cyclic limit for " + fmt(*a.thermal.hours_above_normal_cyclic, 0) +
                 " h: manage the load");
-  if (a.dga.c57104_2019_status && *a.dga.c57104_2019_status == 2) w.push_back("DGA Status 2 (IEEE C57.104-2019)");
+  if (a.dga.c57104_2019_fault_status && *a.dga.c57104_2019_fault_status == 2)
+    w.push_back("DGA Status 2 from fault gases (IEEE C57.104-2019)");
   for (const auto& f : a.infrared)
     if (f.severity && *f.severity >= 1 && *f.severity <= 2) {
       w.push_back("a minor infrared finding on the " + f.component);

@@ -257,7 +257,7 @@ TEST(HealthIndex, WorstIndicatorCapBindsAndIsExplained) {
   EXPECT_GT(*u.condition_index, 30);
 
   auto s = worked_unit();
-  s.dga.c57104_2019_status = 3;  // cap 50, below 65.3: binds
+  s.dga.c57104_2019_status = s.dga.c57104_2019_fault_status = 3;  // cap 50, below 65.3: binds
   fa::score_health(fa::HealthIndexOptions{}, s);
   EXPECT_DOUBLE_EQ(*s.health_index, 50);
   auto n = worked_unit();
@@ -295,7 +295,7 @@ TEST(HealthIndex, FuranBelowDetectionScoresAsGoodPaper) {
 
 TEST(HealthIndex, CapAboveIndexIsNotBinding) {
   auto a = worked_unit();
-  a.dga.c57104_2019_status = 3;
+  a.dga.c57104_2019_status = a.dga.c57104_2019_fault_status = 3;
   fa::HealthIndexOptions o;
   for (auto& c : o.caps) c.cap = 80;
   fa::score_health(o, a);
@@ -336,7 +336,7 @@ TEST(HealthIndex, MonotoneInEveryInput) {
       case 6: worse.infrared[0].severity = std::min(4, worse.infrared[0].severity.value_or(0) + 1); break;
       case 7: worse.unit.year_built -= 1 + pick(20); break;
       case 8: worse.dga.c57104_2008_condition = worse.dga.c57104_2008_fault_condition = 4; break;
-      case 9: worse.dga.c57104_2019_status = 3; break;
+      case 9: worse.dga.c57104_2019_status = worse.dga.c57104_2019_fault_status = 3; break;
       case 10:
         worse.inspection[0].rating =
             static_cast<fa::Rating>(std::min(5, static_cast<int>(worse.inspection[0].rating) + 1));

@@ -19,6 +19,13 @@ UnitData unit_132kv() {
   return d;
 }
 
+// One sample at day 100 interpreted alone, on a 132 kV unit.
+DgaSummary interpret_at_100(const testing::Gases& g) {
+  UnitInfo unit;
+  unit.hv_kv = 132;
+  return interpret_dga_sample(gas_sample(100, g), unit, 100, {});
+}
+
 bool has_text(const std::vector<std::string>& v, const std::string& part) {
   return std::any_of(v.begin(), v.end(), [&](const std::string& s) { return s.find(part) != std::string::npos; });
 }
@@ -165,19 +172,15 @@ TEST(OilAssessment, FullQualityTestsFromTheirSampleWaterFromANewerOne) {
 }
 
 TEST(OilAssessment, SingleSampleInterpretation) {
-  UnitInfo unit;
-  unit.hv_kv = 132;
   // Duval check value 45/90/15 -> T3 (inside the published zone), above typical levels.
-  auto d = interpret_dga_sample(gas_sample(100, {.h2 = 100, .ch4 = 45, .c2h6 = 10, .c2h4 = 90, .c2h2 = 15, .co = 200, .co2 = 1500}),
-                                unit, 100, {});
+  auto d = interpret_at_100({.h2 = 100, .ch4 = 45, .c2h6 = 10, .c2h4 = 90, .c2h2 = 15, .co = 200, .co2 = 1500});
   EXPECT_EQ(d.duval_triangle_1, "T3");
   EXPECT_EQ(d.c57104_2008_condition, 3);  // C2H2 15 ppm: Condition 3 (Table 1)
   EXPECT_FALSE(d.tdcg_rate_ppm_per_day);
   ASSERT_TRUE(d.c57104_2019_status);
   EXPECT_FALSE(d.c57104_2008_interval.empty());
   // Low gases: the fault-typing methods decline.
-  auto low = interpret_dga_sample(gas_sample(100, {.h2 = 10, .ch4 = 5, .c2h6 = 3, .c2h4 = 2, .c2h2 = 0, .co = 100, .co2 = 900}),
-                                  unit, 100, {});
+  auto low = interpret_at_100({.h2 = 10, .ch4 = 5, .c2h6 = 3, .c2h4 = 2, .c2h2 = 0, .co = 100, .co2 = 900});
   EXPECT_FALSE(low.duval_triangle_1);
   EXPECT_NE(low.duval_reading.find("concentrations too low"), std::string::npos);
   EXPECT_EQ(low.c57104_2019_status, 1);
@@ -235,6 +238,21 @@ TEST(OilAssessment, CarbonDioxideAloneDoesNotSetTheIntervalOrProcedure) {
   assess_oil(d, days_from_civil(2026, 12, 10), {}, later);
   ASSERT_TRUE(find_need(later.actions, "oil-resample"));
   EXPECT_EQ(find_need(later.actions, "oil-resample")->due, resample->due);
+
+  // CO2 15000 ppm: Condition 4 of C57.104-2008 Table 1 (> 10000) and above the
+  // C57.104-2019 Table 2 row "O2/N2 <= 0.2, > 30 years" (14000, placeholder from
+  // memory): Status 3 from CO2 alone. The fault-gas status stays 1, no outage.
+  d.oil_samples.back().co2 = LabValue::measured(15000);
+  UnitAssessment co2;
+  assess_oil(d, days_from_civil(2026, 12, 3), {}, co2);
+  EXPECT_EQ(co2.dga.c57104_2008_condition, 4);
+  EXPECT_EQ(co2.dga.c57104_2008_interval, "annual");
+  EXPECT_EQ(co2.dga.c57104_2019_status, 3);
+  EXPECT_EQ(co2.dga.c57104_2019_fault_status, 1);
+  for (const Action& a : co2.actions) EXPECT_EQ(a.text.find("outage"), std::string::npos) << a.text;
+  ASSERT_TRUE(find_need(co2.actions, "paper-ageing-follow-up"));
+  EXPECT_NE(find_need(co2.actions, "paper-ageing-follow-up")->reason.find("C57.104-2019 Status 3 from CO2"),
+            std::string::npos);
 }
 
 // A fault gas above the TDCG condition gets its own investigation, and the
@@ -295,18 +313,14 @@ TEST(OilAssessment, AcetyleneTrendAndFirstDetection) {
 // The key gas (H2 dominant, C2H2 5 % of combustibles < 15 %) reads partial
 // discharge: it disagrees and is marked indicative only.
 TEST(OilAssessment, KeyGasDisagreeingWithDuvalIsIndicativeOnly) {
-  UnitInfo unit;
-  unit.hv_kv = 132;
-  auto d = interpret_dga_sample(gas_sample(100, {.h2 = 1000, .ch4 = 20, .c2h6 = 5, .c2h4 = 30, .c2h2 = 60, .co = 50, .co2 = 500}),
-                                unit, 100, {});
+  auto d = interpret_at_100({.h2 = 1000, .ch4 = 20, .c2h6 = 5, .c2h4 = 30, .c2h2 = 60, .co = 50, .co2 = 500});
   ASSERT_EQ(d.duval_triangle_1, "D2");
   EXPECT_TRUE(d.key_gas_indicative_only);
   EXPECT_EQ(d.key_gas.rfind("indicative only, disagrees with Duval Triangle 1 D2", 0), 0u) << d.key_gas;
   EXPECT_NE(d.key_gas.find("partial discharge"), std::string::npos);
   // Agreeing readings are not marked: the published arcing proportions
   // (H2 60 %, C2H2 30 %; IEEE C57.104-2008 key gases, from memory).
-  auto arc = interpret_dga_sample(gas_sample(100, {.h2 = 600, .ch4 = 50, .c2h6 = 10, .c2h4 = 40, .c2h2 = 300, .co = 0, .co2 = 500}),
-                                  unit, 100, {});
+  auto arc = interpret_at_100({.h2 = 600, .ch4 = 50, .c2h6 = 10, .c2h4 = 40, .c2h2 = 300, .co = 0, .co2 = 500});
   ASSERT_TRUE(arc.duval_triangle_1);
   EXPECT_EQ(arc.duval_triangle_1->at(0), 'D');
   EXPECT_FALSE(arc.key_gas_indicative_only);
