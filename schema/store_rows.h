@@ -18,7 +18,7 @@
 #define UNIT_COLUMNS                                                                                           \
   "unit_id, site, serial, rated_mva, hv_kv, lv_kv, cooling, year_built, phases, vector_group, oil_type, paper," \
   " oil_volume_l, criticality, customers_served, top_oil_rise_k, hot_spot_gradient_k, load_loss_ratio,"       \
-  " oil_treated_day, conductor, tap_positions, tap_nominal, tap_step_pct, impedance_pct, replacement_cost, refurbishment_cost"
+  " oil_treated_day, conductor, tap_positions, tap_nominal, tap_step_pct, impedance_pct, replacement_cost, refurbishment_cost, oltc"
 
 namespace ferrum::store {
 
@@ -91,6 +91,7 @@ analytics::UnitInfo read_unit(const Row& s) {
   u.impedance_pct = s.opt_real(23);
   u.replacement_cost = s.opt_real(24);
   u.refurbishment_cost = s.opt_real(25);
+  u.oltc = analytics::oltc_type_from(s.is_null(26) ? std::string() : s.text(26));
   return u;
 }
 
