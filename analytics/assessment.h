@@ -50,7 +50,7 @@ struct GasReading {
   std::optional<double> ppm;             // null when not measured or below limit
   bool below_limit = false;
   std::optional<int> c57104_2008_condition;  // level reached by this gas (1..4)
-  std::optional<double> rate_ppm_per_year;   // least-squares over recent samples
+  std::optional<double> rate_ppm_per_year;   // µL/L per year, least-squares over recent samples
 };
 
 struct DuvalPoint {
@@ -62,21 +62,38 @@ struct DuvalPoint {
 struct DgaSummary {
   std::optional<Day> sample_date;
   std::optional<double> tdcg_ppm;
-  std::optional<int> c57104_2008_condition;  // 1..4
+  std::optional<int> c57104_2008_condition;  // 1..4, the guide's: highest of single gases and TDCG
+  std::optional<int> c57104_2008_tdcg_condition;   // 1..4, TDCG alone (Table 3 is keyed on it)
+  // Highest of TDCG and the fault gases, CO and CO2 left out (they mark paper
+  // ageing): what decisions, caps and alerts read.
+  std::optional<int> c57104_2008_fault_condition;
+  std::string c57104_2008_table3_basis;            // "TDCG 615 ppm (Condition 1)"
+  // Single gases whose condition is above TDCG's, most severe first, each with
+  // its own follow-up: "CO2 4200 ppm (Condition 3): paper ageing, ...".
+  std::vector<std::string> c57104_2008_single_gases;
   std::optional<int> c57104_2019_status;     // 1..3
+  // The status from the fault gases alone (CO and CO2 left out, as for the
+  // 2008 fault condition): what decisions and caps read.
+  std::optional<int> c57104_2019_fault_status;
   std::optional<std::string> duval_triangle_1;     // "PD","T1","T2","T3","D1","D2","DT"
   std::optional<std::string> duval_pentagon_1;
   std::optional<std::string> iec60599_ratio_fault; // "PD","D1","D2","T1","T2","T3"
   std::optional<double> co2_co_ratio;
-  std::optional<double> tdcg_rate_ppm_per_day;
+  std::optional<double> tdcg_rate_ppm_per_day;     // µL/L per day, last two samples (Table 3's unit)
   std::string c57104_2008_interval;   // sampling interval from the standard's procedure
   std::string c57104_2008_action;     // operating procedure from the standard
   std::string c57104_2019_reason;     // which gas/rate decided the status
   std::string key_gas;                // key-gas reading, plain words
+  bool key_gas_indicative_only = false;  // disagrees with Duval Triangle 1 / IEC 60599 ratios
   std::string co2_co_reading;         // plain words
   std::string iec60599_reading;       // fault name, or why no diagnosis
   std::string duval_reading;          // fault name, or why no diagnosis
   bool active_arcing = false;         // acetylene appearing or rising / D1-D2 signature
+  // Acetylene in the latest sample: "appeared" (first detection), "rising"
+  // (detected before, higher than the previous sample), "present" (detected
+  // before, not higher), "" (not detected).
+  std::string acetylene_trend;
+  std::optional<Day> acetylene_first_detected;  // first main-tank sample with C2H2 detected
   std::vector<GasReading> gases;
   std::vector<DuvalPoint> duval_history;  // recent samples, for the triangle plot
 };
@@ -105,6 +122,10 @@ struct OilSummary {
 struct PaperSummary {
   std::optional<Day> sample_date;
   std::optional<double> furan_2fal_ppb;
+  // 2-FAL reported below detection ("ND", "<x"): the paper is in good
+  // condition; scored as such, not as missing. The stated limit, if any.
+  bool furan_below_detection = false;
+  std::optional<double> furan_detection_limit_ppb;
   std::optional<double> dp_estimate;
   std::string dp_method;
   std::optional<double> dp_alternative;   // second correlation, for comparison
@@ -296,6 +317,9 @@ struct UnitAssessment {
   std::vector<std::string> missing;
   std::vector<DataFreshness> freshness;
   std::vector<std::string> methods;      // every method applied, with its source
+  // Methods not applied to this unit and why ("IEEE C57.104-2008 Table 1: ...
+  // valid for mineral oil only; the unit is filled with ester").
+  std::vector<std::string> methods_not_applied;
   std::vector<std::string> assumptions;  // defaulted parameters, missing ambient, ...
   std::vector<TableNote> tables;         // the standard tables in force, with their status
   // Gas history for the trend chart: one entry per sample.

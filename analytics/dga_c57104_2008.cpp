@@ -1,5 +1,6 @@
 #include "analytics/dga_c57104_2008.h"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 
@@ -40,12 +41,13 @@ std::optional<double> tdcg_ppm(const OilSample& sample) {
 
 C57104_2008Condition classify_c57104_2008(const OilSample& sample) {
   C57104_2008Condition r;
-  int worst = 0;
+  int worst = 0, worst_fault = 0;
   for (Gas g : kAllGases) {
     auto v = gas_ppm_or_zero(sample, g);
     if (!v) continue;
     int c = c57104_2008_gas_condition(g, *v);
     r.gas_condition[gas_index(g)] = c;
+    if (g != Gas::co && g != Gas::co2) worst_fault = std::max(worst_fault, c);
     if (c > worst) {
       worst = c;
       r.deciding = describe(gas_name(g), *v, c);
@@ -54,6 +56,7 @@ C57104_2008Condition classify_c57104_2008(const OilSample& sample) {
   r.tdcg_ppm = tdcg_ppm(sample);
   if (r.tdcg_ppm) {
     r.tdcg_condition = c57104_2008_tdcg_condition(*r.tdcg_ppm);
+    worst_fault = std::max(worst_fault, *r.tdcg_condition);
     // On a tie the total decides: the guide's conditions are defined on TDCG.
     if (*r.tdcg_condition >= worst) {
       worst = *r.tdcg_condition;
@@ -66,7 +69,28 @@ C57104_2008Condition classify_c57104_2008(const OilSample& sample) {
   }
   r.applicable = true;
   r.condition = worst;
+  r.fault_condition = worst_fault;
+  const int basis = c57104_2008_table3_basis(r).condition.value_or(0);
+  for (Gas g : kAllGases) {
+    const auto& c = r.gas_condition[gas_index(g)];
+    if (c && *c > basis) r.gases_above_tdcg.push_back({g, *gas_ppm_or_zero(sample, g), *c});
+  }
+  std::stable_sort(r.gases_above_tdcg.begin(), r.gases_above_tdcg.end(),
+                   [](const auto& a, const auto& b) { return a.condition > b.condition; });
   return r;
+}
+
+C57104_2008Table3Basis c57104_2008_table3_basis(const C57104_2008Condition& c) {
+  C57104_2008Table3Basis b;
+  if (c.tdcg_ppm && c.tdcg_condition) {
+    b.condition = c.tdcg_condition;
+    b.basis = describe("TDCG", *c.tdcg_ppm, *c.tdcg_condition);
+  } else if (c.fault_condition) {
+    b.condition = c.fault_condition;
+    b.basis = "TDCG undefined (a combustible gas not analysed): fault-gas Condition " +
+              std::to_string(*c.fault_condition);
+  }
+  return b;
 }
 
 std::optional<double> tdcg_rate_ppm_per_day(const OilSample& earlier, const OilSample& later) {

@@ -5,6 +5,11 @@
 //     table).
 //   * The unit's condition is the highest level reached by any individual gas
 //     or by TDCG (from memory of the guide's text).
+//   * Fault condition (ferrum's reading of the guide, not a term of it): the
+//     highest of TDCG and the individual fault gases, CO and CO2 left out.
+//     CO and CO2 mark the ageing of paper, which is followed up with furans;
+//     alone they do not show a fault that sampling or an outage would find.
+//     Decisions and caps read this, the report shows both.
 //   * Table 3: sampling interval and operating procedure from the TDCG
 //     condition and the TDCG rate (ppm/day) (from memory; the procedure cells span the
 //     ">30" and "10-30 ppm/day" rows, checked against a public reproduction).
@@ -18,6 +23,7 @@
 #include <array>
 #include <optional>
 #include <string>
+#include <vector>
 
 #include "analytics/dga_gases.h"
 #include "analytics/unit_data.h"
@@ -57,6 +63,15 @@ struct C57104_2008Condition {
   std::array<std::optional<int>, 7> gas_condition{};  // indexed by gas_index()
   std::optional<int> condition;                  // highest of gases and TDCG
   std::string deciding;                          // what reached that condition
+  std::optional<int> fault_condition;            // highest of TDCG and gases other than CO, CO2
+  // Gases whose own condition is above the TDCG condition (all gases above
+  // the Table 3 basis when TDCG is undefined), most severe first.
+  struct GasAbove {
+    Gas gas = Gas::h2;
+    double ppm = 0;
+    int condition = 0;
+  };
+  std::vector<GasAbove> gases_above_tdcg;
   std::string method = "Four-condition DGA classification (Table 1)";
   std::string source = "IEEE C57.104-2008 Table 1";
 };
@@ -88,6 +103,15 @@ struct C57104_2008Procedure {
   std::string method = "TDCG sampling interval and operating procedure (Table 3)";
   std::string source = "IEEE C57.104-2008 Table 3";
 };
+
+// The condition Table 3 is read with: the TDCG condition (the guide keys
+// Table 3 on TDCG and its rate); when TDCG is undefined (a combustible gas not
+// analysed), the fault condition, and `basis` says so.
+struct C57104_2008Table3Basis {
+  std::optional<int> condition;
+  std::string basis;  // "TDCG 615 ppm (Condition 1)", ...
+};
+C57104_2008Table3Basis c57104_2008_table3_basis(const C57104_2008Condition& c);
 
 // Table 3 lookup. `condition` 1..4 (anything else: not applicable). A rate
 // exactly 10 or 30 ppm/day falls in the 10-30 band. With no rate (single

@@ -84,11 +84,7 @@ C57104_2019Status c57104_2019_status(const std::vector<OilSample>& history, std:
   const std::array<C57104_2019Row, 2> t1 = {t.table1[0][age], t.table1[1][age]};
   const std::array<C57104_2019Row, 2> t2 = {t.table2[0][age], t.table2[1][age]};
 
-  int status = 0;
-  std::string reason;
-  auto raise = [&](int s, const std::string& why) {
-    if (s > status) { status = s; reason = why; }
-  };
+  auto times = [](double v, double limit) { return limit > 0 ? v / limit : 1e9; };  // "any increase": limit 0
   for (std::size_t g = 0; g < kAllGases.size(); ++g) {
     const Gas gas = kAllGases[g];
     const auto v = gas_ppm_or_zero(last, gas);
@@ -97,6 +93,7 @@ C57104_2019Status c57104_2019_status(const std::vector<OilSample>& history, std:
     const double l1 = threshold(t1, group, g).value_or(0), l2 = threshold(t2, group, g).value_or(0);
     // Change between consecutive samples (Table 3) and regression rate (Table 4).
     bool changing = false;
+    double change_times = 0;
     std::string change_text;
     if (prev) {
       if (auto p = gas_ppm_or_zero(*prev, gas)) {
@@ -104,6 +101,7 @@ C57104_2019Status c57104_2019_status(const std::vector<OilSample>& history, std:
         const auto l3 = threshold(t.table3, group, g);
         if (l3 ? delta > *l3 : (delta > 0 && gas_value(last, gas).is_measured())) {
           changing = true;
+          change_times = times(delta, l3.value_or(0));
           change_text = name + fmt(" rose %.4g ppm since the previous sample (Table 3 limit %.4g)", delta, l3.value_or(0));
         }
       }
@@ -113,14 +111,22 @@ C57104_2019Status c57104_2019_status(const std::vector<OilSample>& history, std:
       const auto l4 = threshold(t.table4, group, g);
       if (l4 ? *trend.ppm_per_year > *l4 : *trend.ppm_per_year > 0) {
         changing = true;
+        change_times = times(*trend.ppm_per_year, l4.value_or(0));
         change_text = name + fmt(" rising %.4g ppm/year (Table 4 limit %.4g)", *trend.ppm_per_year, l4.value_or(0));
       }
     }
-    if (*v > l2) raise(3, name + fmt(" %.4g ppm above Table 2 (%.4g)", *v, l2));
-    else if (*v > l1 && changing) raise(3, name + fmt(" %.4g ppm above Table 1 (%.4g) and ", *v, l1) + change_text);
-    else if (*v > l1) raise(2, name + fmt(" %.4g ppm above Table 1 (%.4g)", *v, l1));
-    else if (changing) raise(2, change_text);
+    if (*v > l2) r.drivers.push_back({name, 3, times(*v, l2), name + fmt(" %.4g ppm above Table 2 (%.4g)", *v, l2)});
+    else if (*v > l1 && changing)
+      r.drivers.push_back({name, 3, times(*v, l1), name + fmt(" %.4g ppm above Table 1 (%.4g) and ", *v, l1) + change_text});
+    else if (*v > l1) r.drivers.push_back({name, 2, times(*v, l1), name + fmt(" %.4g ppm above Table 1 (%.4g)", *v, l1)});
+    else if (changing) r.drivers.push_back({name, 2, change_times, change_text});
   }
+  std::stable_sort(r.drivers.begin(), r.drivers.end(), [](const auto& a, const auto& b) {
+    return a.status != b.status ? a.status > b.status : a.times_limit > b.times_limit;
+  });
+  const int status = r.drivers.empty() ? 1 : r.drivers.front().status;
+  std::string reason;
+  for (const auto& d : r.drivers) reason += (reason.empty() ? "" : "; ") + d.text;
   r.applicable = true;
   r.status = std::max(status, 1);
   r.reason = status <= 1 ? "all gases within Table 1, no significant change" : reason;

@@ -66,7 +66,16 @@ struct C57104_2019Status {
   bool applicable = false;
   std::string why_not;
   std::optional<int> status;  // 1..3
-  std::string reason;         // which gas / change decided
+  // Every gas that raises the status above 1, most severe first (higher
+  // status first, then the larger multiple of the limit it exceeds).
+  struct Driver {
+    std::string gas;    // "C2H2", ...
+    int status = 0;     // 2 or 3
+    double times_limit = 0;  // value (or change, rate) / the limit it exceeds
+    std::string text;
+  };
+  std::vector<Driver> drivers;
+  std::string reason;         // every driver's text, most severe first, "; " between them
   std::optional<double> o2_n2;
   std::string o2n2_group;     // "<= 0.2", "> 0.2", "unknown (stricter of both)"
   std::string age_group;      // "unknown", "1-9", "10-30", ">30"

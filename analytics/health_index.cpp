@@ -129,6 +129,12 @@ RawFactor score_paper(const HealthIndexOptions& o, const UnitAssessment& a) {
     double ppm = *p.furan_2fal_ppb / 1000.0;
     f.hif = rating_from_cuts(ppm, o.furan_ppm_cuts);
     f.detail = "2-FAL " + fmt(ppm, 3) + " ppm -> " + rating_text(*f.hif);
+  } else if (p.furan_below_detection) {
+    // 2-FAL below detection ("ND"): the paper is in good condition. Scored
+    // at the detection limit (0 when none was stated): the best band.
+    const double ppm = p.furan_detection_limit_ppb.value_or(0) / 1000.0;
+    f.hif = rating_from_cuts(ppm, o.furan_ppm_cuts);
+    f.detail = "2-FAL below detection -> " + rating_text(*f.hif);
   } else if (p.dp_estimate && std::isfinite(*p.dp_estimate)) {
     f.hif = rating_from_cuts(*p.dp_estimate, o.dp_cuts, true);
     f.detail = "DP " + fmt(*p.dp_estimate, 0) + " -> " + rating_text(*f.hif);
@@ -266,10 +272,10 @@ std::vector<CapHit> triggered_caps(const HealthIndexOptions& o, const UnitAssess
   for (const auto& c : o.caps) {
     if (c.trigger == "unsafe_inspection" && unsafe)
       hits.push_back({"inspection", "an inspection item rated unsafe", c.cap, true});
-    else if (c.trigger == "dga_condition_4" && a.dga.c57104_2008_condition == 4)
-      hits.push_back({"dga", "DGA condition 4 (IEEE C57.104-2008)", c.cap, true});
-    else if (c.trigger == "dga_status_3" && a.dga.c57104_2019_status == 3)
-      hits.push_back({"dga", "DGA status 3 (IEEE C57.104-2019)", c.cap, true});
+    else if (c.trigger == "dga_condition_4" && a.dga.c57104_2008_fault_condition == 4)
+      hits.push_back({"dga", "DGA fault-gas condition 4 (IEEE C57.104-2008, CO and CO2 left out)", c.cap, true});
+    else if (c.trigger == "dga_status_3" && a.dga.c57104_2019_fault_status == 3)
+      hits.push_back({"dga", "DGA status 3 from fault gases (IEEE C57.104-2019)", c.cap, true});
     else if (c.trigger == "active_arcing" && (a.active_arcing || a.dga.active_arcing))
       hits.push_back({"dga", "active arcing", c.cap, true});
     else if (c.trigger == "infrared_severity_4" &&

@@ -19,7 +19,25 @@ std::string fault_for(Gas key, double c2h2_share, const KeyGasOptions& o) {
   }
 }
 
+std::string family_for(Gas key, double c2h2_share, const KeyGasOptions& o) {
+  switch (key) {
+    case Gas::c2h4: return "T";
+    case Gas::co: return "C";
+    case Gas::c2h2: return "D";
+    case Gas::h2: return c2h2_share >= o.arcing_c2h2_share_pct ? "D" : "PD";
+    default: return "";
+  }
+}
+
 }  // namespace
+
+bool key_gas_agrees(const std::string& family, const std::string& zone) {
+  if (family.empty() || zone.empty()) return false;
+  if (zone == "DT") return family == "D" || family == "T";
+  if (family == "PD") return zone == "PD";
+  if (family == "D" || family == "T") return zone.size() == 2 && zone[0] == family[0] && zone != "DT";
+  return false;
+}
 
 KeyGasResult key_gas_reading(const OilSample& s, const TypicalGasLevels& typical, bool rising,
                              const KeyGasOptions& o) {
@@ -35,10 +53,8 @@ KeyGasResult key_gas_reading(const OilSample& s, const TypicalGasLevels& typical
     ppm[i] = *v;
     sum += *v;
   }
-  FaultEvidence evidence = dga_fault_evidence(s, typical, rising);
-  // CO alone (cellulose) is not among the fault gases of the evidence check.
-  const bool co_high = ppm[gas_index(Gas::co)] > 350;  // C57.104-2008 Table 1 Condition 1 CO
-  if (!(sum > 0) || (!evidence.present && !co_high)) {
+  const FaultEvidence evidence = dga_fault_evidence(s, typical, rising);
+  if (!(sum > 0) || !evidence.present) {
     r.reading = evidence.reason;
     return r;
   }
@@ -52,6 +68,7 @@ KeyGasResult key_gas_reading(const OilSample& s, const TypicalGasLevels& typical
   r.key_gas = gas_name(key);
   char buf[64];
   std::snprintf(buf, sizeof buf, " (%s %.0f %% of combustibles)", r.key_gas.c_str(), r.share_pct[best]);
+  r.fault_family = family_for(key, r.share_pct[gas_index(Gas::c2h2)], o);
   r.reading = fault_for(key, r.share_pct[gas_index(Gas::c2h2)], o) + buf;
   return r;
 }

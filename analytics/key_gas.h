@@ -8,7 +8,12 @@
 // Inputs: H2, CH4, C2H6, C2H4, C2H2, CO in µL/L. Output: each gas as % of
 // their sum, the key gas and the reading in plain words.
 // Validity: a secondary cue only (C57.104-2019 reports frequent
-// misidentification); applied only when a fault is indicated.
+// misidentification). Applied only when IEC 60599's precondition holds (at
+// least one fault gas above its typical value, or the gases rising:
+// dga_fault_evidence), the same as the ratio and triangle methods; otherwise
+// the reading says the concentrations are too low. Where it disagrees with
+// Duval Triangle 1 or the IEC 60599 ratios it is indicative only
+// (key_gas_agrees).
 #pragma once
 
 #include <array>
@@ -31,10 +36,19 @@ struct KeyGasResult {
   bool applicable = false;
   std::array<double, 6> share_pct{};  // H2, CH4, C2H6, C2H4, C2H2, CO (% of their sum)
   std::string key_gas;                // "C2H4", ...
+  // The reading's fault family, for comparing with the zone codes of the
+  // other methods: "PD" (partial discharge), "D" (arcing), "T" (overheated
+  // oil), "C" (overheated cellulose), "" (no published pattern / no reading).
+  std::string fault_family;
   std::string reading;                // plain words, or why no reading
   std::string method = "Key-gas method (dominant combustible gas)";
   std::string source = "IEEE C57.104-2008 key gases (proportions from memory)";
 };
+
+// Whether a key-gas fault family agrees with a Duval Triangle 1 zone or an
+// IEC 60599 ratio code (PD; D1, D2; T1, T2, T3; DT agrees with D and T).
+// Cellulose ("C") has no zone in either method and agrees with none.
+bool key_gas_agrees(const std::string& fault_family, const std::string& zone);
 
 KeyGasResult key_gas_reading(const OilSample& sample, const TypicalGasLevels& typical, bool gases_rising,
                              const KeyGasOptions& options = {});

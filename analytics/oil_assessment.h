@@ -44,11 +44,20 @@ struct OilOptions {
   int recondition_due_days = 180;     // Class II oil: recondition within
   int reclaim_due_days = 180;         // Class III oil: reclaim within
   int acetylene_investigate_days = 7; // active arcing: investigate within
+  // ferrum's defaults (common practice, no published source), counted from the sample:
+  int fault_gas_followup_days = 30;   // a fault gas above the TDCG condition: investigate within
+  int status3_investigate_days = 30;  // C57.104-2019 Status 3 from a fault gas: investigate within
+  int paper_followup_days = 180;      // CO/CO2 above the TDCG condition: furans within
+  int non_mineral_resample_days = 365;  // ester and other fluids: no Table 3, resample within
 };
 
 // Fills out.dga, out.oil, out.paper, out.gas_history, out.active_arcing; appends to out.methods
-// (one line per method: "name — source"), out.assumptions, out.missing (e.g. "oil sample",
-// "furan test") and out.actions (priority 1 most urgent, due = as_of + days).
+// (one line per method: "name — source"), out.methods_not_applied (mineral-oil methods on an
+// ester-filled unit), out.assumptions, out.missing (e.g. "oil sample", "furan test") and
+// out.actions (priority 1 most urgent). DGA actions are dated from the latest gas sample:
+// the Table 3 interval keyed on TDCG and its rate, and each single gas above the TDCG
+// condition with its own follow-up (acetylene: arcing, or first a communicating OLTC's
+// leak; CO/CO2: paper ageing).
 void assess_oil(const UnitData& data, Day as_of, const OilOptions& options, UnitAssessment& out);
 
 // One sample interpreted alone (for the `ferrum dga` command): fills out.dga only, history = this sample.

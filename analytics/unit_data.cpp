@@ -18,6 +18,21 @@ const char* to_string(Rating r) {
 
 const char* to_string(PaperType p) { return p == PaperType::kraft ? "kraft" : "upgraded"; }
 const char* to_string(OilType o) { return o == OilType::mineral ? "mineral" : "ester"; }
+const char* to_string(OltcType o) {
+  switch (o) {
+    case OltcType::none: return "none";
+    case OltcType::sealed: return "sealed";
+    case OltcType::communicating: return "communicating";
+    case OltcType::unknown: break;
+  }
+  return "";
+}
+OltcType oltc_type_from(const std::string& t) {
+  if (t == "none") return OltcType::none;
+  if (t == "sealed") return OltcType::sealed;
+  if (t == "communicating") return OltcType::communicating;
+  return OltcType::unknown;
+}
 
 // Names of the electrical field tests, as written in the `test` column of an
 // electrical tests file and in the JSON.

@@ -17,6 +17,10 @@ namespace ferrum::analytics {
 
 enum class PaperType { kraft, upgraded };  // non-upgraded kraft / thermally upgraded
 enum class OilType { mineral, ester };
+// On-load tap changer as the register gives it: none, sealed (its own oil kept
+// apart from the main tank), or communicating (its compartment can exchange
+// oil with the main tank, so arcing gases of normal switching may reach it).
+enum class OltcType { unknown, none, sealed, communicating };
 
 // Nameplate and register data of one unit (units register file).
 struct UnitInfo {
@@ -46,6 +50,7 @@ struct UnitInfo {
   std::optional<int> tap_positions;      // HV tap changer: number of positions
   std::optional<int> tap_nominal;        // position giving the nameplate HV voltage
   std::optional<double> tap_step_pct;    // HV voltage change per position, % of U_HV
+  OltcType oltc = OltcType::unknown;     // register column `oltc`
   std::optional<double> impedance_pct;   // nameplate short-circuit impedance, % on rating
   // The unit's own costs for the budgeted plan (analytics/plan), when given.
   std::optional<double> replacement_cost, refurbishment_cost;
@@ -185,5 +190,7 @@ struct UnitData {
 const char* to_string(Rating r);
 const char* to_string(PaperType p);
 const char* to_string(OilType o);
+const char* to_string(OltcType o);  // "" for unknown
+OltcType oltc_type_from(const std::string& text);  // "none", "sealed", "communicating"; else unknown
 
 }  // namespace ferrum::analytics

@@ -112,19 +112,33 @@ void dga_readings(PageFlow& flow, const UnitAssessment& a) {
   t.font_size = 7.8;
   t.columns = {{"Method", 1.6}, {"Reading", 1.0}, {"Meaning", 3.4}};
   t.rows = {
+      // Rates in µL/L per year, as in the gas table; Table 3's own unit (per day) beside it.
       {"TDCG", fmt_ppm(d.tdcg_ppm) + " µL/L",
-       d.tdcg_rate_ppm_per_day ? "rate " + fmt_number(d.tdcg_rate_ppm_per_day, 1) + " µL/L per day" : ""},
+       d.tdcg_rate_ppm_per_day ? "rate " + fmt_number(*d.tdcg_rate_ppm_per_day * 365.25, 0) + " µL/L per year (" +
+                                     fmt_number(d.tdcg_rate_ppm_per_day, 1) + " µL/L per day, the unit of C57.104-2008 Table 3), last two samples"
+                               : ""},
       {"IEEE C57.104-2008 (highest of TDCG and single gases)", "condition " + opt_int(d.c57104_2008_condition),
+       d.c57104_2008_fault_condition ? "fault-gas condition (CO, CO₂ left out) " + opt_int(d.c57104_2008_fault_condition) : ""},
+      {"IEEE C57.104-2008 Table 3 (TDCG and its rate)", "condition " + opt_int(d.c57104_2008_tdcg_condition),
        or_dash(d.c57104_2008_interval.empty() && d.c57104_2008_action.empty()
                    ? ""
-                   : "sampling: " + or_dash(d.c57104_2008_interval) + "; procedure: " + or_dash(d.c57104_2008_action))},
+                   : or_dash(d.c57104_2008_table3_basis) + "; sampling: " + or_dash(d.c57104_2008_interval) +
+                         "; procedure: " + or_dash(d.c57104_2008_action))},
+  };
+  for (const auto& g : d.c57104_2008_single_gases)
+    t.rows.push_back({"Single gas above TDCG's condition (C57.104-2008 Table 1)", "", g});
+  if (!d.acetylene_trend.empty())
+    t.rows.push_back({"Acetylene", d.acetylene_trend,
+                      d.acetylene_first_detected ? "first detected " + analytics::format_day(*d.acetylene_first_detected) : ""});
+  const std::vector<std::vector<std::string>> typing = {
       {"IEEE C57.104-2019", "status " + opt_int(d.c57104_2019_status), or_dash(d.c57104_2019_reason)},
       {"Duval Triangle 1", opt_text(d.duval_triangle_1), or_dash(d.duval_reading)},
       {"Duval Pentagon 1", opt_text(d.duval_pentagon_1), ""},
       {"IEC 60599 ratios", opt_text(d.iec60599_ratio_fault), or_dash(d.iec60599_reading)},
       {"CO₂/CO ratio", fmt_number(d.co2_co_ratio, 1), or_dash(d.co2_co_reading)},
-      {"Key gas", "", or_dash(d.key_gas)},
+      {"Key gas", d.key_gas_indicative_only ? "indicative only" : "", or_dash(d.key_gas)},
   };
+  t.rows.insert(t.rows.end(), typing.begin(), typing.end());
   flow.table(t);
 }
 
@@ -206,13 +220,22 @@ void gases_section(PageFlow& flow, const UnitAssessment& a) {
   }
   flow.subsection("Latest sample: " + fmt_day(a.dga.sample_date));
   latest_gas_table(flow, a);
-  dga_readings(flow, a);
+  const bool mineral = a.unit.oil == analytics::OilType::mineral;
+  if (mineral) {
+    dga_readings(flow, a);
+  } else {
+    // The mineral-oil interpretations are withheld; the gases are still trended.
+    flow.paragraph("Interpretation methods made for mineral oil are not applied to this " +
+                       std::string(analytics::to_string(a.unit.oil)) + "-filled unit:",
+                   type::body, FontFace::regular);
+    flow.bullets(a.methods_not_applied, type::small + 0.3);
+  }
   flow.subsection("Gas trend over the sample history", 170);
   if (a.gas_history.size() < 2)
     no_data_note(flow, "Fewer than two samples: no trend to draw.");
   else
     gas_trend_chart(flow, a);
-  duval_block(flow, a);
+  if (mineral) duval_block(flow, a);
 }
 
 void oil_paper_section(PageFlow& flow, const UnitAssessment& a) {
@@ -402,6 +425,10 @@ void sources_section(PageFlow& flow, const UnitAssessment& a, const std::vector<
   flow.subsection("Methods and their published sources");
   if (a.methods.empty()) no_data_note(flow, "No method could be applied.");
   else flow.bullets(a.methods, type::small + 0.3);
+  if (!a.methods_not_applied.empty()) {
+    flow.subsection("Methods not applied to this unit, and why");
+    flow.bullets(a.methods_not_applied, type::small + 0.3);
+  }
   standard_tables_subsection(flow, a);
   flow.subsection("Assumptions");
   if (a.assumptions.empty()) no_data_note(flow, "None recorded.");

@@ -49,6 +49,8 @@ std::string unit_json(const analytics::UnitInfo& u) {
     << ",\"tap_step_pct\":" << opt(u.tap_step_pct) << ",\"impedance_pct\":" << opt(u.impedance_pct);
   if (u.replacement_cost || u.refurbishment_cost)  // migration 005; absent in older history rows
     o << ",\"replacement_cost\":" << opt(u.replacement_cost) << ",\"refurbishment_cost\":" << opt(u.refurbishment_cost);
+  if (u.oltc != analytics::OltcType::unknown)  // migration 007; absent in older history rows
+    o << ",\"oltc\":\"" << analytics::to_string(u.oltc) << "\"";
   o << "}";
   return o.str();
 }

@@ -19,7 +19,7 @@
 #define UNIT_COLUMNS                                                                                           \
   "unit_id, site, serial, rated_mva, hv_kv, lv_kv, cooling, year_built, phases, vector_group, oil_type, paper," \
   " oil_volume_l, criticality, customers_served, top_oil_rise_k, hot_spot_gradient_k, load_loss_ratio,"       \
-  " oil_treated_day, conductor, tap_positions, tap_nominal, tap_step_pct, impedance_pct, replacement_cost, refurbishment_cost"
+  " oil_treated_day, conductor, tap_positions, tap_nominal, tap_step_pct, impedance_pct, replacement_cost, refurbishment_cost, oltc"
 
 #define LOAD_DAY_COLUMNS                                                                                   \
   "day, first_ts, last_ts, covered_h, bridged_h, ageing_h, peak_load_pu, peak_load_ts, peak_hot_spot_c,"   \
@@ -99,6 +99,7 @@ analytics::UnitInfo read_unit(const Row& s) {
   u.impedance_pct = s.opt_real(23);
   u.replacement_cost = s.opt_real(24);
   u.refurbishment_cost = s.opt_real(25);
+  u.oltc = analytics::oltc_type_from(s.is_null(26) ? std::string() : s.text(26));
   return u;
 }
 

@@ -61,12 +61,13 @@ std::string life_words(const RemainingLife& rl) {
 void add_gassing(const UnitAssessment& a, std::vector<Evidence>& out) {
   const auto& d = a.dga;
   const bool arcing = a.active_arcing || d.active_arcing;
-  const bool c08 = d.c57104_2008_condition && *d.c57104_2008_condition >= 3;
-  const bool s19 = d.c57104_2019_status && *d.c57104_2019_status == 3;
+  // The fault-gas condition: CO and CO2 alone mark paper ageing, not a gassing fault.
+  const bool c08 = d.c57104_2008_fault_condition && *d.c57104_2008_fault_condition >= 3;
+  const bool s19 = d.c57104_2019_fault_status && *d.c57104_2019_fault_status == 3;
   if (!arcing && !c08 && !s19) return;
   std::string text = arcing ? "active arcing in oil (acetylene appearing or rising)" : "an active gassing fault";
   if (d.duval_triangle_1) text += ", Duval Triangle 1 points to " + fault_words(*d.duval_triangle_1);
-  if (c08) text += ", IEEE C57.104-2008 Condition " + std::to_string(*d.c57104_2008_condition);
+  if (c08) text += ", IEEE C57.104-2008 fault-gas Condition " + std::to_string(*d.c57104_2008_fault_condition);
   if (s19) text += ", IEEE C57.104-2019 Status 3";
   out.push_back({"gassing", text});
 }
@@ -202,11 +203,13 @@ double lead_years(const DecisionOptions& o) { return std::max(o.lead_time_months
 
 bool minor_signals(const UnitAssessment& a, std::string& why) {
   std::vector<std::string> w;
-  if (a.dga.c57104_2008_condition && *a.dga.c57104_2008_condition == 2) w.push_back("DGA Condition 2 (IEEE C57.104-2008)");
+  if (a.dga.c57104_2008_fault_condition && *a.dga.c57104_2008_fault_condition == 2)
+    w.push_back("DGA fault-gas Condition 2 (IEEE C57.104-2008)");
   if (a.thermal.hours_above_normal_cyclic.value_or(0) > 0)
     w.push_back("hot spot above the normal cyclic limit for " + fmt(*a.thermal.hours_above_normal_cyclic, 0) +
                 " h: manage the load");
-  if (a.dga.c57104_2019_status && *a.dga.c57104_2019_status == 2) w.push_back("DGA Status 2 (IEEE C57.104-2019)");
+  if (a.dga.c57104_2019_fault_status && *a.dga.c57104_2019_fault_status == 2)
+    w.push_back("DGA Status 2 from fault gases (IEEE C57.104-2019)");
   for (const auto& f : a.infrared)
     if (f.severity && *f.severity >= 1 && *f.severity <= 2) {
       w.push_back("a minor infrared finding on the " + f.component);

@@ -54,6 +54,7 @@ Object::Ptr unit_json(const analytics::UnitInfo& u) {
   o->set("vector_group", text_or_null(u.vector_group));
   o->set("oil_type", std::string(analytics::to_string(u.oil)));
   o->set("paper", std::string(analytics::to_string(u.paper)));
+  o->set("oltc", text_or_null(analytics::to_string(u.oltc)));
   o->set("criticality", u.criticality);
   o->set("customers_served", opt(u.customers_served));
   return o;
@@ -112,6 +113,8 @@ Object::Ptr paper_json(const analytics::PaperSummary& p) {
   Object::Ptr o = new Object;
   o->set("sample_date", opt_day(p.sample_date));
   o->set("furan_2fal_ppb", opt(p.furan_2fal_ppb));
+  o->set("furan_below_detection", p.furan_below_detection);
+  o->set("furan_detection_limit_ppb", opt(p.furan_detection_limit_ppb));
   o->set("dp_estimate", opt(p.dp_estimate));
   o->set("dp_method", text_or_null(p.dp_method));
   o->set("dp_alternative", opt(p.dp_alternative));
@@ -207,7 +210,12 @@ Object::Ptr to_json(const analytics::DgaSummary& d) {
   o->set("sample_date", opt_day(d.sample_date));
   o->set("tdcg_ppm", opt(d.tdcg_ppm));
   o->set("c57104_2008_condition", opt(d.c57104_2008_condition));
+  o->set("c57104_2008_tdcg_condition", opt(d.c57104_2008_tdcg_condition));
+  o->set("c57104_2008_fault_condition", opt(d.c57104_2008_fault_condition));
+  o->set("c57104_2008_table3_basis", text_or_null(d.c57104_2008_table3_basis));
+  o->set("c57104_2008_single_gases", strings(d.c57104_2008_single_gases));
   o->set("c57104_2019_status", opt(d.c57104_2019_status));
+  o->set("c57104_2019_fault_status", opt(d.c57104_2019_fault_status));
   o->set("duval_triangle_1", opt(d.duval_triangle_1));
   o->set("duval_pentagon_1", opt(d.duval_pentagon_1));
   o->set("iec60599_ratio_fault", opt(d.iec60599_ratio_fault));
@@ -217,10 +225,13 @@ Object::Ptr to_json(const analytics::DgaSummary& d) {
   o->set("c57104_2008_action", text_or_null(d.c57104_2008_action));
   o->set("c57104_2019_reason", text_or_null(d.c57104_2019_reason));
   o->set("key_gas", text_or_null(d.key_gas));
+  o->set("key_gas_indicative_only", d.key_gas_indicative_only);
   o->set("co2_co_reading", text_or_null(d.co2_co_reading));
   o->set("iec60599_reading", text_or_null(d.iec60599_reading));
   o->set("duval_reading", text_or_null(d.duval_reading));
   o->set("active_arcing", d.active_arcing);
+  o->set("acetylene_trend", text_or_null(d.acetylene_trend));
+  o->set("acetylene_first_detected", opt_day(d.acetylene_first_detected));
   Array::Ptr gases = new Array;
   for (const auto& g : d.gases) {
     Object::Ptr x = new Object;
@@ -339,6 +350,7 @@ Object::Ptr to_json(const analytics::UnitAssessment& a) {
   }
   o->set("held_back", held);
   o->set("methods", strings(a.methods));
+  o->set("methods_not_applied", strings(a.methods_not_applied));
   o->set("assumptions", strings(a.assumptions));
   o->set("unsafe_inspection", a.unsafe_inspection);
   o->set("active_arcing", a.active_arcing);

@@ -40,7 +40,7 @@ constexpr FieldSpec kRegister[] = {
     {"oil_volume_l", O}, {"criticality", O}, {"customers_served", O}, {"top_oil_rise_k", O},
     {"hot_spot_gradient_k", O}, {"load_loss_ratio", O}, {"oil_treated_date", O},
     // For the electrical field tests.
-    {"conductor", O}, {"tap_positions", O}, {"tap_nominal", O}, {"tap_step_pct", O}, {"impedance_pct", O},
+    {"conductor", O}, {"tap_positions", O}, {"tap_nominal", O}, {"tap_step_pct", O}, {"impedance_pct", O}, {"oltc", O},
     {"replacement_cost", O}, {"refurbishment_cost", O},
 };
 

@@ -78,6 +78,11 @@ void UnitRowParser::parse_construction(analytics::UnitInfo& u) {
     else if (p == "upgraded" || p == "thermally_upgraded" || p == "tuk") u.paper = analytics::PaperType::upgraded;
     else report(paper, "paper must be kraft or upgraded");
   }
+  const ColumnBinding& oltc = column("oltc");
+  if (const std::string t = to_snake_case(cell(oltc)); !t.empty()) {
+    u.oltc = analytics::oltc_type_from(t);
+    if (u.oltc == analytics::OltcType::unknown) report(oltc, "oltc must be none, sealed or communicating");
+  }
   u.oil_volume_l = number(column("oil_volume_l"), "oil volume", {0, 1e6, "L", true});
   u.oil_treated = date(column("oil_treated_date"), false);
 }

@@ -10,6 +10,7 @@
 
 #include <chrono>
 #include <cstdio>
+#include <optional>
 #include <sstream>
 #include <thread>
 
@@ -45,7 +46,7 @@ std::int64_t parse_iso(const std::string& s) {
 
 // What the previous assessment of a unit said, to see whether it got worse.
 struct Snapshot {
-  int condition = 0;        // C57.104-2008 condition, 0 = none
+  int condition = 0;        // C57.104-2008 fault-gas condition (CO, CO2 left out), 0 = none
   int status = 0;           // C57.104-2019 status, 0 = none
   double c2h2 = -1;         // ppm, -1 = none
   bool arcing = false;
@@ -63,8 +64,8 @@ struct Snapshot {
   }
   static Snapshot of(const analytics::UnitAssessment& a) {
     Snapshot x;
-    x.condition = a.dga.c57104_2008_condition.value_or(0);
-    x.status = a.dga.c57104_2019_status.value_or(0);
+    x.condition = a.dga.c57104_2008_fault_condition.value_or(0);
+    x.status = a.dga.c57104_2019_fault_status.value_or(0);
     for (const auto& g : a.dga.gases)
       if (g.gas == "C2H2" && g.ppm) x.c2h2 = *g.ppm;
     x.arcing = a.active_arcing;
@@ -72,6 +73,27 @@ struct Snapshot {
     return x;
   }
 };
+
+// "acetylene rising: 4 -> 6 ppm (first detected 2024-03-01)": appeared, rising
+// or present as the oil history says (analytics), not as the last snapshot.
+std::string acetylene_alert_text(const analytics::UnitAssessment& a) {
+  const auto& d = a.dga;
+  std::optional<double> now, before;
+  for (const auto& g : d.gases)
+    if (g.gas == "C2H2") now = g.ppm;
+  if (a.gas_history.size() > 1) before = a.gas_history[a.gas_history.size() - 2].c2h2;
+  auto ppm = [](double v) {
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.4g", v);
+    return std::string(buf);
+  };
+  std::string text = "acetylene " + (d.acetylene_trend.empty() ? std::string("detected") : d.acetylene_trend) + ": ";
+  if (d.acetylene_trend != "appeared" && before && now) text += ppm(*before) + " -> ";
+  text += now ? ppm(*now) + " ppm" : std::string("detected");
+  if (d.acetylene_first_detected && d.acetylene_trend != "appeared")
+    text += " (first detected " + analytics::format_day(*d.acetylene_first_detected) + ")";
+  return text;
+}
 
 }  // namespace
 
@@ -354,17 +376,21 @@ struct Server::Impl {
     // Appearing, or rising by more than the repeatability of a lab
     // measurement (10 % + 0.5 ppm: common practice, no published source).
     if (now.c2h2 > 0 && (before.c2h2 <= 0 || now.c2h2 > before.c2h2 * 1.1 + 0.5))
-      raise_alert(unit, "acetylene",
-                    before.c2h2 <= 0 ? "acetylene appeared: " + std::to_string(static_cast<int>(now.c2h2 + 0.5)) + " ppm"
-                                     : "acetylene rising: " + std::to_string(before.c2h2) + " -> " + std::to_string(now.c2h2) + " ppm",
-                    "Resample the oil at once to confirm, with the responsible engineer's permission: the unit "
-                    "may be gassing while energised, so keep the time at the unit short and consider sampling "
-                    "after de-energising. An engineer decides whether the unit stays energised. Do not "
-                    "re-energise after a trip before that evaluation.",
+      raise_alert(unit, "acetylene", acetylene_alert_text(a),
+                    std::string(a.unit.oltc == analytics::OltcType::communicating
+                                    ? "The register gives a communicating on-load tap changer: first check for a leak "
+                                      "from the tap-changer compartment into the main tank (an OLTC oil sample, both "
+                                      "conservator levels). "
+                                    : "") +
+                        "Resample the oil at once to confirm, with the responsible engineer's permission: the unit "
+                        "may be gassing while energised, so keep the time at the unit short and consider sampling "
+                        "after de-energising. An engineer decides whether the unit stays energised. Do not "
+                        "re-energise after a trip before that evaluation.",
                     at);
     if (now.condition > before.condition && before.condition > 0)
       raise_alert(unit, "gas_condition",
-                    "IEEE C57.104-2008 condition worsened from " + std::to_string(before.condition) + " to " +
+                    "IEEE C57.104-2008 fault-gas condition (CO and CO2 left out) worsened from " +
+                        std::to_string(before.condition) + " to " +
                         std::to_string(now.condition),
                     "Follow the sampling interval of C57.104-2008 Table 3 given in the unit report.", at);
     if (now.status > before.status && before.status > 0)

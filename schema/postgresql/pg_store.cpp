@@ -226,18 +226,18 @@ class PgStore final : public Store {
         .add(analytics::to_string(u.paper)).add(u.oil_volume_l).add(u.criticality).add(u.customers_served)
         .add(u.top_oil_rise_k).add(u.hot_spot_gradient_k).add(u.load_loss_ratio).add(u.oil_treated).add(file_id)
         .add(line).add(u.replacement_cost).add(u.refurbishment_cost).text_or_null(u.conductor).add(u.tap_positions)
-        .add(u.tap_nominal).add(u.tap_step_pct).add(u.impedance_pct);
+        .add(u.tap_nominal).add(u.tap_step_pct).add(u.impedance_pct).text_or_null(analytics::to_string(u.oltc));
     db_.run("INSERT INTO units(unit_id, site, serial, rated_mva, hv_kv, lv_kv, cooling, year_built, phases,"
             " vector_group, oil_type, paper, oil_volume_l, criticality, customers_served, top_oil_rise_k,"
             " hot_spot_gradient_k, load_loss_ratio, oil_treated_day, file_id, line, replacement_cost,"
-            " refurbishment_cost, conductor, tap_positions, tap_nominal, tap_step_pct, impedance_pct)"
-            " VALUES($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12,$13,$14,$15,$16,$17,$18,$19,$20,$21,$22,$23,$24,$25,$26,$27,$28)"
+            " refurbishment_cost, conductor, tap_positions, tap_nominal, tap_step_pct, impedance_pct, oltc)"
+            " VALUES($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12,$13,$14,$15,$16,$17,$18,$19,$20,$21,$22,$23,$24,$25,$26,$27,$28,$29)"
             " ON CONFLICT(unit_id) DO UPDATE SET site=$2, serial=$3, rated_mva=$4, hv_kv=$5, lv_kv=$6,"
             " cooling=$7, year_built=$8, phases=$9, vector_group=$10, oil_type=$11, paper=$12,"
             " oil_volume_l=$13, criticality=$14, customers_served=$15, top_oil_rise_k=$16,"
             " hot_spot_gradient_k=$17, load_loss_ratio=$18, oil_treated_day=$19, file_id=$20, line=$21,"
             " replacement_cost=$22, refurbishment_cost=$23, conductor=$24, tap_positions=$25, tap_nominal=$26,"
-            " tap_step_pct=$27, impedance_pct=$28",
+            " tap_step_pct=$27, impedance_pct=$28, oltc=$29",
             p);
     unit_keys_.erase(u.unit_id);
     last_unit_key_ = 0;

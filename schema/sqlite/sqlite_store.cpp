@@ -253,10 +253,10 @@ class SqliteStore final : public Store {
         .bind(18, u.load_loss_ratio).bind(19, u.oil_treated).bind(20, file_id).bind(21, line)
         .bind(22, u.replacement_cost).bind(23, u.refurbishment_cost);
     s.run();
-    auto& e = stmt("UPDATE units SET conductor=?, tap_positions=?, tap_nominal=?, tap_step_pct=?, impedance_pct=?"
-                   " WHERE unit_id=?");
+    auto& e = stmt("UPDATE units SET conductor=?, tap_positions=?, tap_nominal=?, tap_step_pct=?, impedance_pct=?,"
+                   " oltc=? WHERE unit_id=?");
     e.bind_text_or_null(1, u.conductor).bind(2, u.tap_positions).bind(3, u.tap_nominal).bind(4, u.tap_step_pct)
-        .bind(5, u.impedance_pct).bind(6, u.unit_id);
+        .bind(5, u.impedance_pct).bind_text_or_null(6, analytics::to_string(u.oltc)).bind(7, u.unit_id);
     e.run();
     unit_keys_.erase(u.unit_id);
     unit_cycle_.clear();

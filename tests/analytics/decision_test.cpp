@@ -20,8 +20,8 @@ const fa::Day kAsOf = fa::days_from_civil(2026, 11, 30);
 using Defect = std::function<void(fa::UnitAssessment&)>;
 
 void gassing_t3(fa::UnitAssessment& a) {
-  a.dga.c57104_2008_condition = 3;
-  a.dga.c57104_2019_status = 3;
+  a.dga.c57104_2008_condition = a.dga.c57104_2008_fault_condition = 3;
+  a.dga.c57104_2019_status = a.dga.c57104_2019_fault_status = 3;
   a.dga.duval_triangle_1 = "T3";
   a.health_index = 30;  // capped by the correctable finding
 }

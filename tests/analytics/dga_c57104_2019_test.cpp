@@ -132,5 +132,35 @@ TEST(C57104_2019Status, UnknownO2N2UsesStricterRowAndNoGasIsNotApplicable) {
   EXPECT_FALSE(c57104_2019_status({OilSample{}}, 20, t).applicable);
 }
 
+// Issue #16: the reason names every gas that drives the status, most severe
+// first, not only the first gas of the table (H2). Limits: the embedded Table 2
+// row O2/N2 <= 0.2, unknown age (H2 200, C2H4 100, C2H2 2; placeholders of
+// IEEE C57.104-2019 Table 2 from memory). C2H2 90 is 45 x its limit, C2H4 817
+// is 8.2 x, H2 300 is 1.5 x.
+TEST(C57104_2019, ReasonNamesEveryDrivingGasMostSevereFirst) {
+  const auto r = c57104_2019_status({sealed(0, {.h2 = 300, .ch4 = 10, .c2h6 = 10, .c2h4 = 817, .c2h2 = 90})},
+                                    std::nullopt, default_c57104_2019_tables());
+  ASSERT_EQ(r.status, 3);  // IEEE C57.104-2019: a gas above Table 2 gives Status 3
+  ASSERT_EQ(r.drivers.size(), 3u);
+  EXPECT_EQ(r.drivers[0].gas, "C2H2");
+  EXPECT_EQ(r.drivers[1].gas, "C2H4");
+  EXPECT_EQ(r.drivers[2].gas, "H2");
+  const auto c2h2 = r.reason.find("C2H2"), c2h4 = r.reason.find("C2H4"), h2 = r.reason.find("H2 300");
+  ASSERT_NE(c2h2, std::string::npos);
+  ASSERT_NE(c2h4, std::string::npos);
+  ASSERT_NE(h2, std::string::npos);
+  EXPECT_LT(c2h2, c2h4);
+  EXPECT_LT(c2h4, h2);
+  // A Status 3 gas comes before a Status 2 gas whatever its multiple: CH4 95
+  // is above Table 1 (90) only; C2H4 101 above Table 2 (100).
+  const auto mixed = c57104_2019_status({sealed(0, {.ch4 = 95, .c2h4 = 101})}, std::nullopt,
+                                        default_c57104_2019_tables());
+  ASSERT_EQ(mixed.drivers.size(), 2u);
+  EXPECT_EQ(mixed.drivers[0].gas, "C2H4");
+  EXPECT_EQ(mixed.drivers[0].status, 3);
+  EXPECT_EQ(mixed.drivers[1].gas, "CH4");
+  EXPECT_EQ(mixed.drivers[1].status, 2);
+}
+
 }  // namespace
 }  // namespace ferrum::analytics

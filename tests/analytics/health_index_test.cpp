@@ -236,6 +236,7 @@ TEST(HealthIndex, BreakdownOfOtherMethodLeftOut) {
 TEST(HealthIndex, WorstIndicatorCapBindsAndIsExplained) {
   auto a = worked_unit();
   a.dga.c57104_2008_condition = 4;
+  a.dga.c57104_2008_fault_condition = 4;  // the cap reads the fault-gas condition (CO, CO2 left out)
   fa::score_health(fa::HealthIndexOptions{}, a);
   EXPECT_DOUBLE_EQ(*a.health_index, 30);
   EXPECT_EQ(a.band, "failing");  // 30 is the top of the worst band
@@ -256,18 +257,45 @@ TEST(HealthIndex, WorstIndicatorCapBindsAndIsExplained) {
   EXPECT_GT(*u.condition_index, 30);
 
   auto s = worked_unit();
-  s.dga.c57104_2019_status = 3;  // cap 50, below 65.3: binds
+  s.dga.c57104_2019_status = s.dga.c57104_2019_fault_status = 3;  // cap 50, below 65.3: binds
   fa::score_health(fa::HealthIndexOptions{}, s);
   EXPECT_DOUBLE_EQ(*s.health_index, 50);
   auto n = worked_unit();
   n.dga.c57104_2008_condition = 3;  // no cap for condition 3
+  n.dga.c57104_2008_fault_condition = 3;
   fa::score_health(fa::HealthIndexOptions{}, n);
   EXPECT_NEAR(*n.health_index, 100.0 * 128 / 196, 1e-9);
+  // Issue #16: CO2 alone at Condition 4 (IEEE C57.104-2008 Table 1, > 10000 ppm)
+  // marks paper ageing, not a fault: the fault-gas condition stays 1, no cap.
+  auto co2 = worked_unit();
+  co2.dga.c57104_2008_condition = 4;
+  co2.dga.c57104_2008_fault_condition = 1;
+  fa::score_health(fa::HealthIndexOptions{}, co2);
+  EXPECT_NEAR(*co2.health_index, 100.0 * 128 / 196, 1e-9);
+}
+
+// 2-FAL reported below detection ("ND") is scored as good paper (the best
+// band of the furan cuts, 0.1 ppm: CIGRE TB 761 scoring as configured in
+// analytics/data/health_index.csv), not left out as missing (issue #16).
+TEST(HealthIndex, FuranBelowDetectionScoresAsGoodPaper) {
+  auto a = worked_unit();
+  a.paper.furan_2fal_ppb.reset();
+  a.paper.furan_below_detection = true;
+  fa::score_health(fa::HealthIndexOptions{}, a);
+  ASSERT_TRUE(factor(a, "paper").score);
+  EXPECT_EQ(*factor(a, "paper").score, 4);  // best
+  EXPECT_NE(factor(a, "paper").detail.find("below detection"), std::string::npos);
+  auto limit = worked_unit();
+  limit.paper.furan_2fal_ppb.reset();
+  limit.paper.furan_below_detection = true;
+  limit.paper.furan_detection_limit_ppb = 50;  // "<50" ppb = 0.05 ppm, below the first cut
+  fa::score_health(fa::HealthIndexOptions{}, limit);
+  EXPECT_EQ(*factor(limit, "paper").score, 4);
 }
 
 TEST(HealthIndex, CapAboveIndexIsNotBinding) {
   auto a = worked_unit();
-  a.dga.c57104_2019_status = 3;
+  a.dga.c57104_2019_status = a.dga.c57104_2019_fault_status = 3;
   fa::HealthIndexOptions o;
   for (auto& c : o.caps) c.cap = 80;
   fa::score_health(o, a);
@@ -307,8 +335,8 @@ TEST(HealthIndex, MonotoneInEveryInput) {
       case 5: *worse.thermal.equivalent_ageing_factor += uni(0, 3); break;
       case 6: worse.infrared[0].severity = std::min(4, worse.infrared[0].severity.value_or(0) + 1); break;
       case 7: worse.unit.year_built -= 1 + pick(20); break;
-      case 8: worse.dga.c57104_2008_condition = 4; break;
-      case 9: worse.dga.c57104_2019_status = 3; break;
+      case 8: worse.dga.c57104_2008_condition = worse.dga.c57104_2008_fault_condition = 4; break;
+      case 9: worse.dga.c57104_2019_status = worse.dga.c57104_2019_fault_status = 3; break;
       case 10:
         worse.inspection[0].rating =
             static_cast<fa::Rating>(std::min(5, static_cast<int>(worse.inspection[0].rating) + 1));

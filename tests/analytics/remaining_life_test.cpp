@@ -233,7 +233,7 @@ TEST(RemainingLife, DefectAloneNeverShortensLife) {
   fa::estimate_remaining_life(fa::RemainingLifeOptions{}, a);
   const double before = *a.remaining_life.years;
   a.dga.c57104_2008_condition = 4;
-  a.dga.c57104_2019_status = 3;
+  a.dga.c57104_2019_status = a.dga.c57104_2019_fault_status = 3;
   a.dga.active_arcing = a.active_arcing = true;
   fa::estimate_remaining_life(fa::RemainingLifeOptions{}, a);
   EXPECT_EQ(a.remaining_life.limiting_factor, "paper");

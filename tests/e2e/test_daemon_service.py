@@ -190,6 +190,10 @@ class Service(DaemonCase):
         self.drop("lab-3.csv", lab + f"T2,{day(0)},40,20,8,30,15,220,2200,L-3\n")
         self.wait_for(lambda: sum(a["kind"] == "acetylene" for a in self.alerts()) == 2, timeout=15,
                       what="acetylene rising alert")
+        # Issue #16: the second is "rising" with the date of the first detection, not "appeared" again.
+        texts = [a["text"] for a in self.alerts() if a["kind"] == "acetylene"]
+        self.assertTrue(texts[0].startswith("acetylene appeared: 4 ppm"), texts)
+        self.assertTrue(texts[1].startswith(f"acetylene rising: 4 -> 15 ppm (first detected {day(10)})"), texts)
         kinds = [(a["unit_id"], a["kind"]) for a in self.alerts()]
         self.assertEqual(kinds.count(("T1", "unsafe_inspection")), 1)
         for a in self.alerts():

@@ -77,7 +77,34 @@ TEST(UnitRows, RegisterNeedsNoLookup) {
   EXPECT_TRUE(c.summary.acceptable()) << problems_text(c.summary);
 }
 
+// The register's on-load tap changer (issue #16): none, sealed or communicating;
+// anything else is a problem naming the line and column. Plumbing, no engineering value.
+TEST(UnitRows, OnLoadTapChanger) {
+  const auto c = check_text(
+      "unit_id,site,rated_mva,hv_kv,lv_kv,cooling,year_built,oltc\n"
+      "T1,N,40,132,33,ONAN,1998,Communicating\n"
+      "T2,N,40,132,33,ONAN,1998,sealed\n"
+      "T3,N,40,132,33,ONAN,1998,\n"
+      "T4,N,40,132,33,ONAN,1998,leaky\n");
+  ASSERT_EQ(c.rows.units.size(), 3u) << problems_text(c.summary);
+  EXPECT_EQ(c.rows.units[0].unit.oltc, analytics::OltcType::communicating);
+  EXPECT_EQ(c.rows.units[1].unit.oltc, analytics::OltcType::sealed);
+  EXPECT_EQ(c.rows.units[2].unit.oltc, analytics::OltcType::unknown);
+  EXPECT_TRUE(has_problem(c.summary, 5, "oltc", "oltc must be none, sealed or communicating"));
+}
+
 // ----------------------------------------------------------------- oil lab
+
+// A furan result "ND" is a result below detection, not a missing value (issue #16).
+TEST(OilRows, FuranNotDetected) {
+  const auto c = check_text("unit_id,sample_date,furan_2fal_ppb\nT1,2026-03-14,ND\nT1,2026-04-14,<10\n");
+  ASSERT_TRUE(c.summary.acceptable()) << problems_text(c.summary);
+  ASSERT_EQ(c.rows.oil.size(), 2u);
+  EXPECT_TRUE(c.rows.oil[0].sample.furan_2fal_ppb.is_below_limit());
+  EXPECT_TRUE(c.rows.oil[0].sample.furan_2fal_ppb.present());
+  EXPECT_TRUE(c.rows.oil[1].sample.furan_2fal_ppb.is_below_limit());
+  EXPECT_DOUBLE_EQ(c.rows.oil[1].sample.furan_2fal_ppb.value, 10);
+}
 
 TEST(OilRows, GasesDetectionLimitsAndBreakdown) {
   const auto c = check_text(

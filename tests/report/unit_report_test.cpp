@@ -139,6 +139,32 @@ TEST_F(UnitReportTest, UnsafeInspectionIsNamedInTheWarning) {
   EXPECT_NE(first.find("rated UNSAFE (bushings)"), std::string::npos);
 }
 
+// Issue #16: an ester-filled unit's report lists the methods not applied and
+// why, draws no Duval triangle, and still shows the gas rates in µL/L per year.
+TEST_F(UnitReportTest, EsterUnitListsMethodsNotApplied) {
+  auto unit = fixtures::filled_unit();
+  unit.unit.oil = analytics::OilType::ester;
+  unit.methods_not_applied = {"Duval Triangle 1: valid for mineral oil only; this unit is filled with ester"};
+  const std::string path = temp_path("ester.pdf");
+  render_unit_report(unit, nullptr, {}, fixed_options(), path);
+  const std::string text = squash(pdf_raw_text(path));
+  EXPECT_NE(text.find("not applied to this ester-filled unit"), std::string::npos);
+  EXPECT_NE(text.find("Methods not applied to this unit, and why"), std::string::npos);
+  EXPECT_NE(text.find("valid for mineral oil only"), std::string::npos);
+  EXPECT_EQ(text.find("Plotted samples"), std::string::npos);  // no triangle
+  EXPECT_NE(text.find("Rate, µL/L per year"), std::string::npos);
+}
+
+// Issue #16: rates in one unit: the TDCG rate is shown per year like the gas
+// table, with Table 3's per-day value beside it (1.9 per day x 365.25 = 694).
+TEST_F(UnitReportTest, TdcgRateShownPerYearLikeTheGasTable) {
+  const std::string path = temp_path("rates.pdf");
+  render_unit_report(fixtures::filled_unit(), nullptr, {}, fixed_options(), path);
+  const std::string text = squash(pdf_raw_text(path));
+  EXPECT_NE(text.find("rate 694 µL/L per year"), std::string::npos);
+  EXPECT_NE(text.find("1.9 µL/L per day, the unit of C57.104-2008 Table 3"), std::string::npos);
+}
+
 TEST_F(UnitReportTest, UnitWithNoDataRendersAndSaysWhatIsMissing) {
   const std::string path = temp_path("empty.pdf");
   render_unit_report(fixtures::empty_unit(), nullptr, {}, fixed_options(), path);

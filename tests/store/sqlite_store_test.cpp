@@ -76,6 +76,26 @@ TEST_P(StoreTest, UnitCostsRoundTrip) {
   EXPECT_FALSE(all[0].refurbishment_cost);
 }
 
+// Migration 007: the register's on-load tap changer is kept and read back on both
+// backends; a change is a change of the register row. Plumbing: no engineering value checked.
+TEST_P(StoreTest, UnitOltcRoundTrip) {
+  auto s = open_store();
+  const auto f = file(*s);
+  auto u = unit("T1");
+  EXPECT_TRUE(s->upsert_unit(u, f, 2));
+  EXPECT_EQ(s->find_unit("T1")->oltc, analytics::OltcType::unknown);  // not given: null
+  u.oltc = analytics::OltcType::communicating;
+  EXPECT_TRUE(s->upsert_unit(u, f, 3));
+  EXPECT_EQ(s->count_rows("unit_history"), 1);
+  EXPECT_EQ(s->find_unit("T1")->oltc, analytics::OltcType::communicating);
+  EXPECT_FALSE(s->upsert_unit(u, f, 4));  // unchanged
+  u.oltc = analytics::OltcType::sealed;
+  EXPECT_TRUE(s->upsert_unit(u, f, 5));
+  const auto all = s->units();
+  ASSERT_EQ(all.size(), 1u);
+  EXPECT_EQ(all[0].oltc, analytics::OltcType::sealed);
+}
+
 TEST_P(StoreTest, OilSampleSupersededByCorrectedReissue) {
   auto s = open_store();
   const auto f = file(*s);
