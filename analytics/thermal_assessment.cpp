@@ -82,13 +82,18 @@ void thermal_actions(const ThermalSummary& th, Day as_of, const ThermalOptions& 
   }
 }
 
-// Mean measured-minus-model top oil over the window's points that carry a
-// measurement; nullopt without any.
-std::optional<double> window_discrepancy(std::span<const ThermalPoint> all, Window w) {
+// Mean measured-minus-model top oil over the window: its raw points that carry
+// a measurement and the days the retention summarised (load_history.h);
+// nullopt without any.
+std::optional<double> window_discrepancy(std::span<const ThermalPoint> all, std::span<const LoadDay> days, Window w) {
   double sum = 0;
   std::size_t n = 0;
   for (const auto& p : all)
     if (p.t >= w.from && p.t < w.to && std::isfinite(p.measured_top_oil_c)) sum += p.measured_top_oil_c - p.top_oil_c, ++n;
+  for (const auto& d : days) {
+    sum += d.top_oil_excess_k;
+    n += static_cast<std::size_t>(d.top_oil_measurements);
+  }
   if (n == 0) return std::nullopt;
   return sum / static_cast<double>(n);
 }
@@ -99,8 +104,8 @@ std::optional<double> window_discrepancy(std::span<const ThermalPoint> all, Wind
 // step is re-integrated by the logarithmic mean of V between the step's ends
 // (mean_ageing_rate, ferrum's rule). Points without a measurement keep the
 // model. The model top oil stays in top_oil_c, so the discrepancy remains
-// visible. Returns the number of points changed.
-std::size_t use_measured_top_oil(std::vector<ThermalPoint>& points, PaperType paper) {
+// visible. Returns the number of points changed inside the window.
+std::size_t use_measured_top_oil(std::vector<ThermalPoint>& points, PaperType paper, Window w) {
   std::size_t changed = 0;
   double prev_hs = 0, prev_v = 0;
   for (std::size_t i = 0; i < points.size(); ++i) {
@@ -108,7 +113,7 @@ std::size_t use_measured_top_oil(std::vector<ThermalPoint>& points, PaperType pa
     if (std::isfinite(p.measured_top_oil_c)) {
       p.hot_spot_c = p.measured_top_oil_c + (p.hot_spot_c - p.top_oil_c);
       p.ageing_rate = ageing_rate(paper, p.hot_spot_c);
-      ++changed;
+      if (p.t >= w.from && p.t < w.to) ++changed;
     }
     if (i > 0 && p.step_h > 0)
       p.ageing_h = mean_ageing_rate(paper, prev_hs, prev_v, p.hot_spot_c, p.ageing_rate) * p.step_h;
@@ -273,10 +278,16 @@ void assess_load(const UnitData& data, Day as_of, const ThermalOptions& o, UnitA
   }
   fill_parameters(model, data.info, out);
   note_data_handling(st, th);
-  const auto discrepancy = window_discrepancy(points, w);
+  const auto summarised_days = days_in(summarised, w.from, w.to);
+  const auto discrepancy = window_discrepancy(points, summarised_days, w);
   th.measured_top_oil_above_k = o.measured_top_oil_above_k;
   th.hot_spot_from_measured_top_oil = discrepancy && *discrepancy > o.measured_top_oil_above_k;
-  if (th.hot_spot_from_measured_top_oil) th.measured_top_oil_points = use_measured_top_oil(points, data.info.paper);
+  if (th.hot_spot_from_measured_top_oil) {
+    th.measured_top_oil_points = use_measured_top_oil(points, data.info.paper, w);
+    if (!summarised_days.empty())
+      th.notes.push_back("hot spot from the measured top oil for the raw load points only: the days the retention "
+                         "summarised (store.keep_load_points_years) keep the model's hot spot and ageing");
+  }
   summarise_window(points, summarised, w, o, th);
   th.top_oil_discrepancy_k = discrepancy;  // measured minus the model, whatever the hot spot's basis
   if (th.peak_load_pu) {

@@ -53,9 +53,11 @@ UnitData cut_at(const UnitData& data, Timestamp cut, ThermalMethod method) {
   return out;
 }
 
-UnitAssessment assess(const UnitData& d, Day as_of, ThermalMethod method) {
+UnitAssessment assess(const UnitData& d, Day as_of, ThermalMethod method,
+                      double measured_top_oil_above_k = ThermalOptions{}.measured_top_oil_above_k) {
   ThermalOptions o;
   o.method = method;
+  o.measured_top_oil_above_k = measured_top_oil_above_k;
   UnitAssessment a;
   assess_thermal(d, as_of, o, a);
   return a;
@@ -121,8 +123,12 @@ TEST(LoadHistory, AssessmentInsideTheSummarisedYearsReadsTheDays) {
   const UnitData d = unit_with_three_years();
   const Day as_of = kFirstDay + 365 + 200;  // its year lies before the cut
   const Timestamp cut = start_of(kFirstDay + 2 * 365);
-  const auto before = assess(d, as_of, ThermalMethod::iec60076_7);
-  const auto after = assess(cut_at(d, cut, ThermalMethod::iec60076_7), as_of, ThermalMethod::iec60076_7);
+  // The summaries keep the model's hot spot: the switch to the measured top
+  // oil (IEC 60076-7:2018 §8.2.3; its threshold, common practice) is left out
+  // here and checked in the next test.
+  const double no_switch = 1e9;
+  const auto before = assess(d, as_of, ThermalMethod::iec60076_7, no_switch);
+  const auto after = assess(cut_at(d, cut, ThermalMethod::iec60076_7), as_of, ThermalMethod::iec60076_7, no_switch);
   const auto &b = before.thermal, &a = after.thermal;
   ASSERT_GT(b.hours_above_normal_cyclic.value_or(0), 0);
   EXPECT_EQ(a.peak_hot_spot_c, b.peak_hot_spot_c);
@@ -141,6 +147,28 @@ TEST(LoadHistory, AssessmentInsideTheSummarisedYearsReadsTheDays) {
   }
   EXPECT_FALSE(a.p99_load_pu);  // no raw point in that year: a daily summary cannot give it
   EXPECT_TRUE(std::find(after.missing.begin(), after.missing.end(), "load series") == after.missing.end());
+}
+
+
+// Inside the summarised years the discrepancy still counts the summarised
+// days, and where it passes the threshold the report says that the summaries
+// keep the model's hot spot (a limit of the retention; common practice, no
+// published source).
+TEST(LoadHistory, MeasuredTopOilInsideTheSummarisedYearsIsSaid) {
+  const UnitData d = unit_with_three_years();
+  const Day as_of = kFirstDay + 365 + 200;
+  const Timestamp cut = start_of(kFirstDay + 2 * 365);
+  const auto before = assess(d, as_of, ThermalMethod::iec60076_7);
+  const auto after = assess(cut_at(d, cut, ThermalMethod::iec60076_7), as_of, ThermalMethod::iec60076_7);
+  ASSERT_TRUE(before.thermal.hot_spot_from_measured_top_oil);
+  EXPECT_TRUE(after.thermal.hot_spot_from_measured_top_oil);
+  ASSERT_TRUE(after.thermal.top_oil_discrepancy_k);
+  EXPECT_NEAR(*after.thermal.top_oil_discrepancy_k, *before.thermal.top_oil_discrepancy_k, 1e-9);
+  EXPECT_EQ(after.thermal.measured_top_oil_points, 0u);
+  const auto& n = after.thermal.notes;
+  EXPECT_TRUE(std::any_of(n.begin(), n.end(), [](const std::string& s) {
+    return s.find("keep the model's hot spot") != std::string::npos;
+  }));
 }
 
 }  // namespace

@@ -87,6 +87,11 @@ class Retention:
 
     def test_assessments_are_the_same_after_the_retention(self):
         today = datetime.datetime.now(datetime.timezone.utc).date()
+        # The daily summaries keep the model's hot spot; the switch to the
+        # measured top oil (IEC 60076-7:2018 8.2.3) is a limit of the retention
+        # inside the summarised years, said in a note (tests/analytics/
+        # load_history_test.cpp). Here the model alone is compared.
+        self.set_key("measured_top_oil_above_k", "50")
         self.ingest("units.csv", REGISTER)
         content, points = load_file(today)
         self.ingest("load.csv", content)
