@@ -244,16 +244,6 @@ DgaWork summarise_dga(const std::vector<OilSample>& history, const UnitInfo& uni
   return w;
 }
 
-// Existing producers outside the DGA block still build actions this way.
-Action make_action(int priority, Day due, std::string text, std::string reason) {
-  Action a;
-  a.priority = priority;
-  a.due = due;
-  a.text = std::move(text);
-  a.reason = std::move(reason);
-  return a;
-}
-
 Action oil_action(int priority, Day found, int due_days, std::string text, std::string reason, const char* need) {
   return dated_action(priority, found, due_days, std::move(text), std::move(reason), kSourceOilSample, need,
                       kCrewOilSampling);
@@ -327,9 +317,15 @@ void dga_actions(const DgaWork& w, const UnitInfo& unit, const OilOptions& o, Un
     out.actions.push_back(oil_action(priority, found, p.interval_days,
                                      "Resample main-tank oil for DGA within " + std::to_string(p.interval_days) + " days",
                                      reason, "oil-resample"));
-    if (p.condition >= 3)
-      out.actions.push_back(oil_action(p.condition == 4 ? 1 : 2, found, p.interval_days, p.action,
-                                       reason + " (operating procedure)", "oil-dga-investigate"));
+    if (p.condition >= 3) {
+      // The procedures of Conditions 3 and 4 include planning an outage
+      // (IEEE C57.104-2008, Table 3): the job joins the unit's one outage action.
+      Action act = oil_action(p.condition == 4 ? 1 : 2, found, p.interval_days, p.action,
+                              reason + " (operating procedure)", "oil-dga-investigate");
+      act.outage = true;
+      act.crew = kCrewEngineering;
+      out.actions.push_back(std::move(act));
+    }
   } else if (!w.not_applied.empty()) {
     out.actions.push_back(oil_action(4, found, o.non_mineral_resample_days,
                                      "Resample main-tank oil for DGA within " + std::to_string(o.non_mineral_resample_days) + " days",

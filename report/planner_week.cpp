@@ -16,7 +16,9 @@ std::string planner_week_text(const PlannerWeek& w) {
   auto actions = [&](const char* title, const std::vector<PlannerWeek::DueAction>& list) {
     o << "\n" << title << ": " << list.size() << "\n";
     for (const auto& a : list)
-      o << "  " << analytics::format_day(a.due) << (a.due < w.as_of ? " OVERDUE" : "") << "  " << a.unit_id << " ("
+      o << "  " << analytics::format_day(a.due)
+        << (a.booked ? " booked " + analytics::format_day(a.booked) : a.due < w.as_of ? " OVERDUE" : "") << "  "
+        << a.unit_id << " ("
         << a.site << "), priority " << a.priority << ": " << a.text << "\n";
   };
   actions("Actions due in the next 7 days (or overdue)", w.due_7);

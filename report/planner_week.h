@@ -29,6 +29,7 @@ struct PlannerWeek {
     analytics::Day due = 0;
     int priority = 3;            // 1 = most urgent
     std::string unit_id, site, text;
+    analytics::Day booked = 0;   // booking date of a booked action (work-status files), 0 when open
   };
   std::vector<DueAction> due_7;   // due within 7 days (or overdue), most urgent first
   std::vector<DueAction> due_30;  // due in 8..30 days

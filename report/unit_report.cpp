@@ -144,7 +144,10 @@ void actions_table(PageFlow& flow, const UnitAssessment& a) {
   for (const auto& act : sorted) {
     const std::string found =
         act.found ? fmt_day(act.found) + (act.source.empty() ? "" : "\n" + act.source) : act.source;
-    const std::string due = fmt_day(act.due) + (act.overdue ? "\nOVERDUE" : "");
+    // A booked action shows its booking date instead of "overdue" (work-status files).
+    const std::string due = fmt_day(act.due) + (act.status == "booked" ? "\nbooked " + fmt_day(act.work_date)
+                                                : act.overdue                ? "\nOVERDUE"
+                                                                             : "");
     const std::string action = act.text + (act.reference.empty() ? "" : "\nref. " + act.reference);
     const std::string crew = (act.crew.empty() ? std::string("-") : act.crew) +
                              (act.outage ? "\noutage: yes" : "\noutage: no");

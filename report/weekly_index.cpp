@@ -27,9 +27,9 @@ void due_table(PageFlow& flow, const std::string& title, const std::vector<Plann
   Table t;
   t.columns = {{"Due", 1.0}, {"Unit", 0.8}, {"Site", 1.2}, {"Prio", 0.4, Align::right}, {"Action", 4.0}};
   for (const auto& a : list) {
-    t.rows.push_back({analytics::format_day(a.due) + (a.due < as_of ? " overdue" : ""), a.unit_id, a.site,
-                      std::to_string(a.priority), a.text});
-    t.emphasis.push_back(a.due < as_of || a.priority == 1);
+    const std::string state = a.booked ? " booked " + analytics::format_day(a.booked) : a.due < as_of ? " overdue" : "";
+    t.rows.push_back({analytics::format_day(a.due) + state, a.unit_id, a.site, std::to_string(a.priority), a.text});
+    t.emphasis.push_back((!a.booked && a.due < as_of) || a.priority == 1);
   }
   flow.table(t);
 }

@@ -52,7 +52,8 @@ void print_assessment_text(const analytics::UnitAssessment& a) {
               << ", Duval " << a.dga.duval_triangle_1.value_or("-") << ", IEC 60599 "
               << a.dga.iec60599_ratio_fault.value_or("-") << "\n";
   for (const auto& act : a.actions)
-    std::cout << "  [" << act.priority << "] by " << analytics::format_day(act.due) << (act.overdue ? " OVERDUE" : "")
+    std::cout << "  [" << act.priority << "] by " << analytics::format_day(act.due) << (act.status == "booked" ? " booked " + analytics::format_day(act.work_date)
+                                                                    : act.overdue ? std::string(" OVERDUE") : std::string())
               << ": " << act.text << (act.reference.empty() ? "" : " (" + act.reference + ")") << "\n";
   for (const auto& m : a.missing) std::cout << "  missing: " << m << "\n";
 }

@@ -167,6 +167,9 @@ void set_plan_fields(Object& x, const analytics::Action& a) {
   x.set("overdue", a.overdue);
   x.set("outage", a.outage);
   x.set("crew", text_or_null(a.crew));
+  x.set("status", a.status.empty() ? Var("open") : Var(a.status));  // "open" or "booked" (work-status files)
+  x.set("work_date", a.work_date ? Var(analytics::format_day(a.work_date)) : Var());
+  x.set("work_note", text_or_null(a.work_note));
 }
 
 Var action_json(const std::optional<analytics::Action>& a) {

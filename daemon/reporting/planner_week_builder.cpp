@@ -81,7 +81,8 @@ report::PlannerWeek build_planner_week(const PlannerWeekInputs& in) {
   for (const auto& a : *in.units)
     for (const auto& act : a.actions) {
       if (act.due > in.as_of + 30) continue;
-      report::PlannerWeek::DueAction d{act.due, act.priority, a.unit.unit_id, a.unit.site, act.text};
+      report::PlannerWeek::DueAction d{act.due, act.priority, a.unit.unit_id, a.unit.site, act.text,
+                                       act.status == "booked" ? act.work_date : 0};
       (act.due <= in.as_of + 7 ? w.due_7 : w.due_30).push_back(d);
     }
   w.work_list = analytics::work_list(*in.units);

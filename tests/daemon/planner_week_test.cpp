@@ -24,8 +24,15 @@ analytics::UnitAssessment unit(const std::string& id, const std::string& site) {
 TEST(PlannerWeek, ActionsChangesAlertsFilesAndOverdue) {
   const analytics::Day today = analytics::days_from_civil(2026, 12, 7);
   std::vector<analytics::UnitAssessment> units = {unit("T1", "Quillmere"), unit("T2", "Ostrand Yard")};
-  units[0].actions = {{2, today + 20, "infrared survey", ""}, {1, today + 3, "resample oil", ""},
-                      {3, today + 45, "routine", ""}, {2, today - 1, "tighten connection", ""}};
+  auto act = [](int priority, analytics::Day due, const char* text) {
+    analytics::Action a;
+    a.priority = priority;
+    a.due = due;
+    a.text = text;
+    return a;
+  };
+  units[0].actions = {act(2, today + 20, "infrared survey"), act(1, today + 3, "resample oil"),
+                      act(3, today + 45, "routine"), act(2, today - 1, "tighten connection")};
   units[0].freshness = {{"oil", today - 100, 0.3}, {"infrared", today - 400, 1.1}, {"inspection", today - 10, 0.0}};
   units[1].freshness = {{"oil", today - 366, 1.0}};
   analytics::FleetRanking ranking;

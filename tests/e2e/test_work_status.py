@@ -63,6 +63,13 @@ class WorkStatus(IngestCase):
         self.assertEqual({k for k in self.refs(before) if not k.startswith("T1/")},
                          {k for k in after if not k.startswith("T1/")})
 
+        # The unit's own assessment says the same: booked, with its date.
+        doc = json.loads(run("assess", "--root", self.root, "--json", "T1").stdout)
+        acts = {a["reference"]: a for a in doc[0]["actions"]}
+        self.assertEqual((acts[booked]["status"], acts[booked]["work_date"]), ("booked", booking))
+        self.assertFalse(acts[booked]["overdue"])
+        self.assertNotIn(done, acts)
+
         # CSV: the same rows, a header first.
         rows = list(csv.DictReader(io.StringIO(run("worklist", "--root", self.root, "--csv").stdout)))
         self.assertEqual([x["reference"] for x in rows], list(after))

@@ -85,6 +85,25 @@ TEST_F(UnitReportTest, ActionTableCarriesThePlannersColumns) {
   EXPECT_EQ(n, 1u);
 }
 
+// A booked action shows its booking date instead of "OVERDUE" (issue #16,
+// work-status files; common practice, no published source).
+TEST_F(UnitReportTest, BookedActionShowsItsBookingDateNotOverdue) {
+  auto unit = fixtures::filled_unit();
+  bool booked = false;
+  for (auto& act : unit.actions)
+    if (act.overdue && !booked) {
+      act.status = "booked";
+      act.work_date = unit.as_of + 5;
+      booked = true;
+    }
+  ASSERT_TRUE(booked);
+  const std::string path = temp_path("actions-booked.pdf");
+  render_unit_report(unit, nullptr, fixtures::source_files(), fixed_options(), path);
+  const std::string text = squash(pdf_raw_text(path));
+  EXPECT_NE(text.find("booked " + analytics::format_day(unit.as_of + 5)), std::string::npos);
+  EXPECT_EQ(text.find("OVERDUE"), std::string::npos);
+}
+
 // An estimate at the planning horizon prints as "more than N years", never as
 // a figure the methods cannot support. // common practice, no published source
 TEST_F(UnitReportTest, LifeBeyondHorizonPrintsMoreThan) {
