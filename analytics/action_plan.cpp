@@ -209,14 +209,22 @@ void finalize_actions(const ActionPlanOptions& o, UnitAssessment& a) {
   for (auto& act : decision_actions(o.decision, a, d)) a.actions.push_back(std::move(act));
   a.actions = merge_actions(a.actions);
   coordinate(o, a, d);
-  if (auto outage = outage_action(a.actions)) a.actions.push_back(std::move(*outage));
-  for (auto& act : a.actions) {
+  auto mark = [&](Action& act) {
     act.reference = action_reference(a.unit.unit_id, act.need.empty() ? merge_key(act.text) : act.need);
     act.overdue = act.due < a.as_of;
-  }
+  };
+  for (auto& act : a.actions) mark(act);
   // Planners' work status (booked, done, cancelled: the work-status kind of
-  // issue #16) is applied here, once references and overdue flags are set.
+  // issue #16) is applied here, once references and overdue flags are set,
+  // and before the one outage action is gathered, so that it lists only the
+  // jobs still to be done (a booked job stays in it).
   apply_work_status(a.work_status, a.unit.unit_id, a.actions, a.closed_actions);
+  if (auto outage = outage_action(a.actions)) {
+    mark(*outage);
+    std::vector<Action> one{std::move(*outage)};
+    apply_work_status(a.work_status, a.unit.unit_id, one, a.closed_actions);
+    for (auto& x : one) a.actions.push_back(std::move(x));
+  }
   sort_actions(a.actions);
   if (!a.actions.empty()) d.first_action = a.actions.front();
   if (!d.year)

@@ -165,6 +165,24 @@ TEST(ActionPlan, OneOutageActionGathersTheOutageJobs) {
   EXPECT_EQ(o->text.find("cooling"), std::string::npos);
 }
 
+// A job the planners report done leaves the outage action too; a booked one
+// stays in it (issue #16, work-status files; common practice, no published
+// source).
+TEST(ActionPlan, OutageActionListsOnlyTheJobsNotDone) {
+  auto a = fresh_unit(90);
+  a.actions.push_back(act(1, 19950, 7, "Retighten or repair the HV connector immediately", "IR", "ir-repair:HV", true));
+  a.actions.push_back(act(3, 19800, 365, "Repair or maintain the gaskets and leaks", "leak", "inspection:gaskets", true));
+  a.work_status = {{"T1/ir-repair:HV", "done", 19960, "connector replaced"},
+                   {"T1/inspection:gaskets", "booked", 19995, ""}};
+  fa::finalize_actions(a);
+  ASSERT_EQ(count_need(a.actions, "ir-repair:HV"), 0u);
+  const fa::Action* o = find_need(a.actions, "outage");
+  ASSERT_NE(o, nullptr);
+  EXPECT_EQ(o->text.find("HV connector"), std::string::npos);
+  EXPECT_NE(o->text.find("repair or maintain the gaskets"), std::string::npos);
+  EXPECT_EQ(o->due, 19800 + 365);
+}
+
 TEST(ActionPlan, NoOutageActionWithoutOutageJobs) {
   auto a = fresh_unit(90);
   a.actions.push_back(act(3, 19990, 90, "Check the cooling", "top oil", "cooling-check", false));
