@@ -102,4 +102,14 @@ std::string site_timestamp(std::int64_t utc_seconds, const SiteTimeZone& zone) {
   return buf;
 }
 
+std::string site_timestamp_of_stored(const std::string& stored_utc, const SiteTimeZone& zone) {
+  int y = 0, mo = 0, d = 0, h = 0, mi = 0, sec = 0;
+  char z = 0;
+  if (std::sscanf(stored_utc.c_str(), "%4d-%2d-%2dT%2d:%2d:%2d%c", &y, &mo, &d, &h, &mi, &sec, &z) != 7 || z != 'Z')
+    return stored_utc;
+  const std::int64_t t =
+      static_cast<std::int64_t>(analytics::days_from_civil(y, mo, d)) * 86400 + h * 3600 + mi * 60 + sec;
+  return site_timestamp(t, zone);
+}
+
 }  // namespace ferrum::config

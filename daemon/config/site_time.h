@@ -46,5 +46,8 @@ class SiteTimeZone {
 
 // "2026-11-30 07:10:05 CET (UTC+01:00)": the one timestamp of alerts in site time.
 std::string site_timestamp(std::int64_t utc_seconds, const SiteTimeZone& zone);
+// The same for a time as the store keeps it ("2026-11-30T06:10:05Z", UTC, so
+// that it sorts); anything else is returned as stored.
+std::string site_timestamp_of_stored(const std::string& stored_utc, const SiteTimeZone& zone);
 
 }  // namespace ferrum::config

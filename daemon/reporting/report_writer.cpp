@@ -164,7 +164,8 @@ ReportWriter::FleetFiles ReportWriter::fleet_files(const std::vector<analytics::
                                                    const std::vector<analytics::SiteView>& sites, analytics::Day as_of,
                                                    const fs::path& out_dir) {
   std::vector<std::string> alerts;
-  for (const auto& a : store_.open_alerts()) alerts.push_back(a.unit_id + ": " + a.text + " (" + a.raised_at + ")");
+  for (const auto& a : store_.open_alerts())
+    alerts.push_back(a.unit_id + ": " + a.text + " (" + config::site_timestamp_of_stored(a.raised_at, config_.time_zone) + ")");
   fs::create_directories(out_dir);
   FleetFiles f;
   f.pdf = out_dir / ("ferrum-fleet-" + analytics::format_day(as_of) + ".pdf");
@@ -222,7 +223,8 @@ fs::path ReportWriter::weekly_bundle(analytics::Day as_of) {
     if (static_cast<int>(in.files.size()) < limit || in.files.back().received_at < week_start) break;
   }
   in.inspection_interval_days = config_.inspection_interval_days;
-  const report::PlannerWeek week = build_planner_week(in);
+  report::PlannerWeek week = build_planner_week(in);
+  for (auto& a : week.alerts) a.raised_at = config::site_timestamp_of_stored(a.raised_at, config_.time_zone);  // sorted in UTC, printed in site time
   report::render_weekly_index(label, ranking, unit_files, week, report_options(config_), (scratch / "index.pdf").string());
   site::write_file_atomically(scratch / "summary.txt", report::planner_week_text(week));
   site::write_file_atomically(scratch / "week.tsv", week_units_tsv(ranking));

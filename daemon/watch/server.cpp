@@ -516,7 +516,9 @@ struct Server::Impl {
     try {
       if (auto s = store->state("weekly_last_run")) last = parse_iso(*s);
       o->set("last_weekly_bundle", store->state("weekly_last_bundle").value_or(""));
-      for (const auto& a : store->open_alerts()) alerts->add(a.raised_at + " " + a.unit_id + " " + a.kind + ": " + a.text);
+      for (const auto& a : store->open_alerts())
+        alerts->add(config::site_timestamp_of_stored(a.raised_at, config.time_zone) + " " + a.unit_id + " " + a.kind +
+                    ": " + a.text);
     } catch (const store::StoreUnavailable& e) {
       store_problem = e.what();
     }

@@ -30,6 +30,16 @@ TEST(SiteTime, BerlinWinterAndSummer) {
   EXPECT_EQ(z.at(utc(2026, 3, 29, 1, 0)).offset_seconds, 7200);
 }
 
+// The stored alert times (UTC, ISO 8601) print in site time in the weekly
+// cover, the fleet report and `ferrum status` too (issue #16). IANA tz
+// database: Europe/Berlin is CET, UTC+1, in winter.
+TEST(SiteTime, StoredTimesPrintInSiteTime) {
+  const auto z = SiteTimeZone::load("Europe/Berlin");
+  EXPECT_EQ(site_timestamp_of_stored("2026-11-30T23:30:00Z", z), "2026-12-01 00:30:00 CET (UTC+01:00)");
+  EXPECT_EQ(site_timestamp_of_stored("not a time", z), "not a time");
+  EXPECT_EQ(site_timestamp_of_stored("2026-11-30T23:30:00+01:00", z), "2026-11-30T23:30:00+01:00");
+}
+
 // IANA tz database: America/Chicago is CST, UTC-6, in December.
 TEST(SiteTime, WestOfGreenwich) {
   EXPECT_EQ(site_timestamp(utc(2026, 12, 3, 3, 0), SiteTimeZone::load("America/Chicago")),
