@@ -97,7 +97,7 @@ UnitAssessment ranking_fields(const UnitAssessment& a) {
   r.oil.paper_moisture_pct = a.oil.paper_moisture_pct;
   r.unsafe_inspection = a.unsafe_inspection;
   r.active_arcing = a.active_arcing;
-  r.dga.c57104_2008_condition = a.dga.c57104_2008_condition;
+  r.dga.c57104_2008_fault_condition = a.dga.c57104_2008_fault_condition;
   return r;
 }
 

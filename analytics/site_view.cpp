@@ -47,8 +47,10 @@ SiteUnitView unit_view(const UnitAssessment& a, const SiteViewOptions& o) {
   std::vector<std::string> health;
   if (a.unsafe_inspection) health.push_back("unsafe inspection item");
   if (a.active_arcing) health.push_back("active arcing");
-  if (a.dga.c57104_2008_condition && *a.dga.c57104_2008_condition >= 3)
-    health.push_back("dissolved gases condition " + std::to_string(*a.dga.c57104_2008_condition));
+  // The fault-gas condition (IEEE C57.104-2008 Table 1 without CO and CO2):
+  // carbon oxides alone are paper ageing, not a fault that bars extra load.
+  if (a.dga.c57104_2008_fault_condition && *a.dga.c57104_2008_fault_condition >= 3)
+    health.push_back("dissolved gases condition " + std::to_string(*a.dga.c57104_2008_fault_condition));
   const std::string& d = a.decision.action;
   if (d == "replace" || d == "refurbish" || d == "repair") health.push_back("decision: " + d);
   if (!health.empty()) {

@@ -94,7 +94,7 @@ Object::Ptr unit_to_json(const analytics::UnitAssessment& a) {
   site->set("paper_moisture_pct", opt(a.oil.paper_moisture_pct));
   site->set("unsafe_inspection", a.unsafe_inspection);
   site->set("active_arcing", a.active_arcing);
-  site->set("c57104_2008_condition", opt(a.dga.c57104_2008_condition));
+  site->set("c57104_2008_fault_condition", opt(a.dga.c57104_2008_fault_condition));
   o->set("site_inputs", site);
   return o;
 }
@@ -143,7 +143,7 @@ analytics::UnitAssessment unit_from_json(const Object::Ptr& o) {
     a.oil.paper_moisture_pct = get_opt<double>(x, "paper_moisture_pct");
     a.unsafe_inspection = x->getValue<bool>("unsafe_inspection");
     a.active_arcing = x->getValue<bool>("active_arcing");
-    a.dga.c57104_2008_condition = get_opt<int>(x, "c57104_2008_condition");
+    a.dga.c57104_2008_fault_condition = get_opt<int>(x, "c57104_2008_fault_condition");
   }
   return a;
 }

@@ -122,6 +122,19 @@ TEST(SiteView, ConstrainedOrUnhealthyTargetExcluded) {
   EXPECT_NE(fleet[0].actions[0].text.find("T4: unhealthy (decision: replace)"), std::string::npos);
 }
 
+// A unit whose C57.104-2008 condition comes from CO2 alone (paper ageing)
+// still takes load; a fault-gas condition 3 (Table 1 without CO and CO2) does
+// not (IEEE C57.104-2008, Table 1; the rule itself is common practice, no
+// published source).
+TEST(SiteView, CarbonOxidesAloneDoNotBarATarget) {
+  std::vector<UnitAssessment> fleet = {unit("T1", "Mill", 20, 0.9), unit("T2", "Mill", 20, 0.4)};
+  fleet[1].dga.c57104_2008_condition = 3;        // CO2 above its Condition 3 limit
+  fleet[1].dga.c57104_2008_fault_condition = 1;  // the fault gases are low
+  EXPECT_FALSE(site_view(fleet, {}).at(0).units[1].unhealthy);
+  fleet[1].dga.c57104_2008_fault_condition = 3;
+  EXPECT_TRUE(site_view(fleet, {}).at(0).units[1].unhealthy);
+}
+
 // Without load data for a unit the site's peak is unknown: N-1 is not
 // assessed rather than guessed (absent data is absent).
 TEST(SiteView, MissingLoadLeavesNMinusOneUnknown) {
