@@ -1,5 +1,6 @@
 // An earth stolen at one unit prompts a check of the other units' earths at
-// the site (issue #16). The rule is ferrum's own (analytics/site_earth_check.h).
+// the site (issue #16). The rule and its 7-day due date are ferrum's own
+// (analytics/site_earth_check.h): common practice, no published source.
 #include "analytics/site_earth_check.h"
 
 #include <gtest/gtest.h>

@@ -1,5 +1,6 @@
 // ferrum.ini [electrical] and the electrical health-index weights reaching
-// the analytics options. Plumbing: no engineering value is checked here.
+// the analytics options. Plumbing: no engineering value is checked here, so no
+// published source applies (the electrical checks are tested in tests/analytics/electrical_*_test.cpp).
 #include <gtest/gtest.h>
 
 #include "tests/daemon/temp_ini.h"

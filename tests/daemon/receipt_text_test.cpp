@@ -1,5 +1,5 @@
 // Wording of the receipt a contractor reads (issue 19, item 8). Plumbing
-// only: no engineering value, so no source is checked here.
+// only: no engineering value, so no published source applies.
 #include <gtest/gtest.h>
 
 #include "daemon/pipeline/receipt.h"
