@@ -443,9 +443,12 @@ class SqliteStore final : public Store {
     }
     {
       // The earth inspections of the other units at this site (site_earth_check.h).
-      auto& s = stmt("SELECT n.inspection_day, n.item, n.rating, n.note, n.inspector, u.unit_id FROM inspections n"
-                     " JOIN units u USING(unit_key) WHERE lower(u.site)=lower(?) AND n.unit_key<>? AND"
-                     " n.item='grounding' ORDER BY n.inspection_day, u.unit_id");
+      // The site's units first (index units_site), then their inspections
+      // (inspections_unit): CROSS JOIN keeps SQLite's planner to that order,
+      // which otherwise scans every inspection of the fleet for each unit.
+      auto& s = stmt("SELECT n.inspection_day, n.item, n.rating, n.note, n.inspector, u.unit_id FROM units u"
+                     " CROSS JOIN inspections n ON n.unit_key = u.unit_key WHERE lower(u.site)=lower(?)"
+                     " AND u.unit_key<>? AND n.item='grounding' ORDER BY n.inspection_day, u.unit_id");
       s.bind(1, d.info.site).bind(2, key);
       while (s.step()) d.site_inspections.push_back({s.text(5), read_inspection_row(s)});
       s.reset();
