@@ -99,7 +99,7 @@ Result Connection::run(const char* sql, const Params& params) {
                std::string(sql).substr(0, 80));
 }
 
-void Connection::copy_in(const std::string& copy_sql, const std::string& data) {
+bool Connection::copy_in(const std::string& copy_sql, const std::string& data, bool unique_violation_ok) {
   {
     PGresult* start = PQexec(conn_, copy_sql.c_str());
     const bool ready = PQresultStatus(start) == PGRES_COPY_IN;
@@ -119,7 +119,12 @@ void Connection::copy_in(const std::string& copy_sql, const std::string& data) {
     if (PQresultStatus(r) != PGRES_COMMAND_OK && !bad.get()) bad = Result(r);
     else PQclear(r);
   }
+  if (bad.get() && unique_violation_ok && ok()) {
+    const char* state = PQresultErrorField(bad.get(), PG_DIAG_SQLSTATE);
+    if (state && std::string(state) == "23505") return false;  // unique_violation
+  }
   if (bad.get() || !got) fail(copy_sql, bad.get());
+  return true;
 }
 
 }  // namespace ferrum::store::pg

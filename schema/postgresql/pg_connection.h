@@ -117,7 +117,10 @@ class Connection {
   // A statement with parameters, prepared once per session.
   Result run(const char* sql, const Params& params);
   // COPY ... FROM STDIN with the text format; `data` is its whole input.
-  void copy_in(const std::string& copy_sql, const std::string& data);
+  // COPY ... FROM STDIN of `data` (text format). With unique_violation_ok, a
+  // duplicate key (SQLSTATE 23505) returns false, and the caller rolls back
+  // to its savepoint; any other failure throws.
+  bool copy_in(const std::string& copy_sql, const std::string& data, bool unique_violation_ok = false);
 
   PGconn* raw() { return conn_; }
 

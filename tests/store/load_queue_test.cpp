@@ -127,6 +127,46 @@ TEST_P(LoadQueueTest, ReportedDuplicateIsReturnedOnce) {
   EXPECT_FALSE(s_->flush_load_points());
 }
 
+// Values come back bit for bit, NULLs as NaN, whichever way a batch is
+// written: new points (PostgreSQL: COPY straight into the table) and points
+// replacing an earlier file's (PostgreSQL: the staging table and the upsert).
+// Plumbing test, no published source.
+TEST_P(LoadQueueTest, ValuesComeBackExactlyOnBothWritingRoutes) {
+  const std::vector<double> loads = {1.2345678901234567, -0.0, 1e-300, 0.1 + 0.2};
+  const std::size_t n = 2 * kBatch + 3;  // two full batches and a rest
+  auto write = [&](std::int64_t file, double shift, bool with_oil) {
+    for (std::size_t i = 0; i < n; ++i) {
+      analytics::LoadPoint p{-86400LL * 365 * 30 + 900LL * static_cast<long long>(i), loads[i % loads.size()] + shift};
+      p.ambient_c = i % 3 ? -12.375 - shift : std::nan("");
+      if (with_oil) p.top_oil_c = 61.0625 + 1e-9 * static_cast<double>(i);
+      EXPECT_FALSE(s_->queue_load_point("T1", p, file, static_cast<std::int64_t>(2 + i)));
+    }
+    EXPECT_FALSE(s_->flush_load_points());
+  };
+  auto check = [&](double shift, bool with_oil) {
+    const auto pts = s_->load_points("T1", INT64_MIN / 2, INT64_MAX / 2);
+    ASSERT_EQ(pts.size(), n);
+    for (std::size_t i = 0; i < pts.size(); ++i) {
+      EXPECT_EQ(pts[i].t, -86400LL * 365 * 30 + 900LL * static_cast<long long>(i));
+      EXPECT_EQ(pts[i].load_pu, loads[i % loads.size()] + shift) << i;
+      if (i % 3) EXPECT_EQ(pts[i].ambient_c, -12.375 - shift) << i;
+      else EXPECT_TRUE(std::isnan(pts[i].ambient_c)) << i;
+      if (with_oil) EXPECT_EQ(pts[i].top_oil_c, 61.0625 + 1e-9 * static_cast<double>(i)) << i;
+      else EXPECT_TRUE(std::isnan(pts[i].top_oil_c)) << i;
+    }
+  };
+  write(f1_, 0.0, true);
+  check(0.0, true);
+  s_->begin();  // in a transaction: PostgreSQL's savepoint around the first COPY
+  write(f2_, 0.5, false);  // every point replaces file 1's
+  check(0.5, false);
+  const auto counts = s_->load_counts();
+  EXPECT_EQ(counts.replaced_earlier_file, static_cast<long long>(n));
+  EXPECT_EQ(counts.added, 0);
+  s_->commit();
+  check(0.5, false);
+}
+
 // Rows of many units in time-major order (every unit at one time, then every
 // unit at the next) and shuffled: the same rows, and the same first duplicate
 // by line, as unit by unit.
