@@ -289,6 +289,27 @@ struct Server::Impl {
     }
   }
 
+  // Finishes or imports again the files left in work/ by a failure (and, when
+  // the start's recovery is due, the units waiting for a report). False when
+  // the store still fails: the next try is set with back-off.
+  bool recover_in_work(std::chrono::steady_clock::time_point now) {
+    try {
+      if (recovery_due) load_dirty_units();
+      for (const auto& o : pipeline->recover()) note_outcome(o);
+      if (recovery_due) spdlog::info("database reachable again: the start's recovery is done");
+      recovery_due = false;
+      backoff = std::chrono::seconds(1);
+      return true;
+    } catch (const std::exception& e) {
+      // Still failing: keep the files where they are and try again later.
+      if (dynamic_cast<const store::StoreUnavailable*>(&e)) store_problem = e.what();
+      spdlog::error("retry failed: {}; next try in {} s", e.what(), backoff.count());
+      retry_at = now + backoff;
+      backoff = std::min(backoff * 2, std::chrono::seconds(300));
+      return false;
+    }
+  }
+
   void ingest_ready() {
     const auto now = std::chrono::steady_clock::now();
     if (now >= next_rescan) {
@@ -298,20 +319,8 @@ struct Server::Impl {
     if ((!retry.empty() || recovery_due) && now >= retry_at) {
       auto again = std::move(retry);
       retry.clear();
-      try {
-        // Files left in work/ by the failure are finished or imported again.
-        if (recovery_due) load_dirty_units();
-        for (const auto& o : pipeline->recover()) note_outcome(o);
-        if (recovery_due) spdlog::info("database reachable again: the start's recovery is done");
-        recovery_due = false;
-        backoff = std::chrono::seconds(1);
-      } catch (const std::exception& e) {
-        // Still failing: keep the files where they are and try again later.
-        if (dynamic_cast<const store::StoreUnavailable*>(&e)) store_problem = e.what();
-        spdlog::error("retry failed: {}; next try in {} s", e.what(), backoff.count());
+      if (!recover_in_work(now)) {
         retry = std::move(again);
-        retry_at = now + backoff;
-        backoff = std::min(backoff * 2, std::chrono::seconds(300));
         return;
       }
       for (const auto& p : again)
@@ -319,7 +328,13 @@ struct Server::Impl {
       watcher->rescan();
     }
     if (!retry.empty()) return;
-    for (const auto& p : watcher->take_ready(std::chrono::seconds(config.settle_seconds), now)) {
+    auto ready = watcher->take_ready(std::chrono::seconds(config.settle_seconds), now);
+    // Started while the database was down and a file arrives: the start's
+    // recovery is tried first, whatever the back-off, so that a database back
+    // between two tries never imports a new file before the interrupted ones.
+    // Still down: the new files are claimed into work/ and wait with them.
+    if (!ready.empty() && recovery_due) recover_in_work(now);
+    for (const auto& p : ready) {
       if (stop_requested && !options.once) break;  // leave the rest for next time
       process_file(p);
       if (!retry.empty()) break;
