@@ -15,6 +15,12 @@ Sections (--only NAME to run one):
   kernels  Google Benchmark: thermal kernel, unit reports on 1 and 2 threads
   latency  `ferrum serve`: lab file renamed into a party folder -> receipt ->
            updated unit report, 50 drops
+  postgresql  the shared store ([store] backend = postgresql) on a server the
+           harness starts (tests/pgserver.py, Debian's postgresql, fsync on):
+           the 1M-row file through `ferrum ingest` vs `psql \\copy` into a
+           plain table; fleet `assess --json` + `rank` vs the SQLite fleet;
+           with --with-100m, `assess` of one unit with 100,000,000 load points
+           in the table (~15 GB of disk, filled by SQL, kept for later runs)
 """
 import argparse
 import datetime
@@ -35,6 +41,7 @@ INGEST_UNITS = 5000
 LOAD_ORDERS = ["unit-major", "time-major", "shuffled"]
 LATENCY_UNITS = 50
 LATENCY_DROPS = 50
+BIG_TABLE_POINTS = 100_000_000
 
 INI = """[site]
 name = ferrum benchmark fleet
@@ -105,12 +112,12 @@ class Bench:
                        for k in ("User", "System"))
         return wall, rss, p.stdout
 
-    def new_root(self, name, settle=1, debounce=0):
+    def new_root(self, name, settle=1, debounce=0, store=""):
         root = self.work / name
         if root.exists():
             shutil.rmtree(root)
         root.mkdir(parents=True)
-        (root / "ferrum.ini").write_text(INI.format(settle=settle, debounce=debounce))
+        (root / "ferrum.ini").write_text(INI.format(settle=settle, debounce=debounce) + store)
         self.run([self.ferrum, "init", "--root", root])
         (root / "drop" / "bench").mkdir(parents=True, exist_ok=True)
         return root
@@ -406,6 +413,186 @@ class Bench:
             time.sleep(0.002)
         raise RuntimeError(f"timed out waiting for {what}")
 
+    # ------------------------------------------------------------ 5. postgresql
+    def pg_server(self):
+        """The harness's PostgreSQL server (tests/pgserver.py) with fsync on, or None with a note."""
+        sys.path.insert(0, str(Path(__file__).resolve().parent.parent / "tests"))
+        import pgserver
+        reason = pgserver.missing_reason()
+        if reason:
+            self.log("postgresql: skipped: " + reason)
+            self.notes.append("- postgresql: skipped: " + reason)
+            return None
+        return pgserver.PgServer(self.work / "pg").start(database=None, durable=True)
+
+    def pg_root(self, srv, name, database, fresh=True):
+        """A site root on database `database` of the harness's server (created if missing, emptied if fresh)."""
+        if fresh:
+            srv.psql(f'DROP DATABASE IF EXISTS "{database}"', database="postgres")
+        if srv.psql(f"SELECT 1 FROM pg_database WHERE datname = '{database}'", database="postgres").strip() != "1":
+            srv.psql(f'CREATE DATABASE "{database}"', database="postgres")
+        store = f"\n[store]\nbackend = postgresql\npostgresql = {srv.conninfo(database)}\n"
+        return self.new_root(name, store=store)
+
+    def pg_copy(self, srv, database, sql):
+        """psql run as this user (the file is read by the client), timed."""
+        return self.timed([Path(srv.bindir) / "psql", "-X", "-q", "-v", "ON_ERROR_STOP=1", "-h", srv.socket_dir,
+                           "-U", srv.user, "-d", database, "-c", sql])
+
+    def bench_postgresql(self):
+        srv = self.pg_server()
+        if srv is None:
+            return
+        try:
+            self.pg_sections(srv)
+        finally:
+            srv.stop()
+
+    def pg_sections(self, srv):
+        self.section("postgresql")
+        version = srv.psql("SHOW server_version", database="postgres").strip()
+        self.notes.append(f"- postgresql: server {version} started by the harness (Unix socket, fsync on, "
+                          "default settings)")
+        register = self.generated(f"units-{self.ingest_units}.csv", "register", self.ingest_units)
+        rows = self.ingest_rows
+        for order in LOAD_ORDERS:
+            data = self.generated(f"load-{rows}-{order}.csv", "load", rows, self.ingest_units, order)
+            f_wall, f_cpu, c_wall, k_wall = [], [], [], []
+            for i in range(self.args.repeat):
+                root = self.pg_root(srv, "pg-ingest-root", "ferrum_ingest")
+                self.ingest(root, self.drop(root, register))
+                srv.psql("CHECKPOINT", database="ferrum_ingest")
+                dropped = self.drop(root, data)
+                wall, _, out = self.timed([self.ferrum, "ingest", "--root", root, dropped], stdout=subprocess.PIPE)
+                if not out.startswith("accepted") or f"{rows} rows" not in out:
+                    raise RuntimeError("ferrum ingest (postgresql) did not accept the file: " + out)
+                f_wall.append(wall)
+                f_cpu.append(self.cpu)
+                # The reference: psql's \copy of the same file into a plain table of the file's
+                # columns (no key), and into one with the store's key (unit, time), same server.
+                srv.psql("DROP TABLE IF EXISTS plain_load, keyed_load; CHECKPOINT", database="ferrum_ingest")
+                srv.psql("CREATE TABLE plain_load(unit_id TEXT, ts TEXT, load_pu DOUBLE PRECISION,"
+                         " ambient_c DOUBLE PRECISION, top_oil_c DOUBLE PRECISION);"
+                         " CREATE TABLE keyed_load(LIKE plain_load, PRIMARY KEY (unit_id, ts))",
+                         database="ferrum_ingest")
+                copy = "\\copy {} FROM '" + str(data) + "' WITH (FORMAT csv, HEADER true)"
+                wall, _, _ = self.pg_copy(srv, "ferrum_ingest", copy.format("plain_load"))
+                c_wall.append(wall)
+                wall, _, _ = self.pg_copy(srv, "ferrum_ingest", copy.format("keyed_load"))
+                k_wall.append(wall)
+                n = int(srv.psql("SELECT count(*) FROM plain_load", database="ferrum_ingest"))
+                stored = int(srv.psql("SELECT count(*) FROM load_points", database="ferrum_ingest"))
+                if n != rows or stored != rows:
+                    raise RuntimeError(f"postgresql ingest: {stored} points stored, psql copied {n}, file {rows}")
+                self.log(f"postgresql ingest {order} #{i + 1}: ferrum {f_wall[-1]:.2f} s, psql \\copy plain"
+                         f" {c_wall[-1]:.2f} s, keyed {k_wall[-1]:.2f} s  (load {self.loadavg()})")
+            fw, cw, kw = (statistics.median(x) for x in (f_wall, c_wall, k_wall))
+            label = (f"{rows // 1_000_000}M" if rows >= 1_000_000 else f"{rows}-row") + f" {order}"
+            self.add(f"postgresql: ingest {label}: `ferrum ingest` (n={self.args.repeat})", f"{rows / fw / 1e3:.0f}k",
+                     "rows/s", f"{rows / cw / 1e3:.0f}k (psql \\copy, plain table)", f"{cw / fw:.2f}×", "≥ 1.0×",
+                     "yes" if cw >= fw else "no")
+            self.add(f"postgresql: ingest {label}: wall time ferrum / psql \\copy into a keyed table",
+                     f"{fw:.2f}", "s", f"{kw:.2f}", f"{kw / fw:.2f}×", "", "")
+            self.add(f"postgresql: ingest {label}: ferrum's CPU time (the server's is not counted)",
+                     f"{statistics.median(f_cpu):.2f}", "s", "", "", "", "")
+        self.pg_fleet(srv)
+        if self.args.with_100m or self.args.smoke:
+            self.pg_big_table(srv)
+
+    def pg_fleet(self, srv):
+        """Fleet `assess --json` + `rank` on the shared store against the SQLite fleet, same run."""
+        units = self.fleet_units
+        files = self.generated(f"fleet-{units}", "fleet", units)
+        lite = self.fleet_root(units)
+        root = self.work / f"pg-fleet-root-{units}"
+        database = f"ferrum_fleet_{units}"
+        if not (root / ".complete").exists():
+            self.log("postgresql: ingesting the fleet (once; kept in the work folder and the server)")
+            root = self.pg_root(srv, root.name, database)
+            t0 = time.perf_counter()
+            self.ingest(root, self.drop(root, files / "units.csv"))
+            others = ["oil.csv", "infrared.csv", "inspection.csv"] + sorted(p.name for p in files.glob("load-*.csv"))
+            self.ingest(root, *[self.drop(root, files / name) for name in others])
+            (root / ".complete").write_text(f"ingested in {time.perf_counter() - t0:.1f} s\n")
+        self.notes.append(f"- postgresql fleet of {units:,} units: {(root / '.complete').read_text().strip()}; "
+                          f"SQLite: {(lite / '.complete').read_text().strip()}")
+        srv.psql("VACUUM ANALYZE", database=database)
+        pg_t, lite_t = [], []
+        for i in range(self.args.repeat):
+            for r, out_t in ((lite, lite_t), (root, pg_t)):
+                wall_a, _, out = self.timed([self.ferrum, "assess", "--root", r, "--json", "--as-of", AS_OF, "--quiet"],
+                                            stdout=subprocess.PIPE)
+                if len(json.loads(out)) != units:
+                    raise RuntimeError("assess --json did not list every unit")
+                wall_r, _, _ = self.timed([self.ferrum, "rank", "--root", r, "--as-of", AS_OF, "--quiet"])
+                out_t.append(wall_a + wall_r)
+            self.log(f"postgresql fleet #{i + 1}: assess + rank {pg_t[-1]:.1f} s, SQLite {lite_t[-1]:.1f} s"
+                     f"  (load {self.loadavg()})")
+        p, l = statistics.median(pg_t), statistics.median(lite_t)
+        self.add(f"postgresql: fleet `assess --json` + `rank`, {units:,} units (n={self.args.repeat})", f"{p:.1f}", "s",
+                 f"{l:.1f} (SQLite)", f"{p / l:.2f}×", "≤ 1.5×", "yes" if p <= 1.5 * l else "no")
+
+    def pg_big_table(self, srv):
+        """`assess` of one unit with BIG_TABLE_POINTS load points in the table (hourly, one year, as
+        many units as it takes; filled by SQL, not by ingest, and kept), against the same unit in a
+        database of the same register where only its site's units have points (an assessment reads
+        the site's other units too, for the site view)."""
+        points = 200_000 if self.args.smoke else BIG_TABLE_POINTS
+        per_unit = 8760
+        units = -(-points // per_unit)
+        register = self.generated(f"units-{units}.csv", "register", units)
+        with open(register) as f:
+            ids = [l.split(",", 1)[0] for l in f if l and not l.startswith(("#", "unit_id"))]
+        unit = ids[len(ids) // 2]
+        fill = ("INSERT INTO load_points(unit_key, ts, load_pu, ambient_c, top_oil_c, file_id, line)"
+                " SELECT u.unit_key, t, 0.55 + 0.3 * sin(t / 13750.987), 12 + 9 * sin(t / 5022000.0), NULL,"
+                " (SELECT min(id) FROM files), 0 FROM units u CROSS JOIN generate_series({lo}, {hi}, 3600) t"
+                " WHERE {where} ORDER BY u.unit_key, t")
+        year0 = int(datetime.datetime(2025, 1, 1, tzinfo=datetime.timezone.utc).timestamp())
+        roots = {}
+        for name, database, where in (("small", "ferrum_one_site", f"u.site = (SELECT site FROM units WHERE unit_id = '{unit}')"),
+                                      ("big", f"ferrum_{points}_points", "true")):
+            root = self.work / f"pg-{name}-table-root"
+            if not (root / ".complete").exists():
+                self.log(f"postgresql: filling {database} (once; kept)")
+                root = self.pg_root(srv, root.name, database)
+                self.ingest(root, self.drop(root, register))
+                t0 = time.perf_counter()
+                for m in range(12):
+                    lo = int(datetime.datetime(2025, m + 1, 1, tzinfo=datetime.timezone.utc).timestamp())
+                    hi = int(datetime.datetime(2025 + (m == 11), (m + 1) % 12 + 1, 1,
+                                               tzinfo=datetime.timezone.utc).timestamp())
+                    part = f"load_points_p2025{m + 1:02d}"
+                    srv.psql(f"CREATE TABLE IF NOT EXISTS {part} (LIKE load_points INCLUDING DEFAULTS INCLUDING"
+                             f" CONSTRAINTS); ALTER TABLE load_points ATTACH PARTITION {part} FOR VALUES FROM ({lo})"
+                             f" TO ({hi})", database=database)
+                    srv.psql(fill.format(lo=lo, hi=min(hi, year0 + per_unit * 3600) - 3600, where=where),
+                             database=database)
+                srv.psql("VACUUM ANALYZE load_points", database=database)
+                (root / ".complete").write_text(f"filled in {time.perf_counter() - t0:.0f} s\n")
+            roots[name] = (root, database)
+        stored = int(srv.psql("SELECT count(*) FROM load_points", database=roots["big"][1]))
+        size = int(srv.psql("SELECT sum(pg_total_relation_size(inhrelid)) FROM pg_inherits"
+                            " WHERE inhparent = 'load_points'::regclass", database=roots["big"][1]))
+        times = {"small": [], "big": []}
+        for i in range(self.args.repeat):
+            for name in ("small", "big"):
+                wall, _, out = self.timed([self.ferrum, "assess", "--root", roots[name][0], unit, "--json",
+                                           "--as-of", AS_OF, "--quiet"], stdout=subprocess.PIPE)
+                if unit not in out:
+                    raise RuntimeError(f"assess {unit} gave no assessment")
+                times[name].append(wall)
+            self.log(f"postgresql one unit #{i + 1}: {stored:,} points {times['big'][-1] * 1e3:.0f} ms,"
+                     f" only its site's {times['small'][-1] * 1e3:.0f} ms  (load {self.loadavg()})")
+        b, sm = statistics.median(times["big"]), statistics.median(times["small"])
+        self.add(f"postgresql: `assess` of one unit, {stored:,} load points in the table (n={self.args.repeat})",
+                 f"{b * 1e3:.0f}", "ms", f"{sm * 1e3:.0f} (only its site's points)", f"{b / sm:.2f}×", "", "")
+        self.add(f"postgresql: load_points on disk (heap and key, {stored:,} points)", f"{size / 2**30:.1f}", "GiB",
+                 f"{size / stored:.0f} bytes/point", "", "", "")
+        self.notes.append(f"- postgresql big table: {(roots['big'][0] / '.complete').read_text().strip()}; at "
+                          f"{size / stored:.0f} bytes a point, 1.75 billion points take "
+                          f"{1.75e9 * size / stored / 2**40:.2f} TiB")
+
     # ------------------------------------------------------------ output
     def table(self):
         head = ["benchmark", "median", "unit", "reference (same run)", "ratio", "target", "met"]
@@ -442,7 +629,9 @@ def main():
     ap.add_argument("--repeat", type=int, default=3)
     ap.add_argument("--with-10m", action="store_true", help="also ingest a 10,000,000-row file (peak memory)")
     ap.add_argument("--only-10m", action="store_true", help="ingest only the 10,000,000-row file")
-    ap.add_argument("--only", action="append", choices=["ingest", "fleet", "kernels", "latency"])
+    ap.add_argument("--only", action="append", choices=["ingest", "fleet", "kernels", "latency", "postgresql"])
+    ap.add_argument("--with-100m", action="store_true",
+                    help="postgresql: also assess one unit with 100,000,000 load points in the table (~15 GB)")
     ap.add_argument("--results", help="results.md to update (only by a run of every section)")
     ap.add_argument("--smoke", action="store_true",
                     help="tiny sizes, repeat 1, no results written: checks that the harness runs (ctest label smoke)")
@@ -451,7 +640,7 @@ def main():
         args.repeat, args.results = 1, None
     b = Bench(args)
     started = datetime.datetime.now(datetime.timezone.utc).strftime("%Y-%m-%d %H:%M")
-    sections = args.only or ["ingest", "fleet", "kernels", "latency"]
+    sections = args.only or ["ingest", "fleet", "kernels", "latency", "postgresql"]
     if args.smoke and not b.kernels.exists():
         sections = [s for s in sections if s != "kernels"]  # Google Benchmark kernels: bench/run only
     for name in sections:

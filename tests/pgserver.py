@@ -74,7 +74,8 @@ class PgServer:
                 os.chmod(d, st.st_mode | 0o001)  # search only, so that postgres reaches its folder
             d = os.path.dirname(d)
 
-    def start(self, database="ferrum"):
+    def start(self, database="ferrum", durable=False):
+        """durable: keep PostgreSQL's default fsync (benchmarks); the tests turn it off."""
         reason = missing_reason()
         if reason:
             raise RuntimeError(reason)
@@ -83,7 +84,9 @@ class PgServer:
         if not os.path.exists(os.path.join(self.data, "PG_VERSION")):
             self._run([os.path.join(self.bindir, "initdb"), "-D", self.data, "-U", self.user, "-A", "trust",
                        "-E", "UTF8", "--no-locale", "--no-sync"])
-        opts = f"-c listen_addresses='' -c unix_socket_directories='{self.socket_dir}' -c fsync=off"
+        opts = f"-c listen_addresses='' -c unix_socket_directories='{self.socket_dir}'"
+        if not durable:
+            opts += " -c fsync=off"
         if not self.running():
             self._run([os.path.join(self.bindir, "pg_ctl"), "-D", self.data, "-l", os.path.join(self.folder, "server.log"),
                        "-o", opts, "-w", "-t", "60", "start"])
