@@ -410,7 +410,9 @@ TEST(DecisionProperties, LeadTimeSetsTheEarliestReplacementYear) {
   // Procurement starts at once, so that its due date plus the lead time is
   // the in-service date the decision states (no page contradicts another).
   for (const auto& act : a.actions)
-    if (act.text.rfind("Start procurement", 0) == 0) EXPECT_EQ(act.due, kAsOf) << act.text;
+    if (act.text.rfind("Start procurement", 0) == 0) {
+      EXPECT_EQ(act.due, kAsOf) << act.text;
+    }
   fa::ActionPlanOptions o;
   o.decision.lead_time_months = 0;
   a.actions.clear();

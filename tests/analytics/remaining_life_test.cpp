@@ -257,7 +257,9 @@ TEST(RemainingLife, NeverAboveHorizonAndFallsWithDp) {
     EXPECT_LE(*a.remaining_life.high_years, 40) << dp;
     EXPECT_EQ(a.remaining_life.beyond_horizon, *a.remaining_life.years >= 40) << dp;
     EXPECT_DOUBLE_EQ(a.remaining_life.horizon_years, 40);
-    if (previous) EXPECT_LE(*a.remaining_life.years, *previous) << dp;
+    if (previous) {
+      EXPECT_LE(*a.remaining_life.years, *previous) << dp;
+    }
     previous = a.remaining_life.years;
   }
   auto healthy = unit20();

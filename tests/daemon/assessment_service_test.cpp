@@ -48,7 +48,9 @@ TEST(AssessmentService, ScoreBandsCanBeOverridden) {
   EXPECT_DOUBLE_EQ(o.health.dga_cuts[0], 1.1);
   EXPECT_DOUBLE_EQ(o.health.dp_cuts[3], 250);
   for (const auto& g : o.health.gas_bands)
-    if (g.gas == "C2H2") EXPECT_DOUBLE_EQ(g.upper[4], 40);
+    if (g.gas == "C2H2") {
+      EXPECT_DOUBLE_EQ(g.upper[4], 40);
+    }
   EXPECT_NE(o.health.source.find("score bands"), std::string::npos);
   EXPECT_THROW(load("[health]\ndga_cuts = 1, 2, 3\n[party.p]\nkinds = *\n"), config::ConfigError);
   EXPECT_THROW(load("[health]\nage_cuts = 40, 30, 20, 10\n[party.p]\nkinds = *\n"), config::ConfigError);

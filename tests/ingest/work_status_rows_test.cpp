@@ -45,7 +45,9 @@ TEST(WorkStatusRows, AMalformedRowRejectsTheFileWithLineAndColumn) {
   EXPECT_TRUE(has_problem(c.summary, 4, "unit_id", "not in the units register")) << problems_text(c.summary);
   EXPECT_TRUE(has_problem(c.summary, 5, "action", "missing")) << problems_text(c.summary);
   for (const Problem& p : c.summary.problems.kept())
-    if (p.line == 3) EXPECT_EQ(p.column_number, 4);  // the date column
+    if (p.line == 3) {
+      EXPECT_EQ(p.column_number, 4);  // the date column
+    }
 }
 
 TEST(WorkStatusRows, AnUnknownStatusIsAProblemNamingTheAllowedOnes) {

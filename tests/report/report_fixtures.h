@@ -48,9 +48,9 @@ inline UnitAssessment filled_unit() {
   a.remaining_life.high_years = 16.0;
   a.remaining_life.limiting_factor = "paper";
   a.remaining_life.estimates = {
-      {"paper", 11.5, 7.0, 16.0, "DP 420 from 2-FAL (Chendong), ageing rate from loading history"},
-      {"condition", 18.0, 12.0, 24.0, "exponential health-score model (CNAIM form)"},
-      {"thermal", 40.0, std::nullopt, std::nullopt, "loss of life at present loading, IEC 60076-7"}};
+      {"paper", 11.5, 7.0, 16.0, "DP 420 from 2-FAL (Chendong), ageing rate from loading history", ""},
+      {"condition", 18.0, 12.0, 24.0, "exponential health-score model (CNAIM form)", ""},
+      {"thermal", 40.0, std::nullopt, std::nullopt, "loss of life at present loading, IEC 60076-7", ""}};
   auto& d = a.dga;
   d.sample_date = days_from_civil(2026, 10, 13);
   d.tdcg_ppm = 1012;
