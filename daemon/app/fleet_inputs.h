@@ -1,6 +1,7 @@
 // The whole-fleet assessment behind `rank` and `plan`: the last one from
 // ROOT/cache/ when nothing changed since (daemon/assess/ranking_cache.h),
-// else a fresh one (with --fresh always), stored for next time.
+// else a fresh one (with --fresh always), stored for next time. Either way
+// each unit's ranking fields only (analytics::ranking_fields).
 #pragma once
 
 #include <vector>
