@@ -652,7 +652,9 @@ class PgStore final : public Store {
                " load_pu DOUBLE PRECISION, ambient_c DOUBLE PRECISION, top_oil_c DOUBLE PRECISION, line BIGINT)");
       stage_ready_ = true;
     }
-    const std::string data = copy_rows(false, nullptr);  // the partitions exist: copy_straight made them
+    std::set<int> months;  // made by copy_straight, unless the file was already refused there
+    const std::string data = copy_rows(false, &months);
+    ensure_partitions(months);
     queue_.clear();
     db_.exec("TRUNCATE ferrum_load_stage");
     db_.copy_in("COPY ferrum_load_stage FROM STDIN (FORMAT binary)", data);

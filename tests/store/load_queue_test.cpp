@@ -167,6 +167,23 @@ TEST_P(LoadQueueTest, ValuesComeBackExactlyOnBothWritingRoutes) {
   check(0.5, false);
 }
 
+// A file whose first batch replaces an earlier file's points (PostgreSQL:
+// the staging route for the rest of the file) and whose later batches reach
+// months nobody wrote yet (PostgreSQL: partitions made on the way).
+// Plumbing test, no published source.
+TEST_P(LoadQueueTest, AFileTakingTheStagingRouteStillReachesNewMonths) {
+  EXPECT_TRUE(queue("T1", hourly(kBatch), f1_, 0.5).empty());
+  std::vector<long long> t = hourly(kBatch);  // the first batch: file 1's times
+  for (int i = 0; i < 2 * kBatch; ++i) t.push_back(86400LL * 400 + 86400LL * 40 * i);  // then 40 days apart
+  s_->begin();
+  EXPECT_TRUE(queue("T1", t, f2_, 0.7).empty());
+  s_->commit();
+  const auto pts = s_->load_points("T1", INT64_MIN / 2, INT64_MAX / 2);
+  ASSERT_EQ(pts.size(), t.size());
+  for (const auto& p : pts) EXPECT_EQ(p.load_pu, 0.7);
+  EXPECT_EQ(pts.back().t, t.back());
+}
+
 // Rows of many units in time-major order (every unit at one time, then every
 // unit at the next) and shuffled: the same rows, and the same first duplicate
 // by line, as unit by unit.
