@@ -11,19 +11,17 @@ std::vector<analytics::UnitAssessment> fleet_ranking_inputs(const Invocation& in
   const std::string cache_key = assess::ranking_cache_key(site.root, *site.store, as_of);
   auto units = inv.has("fresh") ? std::nullopt : assess::read_ranking_cache(site.root, cache_key);
   if (units) return std::move(*units);
-  // Assessed anew: each assessment is cut to its ranking fields as it comes
-  // (assess_units_parallel keeps a bounded window), so peak memory does not
-  // grow with the fleet, and the caller gets what the cache would have given.
+  // Assessed anew: each assessment is cut to its ranking fields as it comes,
+  // so peak memory does not grow with the fleet, and the caller gets what
+  // the cache would have given.
   ProgressDisplay progress("assessing", "units", inv.has("quiet"));
-  std::vector<std::string> ids;
-  for (const auto& u : site.store->units()) ids.push_back(u.unit_id);
   std::vector<analytics::UnitAssessment> inputs;
-  inputs.reserve(ids.size());
-  assess::assess_units_parallel(*site.store, ids, as_of, assess::options_from_config(site.config, &site.root), 0,
-                                [&](analytics::UnitAssessment&& a) {
-                                  inputs.push_back(analytics::ranking_fields(a));
-                                  progress.update(static_cast<double>(inputs.size()), static_cast<double>(ids.size()));
-                                });
+  assess::for_each_fleet_assessment(
+      *site.store, as_of, assess::options_from_config(site.config, &site.root),
+      [&](analytics::UnitAssessment&& a) { inputs.push_back(analytics::ranking_fields(a)); },
+      [&](const char*, std::size_t done, std::size_t total) {
+        progress.update(static_cast<double>(done), static_cast<double>(total));
+      });
   progress.finish();
   assess::write_ranking_cache(site.root, cache_key, inputs);
   return inputs;

@@ -175,18 +175,25 @@ void assess_units_parallel(const store::Store& database, const std::vector<std::
   for (auto& t : threads) t.join();
 }
 
+void for_each_fleet_assessment(store::Store& store, analytics::Day as_of, const analytics::AssessmentOptions& options,
+                               const std::function<void(analytics::UnitAssessment&&)>& emit,
+                               const FleetProgress& progress) {
+  std::vector<std::string> ids;
+  for (const auto& u : store.units()) ids.push_back(u.unit_id);
+  std::size_t done = 0;
+  assess_units_parallel(store, ids, as_of, options, 0, [&](analytics::UnitAssessment&& a) {
+    emit(std::move(a));
+    if (progress) progress("assessing", ++done, ids.size());
+  });
+}
+
 std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store,
                                                              analytics::Day as_of,
                                                              const analytics::AssessmentOptions& options,
                                                              const FleetProgress& progress) {
-  std::vector<std::string> ids;
-  for (const auto& u : store.units()) ids.push_back(u.unit_id);
   std::vector<analytics::UnitAssessment> out;
-  out.reserve(ids.size());
-  assess_units_parallel(store, ids, as_of, options, 0, [&](analytics::UnitAssessment&& a) {
-    out.push_back(std::move(a));
-    if (progress) progress("assessing", out.size(), ids.size());
-  });
+  for_each_fleet_assessment(store, as_of, options, [&](analytics::UnitAssessment&& a) { out.push_back(std::move(a)); },
+                            progress);
   return out;
 }
 

@@ -45,7 +45,13 @@ void assess_units_parallel(const store::Store& store, const std::vector<std::str
 // reports"), how many of how many are done. Called on the calling thread.
 using FleetProgress = std::function<void(const char* stage, std::size_t done, std::size_t total)>;
 
-// Every unit in the register, in unit_id order, assessed in parallel.
+// Every unit in the register, in unit_id order, assessed in parallel and
+// handed to `emit` one at a time (memory does not grow with the fleet).
+void for_each_fleet_assessment(store::Store& store, analytics::Day as_of, const analytics::AssessmentOptions& options,
+                               const std::function<void(analytics::UnitAssessment&&)>& emit,
+                               const FleetProgress& progress = {});
+
+// The same, kept in a vector.
 std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store,
                                                              analytics::Day as_of,
                                                              const analytics::AssessmentOptions& options,

@@ -621,7 +621,7 @@ class PgStore final : public Store {
   // that a unique violation undoes only this COPY; outside one, the failed
   // statement leaves nothing. False: the batch must take the staging route,
   // and so do the file's later batches (an overlapping file).
-  bool copy_straight(std::int64_t n) {
+  bool copy_straight() {
     if (direct_refused_file_ == queued_file_) return false;
     std::set<int> months;
     const std::string data = copy_rows(true, &months);
@@ -631,7 +631,7 @@ class PgStore final : public Store {
                     " (FORMAT binary)", data,
                     true)) {
       if (in_transaction_) db_.exec("RELEASE SAVEPOINT ferrum_load_batch");
-      written_points_ += n;
+      written_points_ += static_cast<long long>(queue_.size());
       return true;
     }
     if (in_transaction_) db_.exec("ROLLBACK TO SAVEPOINT ferrum_load_batch; RELEASE SAVEPOINT ferrum_load_batch");
@@ -642,8 +642,7 @@ class PgStore final : public Store {
   void write_queued_load() {
     reconnect_if_lost();
     if (queue_.empty()) return;
-    const long n = static_cast<long>(queue_.size());
-    if (copy_straight(n)) {
+    if (copy_straight()) {
       queue_.clear();
       return;
     }
@@ -655,6 +654,7 @@ class PgStore final : public Store {
     std::set<int> months;  // made by copy_straight, unless the file was already refused there
     const std::string data = copy_rows(false, &months);
     ensure_partitions(months);
+    const long n = static_cast<long>(queue_.size());
     queue_.clear();
     db_.exec("TRUNCATE ferrum_load_stage");
     db_.copy_in("COPY ferrum_load_stage FROM STDIN (FORMAT binary)", data);

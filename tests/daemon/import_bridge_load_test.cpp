@@ -1,4 +1,3 @@
-// Plumbing: no engineering value is checked here, so no published source applies.
 // Load series reach the store in batches (Store::queue_load_point), so a
 // second reading of the same time is found up to a batch after its row. The
 // import must still report what a row-by-row import reports: the duplicate
