@@ -6,6 +6,10 @@
 
 #include <algorithm>
 #include <chrono>
+#include <condition_variable>
+#include <exception>
+#include <mutex>
+#include <thread>
 #include <cstdio>
 #include <fstream>
 
@@ -102,6 +106,40 @@ static report::ReportOptions report_options(const config::SiteConfig& c) {
   return o;
 }
 
+namespace {
+
+// The day of the unit's previous report: its last report when that was
+// before `as_of`, else a week earlier.
+analytics::Day previous_report_day(store::Store& store, const std::string& unit_id, analytics::Day as_of) {
+  if (auto last = store.state("report:" + unit_id)) {
+    const analytics::Day d = std::atoi(last->c_str());
+    if (d < as_of) return d;
+  }
+  return as_of - 7;
+}
+
+// Renders one unit's PDF from its assessment as of `as_of` (site view
+// applied) and its data, which give the "what changed" view: the data as it
+// stood at `previous_day`, under the same site view.
+fs::path render_unit_file(store::Store& store, const analytics::UnitAssessment& current, const analytics::UnitData& data,
+                          analytics::Day as_of, analytics::Day previous_day, const std::vector<analytics::SiteView>& sites,
+                          const analytics::AssessmentOptions& options, const report::ReportOptions& report_options,
+                          const fs::path& out_dir) {
+  const std::string& unit_id = current.unit.unit_id;
+  analytics::UnitAssessment previous = analytics::assess_unit(data_as_of(data, previous_day), previous_day, options);
+  // The same site view: its load-transfer advice is not a change of the unit.
+  analytics::apply_site_view(previous, sites);
+  std::vector<report::SourceFile> files;
+  for (const auto& f : store.files_for_unit(unit_id))
+    files.push_back({f.party, f.original_name, f.kind, f.received_at, f.rows});
+  fs::create_directories(out_dir);
+  const fs::path path = out_dir / ("ferrum-" + safe_component(unit_id) + "-" + analytics::format_day(as_of) + ".pdf");
+  report::render_unit_report(current, &previous, files, report_options, path.string());
+  return path;
+}
+
+}  // namespace
+
 fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as_of, const fs::path& out_dir) {
   if (!store_.find_unit(unit_id)) throw std::runtime_error("unit " + unit_id + " is not in the register");
   analytics::UnitData data = store_.unit_data(unit_id);
@@ -109,25 +147,83 @@ fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as
   analytics::UnitAssessment current = analytics::assess_unit(data_as_of(data, as_of), as_of, options_);
   const auto sites = site_of(current, as_of);
   analytics::apply_site_view(current, sites);
-  // The previous report's view: the data as it stood then.
-  analytics::Day previous_day = as_of - 7;
-  if (auto last = store_.state("report:" + unit_id)) {
-    const analytics::Day d = std::atoi(last->c_str());
-    if (d < as_of) previous_day = d;
-  }
-  analytics::UnitAssessment previous = analytics::assess_unit(data_as_of(data, previous_day), previous_day, options_);
-  // The same site view: its load-transfer advice is not a change of the unit.
-  analytics::apply_site_view(previous, sites);
-
-  std::vector<report::SourceFile> files;
-  for (const auto& f : store_.files_for_unit(unit_id))
-    files.push_back({f.party, f.original_name, f.kind, f.received_at, f.rows});
-
-  fs::create_directories(out_dir);
-  const fs::path path = out_dir / ("ferrum-" + safe_component(unit_id) + "-" + analytics::format_day(as_of) + ".pdf");
-  report::render_unit_report(current, &previous, files, report_options(config_), path.string());
+  const analytics::Day previous_day = previous_report_day(store_, unit_id, as_of);
+  const fs::path path =
+      render_unit_file(store_, current, data, as_of, previous_day, sites, options_, report_options(config_), out_dir);
   if (previous_day != as_of) store_.set_state("report:" + unit_id, std::to_string(as_of));
   return path;
+}
+
+std::vector<fs::path> ReportWriter::unit_reports(const std::vector<analytics::UnitAssessment>& units,
+                                                 const std::vector<analytics::SiteView>& sites, analytics::Day as_of,
+                                                 const fs::path& out_dir) {
+  // Each worker reads through its own connection (Store::open_another) and
+  // renders into its own libharu document; the calling thread reports
+  // progress and, at the end, records each unit's report day.
+  const std::size_t n = units.size();
+  std::vector<fs::path> paths(n);
+  std::vector<analytics::Day> previous_days(n, as_of);
+  const report::ReportOptions ropts = report_options(config_);
+  std::mutex mutex;
+  std::condition_variable changed;
+  std::size_t next = 0, done = 0;
+  bool failed = false;
+  std::exception_ptr error;
+  const unsigned workers =
+      static_cast<unsigned>(std::min<std::size_t>(std::max(1u, std::thread::hardware_concurrency()), std::max<std::size_t>(n, 1)));
+  std::vector<std::thread> threads;
+  for (unsigned w = 0; w < workers; ++w) {
+    threads.emplace_back([&] {
+      try {
+        auto store = store_.open_another();
+        for (;;) {
+          std::size_t i;
+          {
+            std::lock_guard lock(mutex);
+            if (failed || next >= n) return;
+            i = next++;
+          }
+          const std::string& id = units[i].unit.unit_id;
+          analytics::UnitData data = store->unit_data(id);
+          data.held_back = ingest::held_back_of(*store, id);
+          const analytics::Day previous_day = previous_report_day(*store, id, as_of);
+          fs::path p = render_unit_file(*store, units[i], data, as_of, previous_day, sites, options_, ropts, out_dir);
+          {
+            std::lock_guard lock(mutex);
+            paths[i] = std::move(p);
+            previous_days[i] = previous_day;
+            ++done;
+          }
+          changed.notify_all();
+        }
+      } catch (...) {
+        {
+          std::lock_guard lock(mutex);
+          if (!error) error = std::current_exception();
+          failed = true;
+        }
+        changed.notify_all();
+      }
+    });
+  }
+  {
+    std::unique_lock lock(mutex);
+    std::size_t shown = 0;
+    while (done < n && !failed) {
+      changed.wait(lock, [&] { return failed || done > shown; });
+      if (progress_ && done > shown && !failed) {
+        shown = done;
+        lock.unlock();
+        progress_("unit reports", shown, n);
+        lock.lock();
+      }
+    }
+  }
+  for (auto& t : threads) t.join();
+  if (error) std::rethrow_exception(error);
+  for (std::size_t i = 0; i < n; ++i)
+    if (previous_days[i] != as_of) store_.set_state("report:" + units[i].unit.unit_id, std::to_string(as_of));
+  return paths;
 }
 
 ReportWriter::FleetFiles ReportWriter::fleet_report(analytics::Day as_of, const fs::path& out_dir) {
@@ -137,7 +233,6 @@ ReportWriter::FleetFiles ReportWriter::fleet_report(analytics::Day as_of, const 
 }
 
 std::vector<analytics::SiteView> ReportWriter::site_of(const analytics::UnitAssessment& unit, analytics::Day as_of) {
-  if (site_views_) return *site_views_;
   std::vector<analytics::UnitAssessment> peers;
   for (const auto& u : store_.units())
     if (u.site == unit.unit.site)
@@ -191,20 +286,10 @@ fs::path ReportWriter::weekly_bundle(analytics::Day as_of) {
   // reports' site lines.
   auto units = assess::assess_fleet_parallel(store_, as_of, options_, progress_);
   const auto sites = assess::apply_site_view(units, config_);
+  // The unit reports reuse that assessment as their current view.
   std::vector<std::pair<std::string, std::string>> unit_files;
-  const auto register_units = store_.units();
-  site_views_ = sites;
-  try {
-    for (const auto& u : register_units) {
-      const fs::path p = unit_report(u.unit_id, as_of, scratch);
-      unit_files.emplace_back(u.unit_id, p.filename().string());
-      if (progress_) progress_("unit reports", unit_files.size(), register_units.size());
-    }
-  } catch (...) {
-    site_views_.reset();
-    throw;
-  }
-  site_views_.reset();
+  const auto paths = unit_reports(units, sites, as_of, scratch);
+  for (std::size_t i = 0; i < units.size(); ++i) unit_files.emplace_back(units[i].unit.unit_id, paths[i].filename().string());
   const auto ranking = rank(units, as_of);
   fleet_files(units, ranking, sites, as_of, scratch);
   // The planner's week: on the cover, as summary.txt (the weekly mail's

@@ -62,16 +62,19 @@ class ReportWriter {
   FleetFiles fleet_files(const std::vector<analytics::UnitAssessment>& units, const analytics::FleetRanking& ranking,
                          const std::vector<analytics::SiteView>& sites, analytics::Day as_of,
                          const std::filesystem::path& out_dir);
-  // The site view of the unit's site: from site_views_ (the weekly bundle's
-  // fleet assessment) or by assessing the site's units.
+  // The site view of the unit's site, by assessing the site's units.
   std::vector<analytics::SiteView> site_of(const analytics::UnitAssessment& unit, analytics::Day as_of);
+  // The weekly bundle's unit reports, one per assessment (site view applied),
+  // rendered on one thread per core; paths in the order of `units`.
+  std::vector<std::filesystem::path> unit_reports(const std::vector<analytics::UnitAssessment>& units,
+                                                  const std::vector<analytics::SiteView>& sites, analytics::Day as_of,
+                                                  const std::filesystem::path& out_dir);
 
   site::SiteRoot root_;
   config::SiteConfig config_;
   store::Store& store_;
   analytics::AssessmentOptions options_;
   assess::FleetProgress progress_;
-  std::optional<std::vector<analytics::SiteView>> site_views_;  // set while a weekly bundle is built
 };
 
 // UnitData as it stood at the end of `day` (later records dropped).
