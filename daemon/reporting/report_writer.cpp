@@ -211,8 +211,9 @@ std::vector<fs::path> ReportWriter::unit_reports(const std::vector<analytics::Un
     std::size_t shown = 0;
     while (done < n && !failed) {
       changed.wait(lock, [&] { return failed || done > shown; });
-      if (progress_ && done > shown && !failed) {
-        shown = done;
+      if (failed) break;
+      shown = done;
+      if (progress_) {
         lock.unlock();
         progress_("unit reports", shown, n);
         lock.lock();
