@@ -1,5 +1,7 @@
 #include "schema/postgresql/pg_connection.h"
 
+#include <cstring>
+
 #include <algorithm>
 #include <charconv>
 #include <cstdlib>
@@ -30,6 +32,21 @@ double Result::Row::real(int c) const {
   const char* v = PQgetvalue(r_, row_, c);
   double d = 0;
   std::from_chars(v, v + PQgetlength(r_, row_, c), d);
+  return d;
+}
+
+std::int64_t Result::Row::be_i64(int c) const {
+  if (PQgetlength(r_, row_, c) != 8) throw StoreError("database error: a binary column is not 8 bytes wide");
+  const auto* b = reinterpret_cast<const unsigned char*>(PQgetvalue(r_, row_, c));
+  std::uint64_t v = 0;
+  for (int i = 0; i < 8; ++i) v = (v << 8) | b[i];
+  return static_cast<std::int64_t>(v);
+}
+
+double Result::Row::be_f64(int c) const {
+  const std::int64_t bits = be_i64(c);
+  double d;
+  std::memcpy(&d, &bits, sizeof d);
   return d;
 }
 
@@ -87,15 +104,27 @@ void Connection::exec(const std::string& sql) { check(PQexec(conn_, sql.c_str())
 
 Result Connection::query(const std::string& sql) { return check(PQexec(conn_, sql.c_str()), sql.substr(0, 80)); }
 
-Result Connection::run(const char* sql, const Params& params) {
+Result Connection::run(const char* sql, const Params& params, bool binary_results) {
   auto it = prepared_.find(sql);
-  if (it == prepared_.end()) {
-    const std::string name = "f" + std::to_string(prepared_.size() + 1);
-    check(PQprepare(conn_, name.c_str(), sql, 0, nullptr), std::string("prepare ") + sql);
-    it = prepared_.emplace(sql, name).first;
+  const bool fresh = it == prepared_.end();
+  if (fresh) it = prepared_.emplace(sql, Prepared{}).first;
+  Prepared& p = it->second;
+  if (fresh || ++p.runs == p.replan_at) {
+    try {
+      if (!fresh) {
+        exec("DEALLOCATE " + p.name);
+        p.replan_at *= 4;
+      }
+      p.name = "f" + std::to_string(++statements_named_);
+      check(PQprepare(conn_, p.name.c_str(), sql, 0, nullptr), std::string("prepare ") + sql);
+    } catch (...) {
+      prepared_.erase(it);  // prepared afresh on the next run
+      throw;
+    }
   }
   const auto values = params.pointers();
-  return check(PQexecPrepared(conn_, it->second.c_str(), params.size(), values.data(), nullptr, nullptr, 0),
+  return check(PQexecPrepared(conn_, p.name.c_str(), params.size(), values.data(), nullptr, nullptr,
+                              binary_results ? 1 : 0),
                std::string(sql).substr(0, 80));
 }
 

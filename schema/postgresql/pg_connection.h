@@ -83,6 +83,12 @@ class Result {
     double real(int c) const;
     double real_or_nan(int c) const { return is_null(c) ? std::nan("") : real(c); }
     std::optional<double> opt_real(int c) const { return is_null(c) ? std::nullopt : std::optional<double>(real(c)); }
+    // Binary results (PostgreSQL documentation, "Binary Format" of bigint and
+    // double precision: 8 bytes in network order). Throw StoreError when the
+    // column is not 8 bytes wide.
+    std::int64_t be_i64(int c) const;
+    double be_f64(int c) const;
+    double be_f64_or_nan(int c) const { return is_null(c) ? std::nan("") : be_f64(c); }
     std::string text(int c) const {
       return std::string(PQgetvalue(r_, row_, c), static_cast<std::size_t>(PQgetlength(r_, row_, c)));
     }
@@ -114,8 +120,10 @@ class Connection {
 
   void exec(const std::string& sql);  // no parameters, no result
   Result query(const std::string& sql);  // no parameters
-  // A statement with parameters, prepared once per session.
-  Result run(const char* sql, const Params& params);
+  // A statement with parameters, prepared once per session. With
+  // binary_results the columns come in PostgreSQL's binary format (read them
+  // with Result::Row::be_i64 / be_f64).
+  Result run(const char* sql, const Params& params, bool binary_results = false);
   // COPY ... FROM STDIN with the text format; `data` is its whole input.
   // COPY ... FROM STDIN of `data` (text format). With unique_violation_ok, a
   // duplicate key (SQLSTATE 23505) returns false, and the caller rolls back
@@ -129,7 +137,19 @@ class Connection {
   Result check(PGresult* r, const std::string& what);
   std::string conninfo_;
   PGconn* conn_ = nullptr;
-  std::map<const char*, std::string> prepared_;  // SQL text -> statement name
+  // A prepared statement keeps the plan it got when prepared. One prepared
+  // while a table was nearly empty keeps scanning the whole table as the
+  // file fills it (a sequential scan per row: an oil file of 400,000
+  // samples never finished, bench/results.md). So each statement is prepared
+  // again after 1,024 runs, then after 4 times as many each time, and the
+  // server plans it for the table as it now is.
+  struct Prepared {
+    std::string name;
+    std::uint64_t runs = 0;
+    std::uint64_t replan_at = 1024;
+  };
+  std::map<const char*, Prepared> prepared_;  // SQL text -> statement
+  std::uint64_t statements_named_ = 0;
 };
 
 }  // namespace ferrum::store::pg

@@ -12,6 +12,7 @@
 //    so that a rolled-back file does not take the partition with it;
 //  * files and daemon_state rows carry the root that wrote them.
 #include <algorithm>
+#include <charconv>
 #include <cmath>
 #include <cstring>
 #include <memory>
@@ -238,23 +239,41 @@ class PgStore final : public Store {
                            int line) override {
     write_queued_load();
     const std::int64_t key = unit_key(unit_id);
-    auto r = db_.run("INSERT INTO oil_samples(unit_key, sample_day, lab_ref, sample_point, breakdown_method,"
-                     " file_id, line) VALUES($1,$2,$3,$4,$5,$6,$7) RETURNING id",
-                     Params().add(key).add(o.date).add(o.lab_ref).add(o.sample_point).add(o.breakdown_method)
-                         .add(file_id).add(line));
-    const std::int64_t id = r.row(0).i64(0);
-    // A corrected re-issue supersedes the earlier sample (as in SQLite).
-    const RowInsert outcome = replaced_rows(
-        db_.run("UPDATE oil_samples SET superseded_by=$1 WHERE unit_key=$2 AND sample_day=$3 AND lab_ref=$4"
-                " AND sample_point=$5 AND id<>$1 AND superseded_by IS NULL RETURNING file_id",
-                Params().add(id).add(key).add(o.date).add(o.lab_ref).add(o.sample_point)),
-        file_id);
+    // One statement, one round trip: the sample, its values (arrays through
+    // unnest) and the supersession of an earlier issue. The UPDATE runs on the
+    // statement's snapshot, which does not hold the new sample, so it marks
+    // earlier samples only (PostgreSQL documentation, "WITH Queries",
+    // "Data-Modifying Statements in WITH"). Row by row, a 5,000-unit fleet's
+    // oil file took minutes of round trips (bench/results.md).
+    std::string tests = "{", states = "{", values = "{";
     for (const auto& f : kOilFields) {
       const LabValue& v = o.*(f.member);
       if (!v.present()) continue;
-      db_.run("INSERT INTO oil_values(sample_id, test, state, value) VALUES($1,$2,$3,$4)",
-              Params().add(id).add(f.test).add(v.is_measured() ? 1 : 2).add(v.value));
+      if (tests.size() > 1) tests += ',', states += ',', values += ',';
+      tests += '"' + std::string(f.test) + '"';
+      states += v.is_measured() ? '1' : '2';
+      if (std::isnan(v.value)) {
+        values += "NULL";
+      } else {
+        char buf[32];
+        const auto end = std::to_chars(buf, buf + sizeof buf, v.value).ptr;  // reads back the same double
+        values.append(buf, end);
+      }
     }
+    tests += '}', states += '}', values += '}';
+    auto r = db_.run(
+        "WITH s AS (INSERT INTO oil_samples(unit_key, sample_day, lab_ref, sample_point, breakdown_method, file_id, line)"
+        "   VALUES($1,$2,$3,$4,$5,$6,$7) RETURNING id),"
+        " v AS (INSERT INTO oil_values(sample_id, test, state, value)"
+        "   SELECT s.id, x.test, x.state, x.value FROM s,"
+        "   unnest($8::text[], $9::integer[], $10::double precision[]) AS x(test, state, value)),"
+        " u AS (UPDATE oil_samples SET superseded_by=(SELECT id FROM s) WHERE unit_key=$1 AND sample_day=$2"
+        "   AND lab_ref=$3 AND sample_point=$4 AND superseded_by IS NULL RETURNING file_id)"
+        " SELECT file_id FROM u",
+        Params().add(key).add(o.date).add(o.lab_ref).add(o.sample_point).add(o.breakdown_method).add(file_id)
+            .add(line).add(tests).add(states).add(values));
+    // A corrected re-issue supersedes the earlier sample (as in SQLite).
+    const RowInsert outcome = replaced_rows(r, file_id);
     return outcome;
   }
 
@@ -306,68 +325,70 @@ class PgStore final : public Store {
                          int line) override {
     write_queued_load();
     const std::int64_t key = unit_key(unit_id);
-    const RowInsert outcome = replaced_rows(
-        db_.run("DELETE FROM infrared_scans WHERE unit_key=$1 AND survey_day=$2 AND component=$3 RETURNING file_id",
-                Params().add(key).add(r.date).add(r.component)),
+    // The earlier row of the same key goes and the new one comes in one
+    // statement (one round trip): the DELETE does not see the new row, both
+    // running on the statement's snapshot.
+    return replaced_rows(
+        db_.run("WITH d AS (DELETE FROM infrared_scans WHERE unit_key=$1 AND survey_day=$2 AND component=$3"
+                "   RETURNING file_id),"
+                " i AS (INSERT INTO infrared_scans(unit_key, survey_day, component, spot_c, reference_c, ambient_c,"
+                "   load_pct, emissivity, image_ref, note, file_id, line)"
+                "   VALUES($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12))"
+                " SELECT file_id FROM d",
+                Params().add(key).add(r.date).add(r.component).add(r.spot_c).add(r.reference_c).add(r.ambient_c)
+                    .add(r.load_pct).add(r.emissivity).text_or_null(r.image_ref).text_or_null(r.note).add(file_id)
+                    .add(line)),
         file_id);
-    db_.run("INSERT INTO infrared_scans(unit_key, survey_day, component, spot_c, reference_c, ambient_c,"
-            " load_pct, emissivity, image_ref, note, file_id, line) VALUES($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12)",
-            Params().add(key).add(r.date).add(r.component).add(r.spot_c).add(r.reference_c).add(r.ambient_c)
-                .add(r.load_pct).add(r.emissivity).text_or_null(r.image_ref).text_or_null(r.note).add(file_id)
-                .add(line));
-    return outcome;
   }
 
   RowInsert add_work_status(const std::string& unit_id, const analytics::WorkStatus& w, std::int64_t file_id,
                             int line) override {
     write_queued_load();
     const std::int64_t key = unit_key(unit_id);
-    const RowInsert outcome = replaced_rows(
-        db_.run("DELETE FROM work_status WHERE unit_key=$1 AND reference=$2 AND status_day=$3 AND status=$4"
-                " RETURNING file_id",
-                Params().add(key).add(w.reference).add(w.date).add(w.status)),
+    return replaced_rows(  // one statement, as add_infrared
+        db_.run("WITH d AS (DELETE FROM work_status WHERE unit_key=$1 AND reference=$2 AND status_day=$4"
+                "   AND status=$3 RETURNING file_id),"
+                " i AS (INSERT INTO work_status(unit_key, reference, status, status_day, note, file_id, line)"
+                "   VALUES($1,$2,$3,$4,$5,$6,$7))"
+                " SELECT file_id FROM d",
+                Params().add(key).add(w.reference).add(w.status).add(w.date).text_or_null(w.note).add(file_id)
+                    .add(line)),
         file_id);
-    db_.run("INSERT INTO work_status(unit_key, reference, status, status_day, note, file_id, line)"
-            " VALUES($1,$2,$3,$4,$5,$6,$7)",
-            Params().add(key).add(w.reference).add(w.status).add(w.date).text_or_null(w.note).add(file_id).add(line));
-    return outcome;
   }
 
   RowInsert add_inspection(const std::string& unit_id, const analytics::InspectionRecord& r, std::int64_t file_id,
                            int line) override {
     write_queued_load();
     const std::int64_t key = unit_key(unit_id);
-    const RowInsert outcome = replaced_rows(
-        db_.run("DELETE FROM inspections WHERE unit_key=$1 AND inspection_day=$2 AND item=$3 RETURNING file_id",
-                Params().add(key).add(r.date).add(r.item)),
+    return replaced_rows(  // one statement, as add_infrared
+        db_.run("WITH d AS (DELETE FROM inspections WHERE unit_key=$1 AND inspection_day=$2 AND item=$3"
+                "   RETURNING file_id),"
+                " i AS (INSERT INTO inspections(unit_key, inspection_day, item, rating, note, inspector, file_id, line)"
+                "   VALUES($1,$2,$3,$4,$5,$6,$7,$8))"
+                " SELECT file_id FROM d",
+                Params().add(key).add(r.date).add(r.item).add(analytics::to_string(r.rating)).text_or_null(r.note)
+                    .text_or_null(r.inspector).add(file_id).add(line)),
         file_id);
-    db_.run("INSERT INTO inspections(unit_key, inspection_day, item, rating, note, inspector, file_id, line)"
-            " VALUES($1,$2,$3,$4,$5,$6,$7,$8)",
-            Params().add(key).add(r.date).add(r.item).add(analytics::to_string(r.rating)).text_or_null(r.note)
-                .text_or_null(r.inspector).add(file_id).add(line));
-    return outcome;
   }
 
   RowInsert add_electrical_test(const std::string& unit_id, const analytics::ElectricalTest& t,
                                 std::int64_t file_id, int line) override {
     write_queued_load();
     const std::int64_t key = unit_key(unit_id);
-    const RowInsert outcome = replaced_rows(
-        db_.run("DELETE FROM electrical_tests WHERE unit_key=$1 AND test_day=$2 AND test=$3 AND phase=$4"
-                " AND tap IS NOT DISTINCT FROM $5::integer AND winding=$6 AND insulation=$7 AND bushing=$8"
-                " AND minutes IS NOT DISTINCT FROM $9::integer AND test_kv IS NOT DISTINCT FROM $10::double precision"
-                " RETURNING file_id",
+    return replaced_rows(  // one statement, as add_infrared
+        db_.run("WITH d AS (DELETE FROM electrical_tests WHERE unit_key=$1 AND test_day=$2 AND test=$3 AND phase=$4"
+                "   AND tap IS NOT DISTINCT FROM $5::integer AND winding=$6 AND insulation=$8 AND bushing=$10"
+                "   AND minutes IS NOT DISTINCT FROM $11::integer AND test_kv IS NOT DISTINCT FROM $9::double precision"
+                "   RETURNING file_id),"
+                " i AS (INSERT INTO electrical_tests(unit_key, test_day, test, phase, tap, winding, temp_c, insulation,"
+                "   test_kv, bushing, minutes, value, capacitance_pf, nameplate_value, note, crew, file_id, line)"
+                "   VALUES($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12,$13,$14,$15,$16,$17,$18))"
+                " SELECT file_id FROM d",
                 Params().add(key).add(t.date).add(analytics::to_string(t.test)).add(t.phase).add(t.tap).add(t.winding)
-                    .add(t.insulation).add(t.bushing).add(t.minutes).add(t.test_kv)),
+                    .add(t.temp_c).add(t.insulation).add(t.test_kv).add(t.bushing).add(t.minutes).add(t.value)
+                    .add(t.capacitance_pf).add(t.nameplate_value).text_or_null(t.note).text_or_null(t.crew)
+                    .add(file_id).add(line)),
         file_id);
-    db_.run("INSERT INTO electrical_tests(unit_key, test_day, test, phase, tap, winding, temp_c, insulation,"
-            " test_kv, bushing, minutes, value, capacitance_pf, nameplate_value, note, crew, file_id, line)"
-            " VALUES($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12,$13,$14,$15,$16,$17,$18)",
-            Params().add(key).add(t.date).add(analytics::to_string(t.test)).add(t.phase).add(t.tap).add(t.winding)
-                .add(t.temp_c).add(t.insulation).add(t.test_kv).add(t.bushing).add(t.minutes).add(t.value)
-                .add(t.capacitance_pf).add(t.nameplate_value).text_or_null(t.note).text_or_null(t.crew)
-                .add(file_id).add(line));
-    return outcome;
   }
 
   void add_conversion(std::int64_t file_id, const std::string& column, const std::string& original_unit,
@@ -459,11 +480,16 @@ class PgStore final : public Store {
     write_queued_load();
     std::vector<analytics::LoadPoint> out;
     if (!find_unit(unit_id)) return out;
+    // Binary results: a unit's year of points is tens of thousands of
+    // doubles, which the server would print as text and ferrum parse back.
     auto r = db_.run("SELECT ts, load_pu, ambient_c, top_oil_c FROM load_points WHERE unit_key=$1"
                      " AND ts BETWEEN $2 AND $3 ORDER BY ts",
-                     Params().add(unit_key(std::string(unit_id))).add(from).add(to));
+                     Params().add(unit_key(std::string(unit_id))).add(from).add(to), true);
     out.reserve(static_cast<std::size_t>(r.rows()));
-    for (int i = 0; i < r.rows(); ++i) out.push_back(read_load_point_row(r.row(i)));
+    for (int i = 0; i < r.rows(); ++i) {
+      const auto row = r.row(i);
+      out.push_back({row.be_i64(0), row.be_f64(1), row.be_f64_or_nan(2), row.be_f64_or_nan(3)});
+    }
     return out;
   }
 

@@ -117,6 +117,41 @@ TEST_P(StoreTest, OilSampleSupersededByCorrectedReissue) {
   EXPECT_EQ(s->count_rows("oil_samples"), 2);  // the earlier values stay as history
 }
 
+// Every lab value comes back as the same double, whatever its digits; a
+// value below the detection limit keeps its state, with or without a limit.
+// (PostgreSQL sends them as one array per sample.) Plumbing: no published
+// source applies.
+TEST_P(StoreTest, OilValuesComeBackExactly) {
+  auto s = open_store();
+  const auto f = file(*s);
+  s->upsert_unit(unit("T1"), f, 2);
+  analytics::OilSample o;
+  o.date = analytics::days_from_civil(2026, 3, 14);
+  o.lab_ref = "L-9";
+  o.h2 = analytics::LabValue::measured(0.1 + 0.2);
+  o.ch4 = analytics::LabValue::measured(1e-300);
+  o.co2 = analytics::LabValue::measured(123456789.123456789);
+  o.c2h2 = analytics::LabValue::below(std::nan(""));
+  o.c2h4 = analytics::LabValue::below(0.7);
+  EXPECT_EQ(s->add_oil_sample("T1", o, f, 2), store::RowInsert::added);
+  analytics::OilSample empty;  // a sample without values is kept too
+  empty.date = o.date + 1;
+  EXPECT_EQ(s->add_oil_sample("T1", empty, f, 3), store::RowInsert::added);
+  const auto d = s->unit_data("T1");
+  ASSERT_EQ(d.oil_samples.size(), 2u);
+  const auto& b = d.oil_samples[0];
+  EXPECT_EQ(b.h2.value, 0.1 + 0.2);
+  EXPECT_TRUE(b.h2.is_measured());
+  EXPECT_EQ(b.ch4.value, 1e-300);
+  EXPECT_EQ(b.co2.value, 123456789.123456789);
+  EXPECT_TRUE(b.c2h2.is_below_limit());
+  EXPECT_TRUE(std::isnan(b.c2h2.value));
+  EXPECT_TRUE(b.c2h4.is_below_limit());
+  EXPECT_EQ(b.c2h4.value, 0.7);
+  EXPECT_FALSE(b.c2h6.present());
+  EXPECT_FALSE(d.oil_samples[1].h2.present());
+}
+
 TEST_P(StoreTest, LoadDuplicatesDetectedWithinFileReplacedAcrossFiles) {
   auto s = open_store();
   const auto f1 = file(*s, "a");
