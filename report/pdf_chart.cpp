@@ -143,11 +143,29 @@ void draw_line_chart(HPDF_Page page, const PdfDocument& doc, const Box& box, con
       pts.push_back(px && py ? std::optional<Point>(Point{*px, *py}) : std::nullopt);
     }
     if (s.draw_line) {
+      // One path per run of segments that join (a gap or a clipped end
+      // starts the next): a year of points is then a few kilobytes of page
+      // content, not one stroked path per segment.
+      std::vector<std::pair<double, double>> run;
+      const auto flush = [&] {
+        draw_polyline(page, run, s.color, s.line_width, s.dash);
+        run.clear();
+      };
       for (size_t i = 1; i < pts.size(); ++i) {
-        if (!pts[i - 1] || !pts[i]) continue;
-        if (const auto seg = clip_segment(*pts[i - 1], *pts[i], plot))
-          draw_line(page, seg->a.x, seg->a.y, seg->b.x, seg->b.y, s.color, s.line_width, s.dash);
+        const auto seg = pts[i - 1] && pts[i] ? clip_segment(*pts[i - 1], *pts[i], plot) : std::nullopt;
+        if (!seg) {
+          flush();
+          continue;
+        }
+        const bool joins = !run.empty() && std::abs(run.back().first - seg->a.x) < 1e-6 &&
+                           std::abs(run.back().second - seg->a.y) < 1e-6;
+        if (!joins) {
+          flush();
+          run.emplace_back(seg->a.x, seg->a.y);
+        }
+        run.emplace_back(seg->b.x, seg->b.y);
       }
+      flush();
     }
     for (const auto& p : pts)
       if (p && plot.contains(*p)) draw_marker(page, s.marker, p->x, p->y, 3.6, s.color);

@@ -63,6 +63,20 @@ void draw_line(HPDF_Page page, double x0, double y0, double x1, double y1, Color
   if (dash != Dash::solid) set_dash(page, Dash::solid);
 }
 
+void draw_polyline(HPDF_Page page, const std::vector<std::pair<double, double>>& points, Color color,
+                   double width, Dash dash) {
+  if (points.size() < 2) return;
+  set_stroke(page, color);
+  set_dash(page, dash);
+  HPDF_Page_SetLineWidth(page, r(width));
+  HPDF_Page_SetLineJoin(page, HPDF_ROUND_JOIN);  // a miter join spikes at a sharp turn of a dense series
+  HPDF_Page_MoveTo(page, r(points[0].first), r(points[0].second));
+  for (std::size_t i = 1; i < points.size(); ++i) HPDF_Page_LineTo(page, r(points[i].first), r(points[i].second));
+  HPDF_Page_Stroke(page);
+  HPDF_Page_SetLineJoin(page, HPDF_MITER_JOIN);
+  if (dash != Dash::solid) set_dash(page, Dash::solid);
+}
+
 void fill_rect(HPDF_Page page, double x, double y, double w, double h, Color color) {
   set_fill(page, color);
   HPDF_Page_Rectangle(page, r(x), r(y), r(w), r(h));

@@ -8,6 +8,7 @@
 
 #include <string>
 #include <string_view>
+#include <utility>
 #include <vector>
 
 namespace ferrum::report {
@@ -52,6 +53,10 @@ void draw_text(HPDF_Page page, FontRef font, double size, double x, double y, st
 
 void draw_line(HPDF_Page page, double x0, double y0, double x1, double y1, Color color,
                double width = 0.5, Dash dash = Dash::solid);
+// One stroked path through `points` (at least two), with round joins: a
+// chart's series is one path per unbroken run, not a path per segment.
+void draw_polyline(HPDF_Page page, const std::vector<std::pair<double, double>>& points, Color color,
+                   double width = 0.5, Dash dash = Dash::solid);
 void fill_rect(HPDF_Page page, double x, double y, double w, double h, Color color);
 void stroke_rect(HPDF_Page page, double x, double y, double w, double h, Color color, double width = 0.5);
 
