@@ -152,6 +152,33 @@ TEST_P(StoreTest, OilValuesComeBackExactly) {
   EXPECT_FALSE(d.oil_samples[1].h2.present());
 }
 
+// PostgreSQL prepares a statement again after 1,024 runs and after 4 times
+// as many each time (pg_connection.h): rows written across those points all
+// land, and a re-issue is still told from a new row. Plumbing: no published
+// source applies.
+TEST_P(StoreTest, RowsWrittenAcrossStatementReplansAllLand) {
+  auto s = open_store();
+  const auto f1 = file(*s, "a");
+  const auto f2 = file(*s, "b");
+  s->upsert_unit(unit("T1"), f1, 2);
+  constexpr int kRows = 4200;  // past the second re-preparation (1,024 and 4,096 runs)
+  for (int i = 0; i < kRows; ++i) {
+    analytics::InspectionRecord r;
+    r.date = analytics::days_from_civil(2015, 1, 1) + i;
+    r.item = "bushings";
+    ASSERT_EQ(s->add_inspection("T1", r, f1, i + 2), store::RowInsert::added) << i;
+  }
+  analytics::InspectionRecord again;
+  again.date = analytics::days_from_civil(2015, 1, 1) + 7;
+  again.item = "bushings";
+  again.rating = analytics::Rating::poor;
+  EXPECT_EQ(s->add_inspection("T1", again, f2, 2), store::RowInsert::replaced_earlier_file);
+  EXPECT_EQ(s->add_inspection("T1", again, f2, 3), store::RowInsert::duplicate_in_file);
+  const auto d = s->unit_data("T1");
+  ASSERT_EQ(d.inspections.size(), static_cast<std::size_t>(kRows));
+  EXPECT_EQ(d.inspections[7].rating, analytics::Rating::poor);
+}
+
 TEST_P(StoreTest, LoadDuplicatesDetectedWithinFileReplacedAcrossFiles) {
   auto s = open_store();
   const auto f1 = file(*s, "a");
