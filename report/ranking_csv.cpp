@@ -61,7 +61,9 @@ std::string fleet_ranking_csv(const analytics::FleetRanking& ranking) {
   }
   // The caution as a final comment line (spreadsheets show it; CSV readers
   // told to skip comments ignore it).
-  return csv + csv_caution_line() + "\n";
+  csv += csv_caution_line();  // appended: at 5,000 units a copy of the text was 15 MB
+  csv += '\n';
+  return csv;
 }
 
 }  // namespace ferrum::report

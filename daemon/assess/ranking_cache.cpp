@@ -165,18 +165,35 @@ std::string ranking_cache_key(const site::SiteRoot& root, store::Store& store, a
   return Poco::DigestEngine::digestToHex(engine.digest());
 }
 
+// The file is one JSON document written one unit per line:
+//   {"key":"...","units":[
+//   {...unit...},
+//   {...unit...}
+//   ]}
+// so that neither side holds the whole document as a Poco tree (at 5,000
+// units that tree, not the units, was most of `rank`'s memory). Each unit
+// line is parsed on its own; anything else in the file means "assess afresh".
 std::optional<std::vector<analytics::UnitAssessment>> read_ranking_cache(const site::SiteRoot& root,
                                                                          const std::string& key) {
   try {
     const fs::path p = cache_file(root);
     if (!fs::exists(p)) return std::nullopt;
-    Poco::JSON::Parser parser;
-    const auto doc = parser.parse(file_text(p)).extract<Object::Ptr>();
-    if (doc->getValue<std::string>("key") != key) return std::nullopt;
-    const auto units = doc->getArray("units");
+    std::ifstream in(p);
+    std::string line;
+    if (!std::getline(in, line)) return std::nullopt;
+    {
+      Poco::JSON::Parser parser;
+      const auto head = parser.parse(line + "]}").extract<Object::Ptr>();
+      if (head->getValue<std::string>("key") != key) return std::nullopt;
+    }
     std::vector<analytics::UnitAssessment> out;
-    for (std::size_t i = 0; units && i < units->size(); ++i) out.push_back(unit_from_json(units->getObject(i)));
-    return out;
+    while (std::getline(in, line)) {
+      if (line == "]}") return std::getline(in, line) ? std::nullopt : std::optional(std::move(out));
+      if (!line.empty() && line.back() == ',') line.pop_back();
+      Poco::JSON::Parser parser;
+      out.push_back(unit_from_json(parser.parse(line).extract<Object::Ptr>()));
+    }
+    return std::nullopt;  // cut short
   } catch (const std::exception&) {  // Poco's exceptions too
     return std::nullopt;                // unreadable or of another version: assess afresh
   }
@@ -185,15 +202,22 @@ std::optional<std::vector<analytics::UnitAssessment>> read_ranking_cache(const s
 bool write_ranking_cache(const site::SiteRoot& root, const std::string& key,
                          const std::vector<analytics::UnitAssessment>& units) {
   try {
-    Object::Ptr doc = new Object;
-    doc->set("key", key);
-    Array::Ptr list = new Array;
-    for (const auto& u : units) list->add(unit_to_json(u));
-    doc->set("units", list);
+    Object::Ptr head = new Object;
+    head->set("key", key);
     std::ostringstream text;
-    Poco::JSON::Stringifier::stringify(doc, text, 0);
+    Poco::JSON::Stringifier::stringify(head, text, 0);
+    std::string out = text.str();
+    out.pop_back();  // the head's closing brace: the units follow
+    out += ",\"units\":[\n";
+    for (std::size_t i = 0; i < units.size(); ++i) {
+      std::ostringstream unit;
+      Poco::JSON::Stringifier::stringify(unit_to_json(units[i]), unit, 0);  // one line: no indent
+      out += unit.str();
+      out += i + 1 < units.size() ? ",\n" : "\n";
+    }
+    out += "]}\n";
     fs::create_directories(cache_file(root).parent_path());
-    site::write_file_atomically(cache_file(root), text.str());
+    site::write_file_atomically(cache_file(root), out);
     return true;
   } catch (const std::exception&) {
     return false;
