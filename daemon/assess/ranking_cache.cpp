@@ -166,7 +166,7 @@ std::string ranking_cache_key(const site::SiteRoot& root, store::Store& store, a
 }
 
 // The file is one JSON document written one unit per line:
-//   {"key":"...","units":[
+//   {"key":"...","count":N,"units":[
 //   {...unit...},
 //   {...unit...}
 //   ]}
@@ -180,15 +180,21 @@ std::optional<std::vector<analytics::UnitAssessment>> read_ranking_cache(const s
     if (!fs::exists(p)) return std::nullopt;
     std::ifstream in(p);
     std::string line;
+    std::size_t count = 0;
     if (!std::getline(in, line)) return std::nullopt;
     {
       Poco::JSON::Parser parser;
       const auto head = parser.parse(line + "]}").extract<Object::Ptr>();
       if (head->getValue<std::string>("key") != key) return std::nullopt;
+      count = head->getValue<std::size_t>("count");
     }
     std::vector<analytics::UnitAssessment> out;
+    out.reserve(count);
     while (std::getline(in, line)) {
-      if (line == "]}") return std::getline(in, line) ? std::nullopt : std::optional(std::move(out));
+      if (line == "]}") {  // complete: nothing after it, and every unit the head announced
+        if (std::getline(in, line) || out.size() != count) return std::nullopt;
+        return out;
+      }
       if (!line.empty() && line.back() == ',') line.pop_back();
       Poco::JSON::Parser parser;
       out.push_back(unit_from_json(parser.parse(line).extract<Object::Ptr>()));
@@ -204,6 +210,7 @@ bool write_ranking_cache(const site::SiteRoot& root, const std::string& key,
   try {
     Object::Ptr head = new Object;
     head->set("key", key);
+    head->set("count", units.size());  // a file cut at a line's end is not taken for a smaller fleet
     std::ostringstream text;
     Poco::JSON::Stringifier::stringify(head, text, 0);
     std::string out = text.str();

@@ -66,6 +66,21 @@ class RankCache(SiteTestCase):
             with open(self.cache(), "w") as f:
                 f.write(content)
             self.assertEqual(self.rank(), fresh)
+        # A good cache cut short, at a line's end or inside a line, or with a
+        # unit line missing, is not read as a smaller fleet (one unit a line).
+        self.rank("--fresh")
+        with open(self.cache()) as f:
+            lines = f.read().split("\n")
+        self.assertEqual(lines[-2:], ["]}", ""])
+        units = [line for line in lines[1:] if line.startswith('{"')]  # after the head line
+        self.assertEqual(len(units), 2, lines)
+        for cut in ["\n".join(lines[:-2]) + "\n",                    # no closing line
+                    "\n".join(lines[:-3]) + "\n]}\n",               # the last unit gone
+                    "\n".join(lines)[:-40],                          # inside the last unit
+                    "\n".join(lines) + "{}\n"]:                      # something after the end
+            with open(self.cache(), "w") as f:
+                f.write(cut)
+            self.assertEqual(self.rank(), fresh)
 
 
 if __name__ == "__main__":
