@@ -7,11 +7,11 @@
 #include <algorithm>
 #include <chrono>
 #include <condition_variable>
+#include <cstdio>
 #include <exception>
+#include <fstream>
 #include <mutex>
 #include <thread>
-#include <cstdio>
-#include <fstream>
 
 #include "daemon/assess/assessment_service.h"
 #include "daemon/assess/plan_service.h"

@@ -1,10 +1,9 @@
 #include "schema/postgresql/pg_connection.h"
 
-#include <cstring>
-
 #include <algorithm>
 #include <charconv>
 #include <cstdlib>
+#include <cstring>
 
 namespace ferrum::store::pg {
 
