@@ -120,6 +120,7 @@ FleetRanking rank_fleet(const std::vector<UnitAssessment>& units, Day as_of, con
   out.as_of = as_of;
   int this_year = civil_from_days(as_of).year;
   std::vector<RankedUnit> ranked, unranked;
+  ranked.reserve(units.size());  // most units are ranked; doubling would hold up to twice the fleet
   for (const auto& a : units) {
     RankedUnit r = row_of(o, a);
     (r.insufficient_data ? unranked : ranked).push_back(std::move(r));

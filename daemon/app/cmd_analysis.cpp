@@ -76,7 +76,7 @@ int cmd_assess(const Invocation& inv) {
     for (const auto& u : site->store->units()) ids.push_back(u.unit_id);
   // The key before the first read: an import meanwhile changes it (ranking_cache.h).
   const std::string cache_key = whole_fleet ? assess::ranking_cache_key(site->root, *site->store, as_of) : "";
-  std::vector<analytics::UnitAssessment> ranking_inputs;
+  std::vector<analytics::UnitAssessment> ranking_inputs;  // reserved below, once the ids are known
   if (!whole_fleet)  // named units must exist; the register's own list needs no check
     for (const auto& id : ids)
       if (!site->store->find_unit(id)) throw std::runtime_error("unit " + id + " is not in the register");
@@ -92,6 +92,7 @@ int cmd_assess(const Invocation& inv) {
       if (!printed.count(id) && std::any_of(ids.begin(), ids.end(), [&](auto& x) { return site_of[x] == s; }))
         ids.push_back(id);
   for (const auto& id : ids) ++site_left[site_of[id]];
+  if (whole_fleet) ranking_inputs.reserve(ids.size());
   std::map<std::string, std::vector<analytics::UnitAssessment>> site_units;  // ranking fields, until complete
   std::map<std::string, analytics::SiteView> site_views;
   std::deque<analytics::UnitAssessment> waiting;  // printed units whose site is not complete yet

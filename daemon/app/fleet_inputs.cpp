@@ -16,6 +16,7 @@ std::vector<analytics::UnitAssessment> fleet_ranking_inputs(const Invocation& in
   // the cache would have given.
   ProgressDisplay progress("assessing", "units", inv.has("quiet"));
   std::vector<analytics::UnitAssessment> inputs;
+  inputs.reserve(site.store->units().size());  // grown by doubling, the vector held up to twice the fleet
   assess::for_each_fleet_assessment(
       *site.store, as_of, assess::options_from_config(site.config, &site.root),
       [&](analytics::UnitAssessment&& a) { inputs.push_back(analytics::ranking_fields(a)); },
