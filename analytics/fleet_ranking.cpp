@@ -47,13 +47,23 @@ void assign_ranks(std::vector<RankedUnit>& rows, double tol) {
     // Risks equal within the tolerance but not to the bit: still by unit_id.
     std::sort(rows.begin() + i, rows.begin() + j,
               [](const RankedUnit& x, const RankedUnit& y) { return x.unit_id < y.unit_id; });
+    // A few tied units are named; a large group is counted instead: every
+    // unit naming all the others made the notes grow with the square of the
+    // group (a 20,000-unit fleet's ranking held 384 MB of them,
+    // bench/results.md), and a list of hundreds of ids helps no reader.
+    constexpr std::size_t kNamedTies = 5;
+    const std::size_t others_n = j - i - 1;
     for (std::size_t k = i; k < j; ++k) {
       rows[k].rank = static_cast<int>(i) + 1;
-      if (j - i < 2) continue;
+      if (others_n == 0) continue;
       rows[k].tied = true;
       std::string others;
-      for (std::size_t m = i; m < j; ++m)
-        if (m != k) others += (others.empty() ? "" : ", ") + rows[m].unit_id;
+      if (others_n <= kNamedTies) {
+        for (std::size_t m = i; m < j; ++m)
+          if (m != k) others += (others.empty() ? "" : ", ") + rows[m].unit_id;
+      } else {
+        others = std::to_string(others_n) + " other units, all ranked " + std::to_string(i + 1);
+      }
       rows[k].note = "equal risk with " + others + "; tied units ordered by unit_id";
     }
     i = j;

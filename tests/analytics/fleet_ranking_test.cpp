@@ -52,6 +52,31 @@ TEST(FleetRanking, ConsequenceWeights) {
 
 // Small fleet: A failing (replace now), B and C identical (tie, listed B then
 // C whatever the input order), D sound, E and F without an index (last, by id).
+// A large tie group is counted, not listed: each note stays short whatever
+// the group's size, and still says how many share the rank. Up to five
+// others are named. Plumbing of the note's wording: no published source.
+TEST(FleetRanking, LargeTieGroupsAreCountedNotListed) {
+  std::vector<fa::UnitAssessment> fleet;
+  for (int n = 0; n < 40; ++n) fleet.push_back(unit(("T" + std::to_string(100 + n)).c_str(), 60, 3, 40));
+  for (int n = 0; n < 6; ++n) fleet.push_back(unit(("S" + std::to_string(n)).c_str(), 30, 3, 40));  // five others each
+  for (auto& a : fleet) fa::finalize_actions(a);
+  const auto r = fa::rank_fleet(fleet, fleet[0].as_of, fa::RankingOptions{});
+  ASSERT_EQ(r.units.size(), 46u);
+  for (const auto& u : r.units) {
+    ASSERT_TRUE(u.tied) << u.unit_id;
+    if (u.unit_id[0] == 'S') {
+      EXPECT_EQ(u.rank, 1);
+      for (int n = 0; n < 6; ++n) {
+        const std::string other = "S" + std::to_string(n);
+        EXPECT_EQ(u.note.find(other) != std::string::npos, other != u.unit_id) << u.note;
+      }
+    } else {
+      EXPECT_EQ(u.rank, 7);
+      EXPECT_EQ(u.note, "equal risk with 39 other units, all ranked 7; tied units ordered by unit_id");
+    }
+  }
+}
+
 TEST(FleetRanking, OrderTiesAndInsufficientData) {
   std::vector<fa::UnitAssessment> fleet{unit("F", std::nullopt, 5, 10), unit("C", 60, 3, 40),
                                         unit("D", 90, 3, 40),           unit("E", std::nullopt, 1, 5),
