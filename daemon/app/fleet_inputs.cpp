@@ -15,10 +15,11 @@ std::vector<analytics::UnitAssessment> fleet_ranking_inputs(const Invocation& in
   // so peak memory does not grow with the fleet, and the caller gets what
   // the cache would have given.
   ProgressDisplay progress("assessing", "units", inv.has("quiet"));
+  const auto ids = assess::register_unit_ids(*site.store);
   std::vector<analytics::UnitAssessment> inputs;
-  inputs.reserve(site.store->units().size());  // grown by doubling, the vector held up to twice the fleet
+  inputs.reserve(ids.size());  // grown by doubling, the vector held up to twice the fleet
   assess::for_each_fleet_assessment(
-      *site.store, as_of, assess::options_from_config(site.config, &site.root),
+      *site.store, ids, as_of, assess::options_from_config(site.config, &site.root),
       [&](analytics::UnitAssessment&& a) { inputs.push_back(analytics::ranking_fields(a)); },
       [&](const char*, std::size_t done, std::size_t total) {
         progress.update(static_cast<double>(done), static_cast<double>(total));

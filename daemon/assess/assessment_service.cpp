@@ -88,23 +88,24 @@ std::vector<analytics::UnitAssessment> assess_fleet(store::Store& store, analyti
 
 namespace {
 
-// Finished assessments waiting for the caller, by position in the id list.
-class OrderedResults {
+// Which items are finished, for a caller that takes them in order: workers
+// take the next index, run at most `window` ahead of the caller, and mark
+// what they finished; the first exception stops everything.
+class InOrder {
  public:
-  explicit OrderedResults(std::size_t n, std::size_t window) : slots_(n), window_(window) {}
+  InOrder(std::size_t n, std::size_t window) : done_(n, false), window_(window) {}
 
   // A worker's next index, or nothing when all are taken or work stopped.
-  // Waits while the worker would run more than `window` ahead of the caller.
   std::optional<std::size_t> take() {
     std::unique_lock lock(mutex_);
-    changed_.wait(lock, [&] { return failed_ || next_take_ >= slots_.size() || next_take_ < next_emit_ + window_; });
-    if (failed_ || next_take_ >= slots_.size()) return std::nullopt;
+    changed_.wait(lock, [&] { return failed_ || next_take_ >= done_.size() || next_take_ < next_emit_ + window_; });
+    if (failed_ || next_take_ >= done_.size()) return std::nullopt;
     return next_take_++;
   }
-  void put(std::size_t i, analytics::UnitAssessment&& a) {
+  void finished(std::size_t i) {
     {
       std::lock_guard lock(mutex_);
-      slots_[i] = std::move(a);
+      done_[i] = true;
     }
     changed_.notify_all();
   }
@@ -116,29 +117,27 @@ class OrderedResults {
     }
     changed_.notify_all();
   }
-  // The caller's next assessment in order; rethrows a worker's exception.
-  analytics::UnitAssessment next() {
+  // Waits for the caller's next index; rethrows a worker's exception.
+  std::size_t next() {
     std::unique_lock lock(mutex_);
-    changed_.wait(lock, [&] { return failed_ || slots_[next_emit_].has_value(); });
+    changed_.wait(lock, [&] { return failed_ || done_[next_emit_]; });
     if (failed_) std::rethrow_exception(error_);
-    analytics::UnitAssessment a = std::move(*slots_[next_emit_]);
-    slots_[next_emit_++].reset();
-    lock.unlock();
-    changed_.notify_all();
-    return a;
+    return next_emit_;
   }
-  void stop() {
+  // The caller is done with its index: the workers may go one further.
+  void emitted() {
     {
       std::lock_guard lock(mutex_);
-      failed_ = true;
+      ++next_emit_;
     }
     changed_.notify_all();
   }
+  void stop() { fail(nullptr); }
 
  private:
   std::mutex mutex_;
   std::condition_variable changed_;
-  std::vector<std::optional<analytics::UnitAssessment>> slots_;
+  std::vector<bool> done_;
   std::size_t window_;
   std::size_t next_take_ = 0, next_emit_ = 0;
   bool failed_ = false;
@@ -147,39 +146,65 @@ class OrderedResults {
 
 }  // namespace
 
-void assess_units_parallel(const store::Store& database, const std::vector<std::string>& ids, analytics::Day as_of,
-                           const analytics::AssessmentOptions& options, unsigned workers,
-                           const std::function<void(analytics::UnitAssessment&&)>& emit) {
+void run_in_order(const store::Store& database, std::size_t n, unsigned workers,
+                  const std::function<void(store::Store&, std::size_t)>& work,
+                  const std::function<void(std::size_t)>& emit) {
   if (workers == 0) workers = std::max(1u, std::thread::hardware_concurrency());
-  workers = static_cast<unsigned>(std::min<std::size_t>(workers, std::max<std::size_t>(ids.size(), 1)));
+  workers = static_cast<unsigned>(std::min<std::size_t>(workers, std::max<std::size_t>(n, 1)));
   constexpr std::size_t kWindowPerWorker = 16;
-  OrderedResults results(ids.size(), kWindowPerWorker * workers);
+  InOrder order(n, kWindowPerWorker * workers);
   std::vector<std::thread> threads;
   for (unsigned w = 0; w < workers; ++w) {
     threads.emplace_back([&] {
       try {
         auto store = database.open_another();
-        while (auto i = results.take()) results.put(*i, assess_unit(*store, ids[*i], as_of, options));
+        while (auto i = order.take()) {
+          work(*store, *i);
+          order.finished(*i);
+        }
       } catch (...) {
-        results.fail(std::current_exception());
+        order.fail(std::current_exception());
       }
     });
   }
   try {
-    for (std::size_t i = 0; i < ids.size(); ++i) emit(results.next());
+    for (std::size_t i = 0; i < n; ++i) {
+      emit(order.next());
+      order.emitted();
+    }
   } catch (...) {
-    results.stop();
+    order.stop();
     for (auto& t : threads) t.join();
     throw;
   }
   for (auto& t : threads) t.join();
 }
 
-void for_each_fleet_assessment(store::Store& store, analytics::Day as_of, const analytics::AssessmentOptions& options,
-                               const std::function<void(analytics::UnitAssessment&&)>& emit,
-                               const FleetProgress& progress) {
+void assess_units_parallel(const store::Store& database, const std::vector<std::string>& ids, analytics::Day as_of,
+                           const analytics::AssessmentOptions& options, unsigned workers,
+                           const std::function<void(analytics::UnitAssessment&&)>& emit) {
+  // At most a window of finished assessments is held (run_in_order).
+  std::vector<std::optional<analytics::UnitAssessment>> slots(ids.size());
+  run_in_order(
+      database, ids.size(), workers,
+      [&](store::Store& store, std::size_t i) { slots[i] = assess_unit(store, ids[i], as_of, options); },
+      [&](std::size_t i) {
+        analytics::UnitAssessment a = std::move(*slots[i]);
+        slots[i].reset();
+        emit(std::move(a));
+      });
+}
+
+std::vector<std::string> register_unit_ids(store::Store& store) {
   std::vector<std::string> ids;
   for (const auto& u : store.units()) ids.push_back(u.unit_id);
+  return ids;
+}
+
+void for_each_fleet_assessment(store::Store& store, const std::vector<std::string>& ids, analytics::Day as_of,
+                               const analytics::AssessmentOptions& options,
+                               const std::function<void(analytics::UnitAssessment&&)>& emit,
+                               const FleetProgress& progress) {
   std::size_t done = 0;
   assess_units_parallel(store, ids, as_of, options, 0, [&](analytics::UnitAssessment&& a) {
     emit(std::move(a));
@@ -191,8 +216,10 @@ std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store
                                                              analytics::Day as_of,
                                                              const analytics::AssessmentOptions& options,
                                                              const FleetProgress& progress) {
+  const auto ids = register_unit_ids(store);
   std::vector<analytics::UnitAssessment> out;
-  for_each_fleet_assessment(store, as_of, options, [&](analytics::UnitAssessment&& a) { out.push_back(std::move(a)); },
+  out.reserve(ids.size());
+  for_each_fleet_assessment(store, ids, as_of, options, [&](analytics::UnitAssessment&& a) { out.push_back(std::move(a)); },
                             progress);
   return out;
 }

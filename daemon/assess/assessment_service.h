@@ -29,14 +29,20 @@ analytics::UnitAssessment assess_unit(store::Store& store, const std::string& un
 std::vector<analytics::UnitAssessment> assess_fleet(store::Store& store, analytics::Day as_of,
                                                     const analytics::AssessmentOptions& options);
 
-// Assesses `ids` on `workers` threads (0: one per core), each with its own
-// connection to the database of `store` (Store::open_another: a connection
-// serves one thread at a time; SQLite's WAL lets the readers run beside a
-// writer). `emit` gets
-// the assessments in the order of `ids`, on the calling thread, while the
-// workers go on; at most a bounded window of finished assessments waits
-// for it, so memory does not grow with the fleet. A worker's exception stops
-// the others and is rethrown here.
+// Runs work(store, i) for every i in [0, n) on `workers` threads (0: one
+// per core), each with its own connection to the database of `database`
+// (Store::open_another: a connection serves one thread at a time; SQLite's
+// WAL lets the readers run beside a writer), and emit(i) on the calling
+// thread in the order of i while the workers go on. The workers run at most
+// a bounded window ahead of emit, so what they leave for it does not grow
+// with n. A worker's exception stops the others and is rethrown here, as is
+// one from emit.
+void run_in_order(const store::Store& database, std::size_t n, unsigned workers,
+                  const std::function<void(store::Store&, std::size_t)>& work,
+                  const std::function<void(std::size_t)>& emit);
+
+// Assesses `ids` through run_in_order; `emit` gets the assessments in the
+// order of `ids`, on the calling thread.
 void assess_units_parallel(const store::Store& store, const std::vector<std::string>& ids, analytics::Day as_of,
                            const analytics::AssessmentOptions& options, unsigned workers,
                            const std::function<void(analytics::UnitAssessment&&)>& emit);
@@ -45,13 +51,18 @@ void assess_units_parallel(const store::Store& store, const std::vector<std::str
 // reports"), how many of how many are done. Called on the calling thread.
 using FleetProgress = std::function<void(const char* stage, std::size_t done, std::size_t total)>;
 
-// Every unit in the register, in unit_id order, assessed in parallel and
-// handed to `emit` one at a time (memory does not grow with the fleet).
-void for_each_fleet_assessment(store::Store& store, analytics::Day as_of, const analytics::AssessmentOptions& options,
+// The register's unit ids, in unit_id order.
+std::vector<std::string> register_unit_ids(store::Store& store);
+
+// The units `ids` (the whole fleet: register_unit_ids), assessed in parallel
+// and handed to `emit` one at a time (memory does not grow with the fleet),
+// with progress as "assessing".
+void for_each_fleet_assessment(store::Store& store, const std::vector<std::string>& ids, analytics::Day as_of,
+                               const analytics::AssessmentOptions& options,
                                const std::function<void(analytics::UnitAssessment&&)>& emit,
                                const FleetProgress& progress = {});
 
-// The same, kept in a vector.
+// Every unit in the register, in unit_id order, kept in a vector.
 std::vector<analytics::UnitAssessment> assess_fleet_parallel(store::Store& store,
                                                              analytics::Day as_of,
                                                              const analytics::AssessmentOptions& options,

@@ -6,12 +6,8 @@
 
 #include <algorithm>
 #include <chrono>
-#include <condition_variable>
 #include <cstdio>
-#include <exception>
 #include <fstream>
-#include <mutex>
-#include <thread>
 
 #include "daemon/assess/assessment_service.h"
 #include "daemon/assess/plan_service.h"
@@ -157,71 +153,26 @@ fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as
 std::vector<fs::path> ReportWriter::unit_reports(const std::vector<analytics::UnitAssessment>& units,
                                                  const std::vector<analytics::SiteView>& sites, analytics::Day as_of,
                                                  const fs::path& out_dir) {
-  // Each worker reads through its own connection (Store::open_another) and
-  // renders into its own libharu document; the calling thread reports
-  // progress and, at the end, records each unit's report day.
+  // Rendered on every core (assess::run_in_order: each worker reads through
+  // its own connection and renders into its own libharu document); the
+  // calling thread reports progress and, at the end, records each unit's
+  // report day.
   const std::size_t n = units.size();
   std::vector<fs::path> paths(n);
   std::vector<analytics::Day> previous_days(n, as_of);
   const report::ReportOptions ropts = report_options(config_);
-  std::mutex mutex;
-  std::condition_variable changed;
-  std::size_t next = 0, done = 0;
-  bool failed = false;
-  std::exception_ptr error;
-  const unsigned workers =
-      static_cast<unsigned>(std::min<std::size_t>(std::max(1u, std::thread::hardware_concurrency()), std::max<std::size_t>(n, 1)));
-  std::vector<std::thread> threads;
-  for (unsigned w = 0; w < workers; ++w) {
-    threads.emplace_back([&] {
-      try {
-        auto store = store_.open_another();
-        for (;;) {
-          std::size_t i;
-          {
-            std::lock_guard lock(mutex);
-            if (failed || next >= n) return;
-            i = next++;
-          }
-          const std::string& id = units[i].unit.unit_id;
-          analytics::UnitData data = store->unit_data(id);
-          data.held_back = ingest::held_back_of(*store, id);
-          const analytics::Day previous_day = previous_report_day(*store, id, as_of);
-          fs::path p = render_unit_file(*store, units[i], data, as_of, previous_day, sites, options_, ropts, out_dir);
-          {
-            std::lock_guard lock(mutex);
-            paths[i] = std::move(p);
-            previous_days[i] = previous_day;
-            ++done;
-          }
-          changed.notify_all();
-        }
-      } catch (...) {
-        {
-          std::lock_guard lock(mutex);
-          if (!error) error = std::current_exception();
-          failed = true;
-        }
-        changed.notify_all();
-      }
-    });
-  }
-  {
-    std::unique_lock lock(mutex);
-    std::size_t shown = 0;
-    while (done < n && !failed) {
-      changed.wait(lock, [&] { return failed || done > shown; });
-      if (failed) break;
-      shown = done;
-      if (progress_) {
-        lock.unlock();
-        progress_("unit reports", shown, n);
-        lock.lock();
-      }
-    }
-  }
-  for (auto& t : threads) t.join();
-  if (error) std::rethrow_exception(error);
+  assess::run_in_order(
+      store_, n, 0,
+      [&](store::Store& store, std::size_t i) {
+        const std::string& id = units[i].unit.unit_id;
+        analytics::UnitData data = store.unit_data(id);
+        data.held_back = ingest::held_back_of(store, id);
+        previous_days[i] = previous_report_day(store, id, as_of);
+        paths[i] = render_unit_file(store, units[i], data, as_of, previous_days[i], sites, options_, ropts, out_dir);
+      },
+      [&](std::size_t i) {
+        if (progress_) progress_("unit reports", i + 1, n);
+      });
   for (std::size_t i = 0; i < n; ++i)
     if (previous_days[i] != as_of) store_.set_state("report:" + units[i].unit.unit_id, std::to_string(as_of));
   return paths;
