@@ -7,6 +7,7 @@
 #include "report/pdf_document.h"
 #include "report/report_format.h"
 #include "report/safety_block.h"
+#include "report/safety_text.h"
 #include "report/title_block.h"
 #include "report/work_list_report.h"
 
@@ -45,6 +46,10 @@ void render_weekly_index(const std::string& week_label, const analytics::FleetRa
   draw_title_block(flow, options, "Weekly bundle", title,
                    analytics::format_day(week.as_of - 6) + " to " + analytics::format_day(week.as_of) + " · " +
                        std::to_string(unit_report_files.size()) + " reports");
+  // This page is the one most often printed alone: it carries the caution
+  // in one line, the full block is on the last page.
+  flow.paragraph(one_line_caution() + " The full cautions are on the last page of this cover.", type::small,
+                 FontFace::bold, palette::ink);
   due_table(flow, "Actions due in the next 7 days (or overdue)", week.due_7, week.as_of);
 
   due_table(flow, "Actions due in 8 to 30 days", week.due_30, week.as_of);

@@ -166,6 +166,9 @@ TEST_F(FleetReportTest, WeeklyCoverPutsThePlannersWeekFirst) {
     EXPECT_NE(text.find(s), std::string::npos) << s << "\n" << text;
   // The week comes before the list of reports.
   EXPECT_LT(text.find("Resample the oil"), text.find("T-204_2026-11-30.pdf"));
+  // The first page, often printed alone, carries the one-line caution above the week's actions
+  // (the full block stays at the end). Plumbing of the layout: no published source applies.
+  EXPECT_LT(text.find("SAFETY: decision support only"), text.find("Resample the oil"));
   const std::string plain = planner_week_text(w);
   EXPECT_NE(plain.find("2026-11-28 OVERDUE  T-204 (Kelder Road 132 kV), priority 1: Resample the oil"), std::string::npos)
       << plain;
