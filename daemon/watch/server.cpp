@@ -402,15 +402,24 @@ struct Server::Impl {
                         "after de-energising. An engineer decides whether the unit stays energised. Do not "
                         "re-energise after a trip before that evaluation.",
                     at);
-    if (now.condition > before.condition && before.condition > 0)
+    // Worsening, or a unit's first gas figures already at a high level:
+    // condition 3 or 4 of C57.104-2008 (a high, and an excessive, level of
+    // decomposition in its description of the four conditions; from memory,
+    // see README sources), status 3 of C57.104-2019.
+    // A first sample at condition 1 or 2 (status 1 or 2) is the unit's
+    // baseline, not news.
+    if (now.condition > before.condition && (before.condition > 0 || now.condition >= 3))
       raise_alert(unit, "gas_condition",
-                    "IEEE C57.104-2008 fault-gas condition (CO and CO2 left out) worsened from " +
-                        std::to_string(before.condition) + " to " +
+                    "IEEE C57.104-2008 fault-gas condition (CO and CO2 left out) " +
+                        (before.condition > 0 ? "worsened from " + std::to_string(before.condition) + " to "
+                                              : std::string("at the first gas figures on record: ")) +
                         std::to_string(now.condition),
                     "Follow the sampling interval of C57.104-2008 Table 3 given in the unit report.", at);
-    if (now.status > before.status && before.status > 0)
+    if (now.status > before.status && (before.status > 0 || now.status >= 3))
       raise_alert(unit, "dga_status",
-                    "IEEE C57.104-2019 DGA status worsened from " + std::to_string(before.status) + " to " +
+                    "IEEE C57.104-2019 DGA status " +
+                        (before.status > 0 ? "worsened from " + std::to_string(before.status) + " to "
+                                           : std::string("at the first gas figures on record: ")) +
                         std::to_string(now.status),
                     "Resample and review the gas trend with an engineer.", at);
     const double emergency = a.thermal.long_emergency_limit_c;

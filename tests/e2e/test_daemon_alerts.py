@@ -1,7 +1,8 @@
 """The daemon's alerts that test_daemon_service does not cover: a computed
 hot-spot above the long-time emergency limit, and a worsening gas condition
-(IEEE C57.104-2008) or DGA status (C57.104-2019). Each is raised once, when
-the unit crosses, not again while it stays there."""
+(IEEE C57.104-2008) or DGA status (C57.104-2019), or a unit's first gas
+figures already at condition 3 or 4. Each is raised once, when the unit
+crosses, not again while it stays there."""
 import os
 import time
 import unittest
@@ -70,6 +71,23 @@ class MoreAlerts(DaemonCase):
         row = next(a for a in self.alerts() if a["kind"] == "dga_status")
         self.assertIn("from 1 to 3", row["text"])
         self.assertNotIn("acetylene", self.kinds("T2"))
+        self.assertEqual(self.stop_daemon(), 0)
+
+    def test_first_gas_figures_already_high(self):
+        self.start_daemon()
+        # A unit's first sample is its baseline at condition 1 or 2: no alert.
+        # Condition 2 by H2 150 ppm (IEEE C57.104-2008 Table 1: 101-700;
+        # value from memory, see README sources).
+        self.drop_and_wait("lab-1.csv", LAB + f"T2,{day(5)},150,10,5,5,<0.5,200,2000,L-1\n")
+        time.sleep(1.5)
+        self.assertNotIn("gas_condition", self.kinds("T2"))
+        # A first sample already at condition 4 (C2H4 817 ppm, above Table 1's
+        # 200 ppm; TDCG 1,857 ppm) is news: it raises an alert although no earlier
+        # sample worsened into it.
+        self.drop_and_wait("lab-2.csv", LAB + f"T1,{day(5)},30,60,50,817,<0.5,900,4000,L-2\n")
+        self.wait_for(lambda: "gas_condition" in self.kinds("T1"), timeout=15, what="gas condition alert")
+        row = next(a for a in self.alerts() if a["kind"] == "gas_condition" and a["unit_id"] == "T1")
+        self.assertIn("first gas figures on record: 4", row["text"])
         self.assertEqual(self.stop_daemon(), 0)
 
 
