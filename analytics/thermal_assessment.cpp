@@ -66,10 +66,15 @@ void thermal_actions(const ThermalSummary& th, Day as_of, const ThermalOptions& 
         "measured top oil runs " + fmt("%.1f", *th.top_oil_discrepancy_k) + " K above the " + method +
             " model on average (threshold " + fmt("%.1f", o.discrepancy_threshold_k) + " K)",
         kSourceLoad, "cooling-check", kCrewMaintenance));
+  // Above the normal cyclic limit the load already ages the paper faster than
+  // the loading guide plans for: P2 within 30 days, so that the relief comes
+  // before the next peak season, not after it. Above the long-time emergency
+  // limit (140 °C, where IEC 60076-7 warns of gas bubbles from wet paper):
+  // P1 within 7 days. Priorities and days: ferrum's policy, no published source.
   if (th.hours_above_normal_cyclic.value_or(0) > 0) {
     const bool emergency = th.hours_above_long_emergency.value_or(0) > 0;
     out.actions.push_back(dated_action(
-        emergency ? 2 : 3, found, emergency ? 30 : 90,
+        emergency ? 1 : 2, found, emergency ? 7 : 30,
         "Reduce the load, or transfer load to a unit the site view names as able to take it",
         std::string(th.hot_spot_from_measured_top_oil ? "hot spot (from measured top oil)" : "model hot spot") +
             " above " + fmt("%.0f", th.normal_cyclic_limit_c) + " °C for " +

@@ -66,9 +66,30 @@ TEST(ThermalAssessment, YearAtOverloadSummarisedOverWindow) {
   EXPECT_GE(th.hot_spot_series.size(), 300u);
   EXPECT_EQ(th.method, "IEC 60076-7 difference equations");
   EXPECT_FALSE(th.parameter_sources.empty());
-  EXPECT_TRUE(has_action(a, "Reduce the load", 3));
+  // Above the normal cyclic limit: P2, due within 30 days of the evidence
+  // (ferrum's policy, no published source: relief before the next peak season).
+  EXPECT_TRUE(has_action(a, "Reduce the load", 2));
+  const auto reduce = std::find_if(a.actions.begin(), a.actions.end(),
+                                   [](const Action& x) { return x.need == "load-reduce"; });
+  ASSERT_NE(reduce, a.actions.end());
+  EXPECT_EQ(reduce->due - reduce->found, 30);
   ASSERT_TRUE(th.load_growth_pct_per_year);  // 400 days of history >= 365
   EXPECT_NEAR(*th.load_growth_pct_per_year, 0, 1e-9);
+}
+
+// K = 1.5 on ONAF at 20 °C: steady hot spot about 150 °C (IEC 60076-7 Table 5
+// characteristics, computed), above the 140 °C long-time emergency limit
+// (IEC 60076-7 Table 4): P1 within 7 days (ferrum's policy, no published source).
+TEST(ThermalAssessment, AboveTheLongTimeEmergencyLimitIsUrgent) {
+  const auto d = unit_with_hourly_load(1.5, 30);
+  UnitAssessment a;
+  assess_thermal(d, kAsOf, {}, a);
+  ASSERT_GT(a.thermal.hours_above_long_emergency.value_or(0), 0);
+  EXPECT_TRUE(has_action(a, "Reduce the load", 1));
+  const auto reduce = std::find_if(a.actions.begin(), a.actions.end(),
+                                   [](const Action& x) { return x.need == "load-reduce"; });
+  ASSERT_NE(reduce, a.actions.end());
+  EXPECT_EQ(reduce->due - reduce->found, 7);
 }
 
 TEST(ThermalAssessment, HotterThanModelAsksForCoolingCheck) {
