@@ -267,6 +267,10 @@ struct Decision {
   std::optional<int> year;        // year the action is due (a replacement: in service by)
   std::string reason;             // in words, for a manager
   std::string treatment;          // refurbishment scope ("dry out the active part", ...), else ""
+  // The refurbishment dries out the active part (the paper), which slows its
+  // ageing; an oil treatment alone (drying or reclaiming the oil) restores the
+  // oil, not the paper, and the ten-year plan gives it no years (plan.h).
+  bool treats_paper = false;
   std::string index_note;         // capped and uncapped index in words, when they differ
   std::vector<Evidence> end_of_life;
   std::vector<Evidence> defects;
@@ -356,6 +360,7 @@ struct RankedUnit {
   std::string recommended_action;  // Decision::action
   std::optional<int> action_year;
   std::string action_reason;       // Decision::reason
+  bool treats_paper = false;       // Decision::treats_paper
   std::optional<Action> first_action;  // the unit's most urgent action
   bool insufficient_data = false;
   std::string note;

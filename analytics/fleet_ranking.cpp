@@ -32,6 +32,7 @@ RankedUnit row_of(const RankingOptions& o, const UnitAssessment& a) {
   r.recommended_action = a.decision.action;
   r.action_year = a.decision.year;
   r.action_reason = a.decision.reason;
+  r.treats_paper = a.decision.treats_paper;
   r.first_action = a.decision.first_action;
   return r;
 }

@@ -286,6 +286,7 @@ Decision decide(const DecisionOptions& o, const UnitAssessment& a) {
       const bool wet = lead_defect.text.rfind("wet", 0) == 0;
       d.treatment = wet ? (paper_wet ? "dry out the active part and the oil" : "dry and degas the oil (vacuum dehydration)")
                         : "reclaim the oil (Fuller's earth)";
+      d.treats_paper = wet && paper_wet;
       d.reason = "Correctable defect: " + lead_defect.text + ". Treatment: " + d.treatment + "." +
                  (wet ? (paper_wet ? " Drying out removes water from the paper and slows its ageing; it does not "
                                      "restore paper strength already lost."
@@ -300,6 +301,7 @@ Decision decide(const DecisionOptions& o, const UnitAssessment& a) {
   } else if (life && *life <= o.planning_window_years && paper_or_thermal && paper_wet) {
     d.action = "refurbish";
     d.treatment = "dry out the active part";
+    d.treats_paper = true;
     d.reason = life_text + " and the paper is wet (" + fmt(*a.oil.paper_moisture_pct, 1) +
                " % water): drying out slows paper ageing; it cannot restore paper strength already lost, and oil "
                "reclamation would not change the paper at all.";

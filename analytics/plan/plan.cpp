@@ -275,7 +275,7 @@ FleetPlan plan_fleet(const std::vector<PlanUnit>& units, Day as_of, const CostOp
     Track t;
     t.unit = &u;
     int from = 0;
-    if (u.action == "replace" || u.action == "refurbish") {
+    if (u.action == "replace" || (u.action == "refurbish" && u.treats_paper)) {
       t.action = u.action;
       from = std::max(*o.start_year, u.action_year.value_or(*o.start_year));
     } else if (u.remaining_life_years && !u.beyond_horizon) {
@@ -368,10 +368,11 @@ FleetPlan plan_fleet(const std::vector<PlanUnit>& units, Day as_of, const CostOp
   plan.method = {
       "risk = probability of failure from the health index (as in the fleet ranking) x 1,000 x consequence: failures "
       "per 1,000 unit-years x consequence; risk-based prioritisation as in CIGRE TB 761 (2019) (from memory; verify)",
-      "candidates: units whose recommended action is replace or refurbish, from the year of that action (for a "
-      "replacement, the year it can be in service after the procurement lead time), and any other unit whose "
-      "remaining life ends within the horizon, from the year it ends (as a replacement); repairs, investigations and "
-      "monitoring are maintenance, not in the plan, and their units' risk is counted as it is",
+      "candidates: units whose recommended action is replace, or refurbish by drying out the paper, from the year of "
+      "that action (for a replacement, the year it can be in service after the procurement lead time), and any other "
+      "unit whose remaining life ends within the horizon, from the year it ends (as a replacement); repairs, "
+      "investigations, monitoring and oil treatments (drying or reclaiming the oil, which restore the oil and not "
+      "the paper) are maintenance, not in the plan, and their units' risk is counted as it is",
       "each year the candidates are funded in order of the risk they remove that year per unit of money until the "
       "year's budget is spent; a candidate that does not fit waits and a cheaper one may still be funded; of two "
       "candidates with the same cost the riskier is funded first" +

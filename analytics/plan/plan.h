@@ -18,9 +18,11 @@
 //    times the expected rate ln(HI_EOL/100) / expected_life_years. Without a
 //    remaining life within the life horizon, or already at or below the
 //    end-of-life index, the expected rate (resp. the fastest allowed rate).
-//  * Candidates: a unit whose recommended action is replace or refurbish is a
-//    candidate from the year of that action (never before the plan's first
-//    year); any other unit whose remaining life ends within the horizon is a
+//  * Candidates: a unit whose recommended action is replace, or refurbish by
+//    drying out the paper (Decision::treats_paper), is a candidate from the
+//    year of that action (never before the plan's first year). An oil
+//    treatment alone restores the oil, not the paper, so it earns no years on
+//    the ageing curve: it is maintenance, like a repair. Any other unit whose remaining life ends within the horizon is a
 //    replacement candidate from the year its life ends. A candidate stays one
 //    until funded. Units without a health index have no risk and are listed
 //    as not planned.
@@ -124,6 +126,7 @@ struct PlanUnit {
   std::optional<double> remaining_life_years;
   bool beyond_horizon = false;            // remaining life more than the life horizon
   std::string action;                     // Decision::action
+  bool treats_paper = false;              // Decision::treats_paper: a refurbishment that dries out the paper
   std::optional<int> action_year;
   double consequence = 0;                 // 0..1, from the ranking
   std::optional<double> replacement_cost;    // the unit's own, overrides the classes

@@ -69,6 +69,7 @@ std::vector<analytics::PlanUnit> plan_units(const analytics::FleetRanking& ranki
     p.beyond_horizon = r.beyond_horizon;
     p.action = r.recommended_action;
     p.action_year = r.action_year;
+    p.treats_paper = r.treats_paper;
     p.consequence = r.consequence;
     if (auto it = by_id.find(r.unit_id); it != by_id.end()) {
       p.hv_kv = it->second->hv_kv;

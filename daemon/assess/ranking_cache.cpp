@@ -70,6 +70,7 @@ Object::Ptr unit_to_json(const analytics::UnitAssessment& a) {
   o->set("action", a.decision.action);
   o->set("action_year", opt(a.decision.year));
   o->set("action_reason", a.decision.reason);
+  o->set("treats_paper", a.decision.treats_paper);
   if (const auto& f = a.decision.first_action) {
     Object::Ptr x = new Object;
     x->set("priority", f->priority);
@@ -119,6 +120,7 @@ analytics::UnitAssessment unit_from_json(const Object::Ptr& o) {
   a.decision.action = o->getValue<std::string>("action");
   a.decision.year = get_opt<int>(o, "action_year");
   a.decision.reason = o->getValue<std::string>("action_reason");
+  a.decision.treats_paper = o->optValue<bool>("treats_paper", false);
   if (const auto x = o->getObject("first_action")) {
     analytics::Action f;
     f.priority = x->getValue<int>("priority");

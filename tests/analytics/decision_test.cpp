@@ -218,6 +218,7 @@ TEST(DecisionMatrix, WetOilIsDriedOut) {
   auto a = story(2005, 700, wet_oil);
   EXPECT_EQ(a.decision.action, "refurbish");
   EXPECT_TRUE(mentions(a.decision.treatment, "dry out the active part"));
+  EXPECT_TRUE(a.decision.treats_paper);  // the plan credits it with years (plan.h)
 }
 
 // Aged oil (Class III) on a unit whose paper has 8 years left: reclamation
@@ -237,6 +238,7 @@ TEST(DecisionMatrix, AgedOilOnSoundUnitIsReclaimed) {
   EXPECT_EQ(a.decision.action, "refurbish");
   EXPECT_TRUE(mentions(a.decision.treatment, "reclaim"));
   EXPECT_TRUE(mentions(a.decision.reason, "does not restore the paper"));
+  EXPECT_FALSE(a.decision.treats_paper);  // the plan gives an oil treatment no years (plan.h)
 }
 
 // Failed cooling (top oil 9 K above the model): repair (common practice).

@@ -33,6 +33,7 @@ PlanUnit unit(const std::string& id, double hi, std::optional<double> life, cons
   u.remaining_life_years = life;
   u.action = action;
   u.action_year = year;
+  u.treats_paper = action == "refurbish";  // a refurbishment that dries out the paper
   u.rated_mva = mva;
   u.hv_kv = kv;
   u.consequence = consequence;
@@ -177,6 +178,30 @@ TEST(PlanFleet, LifeEndingWithinTheHorizonAndUnitsLeftOut) {
   EXPECT_NE(plan.not_planned[0].find("N:"), std::string::npos);
 }
 
+// An oil treatment (drying or reclaiming the oil) restores the oil, not the
+// paper: the plan gives it no years on the ageing curve and does not fund it
+// as a refurbishment. The unit is a replacement candidate only when its life
+// ends within the horizon, from that year. (ferrum's plan rule, plan.h; no
+// published source.) A refurbishment that dries out the paper is funded.
+TEST(PlanFleet, OilTreatmentIsMaintenanceNotARefurbishment) {
+  auto oil = unit("OIL", 60, 14, "refurbish", 20, 33, 0.6, 2027);
+  oil.treats_paper = false;
+  auto soon = unit("SOON", 60, 3.5, "refurbish", 20, 33, 0.6, 2027);
+  soon.treats_paper = false;
+  auto paper = unit("PAPER", 60, 8, "refurbish", 20, 33, 0.6, 2027);
+  PlanOptions o;
+  o.horizon_years = 10;  // 2026-2035, unlimited budget
+  const auto plan = plan_fleet({oil, soon, paper}, kAsOf, test_costs(), o);
+  std::map<std::string, std::pair<int, std::string>> funded;
+  for (const auto& y : plan.years)
+    for (const auto& f : y.funded) funded[f.unit_id] = {y.year, f.action};
+  EXPECT_EQ(funded.count("OIL"), 0u);  // life 14 years: beyond the horizon, no intervention
+  ASSERT_EQ(funded.count("SOON"), 1u);
+  EXPECT_EQ(funded["SOON"], std::make_pair(2029, std::string("replace")));  // 2026 + floor(3.5)
+  ASSERT_EQ(funded.count("PAPER"), 1u);
+  EXPECT_EQ(funded["PAPER"], std::make_pair(2027, std::string("refurbish")));
+}
+
 // Equal cost, the riskier first even when the other removes more risk (one year, budget 500,000;
 // both units cost 500,000 of their own, consequence 1, ageing rate 2 x ln(0.3)/60 = -0.040132/year):
 //  X: HI 50, replace: risk 2 x 100^0.5 = 20, after 2: removes 18.
@@ -275,6 +300,7 @@ std::vector<PlanUnit> random_fleet(std::mt19937& rng, int n) {
       u.refurbishment_cost = 2.5e5 * own(rng);
     }
     if (unit_interval(rng) < 0.05) u.health_index.reset();
+    if (u.action == "refurbish" && unit_interval(rng) < 0.3) u.treats_paper = false;  // an oil treatment
     units.push_back(u);
   }
   return units;
@@ -296,7 +322,8 @@ std::map<std::string, int> first_years(const std::vector<PlanUnit>& units, const
   for (const auto& u : units) {
     if (!u.health_index) continue;
     int from = end;
-    if (u.action == "replace" || u.action == "refurbish") from = std::max(start, u.action_year.value_or(start));
+    if (u.action == "replace" || (u.action == "refurbish" && u.treats_paper))
+      from = std::max(start, u.action_year.value_or(start));
     else if (u.remaining_life_years && !u.beyond_horizon)
       from = std::max(start, 2026 + static_cast<int>(std::floor(std::max(*u.remaining_life_years, 0.0))));
     if (from < end) out[u.unit_id] = from;

@@ -100,9 +100,11 @@ TEST(PlanService, RegisterCostsReachThePlanUnits) {
   r.health_index = 45;
   r.recommended_action = "refurbish";
   r.action_year = 2027;
+  r.treats_paper = true;  // drying out the paper: a plan candidate
   r.consequence = 0.6;
   ranking.units = {r, r};
   ranking.units[1].unit_id = "T2";
+  ranking.units[1].treats_paper = false;  // an oil treatment: maintenance
   analytics::UnitInfo info;
   info.unit_id = "T1";
   info.hv_kv = 132;
@@ -115,6 +117,8 @@ TEST(PlanService, RegisterCostsReachThePlanUnits) {
   EXPECT_DOUBLE_EQ(units[0].refurbishment_cost.value_or(0), 350000);
   EXPECT_EQ(units[0].action, "refurbish");
   EXPECT_EQ(units[0].action_year, 2027);
+  EXPECT_TRUE(units[0].treats_paper);
+  EXPECT_FALSE(units[1].treats_paper);
   EXPECT_FALSE(units[1].replacement_cost);
   EXPECT_FALSE(units[1].refurbishment_cost);
   // The own refurbishment cost is what the plan pays (no [costs] class needed for it).
