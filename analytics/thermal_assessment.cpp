@@ -380,7 +380,10 @@ Action inspection_job(const InspectionFinding& f, Day since, const ThermalOption
   const int r = static_cast<int>(f.rating);  // 2 fair .. 5 unsafe
   const std::string item = words(f.item);
   const bool outage = std::find(o.outage_items.begin(), o.outage_items.end(), f.item) != o.outage_items.end();
-  const std::string note = (f.note.empty() ? "" : " (" + f.note + ")") +
+  // The inspector's note is quoted as theirs: "repair booked for the December
+  // outage" there is the inspector's word, not a booking ferrum knows of
+  // (bookings come from work-status files, work_status.h).
+  const std::string note = (f.note.empty() ? "" : " (inspector's note: \"" + f.note + "\")") +
                            (since < f.date ? ", so rated since " + format_day(since) : "");
   if (f.rating == Rating::unsafe)
     return dated_action(1, since, o.inspection_job_due_days[3], "Make safe or take out of service: " + item,

@@ -249,6 +249,14 @@ Decision decide(const DecisionOptions& o, const UnitAssessment& a) {
   const bool paper_wet = a.oil.paper_moisture_pct && *a.oil.paper_moisture_pct >= o.dry_out_above_paper_moisture_pct &&
                          !(a.paper.dp_estimate && *a.paper.dp_estimate < o.dry_out_min_dp);
   const bool paper_or_thermal = rl.limiting_factor == "paper" || rl.limiting_factor == "thermal";
+  // Wet paper too brittle to dry out: said, so that nobody asks why the water
+  // in it is left there.
+  const std::string brittle_note =
+      (!paper_wet && a.oil.paper_moisture_pct && *a.oil.paper_moisture_pct >= o.dry_out_above_paper_moisture_pct)
+          ? " The paper is wet too (" + fmt(*a.oil.paper_moisture_pct, 1) + " % water), but at DP " +
+                fmt(*a.paper.dp_estimate, 0) + " it is too brittle to dry out (below " + fmt(o.dry_out_min_dp, 0) +
+                "): drying the active part could damage it."
+          : std::string();
 
   if (life && *life <= o.replace_within_years) {
     d.action = "replace";
@@ -290,7 +298,7 @@ Decision decide(const DecisionOptions& o, const UnitAssessment& a) {
       d.reason = "Correctable defect: " + lead_defect.text + ". Treatment: " + d.treatment + "." +
                  (wet ? (paper_wet ? " Drying out removes water from the paper and slows its ageing; it does not "
                                      "restore paper strength already lost."
-                                   : " Drying restores the oil's water content and breakdown strength.")
+                                   : " Drying restores the oil's water content and breakdown strength." + brittle_note)
                       : " Reclamation restores acidity, interfacial tension and colour of the oil; it does not "
                         "restore the paper.") +
                  life_part;

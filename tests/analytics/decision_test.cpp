@@ -221,6 +221,18 @@ TEST(DecisionMatrix, WetOilIsDriedOut) {
   EXPECT_TRUE(a.decision.treats_paper);  // the plan credits it with years (plan.h)
 }
 
+// Wet oil and wet paper (3 %) but paper too brittle to dry out (DP 380, below
+// the 400 of DecisionOptions::dry_out_min_dp; common practice, no published
+// source): only the oil is dried, the plan gives it no years, and the reason
+// says why the paper's water stays.
+TEST(DecisionMatrix, WetButBrittlePaperIsNotDriedOut) {
+  auto a = story(1979, 380, wet_oil);  // 13 DP/year since 1979: about 14 years left
+  EXPECT_EQ(a.decision.action, "refurbish") << a.decision.reason;
+  EXPECT_TRUE(mentions(a.decision.treatment, "dry and degas the oil"));
+  EXPECT_FALSE(a.decision.treats_paper);
+  EXPECT_TRUE(mentions(a.decision.reason, "too brittle to dry out")) << a.decision.reason;
+}
+
 // Aged oil (Class III) on a unit whose paper has 8 years left: reclamation
 // cannot change the limiting factor (paper), so it is not the answer:
 // replace, with the reason (common practice, no published source).
