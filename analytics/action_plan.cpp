@@ -168,22 +168,25 @@ std::vector<Action> merge_actions(const std::vector<Action>& actions) {
 
 std::optional<Action> outage_action(const std::vector<Action>& actions) {
   const Action* lead = nullptr;
-  std::string jobs;
-  int priority = 5;
+  int priority = 5, jobs = 0;
   for (const auto& x : actions) {
     if (!x.outage || x.need == "outage") continue;
     if (!lead || x.due < lead->due) lead = &x;
     priority = std::min(priority, x.priority);
-    std::string job = x.text;
-    while (!job.empty() && job.back() == '.') job.pop_back();
-    if (!job.empty()) job[0] = static_cast<char>(std::tolower(static_cast<unsigned char>(job[0])));
-    jobs += (jobs.empty() ? "" : "; ") + job;
+    ++jobs;
   }
   if (!lead) return std::nullopt;
-  Action out = dated_action(priority, lead->found, static_cast<int>(lead->due - lead->found), "Plan an outage for: " + jobs,
-                            "these jobs need the unit out of service: one outage, by the earliest due date",
-                            lead->source.c_str(), "outage", kCrewEngineering, true);
-  return out;
+  // The jobs stay on the list as their own actions (each with its reference,
+  // crew and work status): this line counts them and never repeats their
+  // words, so that no list shows a job twice and no job's own text ("...;
+  // plan an outage; ...") ends up inside it.
+  const std::string text = jobs == 1 ? "Plan an outage for the job that needs this unit out of service (listed on its own)"
+                                     : "Plan one outage for the " + std::to_string(jobs) +
+                                           " jobs that need this unit out of service (each listed on its own)";
+  return dated_action(priority, lead->found, static_cast<int>(lead->due - lead->found), text,
+                      jobs == 1 ? "the job needs the unit out of service, by its due date"
+                                : "do them in one outage, by the earliest due date",
+                      lead->source.c_str(), "outage", kCrewEngineering, true);
 }
 
 Action dated_action(int priority, Day found, int due_days, std::string text, std::string reason,

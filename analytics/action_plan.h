@@ -12,8 +12,9 @@
 //  * wet paper (water content at or above wet_paper_pct) is dried out with
 //    the active part, which oil reconditioning would not do; unless the
 //    paper's DP is below dry_out_min_dp, too brittle to dry out;
-//  * the jobs that need the unit out of service are gathered into one
-//    "Plan an outage for: ..." action.
+//  * the jobs that need the unit out of service get one "Plan one outage for
+//    the N jobs ..." action; the jobs stay on the list as their own actions
+//    and the outage action counts them without repeating their words.
 // The intervals of the stale-data actions are ferrum's own defaults.
 // Order: priority (1 = most urgent), then due date, then text.
 #pragma once
@@ -63,9 +64,10 @@ void finalize_actions(const ActionPlanOptions& options, UnitAssessment& a);
 // its found date), every distinct reason, and an outage when any needs one.
 std::vector<Action> merge_actions(const std::vector<Action>& actions);
 
-// The one "Plan an outage for: ..." action (need "outage") gathering every
-// action with outage = true: the most urgent priority, the earliest due date.
-// nullopt when no action needs an outage.
+// The one outage action (need "outage") for every action with outage = true:
+// "Plan one outage for the N jobs that need this unit out of service (each
+// listed on its own)", the most urgent priority, the earliest due date. It
+// names the count, never the jobs' texts. nullopt when no action needs an outage.
 std::optional<Action> outage_action(const std::vector<Action>& actions);
 
 }  // namespace ferrum::analytics

@@ -81,6 +81,7 @@ struct DgaSummary {
   std::optional<double> co2_co_ratio;
   std::optional<double> tdcg_rate_ppm_per_day;     // µL/L per day, last two samples (Table 3's unit)
   std::string c57104_2008_interval;   // sampling interval from the standard's procedure
+  std::optional<int> c57104_2008_interval_days;  // the same, in days
   std::string c57104_2008_action;     // operating procedure from the standard
   std::string c57104_2019_reason;     // which gas/rate decided the status
   std::string key_gas;                // key-gas reading, plain words
@@ -277,6 +278,24 @@ struct Decision {
   std::optional<Action> first_action;  // the unit's most urgent action
 };
 
+// Where the fleet's budget-constrained plan (analytics/plan) puts a unit's
+// replace or refurbish action, as the ranking and the reports show it beside
+// the decision's year (analytics::plan_schedule_of). The plan may fund an
+// action later than the decision's year when the yearly budget does not
+// reach it sooner.
+struct PlanSchedule {
+  enum class State {
+    none,      // no budget plan is configured, or the action is not one the plan funds
+    not_known, // a plan is configured but was not computed for this output
+    on_time,   // the plan funds the action in the first year it could
+    later,     // the plan funds it in `year`, later than the decision's year
+    unfunded,  // the plan does not fund it by `last_year`, its last year
+  };
+  State state = State::none;
+  std::optional<int> year;
+  int last_year = 0;
+};
+
 struct DataFreshness {
   std::string kind;                  // "oil", "infrared", "inspection", "load"
   std::optional<Day> latest;
@@ -339,6 +358,9 @@ struct UnitAssessment {
   std::string site_summary;
   // Rejected files holding newer results than the store (analytics/held_back.h).
   std::vector<HeldBack> held_back;
+  // The fleet's budget plan for the decision's action (set by the caller that
+  // made the plan; State::none when none).
+  PlanSchedule budget_plan;
 };
 
 // One row of the fleet ranking.
@@ -362,6 +384,7 @@ struct RankedUnit {
   std::string action_reason;       // Decision::reason
   bool treats_paper = false;       // Decision::treats_paper
   std::optional<Action> first_action;  // the unit's most urgent action
+  PlanSchedule budget_plan;        // the fleet's budget plan for that action (analytics::apply_plan)
   bool insufficient_data = false;
   std::string note;
 };

@@ -135,6 +135,7 @@ void apply_2008(DgaWork& w, const std::vector<OilSample>& samples, const UnitInf
   C57104_2008Procedure p = c57104_2008_table3(*basis.condition, d.tdcg_rate_ppm_per_day, unit.hv_kv, o.table3);
   if (!p.applicable) return;
   d.c57104_2008_interval = p.interval;
+  d.c57104_2008_interval_days = p.interval_days;
   d.c57104_2008_action = p.action;
   w.methods.push_back(method_line(p.method, p.source));
   w.procedure = p;

@@ -29,6 +29,7 @@ void append_work_list(const UnitAssessment& a, const WorkListFilter& filter, std
     r.site = a.unit.site;
     r.reference = act.reference;
     r.text = act.text;
+    r.reason = act.reason;
     r.source = act.source;
     r.crew = act.crew;
     r.priority = act.priority;

@@ -19,6 +19,7 @@ struct WorkListRow {
   std::string unit_id, site;
   std::string reference;   // "<unit id>/<need>"
   std::string text;
+  std::string reason;      // why (Action::reason)
   std::string source;      // kSource*
   std::string crew;        // kCrew*
   int priority = 3;

@@ -25,6 +25,18 @@ std::string action_text(const std::string& action, std::optional<int> year) {
   return action + (year ? " " + std::to_string(*year) : "");
 }
 
+std::string plan_note(const analytics::PlanSchedule& plan) {
+  using S = analytics::PlanSchedule::State;
+  if (plan.state == S::later && plan.year) return "budget plan: " + std::to_string(*plan.year);
+  if (plan.state == S::unfunded) return "budget plan: not funded by " + std::to_string(plan.last_year);
+  return "";
+}
+
+std::string action_text(const std::string& action, std::optional<int> year, const analytics::PlanSchedule& plan) {
+  const std::string note = plan_note(plan);
+  return action_text(action, year) + (note.empty() ? "" : " (" + note + ")");
+}
+
 std::string first_action_text(const std::optional<analytics::Action>& a) {
   if (!a) return "";
   return "P" + std::to_string(a->priority) + " by " + fmt_day(a->due) + ": " + a->text;

@@ -17,6 +17,12 @@ std::string limiting_factor_words(const std::string& basis);
 std::string life_text(std::optional<double> years, bool beyond_horizon, double horizon_years, int decimals = 1);
 // "replace 2028", "repair 2026".
 std::string action_text(const std::string& action, std::optional<int> year);
+// Where the fleet's budget plan puts the action when that is not the
+// decision's year: "budget plan: 2029", "budget plan: not funded by 2035";
+// "" when the plan keeps the year or there is no plan.
+std::string plan_note(const analytics::PlanSchedule& plan);
+// action_text with the plan's note: "replace 2028 (budget plan: 2029)".
+std::string action_text(const std::string& action, std::optional<int> year, const analytics::PlanSchedule& plan);
 // "P1 by 2026-11-30: Make safe or take out of service: grounding"; "" when none.
 std::string first_action_text(const std::optional<analytics::Action>& a);
 // Risk as printed: expected failures per 1,000 unit-years times the

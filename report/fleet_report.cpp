@@ -41,7 +41,8 @@ void ranking_table(PageFlow& flow, const FleetRanking& ranking) {
   flow.paragraph("Highest risk first; equal risks share a rank (marked =). Risk is the expected number of failures "
                  "per 1,000 unit-years (from the health index) times the unit's consequence rating (0 to 1). The "
                  "calibration is ferrum's own (" + ranking.risk_calibration + "): compare units with it, do not "
-                 "read it as a forecast. Action and year are the unit report's; "
+                 "read it as a forecast. Action and year are the unit report's; where the budget plan below "
+                 "funds a replacement or refurbishment later, its year follows in brackets; "
                  "\"First action\" is the unit's most urgent task.", type::small, FontFace::regular, palette::muted);
   Table t;
   t.font_size = 7.0;
@@ -61,7 +62,8 @@ void ranking_table(PageFlow& flow, const FleetRanking& ranking) {
     t.rows.push_back({rank_text(u), u.unit_id, u.site, fmt_mva(u.rated_mva), fmt_health_index(u.health_index),
                       u.band.empty() ? kNoValue : u.band, life_text(u.remaining_life_years, u.beyond_horizon, u.horizon_years),
                       u.limiting_factor.empty() ? kNoValue : limiting_factor_words(u.limiting_factor), risk_text(u.risk),
-                      u.insufficient_data ? action : action_text(action, u.action_year), first.empty() ? kNoValue : first});
+                      u.insufficient_data ? action : action_text(action, u.action_year, u.budget_plan),
+                      first.empty() ? kNoValue : first});
     t.emphasis.push_back(u.recommended_action == "replace");
   }
   flow.table(t);
@@ -112,10 +114,16 @@ void life_outlook(PageFlow& flow, const FleetRanking& ranking) {
   t.font_size = 7.4;
   t.columns = {{"Unit", 0.8}, {"Site", 1.3}, {"MVA", 0.5, Align::right}, {"Life", 0.8, Align::right},
                {"Ends", 0.5, Align::right}, {"Limited by", 1.2}, {"Action", 1.1}};
-  for (const auto& e : ranking.outlook)
+  std::map<std::string, const analytics::PlanSchedule*> plan_of;
+  for (const auto& u : ranking.units) plan_of[u.unit_id] = &u.budget_plan;
+  for (const auto& e : ranking.outlook) {
+    const auto it = plan_of.find(e.unit_id);
     t.rows.push_back({e.unit_id, e.site, fmt_mva(e.rated_mva),
                       fmt_number(e.remaining_life_years, 1, "years"), std::to_string(e.life_ends_year),
-                      limiting_factor_words(e.limiting_factor), action_text(e.action, e.action_year)});
+                      limiting_factor_words(e.limiting_factor),
+                      it == plan_of.end() ? action_text(e.action, e.action_year)
+                                          : action_text(e.action, e.action_year, *it->second)});
+  }
   flow.table(t);
 }
 

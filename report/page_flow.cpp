@@ -162,26 +162,45 @@ double PageFlow::table_header(const Table& t, const std::vector<double>& widths)
   return h;
 }
 
-void PageFlow::table(const Table& t) {
-  if (t.columns.empty()) return;
+std::vector<double> PageFlow::column_widths(const Table& t) const {
   const double total = std::accumulate(t.columns.begin(), t.columns.end(), 0.0,
                                        [](double s, const TableColumn& c) { return s + c.weight; });
   std::vector<double> widths;
-  for (const auto& c : t.columns) widths.push_back(width() * c.weight / total);
+  for (const auto& c : t.columns) widths.push_back((right_ - left_) * c.weight / total);
+  return widths;
+}
 
-  auto row_height = [&](size_t r, FontFace face) {
-    double h = 0;
-    for (size_t c = 0; c < t.columns.size() && c < t.rows[r].size(); ++c)
-      h = std::max(h, text_height(t.rows[r][c], widths[c] - 2 * kCellPadX, t.font_size, face));
-    return std::max(h, t.font_size * type::leading) + 2 * kCellPadY;
-  };
+double PageFlow::row_height(const Table& t, const std::vector<double>& widths, std::size_t r, FontFace face) {
+  double h = 0;
+  for (size_t c = 0; c < t.columns.size() && c < t.rows[r].size(); ++c)
+    h = std::max(h, text_height(t.rows[r][c], widths[c] - 2 * kCellPadX, t.font_size, face));
+  return std::max(h, t.font_size * type::leading) + 2 * kCellPadY;
+}
 
-  ensure(40);
+double PageFlow::table_start_height(const Table& t) {
+  if (t.columns.empty()) return 0;
+  const auto widths = column_widths(t);
+  double h = 0;
+  for (size_t c = 0; c < t.columns.size(); ++c)
+    h = std::max(h, text_height(t.columns[c].header, widths[c] - 2 * kCellPadX, t.font_size - 0.4, FontFace::bold));
+  h += 2 * kCellPadY;
+  if (!t.rows.empty()) {
+    const bool strong = !t.emphasis.empty() && t.emphasis[0];
+    h += row_height(t, widths, 0, strong ? FontFace::bold : FontFace::regular);
+  }
+  return std::min(h, (top_ - bottom_) / 2);  // a first row taller than that breaks anyway
+}
+
+void PageFlow::table(const Table& t) {
+  if (t.columns.empty()) return;
+  const std::vector<double> widths = column_widths(t);
+  // The header never stands alone at a page's foot: it keeps its first row.
+  ensure(std::max(40.0, table_start_height(t)));
   table_header(t, widths);
   for (size_t r = 0; r < t.rows.size(); ++r) {
     const bool strong = r < t.emphasis.size() && t.emphasis[r];
     const FontFace face = strong ? FontFace::bold : FontFace::regular;
-    const double h = row_height(r, face);
+    const double h = row_height(t, widths, r, face);
     if (y_ - h < bottom_) {
       new_page();
       table_header(t, widths);

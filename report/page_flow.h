@@ -68,6 +68,9 @@ class PageFlow {
   // Label/value pairs in `columns` columns; labels in muted grey above values.
   void key_values(const std::vector<std::pair<std::string, std::string>>& items, int columns);
   void table(const Table& t);
+  // Height of a table's header and first row: what a heading above it keeps
+  // with it, so that no heading is left at a page's foot with nothing under it.
+  double table_start_height(const Table& t);
 
   // Wrapped lines of `text` for a box `width` wide (measured with this page's fonts).
   std::vector<std::string> wrap(const std::string& text, double width, double size, FontFace face);
@@ -80,6 +83,8 @@ class PageFlow {
  private:
   void draw_running_header();
   double table_header(const Table& t, const std::vector<double>& widths);
+  std::vector<double> column_widths(const Table& t) const;
+  double row_height(const Table& t, const std::vector<double>& widths, std::size_t r, FontFace face);
 
   PdfDocument& doc_;
   std::string running_title_;

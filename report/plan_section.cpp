@@ -59,7 +59,8 @@ void plan_section(PageFlow& flow, const PlanSection& s) {
   if (!s.configured) return;
   flow.section(analytics::plan_title(s.plan ? s.plan->horizon_years : s.horizon_years), 120);
   if (!s.plan) {
-    flow.paragraph("No plan: " + s.unavailable + ". Set the missing costs in ferrum.ini [costs] (README, 'The ten-year plan').",
+    flow.paragraph("No plan: " + s.unavailable + ". The site's administrator sets the missing costs in the site's "
+                   "configuration (costs section; README, 'The ten-year plan').",
                    type::body, FontFace::regular, palette::muted);
     return;
   }
@@ -106,7 +107,7 @@ void plan_section(PageFlow& flow, const PlanSection& s) {
   std::vector<std::string> items = p.method;
   for (const auto& a : p.assumptions) items.push_back("assumed: " + a);
   items.push_back("risk is for comparing plans and units, not a forecast of failures: the probability of failure is "
-                  "ferrum's default calibration unless ferrum.ini [ranking] sets it from the fleet's own statistics");
+                  "ferrum's default calibration unless the site's configuration sets it from the fleet's own statistics");
   flow.bullets(items, type::small);
 }
 

@@ -1,18 +1,23 @@
 #include "report/planner_week.h"
 
+#include "report/decision_text.h"
+#include "report/safety_text.h"
+
 #include <sstream>
 
 namespace ferrum::report {
 
 std::string planner_week_text(const PlannerWeek& w) {
   std::ostringstream o;
+  // summary.txt is read alone and is the weekly mail's body: it opens with the caution.
+  o << one_line_caution() << "\n\n";
   const std::string first = analytics::format_day(w.as_of - 6);
   o << "Week " << w.week_label << " (" << first << " to " << analytics::format_day(w.as_of) << "), " << w.units
     << " unit(s).\n";
   o << "\nUnits needing action: " << w.needing_action.size() << "\n";
   for (const auto& u : w.needing_action)
     o << "  " << u.unit_id << " (" << u.site << "): " << u.action << (u.year ? " by " + std::to_string(*u.year) : "")
-      << "\n";
+      << (plan_note(u.budget_plan).empty() ? "" : " (" + plan_note(u.budget_plan) + ")") << "\n";
   auto actions = [&](const char* title, const std::vector<PlannerWeek::DueAction>& list) {
     o << "\n" << title << ": " << list.size() << "\n";
     for (const auto& a : list)

@@ -9,6 +9,7 @@
 #include <string>
 #include <vector>
 
+#include "analytics/assessment.h"
 #include "analytics/calendar.h"
 #include "analytics/work_list.h"
 
@@ -22,14 +23,17 @@ struct PlannerWeek {
   struct UnitAction {
     std::string unit_id, site, action;   // replace, repair, investigate, refurbish, monitor
     std::optional<int> year;
+    std::string reason;                  // the decision's reason (RankedUnit::action_reason)
+    analytics::PlanSchedule budget_plan;  // where the fleet's budget plan puts the action
   };
-  std::vector<UnitAction> needing_action;  // from the fleet ranking, most urgent first
+  std::vector<UnitAction> needing_action;  // in the fleet ranking's order: most at risk first
 
   struct DueAction {
     analytics::Day due = 0;
     int priority = 3;            // 1 = most urgent
     std::string unit_id, site, text;
     analytics::Day booked = 0;   // booking date of a booked action (work-status files), 0 when open
+    std::string reason;          // why (Action::reason)
   };
   std::vector<DueAction> due_7;   // due within 7 days (or overdue), most urgent first
   std::vector<DueAction> due_30;  // due in 8..30 days
@@ -57,12 +61,14 @@ struct PlannerWeek {
     std::optional<analytics::Day> last;   // none: never
   };
   std::vector<Overdue> overdue;
+  int inspection_interval_days = 365;  // the site's, after which an inspection is overdue
 
   // The fleet work list (analytics/work_list.h): every open action, soonest due first.
   std::vector<analytics::WorkListRow> work_list;
 };
 
-// The plain-text summary (summary.txt of the bundle, body of the weekly mail).
+// The plain-text summary (summary.txt of the bundle, body of the weekly mail),
+// opening with the one-line caution (report/safety_text.h).
 std::string planner_week_text(const PlannerWeek& week);
 
 }  // namespace ferrum::report

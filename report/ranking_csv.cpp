@@ -18,7 +18,23 @@ std::string number(std::optional<double> v) {
   return buf;
 }
 
+// Risk on the scale the PDF prints it (report::risk_text): failures per
+// 1,000 unit-years times the consequence.
+std::optional<double> risk_per_1000(std::optional<double> risk) {
+  if (!risk) return std::nullopt;
+  return *risk * 1000;
+}
+
 std::string integer(std::optional<int> v) { return v ? std::to_string(*v) : std::string(); }
+
+// The budget plan's year of the action, only where it is not action_year:
+// the year, or "not funded by YEAR" (report::plan_note).
+std::string plan_year(const analytics::PlanSchedule& plan) {
+  using S = analytics::PlanSchedule::State;
+  if (plan.state == S::later) return integer(plan.year);
+  if (plan.state == S::unfunded) return "not funded by " + std::to_string(plan.last_year);
+  return "";
+}
 
 }  // namespace
 
@@ -35,7 +51,7 @@ std::string quote(const std::string& field) {
 std::string fleet_ranking_csv(const analytics::FleetRanking& ranking) {
   std::string csv =
       "rank,tied,unit_id,site,rated_mva,health_index,band,remaining_life_years,beyond_horizon,limiting_factor,"
-      "probability_of_failure,failures_per_1000_unit_years,consequence,risk,recommended_action,action_year,"
+      "probability_of_failure,failures_per_1000_unit_years,consequence,risk,recommended_action,action_year,plan_year,"
       "first_action_priority,first_action_due,first_action_overdue,first_action_reference,first_action,action_reason,"
       "insufficient_data,note\n";
   for (const auto& u : ranking.units) {
@@ -43,8 +59,8 @@ std::string fleet_ranking_csv(const analytics::FleetRanking& ranking) {
                                   quote(u.unit_id), quote(u.site), number(u.rated_mva), number(u.health_index),
                                   quote(u.band), number(u.remaining_life_years), u.beyond_horizon ? "yes" : "no",
                                   quote(u.limiting_factor), number(u.probability_of_failure),
-                                  number(u.failures_per_1000_unit_years), number(u.consequence), number(u.risk),
-                                  quote(u.recommended_action), integer(u.action_year),
+                                  number(u.failures_per_1000_unit_years), number(u.consequence), number(risk_per_1000(u.risk)),
+                                  quote(u.recommended_action), integer(u.action_year), plan_year(u.budget_plan),
                                   u.first_action ? std::to_string(u.first_action->priority) : "",
                                   u.first_action ? analytics::format_day(u.first_action->due) : "",
                                   u.first_action ? (u.first_action->overdue ? "yes" : "no") : "",

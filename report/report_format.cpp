@@ -132,4 +132,19 @@ std::string item_title(const std::string& item) {
   return out;
 }
 
+std::string short_reason(const std::string& reason, std::size_t max_chars) {
+  std::string s = reason;
+  for (const char* stop : {"; ", ". "})
+    if (auto p = s.find(stop); p != std::string::npos) s.resize(p);
+  while (!s.empty() && (s.back() == '.' || s.back() == ' ')) s.pop_back();
+  if (s.size() <= max_chars) return s;
+  std::size_t cut = s.rfind(' ', max_chars - 1);
+  if (cut == std::string::npos || cut < max_chars / 2) cut = max_chars - 1;
+  // Never inside a UTF-8 sequence.
+  while (cut > 0 && (static_cast<unsigned char>(s[cut]) & 0xC0) == 0x80) --cut;
+  s.resize(cut);
+  while (!s.empty() && (s.back() == ',' || s.back() == ' ')) s.pop_back();
+  return s + "…";
+}
+
 }  // namespace ferrum::report

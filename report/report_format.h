@@ -44,5 +44,8 @@ std::string gas_label(const std::string& gas);        // "C2H2" -> "C₂H₂"
 std::string rating_title(analytics::Rating r);        // very_poor -> "very poor"
 std::string item_title(const std::string& item);       // "cooling_fans_and_pumps" -> "cooling fans and pumps"
 std::string priority_title(int priority);             // 1 -> "P1 urgent"
+// A reason for a list's narrow "Why" column: its first sentence (up to "; "
+// or ". "), cut at a word to at most `max_chars` with "…" when longer.
+std::string short_reason(const std::string& reason, std::size_t max_chars = 90);
 
 }  // namespace ferrum::report

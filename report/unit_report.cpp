@@ -91,11 +91,19 @@ void health_block(PageFlow& flow, const UnitAssessment& a, const UnitAssessment*
   y = flow.draw_wrapped(headline, tx, y, tw, 10, FontFace::bold);
   // A correctable finding holds the index down: the band's expected life would
   // contradict the remaining life, so the line says what holds it instead.
+  // Likewise the band's generic expected life never stands beside the unit's
+  // own remaining-life estimate.
   if (!a.decision.index_note.empty())
     y = flow.draw_wrapped("Held down by a correctable finding (see the recommendation below); the remaining life "
                           "comes from end-of-life evidence only.", tx, y, tw, 7.8, FontFace::regular);
+  else if (a.remaining_life.years)
+    // The unit's own estimate (the remaining-life line below) governs; the
+    // band's generic expectation could contradict it, so it is not printed.
+    y = flow.draw_wrapped("Remaining life: this unit's own estimate, below.", tx, y, tw, 7.8, FontFace::regular);
   else if (!a.band_expected_life.empty())
-    y = flow.draw_wrapped("Expected life in this band: " + a.band_expected_life, tx, y, tw, 7.8, FontFace::regular);
+    y = flow.draw_wrapped("Typical life left in this band: " + a.band_expected_life +
+                              " (no estimate of this unit's own: too little data)",
+                          tx, y, tw, 7.8, FontFace::regular);
   if (!a.confidence.empty()) y = flow.draw_wrapped("Basis: " + a.confidence, tx, y, tw, 7.8, FontFace::regular, palette::muted);
   if (previous) flow.draw_wrapped("Hollow marker: previous report (" + fmt_day(previous->as_of) + ")", tx, y, tw, 7, FontFace::regular, palette::muted);
 }
@@ -123,12 +131,30 @@ void remaining_life_line(PageFlow& flow, const UnitAssessment& a) {
   flow.paragraph("Recommended: " + action_text(d.action, d.year) + (d.treatment.empty() ? "" : " (" + d.treatment + ")"),
                  9.2, FontFace::bold);
   flow.paragraph(d.reason, type::body);
+  // The fleet's budget plan may fund a replacement or refurbishment later than
+  // the year above (analytics/plan): say so where it does, or where this
+  // report could not know.
+  using S = analytics::PlanSchedule::State;
+  const auto& plan = a.budget_plan;
+  if (plan.state == S::later && plan.year)
+    flow.paragraph("The fleet's budget-constrained plan funds this " + d.action + " in " + std::to_string(*plan.year) +
+                       ", later than the year above, because the yearly budget does not reach it sooner (see the plan "
+                       "in the fleet report).",
+                   type::body, FontFace::bold);
+  else if (plan.state == S::unfunded)
+    flow.paragraph("The fleet's budget-constrained plan does not fund this " + d.action + " by " +
+                       std::to_string(plan.last_year) + ", the plan's last year (see the plan in the fleet report).",
+                   type::body, FontFace::bold);
+  else if (plan.state == S::not_known)
+    flow.paragraph("The fleet's budget-constrained plan may fund this " + d.action + " later than the year above: "
+                   "see the plan in the fleet report.",
+                   type::body);
   if (!d.index_note.empty()) flow.paragraph(d.index_note, type::body);
 }
 
 void actions_table(PageFlow& flow, const UnitAssessment& a) {
-  flow.subsection("What to do: prioritized actions");
   if (a.actions.empty()) {
+    flow.subsection("What to do: prioritized actions");
     no_data_note(flow, "No actions: continue routine maintenance and sampling.");
     return;
   }
@@ -154,6 +180,9 @@ void actions_table(PageFlow& flow, const UnitAssessment& a) {
     t.rows.push_back({priority_title(act.priority), found, due, action, act.reason, crew});
     t.emphasis.push_back(act.priority == 1 || act.overdue);
   }
+  // The heading keeps the table's header and first row with it: never a
+  // heading with nothing under it above the page's safety block.
+  flow.subsection("What to do: prioritized actions", flow.table_start_height(t));
   flow.table(t);
 }
 

@@ -3,6 +3,7 @@
 // samples and inspections, then the list of the bundle's unit reports.
 #include <algorithm>
 
+#include "report/decision_text.h"
 #include "report/fleet_report.h"
 #include "report/pdf_document.h"
 #include "report/report_format.h"
@@ -26,10 +27,11 @@ void due_table(PageFlow& flow, const std::string& title, const std::vector<Plann
   flow.section(title, 40);
   if (list.empty()) return none(flow, "None.");
   Table t;
-  t.columns = {{"Due", 1.0}, {"Unit", 0.8}, {"Site", 1.2}, {"Prio", 0.4, Align::right}, {"Action", 4.0}};
+  t.columns = {{"Due", 1.0}, {"Unit", 0.8}, {"Site", 1.2}, {"Prio", 0.4, Align::right}, {"Action", 2.7}, {"Why", 1.9}};
   for (const auto& a : list) {
     const std::string state = a.booked ? " booked " + analytics::format_day(a.booked) : a.due < as_of ? " overdue" : "";
-    t.rows.push_back({analytics::format_day(a.due) + state, a.unit_id, a.site, std::to_string(a.priority), a.text});
+    t.rows.push_back({analytics::format_day(a.due) + state, a.unit_id, a.site, std::to_string(a.priority), a.text,
+                      a.reason.empty() ? kNoValue : short_reason(a.reason)});
     t.emphasis.push_back((!a.booked && a.due < as_of) || a.priority == 1);
   }
   flow.table(t);
@@ -56,13 +58,22 @@ void render_weekly_index(const std::string& week_label, const analytics::FleetRa
 
   work_list_section(flow, week.work_list, week.as_of, kCoverWorkListRows);
 
-  flow.section("Units needing action (fleet ranking)", 40);
+  flow.section("Units needing action (fleet ranking: most at risk first)", 40);
   if (week.needing_action.empty()) none(flow, "None: every ranked unit is on routine maintenance.");
   else {
     Table t;
-    t.columns = {{"Unit", 0.8}, {"Site", 1.2}, {"Recommended action", 2.0}, {"By", 0.6, Align::right}};
-    for (const auto& u : week.needing_action)
-      t.rows.push_back({u.unit_id, u.site, u.action, u.year ? std::to_string(*u.year) : kNoValue});
+    // The budget plan's year only where the plan funds the action later
+    // (analytics::apply_plan); no column when it keeps every year.
+    const bool any_plan = std::any_of(week.needing_action.begin(), week.needing_action.end(),
+                                      [](const auto& u) { return !plan_note(u.budget_plan).empty(); });
+    t.columns = {{"Unit", 0.8}, {"Site", 1.2}, {"Action", 0.9}, {"By", 0.5, Align::right}, {"Why", 3.6}};
+    if (any_plan) t.columns.push_back({"Budget plan", 1.1});
+    for (const auto& u : week.needing_action) {
+      t.rows.push_back({u.unit_id, u.site, u.action, u.year ? std::to_string(*u.year) : kNoValue,
+                        u.reason.empty() ? kNoValue : short_reason(u.reason, 140)});
+      const std::string plan = plan_note(u.budget_plan);  // "budget plan: 2029"
+      if (any_plan) t.rows.back().push_back(plan.empty() ? "" : plan.substr(plan.find(": ") + 2));
+    }
     flow.table(t);
   }
 
@@ -80,7 +91,7 @@ void render_weekly_index(const std::string& week_label, const analytics::FleetRa
   if (week.alerts.empty()) none(flow, "None.");
   else {
     Table t;
-    t.columns = {{"Raised (UTC)", 1.9}, {"Unit", 0.8}, {"Kind", 1.2}, {"Alert", 3.6}};
+    t.columns = {{"Raised (site time)", 1.9}, {"Unit", 0.8}, {"Kind", 1.2}, {"Alert", 3.6}};
     for (const auto& a : week.alerts) t.rows.push_back({a.raised_at, a.unit_id, a.kind, a.text});
     t.emphasis.assign(t.rows.size(), true);
     flow.table(t);
@@ -109,8 +120,9 @@ void render_weekly_index(const std::string& week_label, const analytics::FleetRa
       t.rows.push_back({d.unit_id, d.site, d.what, d.last ? analytics::format_day(*d.last) : std::string("never")});
     flow.table(t);
   }
-  flow.paragraph("Oil samples and infrared surveys are counted overdue after a year, inspections after "
-                 "[analysis] inspection_interval_days.", type::small, FontFace::regular, palette::muted);
+  flow.paragraph("Oil samples and infrared surveys are counted overdue after a year, inspections after the "
+                     "site's inspection interval (" + std::to_string(week.inspection_interval_days) + " days).",
+                 type::small, FontFace::regular, palette::muted);
 
   flow.section("Reports in this bundle", 40);
   if (unit_report_files.empty()) {

@@ -64,7 +64,7 @@ void work_list_section(PageFlow& flow, const std::vector<analytics::WorkListRow>
   // The reference sits under the action (as in the unit report): a column of
   // its own would break long references mid-word.
   t.columns = {{"Due", 0.9},  {"State", 0.9},  {"Found", 0.9}, {"Outage", 0.62}, {"Crew", 1.05},
-               {"Unit", 0.7}, {"Site", 0.85}, {"Action and reference", 3.45}};
+               {"Unit", 0.7}, {"Site", 0.85}, {"Action and reference", 2.6}, {"Why", 1.6}};
   const std::size_t n = max_rows == 0 ? rows.size() : std::min(rows.size(), max_rows);
   for (std::size_t i = 0; i < n; ++i) {
     const auto& r = rows[i];
@@ -72,7 +72,8 @@ void work_list_section(PageFlow& flow, const std::vector<analytics::WorkListRow>
     t.rows.push_back({day_or_empty(r.due), state.empty() ? kNoValue : state,
                       r.found == 0 ? kNoValue : analytics::format_day(r.found), r.outage ? "yes" : "no",
                       r.crew.empty() ? kNoValue : r.crew, r.unit_id, r.site,
-                      r.reference.empty() ? r.text : r.text + "\nref. " + r.reference});
+                      r.reference.empty() ? r.text : r.text + "\nref. " + r.reference,
+                      r.reason.empty() ? kNoValue : short_reason(r.reason)});
     t.emphasis.push_back(r.overdue || r.priority == 1);
   }
   flow.table(t);

@@ -354,6 +354,11 @@ std::vector<Action> decision_actions(const DecisionOptions& o, const UnitAssessm
   for (const auto& d : {a.oil.sample_date, a.paper.sample_date})
     if (d && (!last_oil || *d > *last_oil)) last_oil = d;
   const Day sampled = last_oil.value_or(a.as_of);
+  // The sampling interval the gases call for (IEEE C57.104-2008 Table 3,
+  // computed in the oil assessment) governs the resampling below; six months
+  // only where the table gives none.
+  const bool table3 = a.dga.c57104_2008_interval_days && !a.dga.c57104_2008_interval.empty();
+  const std::string table3_interval = table3 ? a.dga.c57104_2008_interval + ", IEEE C57.104 Table 3" : "";
   if (d.action == "replace" && d.year) {
     const double life = a.remaining_life.years.value_or(0);
     const Day in_service = days_after(a.as_of, std::max(life, lead_years(o)));
@@ -372,9 +377,11 @@ std::vector<Action> decision_actions(const DecisionOptions& o, const UnitAssessm
     out.push_back(dated_action(3, a.as_of, static_cast<int>(in_service - a.as_of),
                                "Replace the transformer (in service by " + std::to_string(*d.year) + ")", d.reason,
                                kSourceRegister, "replace", kCrewEngineering));
-    out.push_back(dated_action(3, sampled, o.monitor_due_days,
-                               "Until the replacement: resample the oil for DGA every six months and keep the load "
-                               "within nameplate",
+    out.push_back(dated_action(3, sampled, table3 ? *a.dga.c57104_2008_interval_days : o.monitor_due_days,
+                               "Until the replacement: resample the oil for DGA " +
+                                   (table3 ? "at the interval the gases call for (" + table3_interval + ")"
+                                           : std::string("every six months")) +
+                                   " and keep the load within nameplate",
                                "manage the risk until the new unit is in service", last_oil ? kSourceOilSample : kSourceRegister, "oil-resample",
                                kCrewOilSampling));
   } else if (d.action == "refurbish" && !d.treatment.empty()) {
@@ -388,8 +395,12 @@ std::vector<Action> decision_actions(const DecisionOptions& o, const UnitAssessm
                                "Investigate the low health index with diagnostic tests", d.reason, kSourceRegister,
                                "index-investigate", kCrewEngineering));
   } else if (d.action == "monitor") {
+    // The surveys within six months; the oil as the gases call for (above).
     out.push_back(dated_action(3, sampled, o.monitor_due_days,
-                               "Monitor: resample the oil and repeat the surveys within six months", d.reason,
+                               table3 ? "Monitor: resample the oil at the interval the gases call for (" +
+                                            table3_interval + ") and repeat the surveys within six months"
+                                      : std::string("Monitor: resample the oil and repeat the surveys within six months"),
+                               d.reason,
                                last_oil ? kSourceOilSample : kSourceRegister, "oil-resample", kCrewOilSampling));
   }
   return out;

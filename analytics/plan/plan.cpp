@@ -405,4 +405,42 @@ FleetPlan plan_fleet(const std::vector<PlanUnit>& units, Day as_of, const CostOp
   return plan;
 }
 
+namespace {
+
+// The plan's interventions by unit, for looking up a fleet's units in one pass.
+struct PlanIndex {
+  std::map<std::string, std::pair<int, std::string>> funded;  // unit -> (year, action)
+  std::vector<std::string> unfunded;                          // sorted
+  explicit PlanIndex(const FleetPlan& plan) : unfunded(plan.unfunded) {
+    for (const auto& y : plan.years)
+      for (const auto& f : y.funded) funded.emplace(f.unit_id, std::make_pair(y.year, f.action));
+    std::sort(unfunded.begin(), unfunded.end());
+  }
+};
+
+PlanSchedule schedule_in(const FleetPlan& plan, const PlanIndex& index, const std::string& unit_id,
+                         const std::string& action, std::optional<int> action_year) {
+  PlanSchedule s;
+  if (action != "replace" && action != "refurbish") return s;
+  s.last_year = plan.start_year + plan.horizon_years - 1;
+  // Its first year as a candidate (plan.h: never before the plan's first year).
+  const int first = std::max(plan.start_year, action_year.value_or(plan.start_year));
+  auto it = index.funded.find(unit_id);
+  if (it != index.funded.end() && it->second.second == action) {
+    s.year = it->second.first;
+    s.state = *s.year > first ? PlanSchedule::State::later : PlanSchedule::State::on_time;
+  } else if (std::binary_search(index.unfunded.begin(), index.unfunded.end(), unit_id)) {
+    s.state = PlanSchedule::State::unfunded;
+  }
+  return s;
+}
+
+}  // namespace
+
+void apply_plan(FleetRanking& ranking, const FleetPlan& plan) {
+  const PlanIndex index(plan);  // one pass over the plan, not one per unit
+  for (auto& u : ranking.units)
+    u.budget_plan = schedule_in(plan, index, u.unit_id, u.recommended_action, u.action_year);
+}
+
 }  // namespace ferrum::analytics

@@ -82,6 +82,7 @@
 #include <string>
 #include <vector>
 
+#include "analytics/assessment.h"
 #include "analytics/calendar.h"
 
 namespace ferrum::analytics {
@@ -188,5 +189,13 @@ std::string plan_title(int horizon_years);
 
 // The plan. Never drops a unit: those without an index are in not_planned.
 FleetPlan plan_fleet(const std::vector<PlanUnit>& units, Day as_of, const CostOptions& costs, const PlanOptions& options);
+
+// Sets every ranked unit's budget_plan from `plan` (made from this ranking):
+// for a unit whose action is replace or refurbish, on time when the plan funds
+// it in the first year it was a candidate (the later of the action's year and
+// the plan's first year), later when funded after that, unfunded when still
+// waiting at the end of the plan; State::none otherwise. So the ranking never
+// shows an action year the plan does not keep without the plan's year beside it.
+void apply_plan(FleetRanking& ranking, const FleetPlan& plan);
 
 }  // namespace ferrum::analytics

@@ -99,7 +99,10 @@ std::string site_timestamp(std::int64_t utc_seconds, const SiteTimeZone& zone) {
                 static_cast<int>(sod / 3600), static_cast<int>(sod / 60 % 60), static_cast<int>(sod % 60),
                 local.abbreviation.c_str(), local.offset_seconds < 0 ? '-' : '+', static_cast<int>(off / 3600),
                 static_cast<int>(off / 60 % 60));
-  return buf;
+  std::string out = buf;
+  // "UTC (UTC+00:00)" says one thing twice: the offset only for other zones.
+  if (local.offset_seconds == 0 && local.abbreviation == "UTC") out.resize(out.find(" ("));
+  return out;
 }
 
 std::string site_timestamp_of_stored(const std::string& stored_utc, const SiteTimeZone& zone) {

@@ -44,7 +44,8 @@ class SiteTimeZone {
   std::size_t initial_type_ = 0;           // before the first transition
 };
 
-// "2026-11-30 07:10:05 CET (UTC+01:00)": the one timestamp of alerts in site time.
+// "2026-11-30 07:10:05 CET (UTC+01:00)": the one timestamp of alerts in site
+// time; in UTC itself "2026-11-30 06:10:05 UTC", without the offset.
 std::string site_timestamp(std::int64_t utc_seconds, const SiteTimeZone& zone);
 // The same for a time as the store keeps it ("2026-11-30T06:10:05Z", UTC, so
 // that it sorts); anything else is returned as stored.

@@ -93,6 +93,9 @@ WeeklyQueued queue_weekly(Outbox& outbox, const config::SiteConfig& config, cons
     unit_reports_by_site[site].push_back(p);
   }
   const std::string summary = read_or(dir / "summary.txt", "(the summary of this week is in index.pdf)\n");
+  // summary.txt opens with the caution itself (report::planner_week_text); an
+  // older bundle's, or the stand-in, gets it here: once, first, either way.
+  const std::string lead = summary.rfind(report::one_line_caution(), 0) == 0 ? "" : opening();
   for (const auto& [name, r] : config.recipients) {
     if (!r.wants("weekly") && !r.wants("fleet")) continue;
     std::vector<fs::path> attach;
@@ -112,7 +115,7 @@ WeeklyQueued queue_weekly(Outbox& outbox, const config::SiteConfig& config, cons
     m.id = "weekly-" + id_part(label) + "-" + id_part(name);
     m.to = r.email;
     m.subject = config.mail.subject_prefix + " weekly " + label + ": " + config.utility_name;
-    m.body = opening() + summary + "\nAttached: " + what + ", and the week's cover page (index.pdf).\n\n" +
+    m.body = lead + summary + "\nAttached: " + what + ", and the week's cover page (index.pdf).\n\n" +
              config.utility_name + " - ferrum\n";
     attach_or_list(m, attach, config.mail.max_bytes);
     (outbox.enqueue(config.mail, m, now) ? out.queued : out.already).push_back(name);

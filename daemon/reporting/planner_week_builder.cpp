@@ -6,6 +6,8 @@
 #include <map>
 #include <sstream>
 
+#include "report/safety_text.h"
+
 namespace fs = std::filesystem;
 
 namespace ferrum::reporting {
@@ -23,6 +25,7 @@ std::map<std::string, Row> parse_tsv(const std::string& text) {
   std::map<std::string, Row> out;
   std::istringstream in(text);
   for (std::string line; std::getline(in, line);) {
+    if (!line.empty() && line[0] == '#') continue;  // the caution (week_units_tsv)
     std::vector<std::string> f;
     std::istringstream ls(line);
     for (std::string x; std::getline(ls, x, '\t');) f.push_back(x);
@@ -35,6 +38,7 @@ std::map<std::string, Row> parse_tsv(const std::string& text) {
 
 std::string week_units_tsv(const analytics::FleetRanking& ranking) {
   std::ostringstream o;
+  o << report::csv_caution_line() << "\n";  // a comment line: readers skip lines that open with '#'
   auto clean = [](std::string s) {
     std::replace(s.begin(), s.end(), '\t', ' ');
     std::replace(s.begin(), s.end(), '\n', ' ');
@@ -67,22 +71,20 @@ report::PlannerWeek build_planner_week(const PlannerWeekInputs& in) {
   w.week_label = in.week_label;
   w.as_of = in.as_of;
   w.units = static_cast<int>(in.units->size());
-  // Units the decision (analytics/decision) recommends acting on, most
-  // urgent kind first; "routine" units are not listed.
-  auto urgency = [](const std::string& a) {
-    return a == "replace" ? 0 : a == "repair" ? 1 : a == "investigate" ? 2 : a == "refurbish" ? 3 : a == "monitor" ? 4 : 5;
-  };
+  w.inspection_interval_days = in.inspection_interval_days;
+  // Units the decision (analytics/decision) recommends acting on, in the
+  // fleet ranking's order: most at risk first, equal risk by unit id, units
+  // without enough data for a risk last (analytics/fleet_ranking.h); the
+  // routine ones are not listed.
   for (const auto& u : in.ranking->units)
-    if (urgency(u.recommended_action) < 5)
-      w.needing_action.push_back({u.unit_id, u.site, u.recommended_action, u.action_year});
-  std::stable_sort(w.needing_action.begin(), w.needing_action.end(),
-                   [&](const auto& x, const auto& y) { return urgency(x.action) < urgency(y.action); });
+    if (!u.recommended_action.empty() && u.recommended_action != "routine")
+      w.needing_action.push_back({u.unit_id, u.site, u.recommended_action, u.action_year, u.action_reason, u.budget_plan});
   // Actions due: within 7 days (overdue included) and in 8..30 days.
   for (const auto& a : *in.units)
     for (const auto& act : a.actions) {
       if (act.due > in.as_of + 30) continue;
       report::PlannerWeek::DueAction d{act.due, act.priority, a.unit.unit_id, a.unit.site, act.text,
-                                       act.status == "booked" ? act.work_date : 0};
+                                       act.status == "booked" ? act.work_date : 0, act.reason};
       (act.due <= in.as_of + 7 ? w.due_7 : w.due_30).push_back(d);
     }
   w.work_list = analytics::work_list(*in.units);

@@ -26,7 +26,9 @@ struct PlannerWeekInputs {
 
 report::PlannerWeek build_planner_week(const PlannerWeekInputs& in);
 
-// week.tsv of a bundle: "unit_id\tsite\thealth_index\tband\taction" per unit.
+// week.tsv of a bundle: the caution as a comment line ("# SAFETY: ..."), then
+// "unit_id\tsite\thealth_index\tband\taction" per unit. Lines that open with
+// '#' are comments.
 std::string week_units_tsv(const analytics::FleetRanking& ranking);
 
 // The newest earlier bundle's week.tsv under `reports` (folders YYYY-Www

@@ -8,9 +8,11 @@
 #include <chrono>
 #include <cstdio>
 #include <fstream>
+#include <map>
 
 #include "daemon/assess/assessment_service.h"
 #include "daemon/assess/plan_service.h"
+#include "daemon/assess/ranking_cache.h"
 #include "daemon/config/plan_config.h"
 #include "daemon/pipeline/held_back_record.h"
 #include "daemon/site/atomic_file.h"
@@ -143,6 +145,7 @@ fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as
   analytics::UnitAssessment current = analytics::assess_unit(data_as_of(data, as_of), as_of, options_);
   const auto sites = site_of(current, as_of);
   analytics::apply_site_view(current, sites);
+  current.budget_plan = unit_plan_schedule(current, as_of);
   const analytics::Day previous_day = previous_report_day(store_, unit_id, as_of);
   const fs::path path =
       render_unit_file(store_, current, data, as_of, previous_day, sites, options_, report_options(config_), out_dir);
@@ -181,7 +184,9 @@ std::vector<fs::path> ReportWriter::unit_reports(const std::vector<analytics::Un
 ReportWriter::FleetFiles ReportWriter::fleet_report(analytics::Day as_of, const fs::path& out_dir) {
   auto units = assess::assess_fleet_parallel(store_, as_of, options_, progress_);
   const auto sites = assess::apply_site_view(units, config_);
-  return fleet_files(units, rank(units, as_of), sites, as_of, out_dir);
+  auto ranking = rank(units, as_of);
+  const report::PlanSection plan = plan_section(ranking, as_of);
+  return fleet_files(units, ranking, plan, sites, as_of, out_dir);
 }
 
 std::vector<analytics::SiteView> ReportWriter::site_of(const analytics::UnitAssessment& unit, analytics::Day as_of) {
@@ -192,14 +197,35 @@ std::vector<analytics::SiteView> ReportWriter::site_of(const analytics::UnitAsse
   return analytics::site_view(peers, assess::site_view_options_from_config(config_));
 }
 
-report::PlanSection ReportWriter::plan_section(const analytics::FleetRanking& ranking, analytics::Day as_of) {
+report::PlanSection ReportWriter::plan_section(analytics::FleetRanking& ranking, analytics::Day as_of) {
   report::PlanSection s;
   s.configured = config::plan_configured(config_);
   s.horizon_years = assess::plan_settings_from_config(config_).options.horizon_years;
   if (s.configured)
     s.plan = assess::make_plan(assess::plan_units(ranking, store_.units()), as_of, config_, std::nullopt, std::nullopt,
                               &s.unavailable);
+  if (s.plan) analytics::apply_plan(ranking, *s.plan);
   return s;
+}
+
+analytics::PlanSchedule ReportWriter::unit_plan_schedule(const analytics::UnitAssessment& unit, analytics::Day as_of) {
+  analytics::PlanSchedule none;
+  if (unit.decision.action != "replace" && unit.decision.action != "refurbish") return none;
+  if (!config::plan_configured(config_)) return none;
+  analytics::PlanSchedule unknown;
+  unknown.state = analytics::PlanSchedule::State::not_known;
+  // The plan is the fleet's: without the fleet's current ranking inputs it
+  // would take assessing every unit, which one unit's report does not do.
+  auto inputs = assess::read_ranking_cache(root_, assess::ranking_cache_key(root_, store_, as_of));
+  if (!inputs) return unknown;
+  assess::apply_site_view(*inputs, config_);
+  auto ranking = rank(*inputs, as_of);
+  if (!plan_section(ranking, as_of).plan) return unknown;
+  for (const auto& r : ranking.units)
+    if (r.unit_id == unit.unit.unit_id && r.recommended_action == unit.decision.action &&
+        r.action_year == unit.decision.year)
+      return r.budget_plan;
+  return unknown;  // the cached assessment of the unit differs from this one
 }
 
 analytics::FleetRanking ReportWriter::rank(const std::vector<analytics::UnitAssessment>& units, analytics::Day as_of) {
@@ -208,6 +234,7 @@ analytics::FleetRanking ReportWriter::rank(const std::vector<analytics::UnitAsse
 
 ReportWriter::FleetFiles ReportWriter::fleet_files(const std::vector<analytics::UnitAssessment>& units,
                                                    const analytics::FleetRanking& ranking,
+                                                   const report::PlanSection& plan,
                                                    const std::vector<analytics::SiteView>& sites, analytics::Day as_of,
                                                    const fs::path& out_dir) {
   std::vector<std::string> alerts;
@@ -217,7 +244,6 @@ ReportWriter::FleetFiles ReportWriter::fleet_files(const std::vector<analytics::
   FleetFiles f;
   f.pdf = out_dir / ("ferrum-fleet-" + analytics::format_day(as_of) + ".pdf");
   f.csv = out_dir / ("ferrum-fleet-" + analytics::format_day(as_of) + ".csv");
-  const report::PlanSection plan = plan_section(ranking, as_of);
   f.sites_csv = out_dir / ("ferrum-fleet-sites-" + analytics::format_day(as_of) + ".csv");
   report::render_fleet_report(ranking, units, alerts, report_options(config_), f.pdf.string(), &plan, &sites);
   site::write_file_atomically(f.csv, report::fleet_ranking_csv(ranking));
@@ -238,12 +264,21 @@ fs::path ReportWriter::weekly_bundle(analytics::Day as_of) {
   // reports' site lines.
   auto units = assess::assess_fleet_parallel(store_, as_of, options_, progress_);
   const auto sites = assess::apply_site_view(units, config_);
+  // The ranking and the budget plan first: each unit report says where the
+  // plan puts the unit's action, as the ranking does.
+  auto ranking = rank(units, as_of);
+  const report::PlanSection plan = plan_section(ranking, as_of);
+  {
+    std::map<std::string, const analytics::PlanSchedule*> by_unit;
+    for (const auto& r : ranking.units) by_unit[r.unit_id] = &r.budget_plan;
+    for (auto& u : units)
+      if (auto it = by_unit.find(u.unit.unit_id); it != by_unit.end()) u.budget_plan = *it->second;
+  }
   // The unit reports reuse that assessment as their current view.
   std::vector<std::pair<std::string, std::string>> unit_files;
   const auto paths = unit_reports(units, sites, as_of, scratch);
   for (std::size_t i = 0; i < units.size(); ++i) unit_files.emplace_back(units[i].unit.unit_id, paths[i].filename().string());
-  const auto ranking = rank(units, as_of);
-  fleet_files(units, ranking, sites, as_of, scratch);
+  fleet_files(units, ranking, plan, sites, as_of, scratch);
   // The planner's week: on the cover, as summary.txt (the weekly mail's
   // body) and week.tsv (what the next week compares with).
   PlannerWeekInputs in;

@@ -57,11 +57,18 @@ class ReportWriter {
 
  private:
   analytics::FleetRanking rank(const std::vector<analytics::UnitAssessment>& units, analytics::Day as_of);
-  // The ten-year plan of the fleet report, when ferrum.ini [plan] sets a budget.
-  report::PlanSection plan_section(const analytics::FleetRanking& ranking, analytics::Day as_of);
+  // The ten-year plan of the fleet report, when ferrum.ini [plan] sets a
+  // budget; marks each ranked unit with where the plan puts its action
+  // (analytics::apply_plan), so that every list of the ranking shows it.
+  report::PlanSection plan_section(analytics::FleetRanking& ranking, analytics::Day as_of);
   FleetFiles fleet_files(const std::vector<analytics::UnitAssessment>& units, const analytics::FleetRanking& ranking,
-                         const std::vector<analytics::SiteView>& sites, analytics::Day as_of,
-                         const std::filesystem::path& out_dir);
+                         const report::PlanSection& plan, const std::vector<analytics::SiteView>& sites,
+                         analytics::Day as_of, const std::filesystem::path& out_dir);
+  // Where the budget plan puts one unit's action, for its report alone: from
+  // the ranking inputs of the last whole-fleet assessment when they are still
+  // current (daemon/assess/ranking_cache.h), else not_known (or none when no
+  // plan is configured).
+  analytics::PlanSchedule unit_plan_schedule(const analytics::UnitAssessment& unit, analytics::Day as_of);
   // The site view of the unit's site, by assessing the site's units.
   std::vector<analytics::SiteView> site_of(const analytics::UnitAssessment& unit, analytics::Day as_of);
   // The weekly bundle's unit reports, one per assessment (site view applied),

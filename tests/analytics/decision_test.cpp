@@ -155,6 +155,26 @@ TEST(DecisionMatrix, EndOfLifePaperIsReplacedAfterTheLeadTime) {
   EXPECT_TRUE(replace_in_year);  // the unit report's action falls in the ranking's year
 }
 
+// Until the replacement the oil is resampled at the interval the gases call
+// for (IEEE C57.104-2008 Table 3: Condition 1, TDCG rate < 10 ppm/day,
+// annual), not a fixed six months beside it; without a Table 3 interval, six
+// months (ferrum default, common practice, no published source).
+TEST(DecisionMatrix, ResamplingUntilTheReplacementFollowsTheTable3Interval) {
+  auto a = story(1968, 230, [](fa::UnitAssessment& u) {
+    u.dga.sample_date = kAsOf - 30;
+    u.dga.c57104_2008_interval = "annual";
+    u.dga.c57104_2008_interval_days = 365;
+  });
+  ASSERT_EQ(a.decision.action, "replace");
+  const fa::Action* resample = nullptr;
+  for (const auto& act : a.actions)
+    if (act.need == "oil-resample") resample = &act;
+  ASSERT_NE(resample, nullptr);
+  EXPECT_NE(resample->text.find("(annual, IEEE C57.104 Table 3)"), std::string::npos) << resample->text;
+  EXPECT_EQ(resample->text.find("six months"), std::string::npos);
+  EXPECT_EQ(resample->due, kAsOf - 30 + 365);
+}
+
 // Hot thermal fault in oil (Duval T3, Condition 3, Status 3) in a young unit:
 // investigate and repair the fault (IEEE C57.104-2019 operating procedures).
 TEST(DecisionMatrix, YoungUnitWithThermalFaultIsInvestigated) {

@@ -461,5 +461,86 @@ TEST(PlanProperties, WithAnUnlimitedBudgetEveryCandidateIsFundedInItsFirstYear) 
   }
 }
 
+
+// The ranking shows the plan's year beside a replace or refurbish action the
+// budget moves later (analytics::apply_plan). Hand-computed fleet: A and B
+// both "replace by 2026", each 10 MVA at 132 kV = 600,000 (test_costs); a
+// budget of 600,000 a year funds one a year; A (HI 20) removes more risk per
+// unit of money than B (HI 40), so A is funded in 2026 and B waits to 2027.
+// Plan arithmetic as plan.h defines it; the costs are invented round numbers
+// (no published source applies).
+RankedUnit ranked(const PlanUnit& u) {
+  RankedUnit r;
+  r.unit_id = u.unit_id;
+  r.recommended_action = u.action;
+  r.action_year = u.action_year;
+  return r;
+}
+
+TEST(PlanOnRanking, ADeferredActionCarriesThePlansYear) {
+  const std::vector<PlanUnit> units = {unit("A", 20, 2, "replace", 10, 132, 1), unit("B", 40, 3, "replace", 10, 132, 1),
+                                       unit("C", 60, 30, "monitor", 10, 132, 1),
+                                       unit("D", 30, 2, "refurbish", 10, 132, 1, 2040)};
+  const auto plan = plan_fleet(units, kAsOf, test_costs(), three_years(600000));
+  FleetRanking ranking;
+  for (const auto& u : units) ranking.units.push_back(ranked(u));
+  apply_plan(ranking, plan);
+  using S = PlanSchedule::State;
+  EXPECT_EQ(ranking.units[0].budget_plan.state, S::on_time);
+  EXPECT_EQ(ranking.units[0].budget_plan.year, 2026);
+  EXPECT_EQ(ranking.units[1].budget_plan.state, S::later);
+  EXPECT_EQ(ranking.units[1].budget_plan.year, 2027);
+  EXPECT_EQ(ranking.units[1].budget_plan.last_year, 2028);
+  EXPECT_EQ(ranking.units[2].budget_plan.state, S::none);  // monitor: not an action the plan moves
+  EXPECT_EQ(ranking.units[3].budget_plan.state, S::none);  // refurbish by 2040: beyond the plan's years
+
+  // Budget 0: nothing is funded; both replacements wait past the plan's end.
+  const auto none = plan_fleet(units, kAsOf, test_costs(), three_years(0));
+  apply_plan(ranking, none);
+  EXPECT_EQ(ranking.units[0].budget_plan.state, S::unfunded);
+  EXPECT_EQ(ranking.units[1].budget_plan.state, S::unfunded);
+  EXPECT_FALSE(ranking.units[1].budget_plan.year);
+}
+
+// For any fleet and budget, what the ranking says of the plan is what the plan
+// does: "later" exactly when the plan funds the unit's own action after its
+// first year as a candidate, and never with an unlimited budget (guarantee 4).
+// Plumbing over the plan's own result: no published source applies.
+TEST(PlanOnRanking, RankingAndPlanAgreeForAnyFleet) {
+  std::mt19937 rng(71);
+  for (int trial = 0; trial < 200; ++trial) {
+    const auto units = random_fleet(rng, 12);
+    auto o = random_options(rng);
+    for (double budget : {0.0, 5e5, 2e6, std::numeric_limits<double>::infinity()}) {
+      o.budget_per_year = budget;
+      const auto plan = plan_fleet(units, kAsOf, test_costs(), o);
+      FleetRanking ranking;
+      for (const auto& u : units) ranking.units.push_back(ranked(u));
+      apply_plan(ranking, plan);
+      const auto first = first_years(units, o);
+      for (std::size_t i = 0; i < units.size(); ++i) {
+        const auto& s = ranking.units[i].budget_plan;
+        std::optional<int> funded_year;
+        for (const auto& y : plan.years)
+          for (const auto& f : y.funded)
+            if (f.unit_id == units[i].unit_id && f.action == units[i].action) funded_year = y.year;
+        const bool planned_action = units[i].action == "replace" || units[i].action == "refurbish";
+        if (!planned_action || !first.count(units[i].unit_id)) {
+          EXPECT_EQ(s.state, PlanSchedule::State::none);
+          continue;
+        }
+        const int from = first.at(units[i].unit_id);
+        if (funded_year) {
+          EXPECT_EQ(s.year, funded_year);
+          EXPECT_EQ(s.state, *funded_year > from ? PlanSchedule::State::later : PlanSchedule::State::on_time);
+        } else {
+          EXPECT_EQ(s.state, PlanSchedule::State::unfunded);
+        }
+        if (std::isinf(budget)) EXPECT_NE(s.state, PlanSchedule::State::later);
+      }
+    }
+  }
+}
+
 }  // namespace
 }  // namespace ferrum::analytics

@@ -9,6 +9,7 @@
 #include <fstream>
 
 #include "daemon/reporting/planner_week_builder.h"
+#include "report/safety_text.h"
 
 using namespace ferrum;
 
@@ -54,7 +55,7 @@ TEST(PlannerWeek, ActionsChangesAlertsFilesAndOverdue) {
   in.as_of = today;
   in.units = &units;
   in.ranking = &ranking;
-  in.previous_week_tsv = "T1\tQuillmere\t62\tfair\tmonitor\nT2\tOstrand Yard\t80\tgood\troutine\n";
+  in.previous_week_tsv = report::csv_caution_line() + "\nT1\tQuillmere\t62\tfair\tmonitor\nT2\tOstrand Yard\t80\tgood\troutine\n";
   store::Alert old_alert, new_alert;
   old_alert.unit_id = new_alert.unit_id = "T1";
   old_alert.raised_at = "2026-11-20T08:00:00Z";
@@ -100,6 +101,9 @@ TEST(PlannerWeek, ActionsChangesAlertsFilesAndOverdue) {
   EXPECT_EQ(overdue, (std::vector<std::string>{"T1 infrared survey", "T2 oil sample", "T2 infrared survey",
                                                "T2 inspection"}));
   EXPECT_FALSE(w.overdue[3].last.has_value());
+  // summary.txt, read alone or as the mail's body, opens with the caution
+  // (plumbing: no published source applies).
+  EXPECT_EQ(report::planner_week_text(w).rfind(report::one_line_caution() + "\n\nWeek 2026-W50 ", 0), 0u);
 }
 
 TEST(PlannerWeek, WeekTsvRoundTripsAndPreviousWeekIsFound) {
@@ -107,7 +111,8 @@ TEST(PlannerWeek, WeekTsvRoundTripsAndPreviousWeekIsFound) {
   r.units.resize(1);
   r.units[0].unit_id = "T\t1";
   r.units[0].band = "fair";
-  EXPECT_EQ(reporting::week_units_tsv(r), "T 1\t\t-\tfair\t\n");
+  // The caution first, as a comment line the reader skips (plumbing: no published source applies).
+  EXPECT_EQ(reporting::week_units_tsv(r), report::csv_caution_line() + "\nT 1\t\t-\tfair\t\n");
   const auto dir = std::filesystem::temp_directory_path() / ("ferrum-weeks-" + std::to_string(::getpid()));
   for (const char* w : {"2026-W47", "2026-W48", "2026-W49", "2026-W50"}) {
     std::filesystem::create_directories(dir / w);
@@ -117,6 +122,40 @@ TEST(PlannerWeek, WeekTsvRoundTripsAndPreviousWeekIsFound) {
   EXPECT_EQ(reporting::previous_week_tsv(dir, "2026-W50"), "2026-W48");
   EXPECT_EQ(reporting::previous_week_tsv(dir, "2026-W47"), "");
   std::filesystem::remove_all(dir);
+}
+
+// "Units needing action" follows the fleet ranking (most at risk first, equal
+// risk by unit id, no risk last), not the kind of action; each keeps its
+// reason. Plumbing of the list: no published source applies.
+TEST(PlannerWeek, UnitsNeedingActionAreInRiskOrder) {
+  std::vector<analytics::UnitAssessment> units;
+  analytics::FleetRanking ranking;
+  auto ranked = [&](const char* id, const char* action, std::optional<double> risk, const char* reason) {
+    analytics::RankedUnit r;
+    r.unit_id = id;
+    r.site = "Quillmere";
+    r.recommended_action = action;
+    r.risk = risk;
+    r.action_reason = reason;
+    r.insufficient_data = !risk;
+    ranking.units.push_back(r);
+    units.push_back(unit(id, "Quillmere"));
+  };
+  ranked("T5", "monitor", 0.09, "index falling");  // most at risk, mildest action
+  ranked("T2", "replace", 0.05, "paper at end of life");
+  ranked("T3", "investigate", 0.05, "turns ratio off");  // tied with T2: by unit id
+  ranked("T1", "routine", 0.01, "");
+  ranked("T9", "investigate", std::nullopt, "no index");
+  reporting::PlannerWeekInputs in;
+  in.week_label = "2026-W50";
+  in.as_of = analytics::days_from_civil(2026, 12, 7);
+  in.units = &units;
+  in.ranking = &ranking;
+  const auto w = reporting::build_planner_week(in);
+  std::vector<std::string> order;
+  for (const auto& u : w.needing_action) order.push_back(u.unit_id + " " + u.reason);
+  EXPECT_EQ(order, (std::vector<std::string>{"T5 index falling", "T2 paper at end of life", "T3 turns ratio off",
+                                             "T9 no index"}));
 }
 
 }  // namespace

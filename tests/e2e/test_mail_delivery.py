@@ -159,6 +159,7 @@ class WhoGetsWhat(MailCase):
             body = self.body(got[0])
             # Every body opens with the one-line caution, then the week's summary.
             self.assertTrue(body.startswith("SAFETY:"), body[:200])
+            self.assertEqual(body.count("SAFETY:"), 1, body[:400])  # summary.txt's own, not a second
             self.assertIn("Units needing action:", body)
             self.assertIn("Actions due in the next 7 days", body)
             self.assertIn("Alerts raised this week: 0", body)

@@ -148,7 +148,15 @@ TEST_F(FleetReportTest, WeeklyCoverPutsThePlannersWeekFirst) {
   w.week_label = "2026-W49";
   w.as_of = ferrum::analytics::days_from_civil(2026, 11, 30);
   w.units = 3;
-  w.due_7 = {{w.as_of - 2, 1, "T-204", "Kelder Road 132 kV", "Resample the oil"}};
+  w.due_7 = {{w.as_of - 2, 1, "T-204", "Kelder Road 132 kV", "Resample the oil", 0,
+              "acetylene rose between the last two samples; confirm before any outage"}};
+  analytics::WorkListRow row;
+  row.unit_id = "T-117";
+  row.site = "Northgate";
+  row.text = "Repair the breather";
+  row.reason = "silica gel saturated at the last inspection";
+  row.due = w.as_of + 40;
+  w.work_list = {row};
   w.due_30 = {{w.as_of + 20, 2, "T-117", "Northgate", "Infrared survey"}};
   w.needing_action = {{"T-117", "Northgate", "replace", 2030}};
   w.have_previous_week = true;
@@ -160,10 +168,17 @@ TEST_F(FleetReportTest, WeeklyCoverPutsThePlannersWeekFirst) {
   render_weekly_index("2026-W49", fixtures::small_ranking(), {{"T-204", "T-204_2026-11-30.pdf"}}, w, fixed_options(), path);
   ASSERT_TRUE(qpdf_check(path));
   const std::string text = squash(pdf_raw_text(path));
-  for (const char* s : {"2026-11-28 overdue T-204 Kelder Road 132 kV 1 Resample the oil", "Infrared survey",
+  for (const char* s : {"2026-11-28 overdue T-204 Kelder Road 132 kV", "1 Resample the oil", "Infrared survey",
                         "band fair -> poor", "acetylene appeared: 3 ppm", "oil-lab 4", "1 lab-week48.csv",
-                        "T-031 Harbour West inspection never", "T-117 Northgate replace", "SAFETY"})
+                        "T-031 Harbour West inspection never", "T-117 Northgate replace", "SAFETY",
+                        // The action lists carry a short reason (plumbing: no published source applies).
+                        "Resample the oil acetylene rose between the last two samples",
+                        "Repair the breather silica gel saturated at the last inspection"})
     EXPECT_NE(text.find(s), std::string::npos) << s << "\n" << text;
+  EXPECT_EQ(text.find("confirm before any outage"), std::string::npos);  // short: the first clause
+  // Plain words, not a configuration key (plumbing of the wording: no published source applies).
+  EXPECT_EQ(text.find("[analysis]"), std::string::npos);
+  EXPECT_NE(text.find("inspections after the site's inspection interval (365 days)"), std::string::npos);
   // The week comes before the list of reports.
   EXPECT_LT(text.find("Resample the oil"), text.find("T-204_2026-11-30.pdf"));
   // The first page, often printed alone, carries the one-line caution above the week's actions
@@ -189,24 +204,27 @@ TEST_F(FleetReportTest, AlertIsOnePageWithSafetyBlock) {
     EXPECT_NE(text.find(s), std::string::npos) << s;
 }
 
+// The risk column is on the PDF's scale: 0.084 x 1,000 = 84 failures per
+// 1,000 unit-years x consequence, as risk_text prints it (plumbing of the
+// scale: no published source applies).
 TEST(RankingCsv, HeaderRowsQuotingAndEmptyFields) {
   auto ranking = fixtures::small_ranking();
   ranking.units[1].site = "Northgate, \"old\" yard";
   const std::string csv = fleet_ranking_csv(ranking);
   const std::string header =
       "rank,tied,unit_id,site,rated_mva,health_index,band,remaining_life_years,beyond_horizon,limiting_factor,"
-      "probability_of_failure,failures_per_1000_unit_years,consequence,risk,recommended_action,action_year,"
+      "probability_of_failure,failures_per_1000_unit_years,consequence,risk,recommended_action,action_year,plan_year,"
       "first_action_priority,first_action_due,first_action_overdue,first_action_reference,first_action,action_reason,"
       "insufficient_data,note\n";
   ASSERT_EQ(csv.substr(0, header.size()), header);
-  EXPECT_NE(csv.find("1,no,T-204,Kelder Road 132 kV,45,57.6,fair,11.5,no,paper,0.021,21,4,0.084,refurbish,2028,1,"
+  EXPECT_NE(csv.find("1,no,T-204,Kelder Road 132 kV,45,57.6,fair,11.5,no,paper,0.021,21,4,84,refurbish,2028,,1,"
                      "2026-12-07,no,T-204/inspection:grounding,Make safe or take out of service: grounding,,no,\n"),
             std::string::npos) << csv;
   EXPECT_NE(csv.find("T-031,Harbour West,60,81,good,40,yes,"), std::string::npos) << csv;
   EXPECT_NE(csv.find("\"Northgate, \"\"old\"\" yard\""), std::string::npos);
   EXPECT_NE(csv.find("4,yes,T-032"), std::string::npos);
   // Insufficient data: no rank, empty fields for absent values, the note quoted (it holds commas).
-  EXPECT_NE(csv.find("\n,no,T-990,Marsh Lane,0,,,,no,,,,3,,,,,,,,,,yes,\"no oil, load or inspection data\"\n"), std::string::npos)
+  EXPECT_NE(csv.find("\n,no,T-990,Marsh Lane,0,,,,no,,,,3,,,,,,,,,,,yes,\"no oil, load or inspection data\"\n"), std::string::npos)
       << csv;
   EXPECT_EQ(std::count(csv.begin(), csv.end(), '\n'), 8);  // header + 6 units + caution
   // The caution is the last line, a comment (report/safety_text.h).
@@ -220,6 +238,39 @@ TEST(RankingCsv, OverdueFirstActionMarked) {
   ranking.units[0].first_action->overdue = true;
   const std::string csv = fleet_ranking_csv(ranking);
   EXPECT_NE(csv.find(",2026-12-07,yes,T-204/inspection:grounding,"), std::string::npos) << csv;
+}
+
+// Where the budget plan funds a unit's replacement later than the decision's
+// year, every list of the ranking shows the plan's year beside it: the fleet
+// report's ranking and life outlook, the CSV (plan_year), the cover and the
+// summary. Plumbing of the plan's result (analytics::apply_plan): no published
+// source applies.
+TEST_F(FleetReportTest, ThePlansLaterYearStandsBesideTheActionYear) {
+  auto ranking = fixtures::small_ranking();
+  ranking.units[1].budget_plan = {analytics::PlanSchedule::State::later, 2032, 2035};   // T-117, replace 2030
+  ranking.units[0].budget_plan = {analytics::PlanSchedule::State::unfunded, std::nullopt, 2035};  // T-204, refurbish 2028
+  const std::string path = temp_path("fleet-plan-year.pdf");
+  render_fleet_report(ranking, {}, {}, fixed_options(), path);
+  const std::string text = squash(pdf_raw_text(path));
+  EXPECT_NE(text.find("replace 2030 (budget plan: 2032)"), std::string::npos) << text;
+  EXPECT_NE(text.find("refurbish 2028 (budget plan: not funded by 2035)"), std::string::npos) << text;
+  const std::string csv = fleet_ranking_csv(ranking);
+  EXPECT_NE(csv.find(",replace,2030,2032,"), std::string::npos) << csv;
+  EXPECT_NE(csv.find(",refurbish,2028,not funded by 2035,"), std::string::npos) << csv;
+
+  PlannerWeek w;
+  w.week_label = "2026-W49";
+  w.as_of = ranking.as_of;
+  w.needing_action = {{"T-117", "Northgate", "replace", 2030, "", ranking.units[1].budget_plan},
+                      {"T-204", "Kelder Road 132 kV", "refurbish", 2028, "", {}}};
+  EXPECT_NE(planner_week_text(w).find("T-117 (Northgate): replace by 2030 (budget plan: 2032)\n"), std::string::npos)
+      << planner_week_text(w);
+  EXPECT_NE(planner_week_text(w).find("T-204 (Kelder Road 132 kV): refurbish by 2028\n"), std::string::npos);
+  const std::string cover = temp_path("cover-plan-year.pdf");
+  render_weekly_index("2026-W49", ranking, {}, w, fixed_options(), cover);
+  const std::string cover_text = squash(pdf_raw_text(cover));
+  EXPECT_NE(cover_text.find("Budget plan"), std::string::npos) << cover_text;
+  EXPECT_NE(cover_text.find("2032"), std::string::npos) << cover_text;
 }
 
 TEST(RankingCsv, EmptyRankingIsHeaderAndCaution) {

@@ -40,6 +40,51 @@ TEST_F(UnitReportTest, FilledUnitShowsEverySectionActionAndKeyNumber) {
   EXPECT_NE(text.find("Health index worse by 5 points"), std::string::npos);  // 63 -> 58
 }
 
+// The unit report says where the fleet's budget plan puts a replacement the
+// ranking dates earlier, or that it could not know. Plumbing of the plan's
+// result: no published source applies.
+TEST_F(UnitReportTest, SaysWhereTheBudgetPlanPutsTheReplacement) {
+  auto unit = fixtures::filled_unit();
+  unit.decision.action = "replace";
+  unit.decision.year = 2028;
+  using S = analytics::PlanSchedule::State;
+  auto text_with = [&](analytics::PlanSchedule plan, const std::string& name) {
+    unit.budget_plan = plan;
+    const std::string path = temp_path(name);
+    render_unit_report(unit, nullptr, fixtures::source_files(), fixed_options(), path);
+    return squash(pdf_raw_text(path));
+  };
+  EXPECT_NE(text_with({S::later, 2029, 2035}, "plan-later.pdf").find("budget-constrained plan funds this replace in 2029"),
+            std::string::npos);
+  EXPECT_NE(text_with({S::not_known, std::nullopt, 0}, "plan-unknown.pdf").find("may fund this replace later"),
+            std::string::npos);
+  const std::string on_time = text_with({S::on_time, 2028, 2035}, "plan-on-time.pdf");
+  EXPECT_EQ(on_time.find("budget-constrained plan"), std::string::npos);
+}
+
+// The band's generic expected life (Jahromi's HI table, analytics/health_index.h)
+// never stands beside the unit's own remaining life, which it could
+// contradict (9 years beside "more than 15 years"); without an estimate of the
+// unit's own it is printed as the band's typical figure. Layout rule: no
+// published source applies.
+TEST_F(UnitReportTest, BandExpectedLifeNeverContradictsTheUnitsOwnEstimate) {
+  auto unit = fixtures::filled_unit();
+  unit.decision.index_note.clear();
+  unit.band_expected_life = "more than 15 years";
+  unit.remaining_life.years = 9;
+  unit.remaining_life.beyond_horizon = false;
+  std::string path = temp_path("band-life-own.pdf");
+  render_unit_report(unit, nullptr, fixtures::source_files(), fixed_options(), path);
+  std::string text = squash(pdf_raw_text(path));
+  EXPECT_EQ(text.find("more than 15 years"), std::string::npos);
+  EXPECT_NE(text.find("this unit's own estimate"), std::string::npos);
+  unit.remaining_life.years.reset();
+  path = temp_path("band-life-none.pdf");
+  render_unit_report(unit, nullptr, fixtures::source_files(), fixed_options(), path);
+  text = squash(pdf_raw_text(path));
+  EXPECT_NE(text.find("Typical life left in this band: more than 15 years"), std::string::npos);
+}
+
 // Issue #16, "numbers printed two ways": the rating keeps its digits, the
 // score scale is stated beside the scores, the ageing factor has three
 // significant figures, the gas chart has a recent-years view beside the whole
@@ -64,6 +109,29 @@ TEST_F(UnitReportTest, NumbersPrintOneWayAndRecentGasViewAndSiteLine) {
   EXPECT_NE(text.find("all samples since 2022-03-13"), std::string::npos);
   EXPECT_NE(text.find("N-1 fails: with T-204"), std::string::npos);
   EXPECT_NE(text.find("Hot spot and ageing from the measured top oil"), std::string::npos);
+}
+
+// A heading never stands at a page's foot with nothing under it: the "What
+// to do" heading keeps the table's first row on its page, however tall the
+// row (layout rule: no published source applies).
+TEST_F(UnitReportTest, WhatToDoHeadingKeepsItsFirstActionOnItsPage) {
+  auto unit = fixtures::filled_unit();
+  std::string tall = "Start of the first action";
+  for (int i = 0; i < 25; ++i) tall += " and then a further step of the same job";
+  for (auto& act : unit.actions) act.priority = 2;
+  unit.actions.front().priority = 1;
+  unit.actions.front().text = tall;
+  const std::string path = temp_path("orphan-heading.pdf");
+  render_unit_report(unit, nullptr, fixtures::source_files(), fixed_options(), path);
+  bool seen = false;
+  for (int n = 1; n <= pdf_pages(path); ++n) {
+    const std::string page = squash(run("pdftotext -f " + std::to_string(n) + " -l " + std::to_string(n) + " '" + path +
+                                        "' - 2>/dev/null"));
+    if (page.find("What to do: prioritized actions") == std::string::npos) continue;
+    seen = true;
+    EXPECT_NE(page.find("Start of the first action"), std::string::npos) << "page " << n;
+  }
+  EXPECT_TRUE(seen);
 }
 
 // The action table is a planner's: the evidence date and kind, the due date
