@@ -419,9 +419,10 @@ struct PlanIndex {
 };
 
 PlanSchedule schedule_in(const FleetPlan& plan, const PlanIndex& index, const std::string& unit_id,
-                         const std::string& action, std::optional<int> action_year) {
+                         const std::string& action, bool treats_paper, std::optional<int> action_year) {
   PlanSchedule s;
-  if (action != "replace" && action != "refurbish") return s;
+  // Only the actions the plan funds (plan.h): an oil treatment is maintenance.
+  if (action != "replace" && !(action == "refurbish" && treats_paper)) return s;
   s.last_year = plan.start_year + plan.horizon_years - 1;
   // Its first year as a candidate (plan.h: never before the plan's first year).
   const int first = std::max(plan.start_year, action_year.value_or(plan.start_year));
@@ -440,7 +441,7 @@ PlanSchedule schedule_in(const FleetPlan& plan, const PlanIndex& index, const st
 void apply_plan(FleetRanking& ranking, const FleetPlan& plan) {
   const PlanIndex index(plan);  // one pass over the plan, not one per unit
   for (auto& u : ranking.units)
-    u.budget_plan = schedule_in(plan, index, u.unit_id, u.recommended_action, u.action_year);
+    u.budget_plan = schedule_in(plan, index, u.unit_id, u.recommended_action, u.treats_paper, u.action_year);
 }
 
 }  // namespace ferrum::analytics

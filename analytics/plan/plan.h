@@ -191,7 +191,8 @@ std::string plan_title(int horizon_years);
 FleetPlan plan_fleet(const std::vector<PlanUnit>& units, Day as_of, const CostOptions& costs, const PlanOptions& options);
 
 // Sets every ranked unit's budget_plan from `plan` (made from this ranking):
-// for a unit whose action is replace or refurbish, on time when the plan funds
+// for a unit whose action is replace, or refurbish by drying out the paper (the
+// actions the plan funds), on time when the plan funds
 // it in the first year it was a candidate (the later of the action's year and
 // the plan's first year), later when funded after that, unfunded when still
 // waiting at the end of the plan; State::none otherwise. So the ranking never

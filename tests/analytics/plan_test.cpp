@@ -474,6 +474,7 @@ RankedUnit ranked(const PlanUnit& u) {
   r.unit_id = u.unit_id;
   r.recommended_action = u.action;
   r.action_year = u.action_year;
+  r.treats_paper = u.treats_paper;
   return r;
 }
 
@@ -524,7 +525,8 @@ TEST(PlanOnRanking, RankingAndPlanAgreeForAnyFleet) {
         for (const auto& y : plan.years)
           for (const auto& f : y.funded)
             if (f.unit_id == units[i].unit_id && f.action == units[i].action) funded_year = y.year;
-        const bool planned_action = units[i].action == "replace" || units[i].action == "refurbish";
+        const bool planned_action =
+            units[i].action == "replace" || (units[i].action == "refurbish" && units[i].treats_paper);
         if (!planned_action || !first.count(units[i].unit_id)) {
           EXPECT_EQ(s.state, PlanSchedule::State::none);
           continue;
