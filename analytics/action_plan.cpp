@@ -107,10 +107,10 @@ void coordinate(const ActionPlanOptions& o, UnitAssessment& a, const Decision& d
   }
   // Wet paper: dry out the active part rather than recondition the oil.
   const auto& pm = a.oil.paper_moisture_pct;
-  if (pm && *pm >= o.wet_paper_pct) {
+  if (pm && *pm >= o.decision.wet_paper_pct) {
     const auto& dp = a.paper.dp_estimate;
     const std::string wet = "paper water content " + fmt(*pm, 1) + " % (Fessler equilibrium from the oil), at or above " +
-                            fmt(o.wet_paper_pct, 1) + " %";
+                            fmt(o.decision.wet_paper_pct, 1) + " %";
     if (dp && *dp < o.decision.dry_out_min_dp) {
       for (auto& x : v)
         if (x.need == "oil-recondition")

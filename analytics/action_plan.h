@@ -9,7 +9,7 @@
 // One need is one action (Action::need): duplicates merge. Coordination
 // (common practice, no published source):
 //  * no oil reclamation for a unit the decision replaces;
-//  * wet paper (water content at or above wet_paper_pct) is dried out with
+//  * wet paper (water content at or above decision.wet_paper_pct) is dried out with
 //    the active part, which oil reconditioning would not do; unless the
 //    paper's DP is below dry_out_min_dp, too brittle to dry out;
 //  * the jobs that need the unit out of service get one "Plan one outage for
@@ -27,11 +27,10 @@ namespace ferrum::analytics {
 struct ActionPlanOptions {
   double stale_after_years = 1.0;      // oil / infrared / inspection data older than this
   int data_due_days = 90;             // after the data went stale
-  // Paper water content (%, Fessler equilibrium, analytics/moisture_oil_paper.h)
+  // The paper water content (%, Fessler equilibrium, analytics/moisture_oil_paper.h)
   // at or above which the active part is dried out instead of the oil being
-  // reconditioned; 4 % is common practice (no published source). The DP
-  // below which drying is not advised is decision.dry_out_min_dp.
-  double wet_paper_pct = 4.0;
+  // reconditioned is decision.wet_paper_pct, the one the decision reads; the
+  // DP below which drying is not advised is decision.dry_out_min_dp.
   int dry_out_due_days = 365;        // from the oil sample that found the wet paper
   DecisionOptions decision;
 };

@@ -246,13 +246,13 @@ Decision decide(const DecisionOptions& o, const UnitAssessment& a) {
     return " A replacement can be in service by " + std::to_string(year) + " (" + std::to_string(o.lead_time_months) +
            "-month procurement lead time); until then the actions below manage the risk.";
   };
-  const bool paper_wet = a.oil.paper_moisture_pct && *a.oil.paper_moisture_pct >= o.dry_out_above_paper_moisture_pct &&
+  const bool paper_wet = a.oil.paper_moisture_pct && *a.oil.paper_moisture_pct >= o.wet_paper_pct &&
                          !(a.paper.dp_estimate && *a.paper.dp_estimate < o.dry_out_min_dp);
   const bool paper_or_thermal = rl.limiting_factor == "paper" || rl.limiting_factor == "thermal";
   // Wet paper too brittle to dry out: said, so that nobody asks why the water
   // in it is left there.
   const std::string brittle_note =
-      (!paper_wet && a.oil.paper_moisture_pct && *a.oil.paper_moisture_pct >= o.dry_out_above_paper_moisture_pct)
+      (!paper_wet && a.oil.paper_moisture_pct && *a.oil.paper_moisture_pct >= o.wet_paper_pct)
           ? " The paper is wet too (" + fmt(*a.oil.paper_moisture_pct, 1) + " % water), but at DP " +
                 fmt(*a.paper.dp_estimate, 0) + " it is too brittle to dry out (below " + fmt(o.dry_out_min_dp, 0) +
                 "): drying the active part could damage it."

@@ -69,7 +69,12 @@ struct DecisionOptions {
   double monitor_below_hi = 70;
   double cooling_discrepancy_k = 5;      // measured top oil above the model by more: cooling failure
                                          // (assess_unit sets ThermalOptions::discrepancy_threshold_k)
-  double dry_out_above_paper_moisture_pct = 2.5;  // paper water content that makes drying out worth it
+  // Paper water content, %, at or above which the active part is dried out
+  // (the one threshold: the decision and the action plan both read it;
+  // ferrum.ini [ranking] wet_paper_pct). 4 %: the lower edge of "wet" in the
+  // usual paper-moisture classification (dry below 2 %, moderately wet 2-4 %,
+  // wet above 4 %; IEEE Std 62-1995, from memory; verify).
+  double wet_paper_pct = 4.0;
   double dry_out_min_dp = 400;   // below it the paper is too brittle to dry out the active part (common practice)
   // Inspection items whose poor state is chronic (end of life), not a repair.
   std::vector<std::string> chronic_items{"main_tank", "radiators"};  // assess_unit sets RemainingLifeOptions::chronic_items

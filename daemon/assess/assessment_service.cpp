@@ -50,7 +50,7 @@ analytics::AssessmentOptions options_from_config(const config::SiteConfig& confi
     else if (key == "lead_time_months") o.actions.decision.lead_time_months = static_cast<int>(std::lround(v));
     else if (key == "replace_within_years") o.actions.decision.replace_within_years = v;
     else if (key == "planning_window_years") o.actions.decision.planning_window_years = v;
-    else if (key == "wet_paper_pct") o.actions.wet_paper_pct = v;
+    else if (key == "wet_paper_pct") o.actions.decision.wet_paper_pct = v;
     else if (key == "dry_out_min_dp") o.actions.decision.dry_out_min_dp = v;
   }
   auto cuts4 = [](const std::vector<double>& v) { return analytics::RatingCuts{v[0], v[1], v[2], v[3]}; };

@@ -53,7 +53,7 @@ void hot_joint(fa::UnitAssessment& a) {
 void wet_oil(fa::UnitAssessment& a) {
   a.oil.checks.push_back({"moisture", 40.0, 35.0, "max", "mg/kg", false, "IEEE C57.106-2015 Table 5"});
   a.oil.oil_class = "Class II";
-  a.oil.paper_moisture_pct = 3.0;
+  a.oil.paper_moisture_pct = 4.5;  // wet: at or above 4 % (IEEE Std 62-1995 classification, from memory; verify)
 }
 void aged_oil(fa::UnitAssessment& a) {
   a.oil.checks.push_back({"acidity", 0.3, 0.2, "max", "mg KOH/g", false, "IEEE C57.106-2015 Table 5"});
@@ -231,7 +231,7 @@ TEST(DecisionMatrix, HotJointIsRepaired) {
   EXPECT_EQ(a.decision.defects[0].kind, "hot_joint");
 }
 
-// Wet oil and wet paper (3 %) with paper still strong (DP 700): refurbish by
+// Wet oil and wet paper (4.5 %) with paper still strong (DP 700): refurbish by
 // drying out (IEEE C57.106 Class II reconditioning; drying paper above its
 // brittle limit is common practice).
 TEST(DecisionMatrix, WetOilIsDriedOut) {
@@ -241,7 +241,7 @@ TEST(DecisionMatrix, WetOilIsDriedOut) {
   EXPECT_TRUE(a.decision.treats_paper);  // the plan credits it with years (plan.h)
 }
 
-// Wet oil and wet paper (3 %) but paper too brittle to dry out (DP 380, below
+// Wet oil and wet paper (4.5 %) but paper too brittle to dry out (DP 380, below
 // the 400 of DecisionOptions::dry_out_min_dp; common practice, no published
 // source): only the oil is dried, the plan gives it no years, and the reason
 // says why the paper's water stays.
@@ -380,6 +380,26 @@ TEST(DecisionMatrix, TankCorrosionIsEndOfLifeEvidence) {
 TEST(DecisionMatrix, BrittleWetPaperIsNotDriedOut) {
   auto a = story(1970, 300, [](fa::UnitAssessment& u) { u.oil.paper_moisture_pct = 4; });
   EXPECT_EQ(a.decision.action, "replace");
+}
+
+// One wet-paper threshold: the decision's treatment and the action plan's
+// "dry out" job agree on both sides of it (4 %, DecisionOptions::wet_paper_pct;
+// the moderately-wet/wet edge of the paper-moisture classification of IEEE
+// Std 62-1995, from memory; verify). Before, the decision dried out from
+// 2.5 % and the action list from 4 %.
+TEST(DecisionMatrix, DecisionAndActionsShareTheWetPaperThreshold) {
+  for (double water : {3.0, 3.99, 4.0, 4.5}) {
+    auto a = story(2005, 700, [water](fa::UnitAssessment& u) {
+      wet_oil(u);
+      u.oil.paper_moisture_pct = water;
+    });
+    const bool dries_paper = mentions(a.decision.treatment, "active part");
+    const bool has_dry_out = std::any_of(a.actions.begin(), a.actions.end(),
+                                         [](const fa::Action& x) { return x.need == "dry-out"; });
+    EXPECT_EQ(dries_paper, water >= 4.0) << water << " %: " << a.decision.treatment;
+    EXPECT_EQ(has_dry_out, dries_paper) << water << " %";
+    EXPECT_EQ(a.decision.treats_paper, dries_paper) << water << " %";
+  }
 }
 
 // No index: investigate (collect the data) (common practice).
