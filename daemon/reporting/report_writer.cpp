@@ -210,7 +210,10 @@ report::PlanSection ReportWriter::plan_section(analytics::FleetRanking& ranking,
 
 analytics::PlanSchedule ReportWriter::unit_plan_schedule(const analytics::UnitAssessment& unit, analytics::Day as_of) {
   analytics::PlanSchedule none;
-  if (unit.decision.action != "replace" && unit.decision.action != "refurbish") return none;
+  // Only the actions the plan funds (analytics/plan/plan.h): an oil treatment
+  // is maintenance and never waits for the plan's budget.
+  if (unit.decision.action != "replace" && !(unit.decision.action == "refurbish" && unit.decision.treats_paper))
+    return none;
   if (!config::plan_configured(config_)) return none;
   analytics::PlanSchedule unknown;
   unknown.state = analytics::PlanSchedule::State::not_known;

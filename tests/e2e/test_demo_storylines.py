@@ -207,6 +207,32 @@ class DemoStorylines(unittest.TestCase):
         self.assertEqual(two[0]["total_spent"], two[1]["total_spent"])
         self.assertAlmostEqual(two[1]["total_risk_with_plan"] - two[0]["total_risk_with_plan"], 49.6, delta=0.1)
 
+    def test_unit_reports_say_where_the_budget_plan_puts_the_action(self):
+        # `ferrum report UNIT` reads the plan's year from the ranking inputs the whole-fleet assess
+        # kept: CRW-T1's replacement waits for the budget (2029, above); PLW-T1's oil drying is
+        # maintenance, which never waits for the plan, so its report says nothing of the plan.
+        # Without those inputs a report cannot know the plan's year and says where to look, but
+        # still not for an oil treatment.
+        out = tempfile.mkdtemp(prefix="ferrum-demo-units-")
+        cache = os.path.join(self.root, "cache", "ranking-inputs.json")
+
+        def report_text(unit):
+            run("report", "--root", self.root, unit, "--as-of", AS_OF, "--out", out)
+            pdf = os.path.join(out, f"ferrum-{unit}-{AS_OF}.pdf")
+            return " ".join(subprocess.run(["pdftotext", pdf, "-"], capture_output=True, text=True,
+                                           check=True).stdout.split())
+        try:
+            self.assertIn("budget-constrained plan funds this replace in 2029", report_text("CRW-T1"))
+            self.assertNotIn("budget-constrained plan", report_text("PLW-T1"))
+            os.rename(cache, cache + ".aside")
+            try:
+                self.assertIn("budget-constrained plan may fund this replace later", report_text("CRW-T1"))
+                self.assertNotIn("budget-constrained plan", report_text("PLW-T1"))
+            finally:
+                os.rename(cache + ".aside", cache)
+        finally:
+            shutil.rmtree(out, ignore_errors=True)
+
     # ------------------------------------------------------------ storylines.tsv, row by row
     def test_every_storyline_check_holds(self):
         rows = read_storylines()
