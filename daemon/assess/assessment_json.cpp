@@ -199,6 +199,7 @@ Object::Ptr decision_json(const analytics::Decision& d) {
   o->set("year", opt(d.year));
   o->set("reason", text_or_null(d.reason));
   o->set("treatment", text_or_null(d.treatment));
+  o->set("treats_paper", d.treats_paper);
   o->set("index_note", text_or_null(d.index_note));
   o->set("first_action", action_json(d.first_action));
   o->set("end_of_life", evidence_json(d.end_of_life));
@@ -384,6 +385,7 @@ Object::Ptr to_json(const analytics::FleetRanking& r) {
     x->set("recommended_action", text_or_null(u.recommended_action));
     x->set("action_year", opt(u.action_year));
     x->set("action_reason", text_or_null(u.action_reason));
+    x->set("treats_paper", u.treats_paper);
     x->set("first_action", action_json(u.first_action));
     x->set("insufficient_data", u.insufficient_data);
     x->set("note", text_or_null(u.note));

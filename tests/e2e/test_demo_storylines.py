@@ -189,6 +189,9 @@ class DemoStorylines(unittest.TestCase):
         self.assertIn("CRW-T1", [d["unit_id"] for d in plan["years"][2]["deferred"]])
         self.assertGreater(plan["years"][2]["risk_with_plan"], plan["years"][2]["risk_unlimited"])
         self.assertNotIn("PLW-T1", funded)
+        self.assertEqual(self.docs["PLW-T1"]["decision"]["action"], "refurbish")
+        self.assertIs(self.docs["PLW-T1"]["decision"]["treats_paper"], False)
+        self.assertIs(self.rows["PLW-T1"]["treats_paper"], False)
         for y in plan["years"]:
             self.assertLessEqual(y["spent"], y["budget"])
         self.assertLess(plan["total_risk_with_plan"], plan["total_risk_without_plan"])
