@@ -195,6 +195,7 @@ TEST(ThermalAssessment, InfraredAndUnsafeInspectionActions) {
   oil.date = kAsOf - 5;
   oil.item = "oil_level";
   oil.rating = Rating::unsafe;
+  oil.note = "repair booked for the December outage";
   d.inspections = {fans, oil};
   UnitAssessment a;
   a.actions.push_back(dated_action(3, kAsOf, 0, "earlier action", "from another module", kSourceRegister, "other",
@@ -212,6 +213,11 @@ TEST(ThermalAssessment, InfraredAndUnsafeInspectionActions) {
   EXPECT_EQ(a.actions.front().due, kAsOf - 5);
   EXPECT_EQ(a.actions.front().need, "inspection:oil_level");
   EXPECT_EQ(a.actions.front().source, kSourceInspection);
+  // The inspector's note is quoted as theirs: a booking it mentions is not one
+  // ferrum knows of (bookings come from work-status files). No published source applies.
+  EXPECT_NE(a.actions.front().reason.find("(inspector's note: \"repair booked for the December outage\")"),
+            std::string::npos)
+      << a.actions.front().reason;
   EXPECT_TRUE(has_action(a, "Retighten or repair the LV bushing X2 connector immediately", 1));
   const Action* ir = find_need(a, "ir-repair:LV bushing X2 connector");
   ASSERT_NE(ir, nullptr);
