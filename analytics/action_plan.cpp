@@ -134,9 +134,13 @@ void coordinate(const ActionPlanOptions& o, UnitAssessment& a, const Decision& d
   }
 }
 
+// Most urgent first; at equal priority and due date the jobs come before the
+// outage line that gathers them, so that a unit's first action (the ranking's
+// "first action") is a job, not "plan one outage for ...".
 void sort_actions(std::vector<Action>& v) {
   std::sort(v.begin(), v.end(), [](const Action& x, const Action& y) {
-    return std::tie(x.priority, x.due, x.text) < std::tie(y.priority, y.due, y.text);
+    const bool xo = x.need == "outage", yo = y.need == "outage";
+    return std::tie(x.priority, x.due, xo, x.text) < std::tie(y.priority, y.due, yo, y.text);
   });
 }
 

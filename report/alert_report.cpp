@@ -17,8 +17,8 @@ std::string or_dash(const std::string& s) { return s.empty() ? std::string(kNoVa
 std::string alert_title(const std::string& kind) {
   static const std::pair<const char*, const char*> titles[] = {
       {"acetylene", "Acetylene appeared or rising"},
-      {"gas_condition", "Gas condition worse (IEEE C57.104-2008)"},
-      {"dga_status", "DGA status worse (IEEE C57.104-2019)"},
+      {"gas_condition", "Gas condition high or worse (IEEE C57.104-2008)"},
+      {"dga_status", "DGA status high or worse (IEEE C57.104-2019)"},
       {"hot_spot", "Hot spot above the emergency limit"},
       {"unsafe_inspection", "Unsafe item found at inspection"},
       {"infrared_priority_1", "Infrared finding: repair immediately (priority 1)"},

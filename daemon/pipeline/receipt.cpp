@@ -10,6 +10,7 @@
 #include <sstream>
 
 #include "daemon/ingest/utf8.h"
+#include "report/safety_text.h"
 
 namespace ferrum::ingest {
 namespace {
@@ -114,6 +115,9 @@ std::string Receipt::to_json() const {
     w->set("not_raised", n);
     o->set("action_references", w);
   }
+  // Receipts go to field crews and labs too: they carry the caution as every
+  // other output does.
+  o->set("caution", report::one_line_caution());
   std::ostringstream out;
   Poco::JSON::Stringifier::stringify(o, out, 2);
   out << "\n";
@@ -213,7 +217,9 @@ std::string Receipt::to_text() const {
   // The site's own path (archive/..., quarantine/...) means nothing to a
   // party, who cannot open it: the text names the copy (the JSON keeps the path).
   o << "  site copy:   " << std::filesystem::path(stored_as).filename().string()
-    << " (kept by the site; quote this name when asking about the file)\n";
+    << (status == "rejected" ? " (kept by the site among its rejected files, unchanged; quote this name when asking "
+                               "about the file)\n"
+                             : " (kept by the site; quote this name when asking about the file)\n");
   if (!units.empty()) {
     // A rejected file's units: whose results wait until it is corrected.
     o << (status == "rejected" ? "  units held:  " : "  units:       ");
@@ -290,6 +296,7 @@ std::string Receipt::to_text() const {
       o << "\n";
     }
   }
+  o << "\n" << report::one_line_caution() << "\n";
   return o.str();
 }
 

@@ -412,14 +412,14 @@ struct Server::Impl {
       raise_alert(unit, "gas_condition",
                     "IEEE C57.104-2008 fault-gas condition (CO and CO2 left out) " +
                         (before.condition > 0 ? "worsened from " + std::to_string(before.condition) + " to "
-                                              : std::string("at the first gas figures on record: ")) +
+                                              : std::string("at its first assessment by ferrum (nothing earlier to compare with): ")) +
                         std::to_string(now.condition),
                     "Follow the sampling interval of C57.104-2008 Table 3 given in the unit report.", at);
     if (now.status > before.status && (before.status > 0 || now.status >= 3))
       raise_alert(unit, "dga_status",
                     "IEEE C57.104-2019 DGA status " +
                         (before.status > 0 ? "worsened from " + std::to_string(before.status) + " to "
-                                           : std::string("at the first gas figures on record: ")) +
+                                           : std::string("at its first assessment by ferrum (nothing earlier to compare with): ")) +
                         std::to_string(now.status),
                     "Resample and review the gas trend with an engineer.", at);
     const double emergency = a.thermal.long_emergency_limit_c;

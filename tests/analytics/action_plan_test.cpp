@@ -163,6 +163,12 @@ TEST(ActionPlan, OneOutageActionGathersTheOutageJobs) {
   EXPECT_EQ(count_need(a.actions, "ir-repair:HV"), 1u);
   EXPECT_EQ(count_need(a.actions, "inspection:gaskets"), 1u);
   EXPECT_EQ(count_need(a.actions, "electrical:bushing-H1"), 1u);
+  // The outage line shares the lead job's priority and due date; the job
+  // comes first, so the unit's first action is the job itself (plumbing: no
+  // published source applies).
+  EXPECT_EQ(a.actions.front().need, "ir-repair:HV");
+  ASSERT_TRUE(a.decision.first_action);
+  EXPECT_EQ(a.decision.first_action->need, "ir-repair:HV");
 }
 
 // A job whose own words say "plan an outage" (an IEEE C57.104 status action)

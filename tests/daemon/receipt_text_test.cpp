@@ -27,6 +27,16 @@ TEST(ReceiptText, OneProblemIsCorrectedAsIt) {
   EXPECT_EQ(text.find("Correct them"), std::string::npos) << text;
 }
 
+// Every output carries the caution, receipts included (they go to field
+// crews and labs); a rejected file's copy is said to be kept, unchanged.
+TEST(ReceiptText, CarriesTheCautionAndSaysTheRejectedCopyIsKept) {
+  const auto r = rejected_with(1);
+  const std::string text = r.to_text();
+  EXPECT_NE(text.find("SAFETY"), std::string::npos) << text;
+  EXPECT_NE(text.find("kept by the site among its rejected files, unchanged"), std::string::npos) << text;
+  EXPECT_NE(r.to_json().find("\"caution\": \"SAFETY"), std::string::npos) << r.to_json();
+}
+
 TEST(ReceiptText, SeveralProblemsAreCorrectedAsThem) {
   const std::string text = rejected_with(2).to_text();
   EXPECT_NE(text.find("2 problems found. Correct them and drop the whole file again."), std::string::npos) << text;

@@ -87,7 +87,7 @@ class MoreAlerts(DaemonCase):
         self.drop_and_wait("lab-2.csv", LAB + f"T1,{day(5)},30,60,50,817,<0.5,900,4000,L-2\n")
         self.wait_for(lambda: "gas_condition" in self.kinds("T1"), timeout=15, what="gas condition alert")
         row = next(a for a in self.alerts() if a["kind"] == "gas_condition" and a["unit_id"] == "T1")
-        self.assertIn("first gas figures on record: 4", row["text"])
+        self.assertIn("at its first assessment by ferrum (nothing earlier to compare with): 4", row["text"])
         self.assertEqual(self.stop_daemon(), 0)
 
 
