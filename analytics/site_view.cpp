@@ -69,27 +69,43 @@ void check_n1(SiteView& s) {
     s.n1_text = "N-1 fails: one unit, no other unit at the site carries its load when it is out";
     return;
   }
+  // What the other units carry with `out` out of service.
+  auto carried = [&](const SiteUnitView* out) {
+    double capacity = 0;
+    for (const auto& u : s.units) {
+      if (&u == out) continue;
+      const double cap = u.emergency_mva.value_or(u.rated_mva);
+      capacity += u.can_take_load() ? cap : std::min(cap, u.peak_load_mva.value_or(0));
+    }
+    return capacity;
+  };
+  // N-1 is the loss of any one unit: the worst single outage decides, the one
+  // that leaves the others the least to carry with. That is not always the
+  // largest unit: out of two of equal size, losing the one that could take
+  // load leaves less. On equal capacity, the larger rating, then the higher
+  // peak, then register order.
   const SiteUnitView* out = &s.units.front();
-  for (const auto& u : s.units)
-    if (u.rated_mva > out->rated_mva ||
-        (u.rated_mva == out->rated_mva && u.peak_load_mva.value_or(0) > out->peak_load_mva.value_or(0)))
+  double capacity = carried(out);
+  for (const auto& u : s.units) {
+    const double c = carried(&u);
+    if (c < capacity ||
+        (c == capacity && (u.rated_mva > out->rated_mva ||
+                           (u.rated_mva == out->rated_mva && u.peak_load_mva.value_or(0) > out->peak_load_mva.value_or(0))))) {
       out = &u;
-  s.largest_unit = out->unit_id;
-  s.largest_mva = out->rated_mva;
+      capacity = c;
+    }
+  }
+  s.n1_unit_out = out->unit_id;
+  s.n1_unit_out_mva = out->rated_mva;
   if (!s.peak_load_mva) {
     std::string names;
     for (const auto& n : s.without_load) names += (names.empty() ? "" : ", ") + n;
     s.n1_text = "N-1 not assessed: no load data for " + names;
     return;
   }
-  double capacity = 0;
   std::vector<std::string> at_nameplate;
-  for (const auto& u : s.units) {
-    if (&u == out) continue;
-    const double cap = u.emergency_mva.value_or(u.rated_mva);
-    if (!u.emergency_mva) at_nameplate.push_back(u.unit_id);
-    capacity += u.can_take_load() ? cap : std::min(cap, u.peak_load_mva.value_or(0));
-  }
+  for (const auto& u : s.units)
+    if (&u != out && !u.emergency_mva) at_nameplate.push_back(u.unit_id);
   s.n1_capacity_mva = capacity;
   s.n1_margin_mva = capacity - *s.peak_load_mva;
   s.n1_ok = *s.n1_margin_mva >= 0;

@@ -1,6 +1,7 @@
 // Site view: the units of one site (substation) taken together. For each site
 // the sum of the units' peak loads against the installed capacity, and the
-// N-1 check: can the site's load still be carried with its largest unit out,
+// N-1 check: can the site's load still be carried with any one unit out (the
+// worst single outage),
 // by the other units within their long-time emergency loading capability?
 // A unit that is itself loading limited (constrained), wet or unhealthy takes
 // no transferred load: it carries at most its own peak.
@@ -14,8 +15,10 @@
 // * the site's peak is the sum of the units' peaks over the summary window
 //   (not coincident in time, so never below the true site peak: conservative;
 //   common practice, no published source);
-// * N-1 with the largest unit out (largest rating; on equal ratings the one
-//   with the higher peak): common planning practice, no published source;
+// * N-1 as the worst single outage: each unit out in turn, the one that leaves
+//   the others the least capacity decides (on equal capacity the larger
+//   rating, then the higher peak): common planning practice, no published
+//   source;
 // * wet: water in paper above SiteViewOptions::wet_paper_pct ([analysis]
 //   site_wet_paper_pct, 2.5 %: common practice, no published source);
 //   constrained: hot spot above the normal cyclic limit in the window, or
@@ -59,9 +62,11 @@ struct SiteView {
   double installed_mva = 0;               // Σ ratings
   std::optional<double> peak_load_mva;    // Σ units' peaks; null when a unit has no load data
   std::vector<std::string> without_load;  // units without load data
-  std::string largest_unit;
-  double largest_mva = 0;
-  // What the other units can carry with the largest out: Σ emergency
+  // The unit whose outage leaves the others the least to carry with (the
+  // worst single outage; N-1 is the loss of any one unit) and its rating.
+  std::string n1_unit_out;
+  double n1_unit_out_mva = 0;
+  // What the other units can carry with that unit out: Σ emergency
   // capability of the units that can take load (nameplate without load data)
   // + the own peak (at most the capability) of those that cannot.
   std::optional<double> n1_capacity_mva;

@@ -427,8 +427,8 @@ Array::Ptr to_json(const std::vector<analytics::SiteView>& sites) {
     o->set("installed_mva", tidy(s.installed_mva));
     o->set("peak_load_mva", opt(s.peak_load_mva));
     o->set("units_without_load", strings(s.without_load));
-    o->set("largest_unit", text_or_null(s.largest_unit));
-    o->set("largest_mva", tidy(s.largest_mva));
+    o->set("n1_unit_out", text_or_null(s.n1_unit_out));
+    o->set("n1_unit_out_mva", tidy(s.n1_unit_out_mva));
     o->set("n1_capacity_mva", opt(s.n1_capacity_mva));
     o->set("n1_margin_mva", opt(s.n1_margin_mva));
     o->set("n1_ok", s.n1_ok ? Var(*s.n1_ok) : Var());

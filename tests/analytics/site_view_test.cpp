@@ -41,7 +41,7 @@ TEST(SiteView, NMinusOnePassesWhenTheOthersCarryThePeak) {
   EXPECT_EQ(s.site, "North");
   EXPECT_DOUBLE_EQ(s.installed_mva, 80);
   EXPECT_DOUBLE_EQ(*s.peak_load_mva, 38);  // 20 + 18: sum of the units' peaks
-  EXPECT_EQ(s.largest_unit, "T1");          // equal ratings: the higher peak goes out
+  EXPECT_EQ(s.n1_unit_out, "T1");          // equal ratings and capacity left: the higher peak goes out
   EXPECT_DOUBLE_EQ(*s.n1_capacity_mva, 52);
   EXPECT_DOUBLE_EQ(*s.n1_margin_mva, 14);
   ASSERT_TRUE(s.n1_ok);
@@ -52,12 +52,31 @@ TEST(SiteView, NMinusOnePassesWhenTheOthersCarryThePeak) {
   EXPECT_TRUE(sites[1].flagged());
 }
 
+// N-1 is the loss of any one unit (common planning practice, no published
+// source): of two equal 60 MVA units, losing the one that can take load leaves
+// less than losing the one that cannot. Peaks: T1 30, T2 36, T3 10 (76 MVA).
+// T2 (unhealthy: active arcing) carries only its own peak 36; T1 can carry
+// 1.3 × 60 = 78, T3 (20 MVA) 26. Out T1: 36 + 26 = 62, short by 14; out T2:
+// 78 + 26 = 104, a margin of 28. Taking out the more loaded unit of equal
+// rating (the rule before) said N-1 passes.
+TEST(SiteView, NMinusOneTakesTheWorstSingleOutage) {
+  std::vector<UnitAssessment> fleet = {unit("T1", "West", 60, 0.5), unit("T2", "West", 60, 0.6),
+                                       unit("T3", "West", 20, 0.5)};
+  fleet[1].active_arcing = true;
+  const auto s = site_view(fleet, {}).at(0);
+  EXPECT_EQ(s.n1_unit_out, "T1");
+  EXPECT_DOUBLE_EQ(*s.peak_load_mva, 76);
+  EXPECT_DOUBLE_EQ(*s.n1_capacity_mva, 62);
+  EXPECT_DOUBLE_EQ(*s.n1_margin_mva, -14);
+  EXPECT_TRUE(s.flagged());
+}
+
 // 40 + 20 MVA at 0.8 p.u.: 48 MVA of peak; with the 40 MVA unit out the
 // 20 MVA unit carries 1.3 × 20 = 26 MVA: short by 22 MVA (N-1 fails).
 TEST(SiteView, NMinusOneFailsAndIsFlagged) {
   const std::vector<UnitAssessment> fleet = {unit("T1", "East", 40, 0.8), unit("T2", "East", 20, 0.8)};
   const auto s = site_view(fleet, {}).at(0);
-  EXPECT_EQ(s.largest_unit, "T1");
+  EXPECT_EQ(s.n1_unit_out, "T1");
   EXPECT_DOUBLE_EQ(*s.peak_load_mva, 48);
   EXPECT_DOUBLE_EQ(*s.n1_capacity_mva, 26);
   EXPECT_DOUBLE_EQ(*s.n1_margin_mva, -22);

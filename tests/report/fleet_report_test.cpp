@@ -68,7 +68,7 @@ TEST_F(FleetReportTest, SitesSectionFlagsNMinusOneAndCsvListsUnits) {
                         "wet paper (3.4 % water", "N-1 fails: with T-204", "7.5"})
     EXPECT_NE(text.find(s), std::string::npos) << s;
   const std::string csv = fleet_sites_csv(sites);
-  EXPECT_EQ(csv.rfind("site,installed_mva,site_peak_load_mva,largest_unit,n1_capacity_mva,n1_margin_mva,n1,unit_id,", 0), 0u);
+  EXPECT_EQ(csv.rfind("site,installed_mva,site_peak_load_mva,n1_unit_out,n1_capacity_mva,n1_margin_mva,n1,unit_id,", 0), 0u);
   EXPECT_NE(csv.find("Kelder Road 132 kV,52.5,"), std::string::npos);
   EXPECT_NE(csv.find(",fail,T-205,7.5,"), std::string::npos);
   EXPECT_NE(csv.find("wet paper (3.4 % water, above 2.5 %)"), std::string::npos);
