@@ -152,10 +152,28 @@ void remaining_life_line(PageFlow& flow, const UnitAssessment& a) {
   if (!d.index_note.empty()) flow.paragraph(d.index_note, type::body);
 }
 
+// Work the planners reported done or cancelled (work-status files): listed,
+// so that a report never looks as if it ignored a repair. The finding behind
+// it may still stand in the data until newer evidence (a sample, a survey,
+// load data) shows the repair held; then the action stays closed, and newer
+// evidence of the same finding raises it again.
+void closed_actions(PageFlow& flow, const UnitAssessment& a) {
+  if (a.closed_actions.empty()) return;
+  std::string text = "Closed by the planners' work status: ";
+  for (std::size_t i = 0; i < a.closed_actions.size(); ++i) {
+    const auto& c = a.closed_actions[i];
+    text += (i ? "; " : "") + c.reference + " (" + c.text + ") " + c.status + " on " + fmt_day(c.work_date) +
+            (c.work_note.empty() ? "" : ": " + c.work_note);
+  }
+  flow.paragraph(text + ". A finding may still show in the data above until newer evidence confirms the work.",
+                 type::small);
+}
+
 void actions_table(PageFlow& flow, const UnitAssessment& a) {
   if (a.actions.empty()) {
     flow.subsection("What to do: prioritized actions");
     no_data_note(flow, "No actions: continue routine maintenance and sampling.");
+    closed_actions(flow, a);
     return;
   }
   std::vector<analytics::Action> sorted = a.actions;
@@ -184,6 +202,7 @@ void actions_table(PageFlow& flow, const UnitAssessment& a) {
   // heading with nothing under it above the page's safety block.
   flow.subsection("What to do: prioritized actions", flow.table_start_height(t));
   flow.table(t);
+  closed_actions(flow, a);
 }
 
 void freshness_table(PageFlow& flow, const UnitAssessment& a) {

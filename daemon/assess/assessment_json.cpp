@@ -167,7 +167,7 @@ void set_plan_fields(Object& x, const analytics::Action& a) {
   x.set("overdue", a.overdue);
   x.set("outage", a.outage);
   x.set("crew", text_or_null(a.crew));
-  x.set("status", a.status.empty() ? Var("open") : Var(a.status));  // "open" or "booked" (work-status files)
+  x.set("status", a.status.empty() ? Var("open") : Var(a.status));  // "open", "booked"; closed: "done", "cancelled"
   x.set("work_date", a.work_date ? Var(analytics::format_day(a.work_date)) : Var());
   x.set("work_note", text_or_null(a.work_note));
 }
@@ -320,17 +320,22 @@ Object::Ptr to_json(const analytics::UnitAssessment& a) {
   }
   o->set("inspection", insp);
   o->set("electrical", electrical_json(a.electrical));
-  Array::Ptr actions = new Array;
-  for (const auto& act : a.actions) {
-    Object::Ptr x = new Object;
-    x->set("priority", act.priority);
-    x->set("due", analytics::format_day(act.due));
-    x->set("text", act.text);
-    x->set("reason", act.reason);
-    set_plan_fields(*x, act);
-    actions->add(x);
-  }
-  o->set("actions", actions);
+  auto actions_array = [](const std::vector<analytics::Action>& list) {
+    Array::Ptr out = new Array;
+    for (const auto& act : list) {
+      Object::Ptr x = new Object;
+      x->set("priority", act.priority);
+      x->set("due", analytics::format_day(act.due));
+      x->set("text", act.text);
+      x->set("reason", act.reason);
+      set_plan_fields(*x, act);
+      out->add(x);
+    }
+    return out;
+  };
+  o->set("actions", actions_array(a.actions));
+  // Done or cancelled by the planners' work status (status, work_date, work_note).
+  o->set("closed_actions", actions_array(a.closed_actions));
   o->set("decision", decision_json(a.decision));
   o->set("missing", strings(a.missing));
   Array::Ptr fresh = new Array;

@@ -210,6 +210,17 @@ class DemoStorylines(unittest.TestCase):
         self.assertEqual(two[0]["total_spent"], two[1]["total_spent"])
         self.assertAlmostEqual(two[1]["total_risk_with_plan"] - two[0]["total_risk_with_plan"], 49.6, delta=0.1)
 
+    def test_work_reported_done_is_listed(self):
+        # The demo's planners report CRW-T3's cooling check done on 2026-12-01 (drops/teb_planning
+        # work status): from that day the assessment lists it as closed, not among the open actions.
+        doc = json.loads(run("assess", "--root", self.root, "CRW-T3", "--as-of", "2026-12-03", "--json").stdout)
+        doc = doc[0] if isinstance(doc, list) else doc
+        closed = {c["reference"]: c for c in doc["closed_actions"]}
+        self.assertEqual(closed["CRW-T3/cooling-check"]["status"], "done")
+        self.assertEqual(closed["CRW-T3/cooling-check"]["work_date"], "2026-12-01")
+        self.assertNotIn("CRW-T3/cooling-check", [a["reference"] for a in doc["actions"]])
+        self.assertEqual(self.docs["CRW-T3"]["closed_actions"], [])  # as of 2026-11-30 it was not done yet
+
     def test_unit_reports_say_where_the_budget_plan_puts_the_action(self):
         # `ferrum report UNIT` reads the plan's year from the ranking inputs the whole-fleet assess
         # kept: CRW-T1's replacement waits for the budget (2029, above); PLW-T1's oil drying is

@@ -62,6 +62,25 @@ TEST_F(UnitReportTest, SaysWhereTheBudgetPlanPutsTheReplacement) {
   EXPECT_EQ(on_time.find("budget-constrained plan"), std::string::npos);
 }
 
+// Work the planners reported done is listed (work-status files), so that a
+// report does not look as if it ignored a repair while the finding still
+// stands in older data. Plumbing: no published source applies.
+TEST_F(UnitReportTest, ListsTheWorkReportedDone) {
+  auto unit = fixtures::filled_unit();
+  analytics::Action done;
+  done.text = "Check the cooling system";
+  done.reference = "T-204/cooling-check";
+  done.status = "done";
+  done.work_date = analytics::days_from_civil(2026, 12, 1);
+  done.work_note = "fan motor 2 replaced";
+  unit.closed_actions.push_back(done);
+  const std::string path = temp_path("closed.pdf");
+  render_unit_report(unit, nullptr, fixtures::source_files(), fixed_options(), path);
+  const std::string text = squash(pdf_raw_text(path));
+  EXPECT_NE(text.find(squash("T-204/cooling-check (Check the cooling system) done on 2026-12-01: fan motor 2 replaced")),
+            std::string::npos);
+}
+
 // The band's generic expected life (Jahromi's HI table, analytics/health_index.h)
 // never stands beside the unit's own remaining life, which it could
 // contradict (9 years beside "more than 15 years"); without an estimate of the
