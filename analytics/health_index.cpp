@@ -49,6 +49,14 @@ const GasReading* find_gas(const std::vector<GasReading>& gases, const std::stri
 
 RawFactor score_dga(const HealthIndexOptions& o, const UnitAssessment& a) {
   RawFactor f{"dga", o.weight_dga, std::nullopt, "", o.source + "; DGA factor DGAF = sum(S_i W_i)/sum(W_i)"};
+  // The factor's gas bands are mineral-oil values, as every DGA
+  // interpretation ferrum applies (oil_assessment.cpp withholds them for other
+  // fluids): another fluid's gases are trended, not scored.
+  if (a.unit.oil != OilType::mineral) {
+    f.detail = std::string("not scored: the gas bands are for mineral oil; this unit is filled with ") +
+               to_string(a.unit.oil);
+    return f;
+  }
   auto dgaf = dga_factor_value(a.dga.gases, o.gas_bands);
   if (!dgaf) {
     f.detail = "no dissolved-gas result";

@@ -132,6 +132,20 @@ TEST(HealthIndex, DpCutsAreChendongTranslationOfFuranCuts) {
 //  inspection worst "fair" -> B -> HIF 3, K 8: 24
 //  age      30 years -> B -> HIF 3, K 2: 6
 //  sum K HIF = 128; sum 4K = 4 x 49 = 196; HI = 100 x 128 / 196 = 65.306
+// An ester-filled unit: the DGA factor's gas bands are mineral-oil values
+// (Jahromi et al. 2009 scored mineral-oil units, from memory; verify), as the
+// DGA interpretations ferrum withholds for other fluids, so its gases are not
+// scored and the factor carries no weight.
+TEST(HealthIndex, EsterGasesAreNotScoredOnMineralOilBands) {
+  auto a = worked_unit();
+  a.unit.oil = fa::OilType::ester;
+  fa::score_health(fa::HealthIndexOptions{}, a);
+  const auto& dga = factor(a, "dga");
+  EXPECT_FALSE(dga.score);
+  EXPECT_EQ(dga.contribution, 0);
+  EXPECT_NE(dga.detail.find("mineral oil"), std::string::npos) << dga.detail;
+}
+
 TEST(HealthIndex, WorkedExampleByHand) {
   auto a = worked_unit();
   fa::score_health(fa::HealthIndexOptions{}, a);
