@@ -285,6 +285,9 @@ FleetPlan plan_fleet(const std::vector<PlanUnit>& units, Day as_of, const CostOp
         from = std::max(*o.start_year, ends);
       }
     }
+    if (t.action.empty() && u.action == "refurbish")
+      plan.not_planned.push_back(u.unit_id + ": its refurbishment treats the oil only, which is maintenance, not an "
+                                             "intervention of this plan (its risk is counted as it is)");
     if (!t.action.empty() && from < end_year) {
       t.first = from - *o.start_year;
       t.cost = to_cents(t.action == "replace" ? replacement_cost(u, costs) : refurbishment_cost(u, costs));

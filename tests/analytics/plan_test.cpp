@@ -196,6 +196,10 @@ TEST(PlanFleet, OilTreatmentIsMaintenanceNotARefurbishment) {
   for (const auto& y : plan.years)
     for (const auto& f : y.funded) funded[f.unit_id] = {y.year, f.action};
   EXPECT_EQ(funded.count("OIL"), 0u);  // life 14 years: beyond the horizon, no intervention
+  // Said, so that a manager does not look for it in vain.
+  // SOON is planned as a replacement, so only OIL is listed.
+  ASSERT_EQ(plan.not_planned.size(), 1u);
+  EXPECT_EQ(plan.not_planned[0].rfind("OIL: its refurbishment treats the oil only", 0), 0u) << plan.not_planned[0];
   ASSERT_EQ(funded.count("SOON"), 1u);
   EXPECT_EQ(funded["SOON"], std::make_pair(2029, std::string("replace")));  // 2026 + floor(3.5)
   ASSERT_EQ(funded.count("PAPER"), 1u);
