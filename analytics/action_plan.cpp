@@ -46,7 +46,18 @@ void add_reason(std::string& reasons, const std::string& r) {
     if (end == std::string::npos) break;
     start = end + 2;
   }
-  reasons += (reasons.empty() ? "" : "; ") + r;
+  // After a full sentence the next reason is a sentence of its own (no ".;").
+  if (reasons.empty()) {
+    reasons = r;
+  } else if (reasons.back() == '.') {
+    std::string sentence = r;
+    sentence[0] = static_cast<char>(std::toupper(static_cast<unsigned char>(sentence[0])));
+    if (sentence.back() != '.') sentence += '.';
+    if (reasons.find(" " + sentence) != std::string::npos) return;  // already said
+    reasons += " " + sentence;
+  } else {
+    reasons += "; " + r;
+  }
 }
 
 void add_data_actions(const ActionPlanOptions& o, UnitAssessment& a) {

@@ -240,7 +240,12 @@ TEST(ActionPlan, NoReclamationForAUnitToBeReplaced) {
   ASSERT_EQ(a.decision.action, "replace");
   EXPECT_EQ(count_need(a.actions, "oil-reclaim"), 0u);
   ASSERT_NE(find_need(a.actions, "replace"), nullptr);
-  EXPECT_NE(find_need(a.actions, "replace")->reason.find("oil reclamation not proposed"), std::string::npos);
+  const std::string& why = find_need(a.actions, "replace")->reason;
+  EXPECT_NE(why.find("il reclamation not proposed"), std::string::npos) << why;
+  // After the decision's sentences the note is a sentence of its own
+  // (wording only, no published source applies).
+  EXPECT_EQ(why.find(".;"), std::string::npos) << why;
+  EXPECT_NE(why.find(". Oil reclamation not proposed: it does not restore the paper."), std::string::npos) << why;
 }
 
 namespace {
