@@ -51,13 +51,19 @@ SiteUnitView unit_view(const UnitAssessment& a, const SiteViewOptions& o) {
   // carbon oxides alone are paper ageing, not a fault that bars extra load.
   if (a.dga.c57104_2008_fault_condition && *a.dga.c57104_2008_fault_condition >= 3)
     health.push_back("dissolved gases condition " + std::to_string(*a.dga.c57104_2008_fault_condition));
-  const std::string& d = a.decision.action;
-  if (d == "replace" || d == "refurbish" || d == "repair") health.push_back("decision: " + d);
   if (!health.empty()) {
     u.unhealthy = true;
     std::string s;
     for (const auto& h : health) s += (s.empty() ? "" : ", ") + h;
     u.limits.push_back("unhealthy (" + s + ")");
+  }
+  // A unit with work decided on takes no extra load either, whatever its
+  // index: it is said as pending work, not as ill health (a sound unit whose
+  // cooling is to be repaired is not "unhealthy").
+  const std::string& d = a.decision.action;
+  if (d == "replace" || d == "refurbish" || d == "repair") {
+    u.unhealthy = true;
+    u.limits.push_back("work pending (decision: " + d + ")");
   }
   if (u.can_take_load() && u.peak_load_mva) u.spare_mva = std::max(0.0, u.rated_mva - *u.peak_load_mva);
   return u;

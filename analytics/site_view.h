@@ -24,8 +24,9 @@
 //   constrained: hot spot above the normal cyclic limit in the window, or
 //   hot spot taken from a measured top oil running above the model (a cooling
 //   problem); unhealthy: an unsafe inspection item, active arcing, a
-//   C57.104-2008 fault-gas condition (without CO, CO2) 3 or 4, or a decision to replace, refurbish or
-//   repair (ferrum's rule, no published source).
+//   C57.104-2008 fault-gas condition (without CO, CO2) 3 or 4, or work
+//   pending (a decision to replace, refurbish or repair, named so in the
+//   limits; ferrum's rule, no published source).
 //
 // Units: MVA, per unit. Pure: no I/O, no clock.
 #pragma once

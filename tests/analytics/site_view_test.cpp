@@ -138,7 +138,7 @@ TEST(SiteView, ConstrainedOrUnhealthyTargetExcluded) {
   apply_site_view(fleet, site_view(fleet, {}));
   EXPECT_EQ(fleet[0].actions[0].text.rfind("Reduce the load: no other unit at Mill can take load", 0), 0u);
   EXPECT_NE(fleet[0].actions[0].text.find("T2: loading limited"), std::string::npos);
-  EXPECT_NE(fleet[0].actions[0].text.find("T4: unhealthy (decision: replace)"), std::string::npos);
+  EXPECT_NE(fleet[0].actions[0].text.find("T4: work pending (decision: replace)"), std::string::npos);
 }
 
 // A unit whose C57.104-2008 condition comes from CO2 alone (paper ageing)
