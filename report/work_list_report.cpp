@@ -63,8 +63,9 @@ void work_list_section(PageFlow& flow, const std::vector<analytics::WorkListRow>
   t.font_size = 6.8;
   // The reference sits under the action (as in the unit report): a column of
   // its own would break long references mid-word.
-  t.columns = {{"Due", 0.9},  {"State", 0.9},  {"Found", 0.9}, {"Outage", 0.62}, {"Crew", 1.05},
-               {"Unit", 0.7}, {"Site", 0.85}, {"Action and reference", 2.6}, {"Why", 1.6}};
+  // Date columns wide enough for a bold ISO date on one line.
+  t.columns = {{"Due", 1.05},  {"State", 1.0},  {"Found", 1.05}, {"Outage", 0.62}, {"Crew", 1.05},
+               {"Unit", 0.7}, {"Site", 0.85}, {"Action and reference", 2.3}, {"Why", 1.4}};
   const std::size_t n = max_rows == 0 ? rows.size() : std::min(rows.size(), max_rows);
   for (std::size_t i = 0; i < n; ++i) {
     const auto& r = rows[i];
