@@ -134,10 +134,11 @@ std::string item_title(const std::string& item) {
 
 std::string short_reason(const std::string& reason, std::size_t max_chars) {
   std::string s = reason;
+  bool more = false;  // a later clause left out: said by "…", the full reason is in the unit report
   for (const char* stop : {"; ", ". "})
-    if (auto p = s.find(stop); p != std::string::npos) s.resize(p);
+    if (auto p = s.find(stop); p != std::string::npos) s.resize(p), more = true;
   while (!s.empty() && (s.back() == '.' || s.back() == ' ')) s.pop_back();
-  if (s.size() <= max_chars) return s;
+  if (s.size() <= max_chars) return more ? s + "…" : s;
   std::size_t cut = s.rfind(' ', max_chars - 1);
   if (cut == std::string::npos || cut < max_chars / 2) cut = max_chars - 1;
   // Never inside a UTF-8 sequence.

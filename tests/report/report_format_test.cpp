@@ -52,8 +52,10 @@ TEST(FmtAgeingFactor, ThreeSignificantFigures) {
 // A list's "Why" cell: the first clause, cut at a word with an ellipsis
 // (plumbing: no published source applies).
 TEST(ReportFormat, ShortReasonKeepsTheFirstClauseAndCutsAtAWord) {
-  EXPECT_EQ(short_reason("acetylene rose; confirm first"), "acetylene rose");
-  EXPECT_EQ(short_reason("paper at end of life. Replace it."), "paper at end of life");
+  // A clause left out is marked, so that nobody takes the first for the whole.
+  EXPECT_EQ(short_reason("acetylene rose; confirm first"), "acetylene rose…");
+  EXPECT_EQ(short_reason("paper at end of life. Replace it."), "paper at end of life…");
+  EXPECT_EQ(short_reason("paper at end of life."), "paper at end of life");
   EXPECT_EQ(short_reason("one two three four", 12), "one two…");
   EXPECT_EQ(short_reason(""), "");
 }
