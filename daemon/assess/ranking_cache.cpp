@@ -84,6 +84,9 @@ Object::Ptr unit_to_json(const analytics::UnitAssessment& a) {
     x->set("outage", f->outage);
     x->set("crew", f->crew);
     x->set("overdue", f->overdue);
+    x->set("status", f->status);  // the planners' work status: booked, with its date and note
+    x->set("work_date", f->work_date);
+    x->set("work_note", f->work_note);
     o->set("first_action", x);
   }
   Object::Ptr site = new Object;  // what the site view reads (analytics/site_view.h)
@@ -134,6 +137,9 @@ analytics::UnitAssessment unit_from_json(const Object::Ptr& o) {
     f.outage = x->optValue<bool>("outage", false);
     f.crew = x->optValue<std::string>("crew", "");
     f.overdue = x->optValue<bool>("overdue", false);
+    f.status = x->optValue<std::string>("status", "");
+    f.work_date = x->optValue<analytics::Day>("work_date", 0);
+    f.work_note = x->optValue<std::string>("work_note", "");
     a.decision.first_action = std::move(f);
   }
   if (const auto x = o->getObject("site_inputs")) {
