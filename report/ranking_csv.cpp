@@ -27,11 +27,12 @@ std::optional<double> risk_per_1000(std::optional<double> risk) {
 
 std::string integer(std::optional<int> v) { return v ? std::to_string(*v) : std::string(); }
 
-// The budget plan's year of the action, only where it is not action_year:
-// the year, or "not funded by YEAR" (report::plan_note).
+// The year the budget plan funds the action (action_year itself when on
+// time, so that an empty cell only ever means "no plan for it"), or "not
+// funded by YEAR" (report::plan_note).
 std::string plan_year(const analytics::PlanSchedule& plan) {
   using S = analytics::PlanSchedule::State;
-  if (plan.state == S::later) return integer(plan.year);
+  if (plan.state == S::later || plan.state == S::on_time) return integer(plan.year);
   if (plan.state == S::unfunded) return "not funded by " + std::to_string(plan.last_year);
   return "";
 }

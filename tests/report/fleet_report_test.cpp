@@ -257,6 +257,10 @@ TEST_F(FleetReportTest, ThePlansLaterYearStandsBesideTheActionYear) {
   const std::string csv = fleet_ranking_csv(ranking);
   EXPECT_NE(csv.find(",replace,2030,2032,"), std::string::npos) << csv;
   EXPECT_NE(csv.find(",refurbish,2028,not funded by 2035,"), std::string::npos) << csv;
+  // On time: the year is given, so an empty cell only ever means no plan for it.
+  auto on_time = ranking;
+  on_time.units[1].budget_plan = {analytics::PlanSchedule::State::on_time, 2030, 2035};
+  EXPECT_NE(fleet_ranking_csv(on_time).find(",replace,2030,2030,"), std::string::npos);
 
   PlannerWeek w;
   w.week_label = "2026-W49";
