@@ -280,7 +280,7 @@ struct Decision {
 
 // Where the fleet's budget-constrained plan (analytics/plan) puts a unit's
 // replace or refurbish action, as the ranking and the reports show it beside
-// the decision's year (analytics::plan_schedule_of). The plan may fund an
+// the decision's year (analytics::apply_plan). The plan may fund an
 // action later than the decision's year when the yearly budget does not
 // reach it sooner.
 struct PlanSchedule {
