@@ -151,11 +151,11 @@ void coordinate(const ActionPlanOptions& o, UnitAssessment& a, const Decision& d
   auto confirm = std::find_if(v.begin(), v.end(), [](const Action& x) { return x.need == "oil-acetylene"; });
   auto resample = std::find_if(v.begin(), v.end(), [](const Action& x) { return x.need == "oil-resample"; });
   if (confirm != v.end() && resample != v.end()) {
-    std::string routine = resample->text;
-    if (!routine.empty()) routine[0] = static_cast<char>(std::tolower(static_cast<unsigned char>(routine[0])));
     resample->priority = std::min(resample->priority, confirm->priority);
     if (confirm->due < resample->due) resample->due = confirm->due, resample->found = confirm->found;
-    resample->text = confirm->text + " (the same sample serves: " + routine + ")";
+    // The routine resample's own words ("... within 30 days") would contradict
+    // the earlier due date: it is named, its interval stays in the reason.
+    resample->text = confirm->text + " (one sample: it also serves the routine DGA resample)";
     resample->reason = confirm->reason + "; " + resample->reason;
     resample->outage = resample->outage || confirm->outage;
     v.erase(confirm);

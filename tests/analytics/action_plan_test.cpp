@@ -252,7 +252,9 @@ TEST(ActionPlan, AcetyleneConfirmationAndResampleAreOneSample) {
   EXPECT_EQ(r->priority, 1);
   EXPECT_EQ(r->due, 19957);
   EXPECT_EQ(r->text.rfind("Investigate acetylene", 0), 0u) << r->text;
-  EXPECT_NE(r->text.find("resample main-tank oil for DGA"), std::string::npos) << r->text;
+  EXPECT_NE(r->text.find("also serves the routine DGA resample"), std::string::npos) << r->text;
+  EXPECT_EQ(r->text.find("within 30 days"), std::string::npos) << r->text;  // not beside a 7-day due date
+  EXPECT_NE(r->reason.find("Table 3: monthly"), std::string::npos) << r->reason;
   EXPECT_EQ(r->status, "booked");  // the planners' booking holds the one job
   EXPECT_FALSE(r->overdue);
 }
