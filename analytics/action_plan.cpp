@@ -81,16 +81,25 @@ void add_data_actions(const ActionPlanOptions& o, UnitAssessment& a) {
       need = "inspection-visit";
     }
     if (!text) continue;  // the load record is the daemon's, not a field task
-    // None on record: due data_due_days from the assessment. Stale: due
-    // data_due_days after the latest data went stale, so the date holds.
-    if (!f.latest)
-      a.actions.push_back(dated_action(priority, a.as_of, o.data_due_days, text, "no " + f.kind + " data on record",
+    // None on record: due data_due_days after the unit's first full year in
+    // service ended without any (from the register's year built), so that the
+    // date holds from week to week and falls overdue as the cover says; a
+    // unit built this year (or of unknown year) counts from the assessment.
+    // Stale: due data_due_days after the latest data went stale.
+    if (!f.latest) {
+      const int built = a.unit.year_built;
+      const bool dated = built > 0 && built < civil_from_days(a.as_of).year;
+      a.actions.push_back(dated_action(priority, dated ? days_from_civil(built + 1, 1, 1) : a.as_of, o.data_due_days,
+                                       text,
+                                       "no " + f.kind + " data on record" +
+                                           (dated ? " (in service since " + std::to_string(built) + ")" : ""),
                                        kSourceDataAge, need, crew));
-    else if (f.age_years && *f.age_years > o.stale_after_years)
+    } else if (f.age_years && *f.age_years > o.stale_after_years) {
       a.actions.push_back(dated_action(priority, *f.latest, stale_days + o.data_due_days, text,
                                        "latest " + f.kind + " data " + fmt(*f.age_years, 1) + " years old (" +
                                            format_day(*f.latest) + ")",
                                        kSourceDataAge, need, crew));
+    }
   }
 }
 

@@ -139,7 +139,31 @@ TEST(ActionPlan, StaleAndMissingDataAsked) {
   EXPECT_TRUE(a.actions[0].overdue);
   EXPECT_NE(a.actions[0].reason.find("2.2 years"), std::string::npos);
   EXPECT_NE(a.actions[1].reason.find("no "), std::string::npos);
-  EXPECT_EQ(a.actions[1].found, 20000);
+  EXPECT_EQ(a.actions[1].found, 20000);  // year built unknown: from the assessment
+}
+
+// Never on record for a unit in service for years: the date counts from the
+// end of its first year in service, so it holds from week to week and falls
+// overdue (as the weekly cover's overdue list says) instead of sliding with
+// the assessment day (ferrum's rule, no published source).
+TEST(ActionPlan, NeverTakenDataIsDueFromTheFirstYearInService) {
+  fa::UnitAssessment a;
+  a.as_of = fa::days_from_civil(2026, 12, 3);
+  a.unit.year_built = 2023;
+  a.dga.sample_date = a.as_of - 30;
+  fa::finalize_actions(a);
+  const fa::Action* ir = find_need(a.actions, "ir-survey");
+  ASSERT_NE(ir, nullptr);
+  EXPECT_EQ(ir->found, fa::days_from_civil(2024, 1, 1));
+  EXPECT_EQ(ir->due, fa::days_from_civil(2024, 1, 1) + 90);  // ferrum default data_due_days
+  EXPECT_TRUE(ir->overdue);
+  EXPECT_NE(ir->reason.find("in service since 2023"), std::string::npos) << ir->reason;
+  // A week later the date is the same.
+  fa::UnitAssessment b = a;
+  b.actions.clear();
+  b.as_of += 7;
+  fa::finalize_actions(b);
+  EXPECT_EQ(find_need(b.actions, "ir-survey")->due, ir->due);
 }
 
 // The jobs that need an outage get one outage action with the earliest due date and the most urgent priority, instead of
