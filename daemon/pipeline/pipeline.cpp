@@ -395,7 +395,12 @@ FileOutcome Pipeline::import_claimed(const fs::path& claimed, const std::string&
   }
   if (r.status != "accepted") {
     r.status = "rejected";
-    r.units.assign(result.named_units.begin(), result.named_units.end());  // whose results are held up
+    // Whose results are held up: the register's units the file names (a
+    // unit not in the register holds nothing; the problems name it). A
+    // register file's own units are new or updated, so all of them count.
+    r.units.clear();
+    for (const auto& u : result.named_units)
+      if (result.kind == "units_register" || store_.find_unit(u)) r.units.push_back(u);
     r.data_from.clear();  // nothing was taken
     r.data_to.clear();
     r.rows_new.reset();

@@ -544,6 +544,10 @@ class DemoStorylines(unittest.TestCase):
         self.assertEqual((r["status"], r["kind"], r["rows"]), ("accepted", "units_register", 15))
         # Nothing of a broken file reached the store: no sample of the unknown unit.
         self.assertNotIn("VNM-T4", self.docs)
+        # Its receipt names the register's units whose results wait, not the unknown one.
+        held = self.receipt("QL-batch-2611-B.csv")["units"]
+        self.assertTrue(held)
+        self.assertNotIn("VNM-T4", held)
 
 
     # ------------------------------------------------------------ actions a planner can schedule (issue #16)
