@@ -1,5 +1,6 @@
 #include "report/report_format.h"
 
+#include "analytics/health_index.h"
 #include "analytics/words.h"
 
 #include <cmath>
@@ -30,7 +31,17 @@ std::string fmt_ageing_factor(std::optional<double> v) {
   return analytics::significant_figures(*v, 3);
 }
 
-std::string fmt_health_index(std::optional<double> hi) { return fmt_number(hi, 0); }
+// A whole number, except just above a band edge: 85.3 is in the band above
+// 85 (edges belong to the worse band, analytics/health_index.h), and "85"
+// would read as the band below, so it keeps a decimal.
+std::string fmt_health_index(std::optional<double> hi) {
+  if (hi && std::isfinite(*hi)) {
+    static const auto bands = analytics::HealthIndexOptions{}.bands;
+    for (const auto& b : bands)
+      if (*hi > b.lower && std::round(*hi) == b.lower) return fmt_number(hi, 1);
+  }
+  return fmt_number(hi, 0);
+}
 
 std::string fmt_years_range(std::optional<double> years, std::optional<double> low,
                             std::optional<double> high) {

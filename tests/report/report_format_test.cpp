@@ -51,6 +51,18 @@ TEST(FmtAgeingFactor, ThreeSignificantFigures) {
 
 // A list's "Why" cell: the first clause, cut at a word with an ellipsis
 // (plumbing: no published source applies).
+// The printed index never reads as the neighbouring band: band edges belong
+// to the worse band (HealthIndexOptions, after Jahromi et al. 2009's table,
+// from memory), so just above an edge it keeps a decimal. Formatting only:
+// no published source applies to the printing.
+TEST(ReportFormat, HealthIndexNeverPrintsIntoTheNextBand) {
+  EXPECT_EQ(fmt_health_index(57.6), "58");
+  EXPECT_EQ(fmt_health_index(84.8), "85");   // serviceable, and 85 is serviceable
+  EXPECT_EQ(fmt_health_index(85.3), "85.3"); // sound: "85" would say serviceable
+  EXPECT_EQ(fmt_health_index(30.0), "30");   // the cap at the top of the worst band
+  EXPECT_EQ(fmt_health_index(std::nullopt), fmt_number(std::nullopt, 0));
+}
+
 TEST(ReportFormat, ShortReasonKeepsTheFirstClauseAndCutsAtAWord) {
   // A clause left out is marked, so that nobody takes the first for the whole.
   EXPECT_EQ(short_reason("acetylene rose; confirm first"), "acetylene rose…");
