@@ -152,23 +152,6 @@ void coordinate(const ActionPlanOptions& o, UnitAssessment& a, const Decision& d
     add_reason(dry->reason, "instead of oil reconditioning (" + rec->reason + ")");
     v.erase(rec);
   }
-  // One visit for one main-tank sample: the resample that confirms acetylene
-  // and the DGA resample are the same sample, so they are one job, under the
-  // resample's reference (the one a planner books), with the more urgent
-  // priority, due date and words. Two jobs let a booking of the slower one
-  // leave the urgent one overdue (common practice, no published source).
-  auto confirm = std::find_if(v.begin(), v.end(), [](const Action& x) { return x.need == "oil-acetylene"; });
-  auto resample = std::find_if(v.begin(), v.end(), [](const Action& x) { return x.need == "oil-resample"; });
-  if (confirm != v.end() && resample != v.end()) {
-    resample->priority = std::min(resample->priority, confirm->priority);
-    if (confirm->due < resample->due) resample->due = confirm->due, resample->found = confirm->found;
-    // The routine resample's own words ("... within 30 days") would contradict
-    // the earlier due date: it is named, its interval stays in the reason.
-    resample->text = confirm->text + " (one sample: it also serves the routine DGA resample)";
-    resample->reason = confirm->reason + "; " + resample->reason;
-    resample->outage = resample->outage || confirm->outage;
-    v.erase(confirm);
-  }
 }
 
 // Most urgent first; at equal priority and due date the jobs come before the

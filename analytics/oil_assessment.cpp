@@ -348,8 +348,12 @@ void dga_actions(const DgaWork& w, const UnitInfo& unit, const OilOptions& o, Un
              "sample, both conservator levels); then confirm acetylene with a resample and look for arcing";
       reason += "; the register gives a communicating on-load tap changer";
     }
+    // Need "oil-resample": the confirming sample is the main-tank resample, so
+    // merge_actions makes one job of it and the Table 3 resample, with this
+    // urgency and wording, under the reference planners book (common
+    // practice, no published source).
     out.actions.push_back(oil_action(d.active_arcing ? 1 : 2, found, o.acetylene_investigate_days, text, reason,
-                                     "oil-acetylene"));
+                                     "oil-resample"));
   }
 }
 

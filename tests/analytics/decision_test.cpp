@@ -29,7 +29,7 @@ void arcing(fa::UnitAssessment& a) {
   a.active_arcing = a.dga.active_arcing = true;
   a.dga.duval_triangle_1 = "D2";
   a.actions.push_back(fa::dated_action(1, kAsOf, 7, "Investigate acetylene: confirm with a resample and look for arcing",
-                                   "acetylene", fa::kSourceOilSample, "oil-acetylene", fa::kCrewOilSampling));
+                                   "acetylene", fa::kSourceOilSample, "oil-resample", fa::kCrewOilSampling));
   a.health_index = 30;
 }
 void unsafe_grounding(fa::UnitAssessment& a) {
