@@ -20,6 +20,20 @@ std::vector<const char*> Params::pointers() const {
   return p;
 }
 
+std::vector<int> Params::lengths() const {
+  if (binary_.empty()) return {};
+  std::vector<int> n(values_.size());
+  for (std::size_t i = 0; i < values_.size(); ++i) n[i] = static_cast<int>(values_[i].size());
+  return n;
+}
+
+std::vector<int> Params::formats() const {
+  if (binary_.empty()) return {};
+  std::vector<int> f(values_.size(), 0);
+  for (std::size_t i = 0; i < binary_.size(); ++i) f[i] = binary_[i] ? 1 : 0;
+  return f;
+}
+
 long Result::affected() const {
   const char* n = r_ ? PQcmdTuples(r_) : "";
   return *n ? std::strtol(n, nullptr, 10) : 0;
@@ -122,7 +136,10 @@ Result Connection::run(const char* sql, const Params& params, bool binary_result
     }
   }
   const auto values = params.pointers();
-  return check(PQexecPrepared(conn_, p.name.c_str(), params.size(), values.data(), nullptr, nullptr,
+  const auto lengths = params.lengths();
+  const auto formats = params.formats();
+  return check(PQexecPrepared(conn_, p.name.c_str(), params.size(), values.data(),
+                              lengths.empty() ? nullptr : lengths.data(), formats.empty() ? nullptr : formats.data(),
                               binary_results ? 1 : 0),
                std::string(sql).substr(0, 80));
 }

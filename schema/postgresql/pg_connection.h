@@ -34,6 +34,14 @@ class Params {
     return null();
   }
   Params& text_or_null(const std::string& v) { return v.empty() ? null() : text(v); }
+  // A bytea parameter sent in binary format: the bytes as they are, without
+  // the hex escaping a text parameter would need.
+  Params& bytes(std::string v) {
+    text(std::move(v));
+    if (binary_.size() < values_.size()) binary_.resize(values_.size(), false);
+    binary_.back() = true;
+    return *this;
+  }
   Params& null() {
     values_.emplace_back();
     is_null_.push_back(true);
@@ -41,6 +49,9 @@ class Params {
   }
   int size() const { return static_cast<int>(values_.size()); }
   std::vector<const char*> pointers() const;
+  // Lengths and formats for PQexecPrepared; empty when every one is text.
+  std::vector<int> lengths() const;
+  std::vector<int> formats() const;
 
  private:
   Params& text(std::string v) {
@@ -50,6 +61,7 @@ class Params {
   }
   std::vector<std::string> values_;
   std::vector<bool> is_null_;
+  std::vector<bool> binary_;  // by index; shorter than values_ when the last ones are text
 };
 
 // A query's result; rows by 0-based index, columns 0-based.

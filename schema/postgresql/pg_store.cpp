@@ -10,11 +10,17 @@
 //    created on demand on a second connection (CREATE TABLE, then ATTACH
 //    PARTITION, which does not block the readers and writers of the table),
 //    so that a rolled-back file does not take the partition with it;
+//  * a unit's load points are read from load_packs, its months packed into
+//    one value each, and from the rows only where a month has no current
+//    pack (migration 012; load_points, "Load packs" below). Any statement
+//    that writes load_points must note the (unit, month) in
+//    written_months_, so that the commit marks those packs stale;
 //  * files and daemon_state rows carry the root that wrote them.
 #include <algorithm>
 #include <charconv>
 #include <cmath>
 #include <cstring>
+#include <map>
 #include <memory>
 #include <set>
 #include <unordered_map>
@@ -27,6 +33,8 @@
 
 namespace ferrum::store {
 namespace {
+
+using analytics::Timestamp;
 
 using analytics::LabValue;
 using pg::Connection;
@@ -84,11 +92,13 @@ class PgStore final : public Store {
     if (unreported_duplicate_)
       throw StoreError("refusing to commit: load point of line " + std::to_string(unreported_duplicate_->line) +
                        " is a second reading in the same file and was never reported");
+    stale_written_packs();
     db_.exec("COMMIT");
     in_transaction_ = false;
   }
   void rollback() override {
     queue_.clear();
+    written_months_.clear();
     written_points_ = replaced_points_ = 0;
     unreported_duplicate_.reset();
     unit_keys_.clear();
@@ -291,6 +301,8 @@ class PgStore final : public Store {
                      " top_oil_c=$5, file_id=$6, line=$7 WHERE load_points.file_id <> $6",
                      Params().add(key).add(p.t).add(p.load_pu).add(p.ambient_c).add(p.top_oil_c).add(file_id).add(line));
     if (r.affected() == 0) return LoadInsert::duplicate_in_file;
+    written_months_.emplace(key, month_of(p.t));
+    if (!in_transaction_) stale_written_packs();
     ++written_points_;
     if (!on_file) return LoadInsert::added;
     ++replaced_points_;
@@ -459,7 +471,13 @@ class PgStore final : public Store {
     db_.run("INSERT INTO load_history(unit_key, raw_from, resume) VALUES($1,$2,$3)"
             " ON CONFLICT(unit_key) DO UPDATE SET raw_from=excluded.raw_from, resume=excluded.resume",
             Params().add(key).add(h.raw_from).add(encode_resume(h.resume)));
+    // The months whose points go: their packs are stale.
+    auto first = db_.run("SELECT min(ts) FROM load_points WHERE unit_key=$1 AND ts<$2", Params().add(key).add(h.raw_from));
+    if (first.rows() && !first.row(0).is_null(0))
+      for (int m = month_of(first.row(0).i64(0)), last = month_of(h.raw_from - 1); m <= last; ++m)
+        written_months_.emplace(key, m);
     db_.run("DELETE FROM load_points WHERE unit_key=$1 AND ts<$2", Params().add(key).add(h.raw_from));
+    if (!in_transaction_) stale_written_packs();
   }
 
   std::shared_ptr<const analytics::LoadHistory> load_history(std::int64_t key, std::string_view unit_id) {
@@ -479,17 +497,45 @@ class PgStore final : public Store {
                                                 analytics::Timestamp to) override {
     write_queued_load();
     std::vector<analytics::LoadPoint> out;
-    if (!find_unit(unit_id)) return out;
-    // Binary results: a unit's year of points is tens of thousands of
-    // doubles, which the server would print as text and ferrum parse back.
-    auto r = db_.run("SELECT ts, load_pu, ambient_c, top_oil_c FROM load_points WHERE unit_key=$1"
-                     " AND ts BETWEEN $2 AND $3 ORDER BY ts",
-                     Params().add(unit_key(std::string(unit_id))).add(from).add(to), true);
-    out.reserve(static_cast<std::size_t>(r.rows()));
-    for (int i = 0; i < r.rows(); ++i) {
-      const auto row = r.row(i);
-      out.push_back({row.be_i64(0), row.be_f64(1), row.be_f64_or_nan(2), row.be_f64_or_nan(3)});
+    if (!find_unit(unit_id) || from > to) return out;
+    const std::int64_t key = unit_key(std::string(unit_id));
+    // Load packs (migration 012): the current packs and every month's gen,
+    // read before the rows, so that a pack made from rows that a writer
+    // changes meanwhile is never stored (the writer's gen differs).
+    auto packs = db_.run("SELECT month::bigint, gen, points FROM load_packs WHERE unit_key=$1 ORDER BY month",
+                         Params().add(key), true);
+    std::map<int, std::int64_t> gen_of;  // month -> gen, of the months without a current pack
+    struct Segment {
+      int pack_row;       // >= 0: this row's pack; -1: rows from lo to hi
+      Timestamp lo, hi;
+    };
+    std::vector<Segment> segments;  // in time order
+    Timestamp cursor = from;        // the first time not covered by a segment yet
+    bool covered = false;           // up to `to`
+    for (int i = 0; i < packs.rows(); ++i) {
+      const auto row = packs.row(i);
+      const int m = static_cast<int>(row.be_i64(0));
+      const bool current = !row.is_null(2) && !written_months_.count({key, m});
+      if (!current) gen_of[m] = row.be_i64(1);
+      const Timestamp lo = month_start(m), hi = month_start(m + 1) - 1;
+      if (!current || covered || hi < cursor || lo > to) continue;
+      if (lo > cursor) segments.push_back({-1, cursor, lo - 1});
+      segments.push_back({i, lo, hi});
+      if (hi >= to) covered = true;
+      else cursor = hi + 1;
     }
+    if (!covered) segments.push_back({-1, cursor, to});
+    for (const auto& g : segments) {
+      if (g.pack_row >= 0) {
+        unpack_load_points(packs.row(g.pack_row).text(2), from, to, unit_id, out);
+        continue;
+      }
+      const std::size_t first = out.size();
+      read_load_rows(key, g.lo, g.hi, out);
+      pack_load_months(key, g.lo, g.hi, gen_of, out, first);
+    }
+    if (!std::is_sorted(out.begin(), out.end(), [](const auto& a, const auto& b) { return a.t < b.t; }))
+      throw StoreError("database error: the load points of unit " + std::string(unit_id) + " are not in time order");
     return out;
   }
 
@@ -668,6 +714,12 @@ class PgStore final : public Store {
   void write_queued_load() {
     reconnect_if_lost();
     if (queue_.empty()) return;
+    note_queued_months();
+    write_queue_rows();
+    if (!in_transaction_) stale_written_packs();  // after the rows: a pack made meanwhile is refused
+  }
+
+  void write_queue_rows() {
     if (copy_straight()) {
       queue_.clear();
       return;
@@ -705,6 +757,131 @@ class PgStore final : public Store {
                      " JOIN units u ON u.unit_key = s.unit_key"
                      " WHERE l.line <> s.line ORDER BY s.line LIMIT 1", Params());
     if (r.rows() > 0) unreported_duplicate_ = LoadDuplicate{r.row(0).i64(0), r.row(0).text(1)};
+  }
+
+  // ---- Load packs (migration 012_load_packs.sql) ----
+  // 32 bytes a point, in network order: ts, load_pu, ambient_c, top_oil_c.
+  static constexpr std::size_t kPackedPoint = 32;
+
+  static void put_be64(std::string& b, std::uint64_t v) {
+    char c[8];
+    for (int i = 0; i < 8; ++i) c[i] = static_cast<char>(v >> (56 - 8 * i));
+    b.append(c, 8);
+  }
+  static std::uint64_t get_be64(const char* p) {
+    std::uint64_t v = 0;
+    for (int i = 0; i < 8; ++i) v = (v << 8) | static_cast<unsigned char>(p[i]);
+    return v;
+  }
+  static std::uint64_t bits_of(double d) {
+    std::uint64_t v;
+    std::memcpy(&v, &d, sizeof v);
+    return v;
+  }
+  static double double_of(std::uint64_t v) {
+    double d;
+    std::memcpy(&d, &v, sizeof d);
+    return d;
+  }
+
+  // Appends a pack's points that lie in [from, to].
+  static void unpack_load_points(const std::string& pack, Timestamp from, Timestamp to, std::string_view unit_id,
+                                 std::vector<analytics::LoadPoint>& out) {
+    if (pack.size() % kPackedPoint != 0)
+      throw StoreError("database error: a load pack of unit " + std::string(unit_id) + " is cut short");
+    out.reserve(out.size() + pack.size() / kPackedPoint);
+    for (std::size_t at = 0; at < pack.size(); at += kPackedPoint) {
+      const char* p = pack.data() + at;
+      const auto t = static_cast<Timestamp>(get_be64(p));
+      if (t < from || t > to) continue;
+      out.push_back({t, double_of(get_be64(p + 8)), double_of(get_be64(p + 16)), double_of(get_be64(p + 24))});
+    }
+  }
+
+  void read_load_rows(std::int64_t key, Timestamp lo, Timestamp hi, std::vector<analytics::LoadPoint>& out) {
+    // Binary results: no printing and parsing of doubles as text.
+    auto r = db_.run("SELECT ts, load_pu, ambient_c, top_oil_c FROM load_points WHERE unit_key=$1"
+                     " AND ts BETWEEN $2 AND $3 ORDER BY ts",
+                     Params().add(key).add(lo).add(hi), true);
+    out.reserve(out.size() + static_cast<std::size_t>(r.rows()));
+    for (int i = 0; i < r.rows(); ++i) {
+      const auto row = r.row(i);
+      out.push_back({row.be_i64(0), row.be_f64(1), row.be_f64_or_nan(2), row.be_f64_or_nan(3)});
+    }
+  }
+
+  // Stores a pack of each whole month in [lo, hi] whose points were just
+  // read as rows (out[first...]) and whose gen is still the one read before
+  // them; a month this transaction wrote is left to its commit.
+  void pack_load_months(std::int64_t key, Timestamp lo, Timestamp hi, const std::map<int, std::int64_t>& gen_of,
+                        const std::vector<analytics::LoadPoint>& out, std::size_t first) {
+    std::map<int, std::string> packs;  // the months with rows, and the stale ones without
+    for (const auto& [m, gen] : gen_of)
+      if (month_start(m) >= lo && month_start(m + 1) - 1 <= hi) packs[m];
+    Timestamp month_lo = 1, month_hi = 0;
+    std::string* pack = nullptr;
+    for (std::size_t i = first; i < out.size(); ++i) {
+      const auto& p = out[i];
+      if (p.t < month_lo || p.t > month_hi) {
+        const int m = month_of(p.t);
+        month_lo = month_start(m);
+        month_hi = month_start(m + 1) - 1;
+        pack = month_lo >= lo && month_hi <= hi ? &packs[m] : nullptr;
+      }
+      if (!pack) continue;
+      put_be64(*pack, static_cast<std::uint64_t>(p.t));
+      put_be64(*pack, bits_of(p.load_pu));
+      put_be64(*pack, bits_of(p.ambient_c));
+      put_be64(*pack, bits_of(p.top_oil_c));
+    }
+    for (auto& [m, bytes] : packs) {
+      if (written_months_.count({key, m})) continue;
+      const auto g = gen_of.find(m);
+      db_.run("INSERT INTO load_packs(unit_key, month, gen, points) VALUES($1,$2,$3,$4)"
+              " ON CONFLICT (unit_key, month) DO UPDATE SET points = excluded.points"
+              " WHERE load_packs.gen = excluded.gen AND load_packs.points IS NULL",
+              Params().add(key).add(m).add(g == gen_of.end() ? std::int64_t{0} : g->second).bytes(std::move(bytes)));
+    }
+  }
+
+  // Marks stale, in the writing transaction, the pack of every month whose
+  // points it wrote: gen + 1 and no points (a month never packed gets its
+  // row at gen 1, so that a reader's pack made at gen 0 is refused). In key
+  // order, so that two writers lock the rows in one order.
+  void stale_written_packs() {
+    if (written_months_.empty()) return;
+    std::string keys = "{", months = "{";
+    for (const auto& [k, m] : written_months_) {
+      if (keys.size() > 1) {
+        keys += ',';
+        months += ',';
+      }
+      keys += std::to_string(k);
+      months += std::to_string(m);
+    }
+    keys += '}';
+    months += '}';
+    db_.run("INSERT INTO load_packs(unit_key, month, gen) SELECT k, m, 1 FROM unnest($1::bigint[], $2::integer[]) AS w(k, m)"
+            " ON CONFLICT (unit_key, month) DO UPDATE SET gen = load_packs.gen + 1, points = NULL",
+            Params().add(keys).add(months));
+    written_months_.clear();
+  }
+
+  // The (unit, month) of every queued point, before the queue is written.
+  void note_queued_months() {
+    Timestamp month_lo = 1, month_hi = 0;
+    int m = 0;
+    std::pair<std::int64_t, int> last{0, -1};
+    for (const auto& q : queue_) {
+      if (q.ts < month_lo || q.ts > month_hi) {
+        m = month_of(q.ts);
+        month_lo = month_start(m);
+        month_hi = month_start(m + 1) - 1;
+      }
+      if (q.unit_key == last.first && m == last.second) continue;
+      last = {q.unit_key, m};
+      written_months_.insert(last);
+    }
   }
 
   // Creates the month partitions of load_points that do not exist yet, on a
@@ -824,6 +1001,9 @@ class PgStore final : public Store {
   long long replaced_points_ = 0;  // of which replaced an earlier file's (read before the upsert)
   std::string last_unit_id_;
   std::int64_t last_unit_key_ = 0;
+  // (unit key, month) of the points written in this transaction, not yet
+  // marked stale in load_packs (stale_written_packs, at commit).
+  std::set<std::pair<std::int64_t, int>> written_months_;
 };
 
 }  // namespace
