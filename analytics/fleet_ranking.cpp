@@ -98,6 +98,7 @@ UnitAssessment ranking_fields(const UnitAssessment& a) {
   r.decision.action = a.decision.action;
   r.decision.year = a.decision.year;
   r.decision.reason = a.decision.reason;
+  r.decision.treats_paper = a.decision.treats_paper;
   r.decision.first_action = a.decision.first_action;
   // What the site view reads (site_view.h).
   r.thermal.peak_load_pu = a.thermal.peak_load_pu;

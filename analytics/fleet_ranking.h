@@ -57,7 +57,8 @@ FleetRanking rank_fleet(const std::vector<UnitAssessment>& units, Day as_of, con
 // The fields of an assessment that rank_fleet reads, and only those (unit id,
 // site, MVA, criticality, customers; health and condition index, band,
 // confidence, missing data; remaining life, its limiting factor and horizon;
-// the decision's action, year, reason and first action):
+// the decision's action, year, reason, whether it treats the paper, and its
+// first action):
 // rank_fleet gives the same ranking from them as from the whole assessments
 // (tested). What a stored ranking input keeps (daemon/assess/ranking_cache).
 // Kept beside rank_fleet so that the two change together.

@@ -189,6 +189,8 @@ TEST(FleetRanking, RankingFieldsGiveTheSameRanking) {
     a.dga.tdcg_ppm = 500;
     fa::finalize_actions(a);
   }
+  fleet[1].decision.action = "refurbish";  // drying out the paper: the ten-year plan reads it (plan.h)
+  fleet[1].decision.treats_paper = true;
   fa::RankingOptions o;
   o.weight_customers = 0.5;
   const auto whole = fa::rank_fleet(fleet, fleet[0].as_of, o);
@@ -202,11 +204,11 @@ TEST(FleetRanking, RankingFieldsGiveTheSameRanking) {
     EXPECT_EQ(std::tie(x.rank, x.tied, x.unit_id, x.site, x.rated_mva, x.health_index, x.band, x.remaining_life_years,
                        x.limiting_factor, x.probability_of_failure, x.consequence, x.risk, x.recommended_action,
                        x.action_year, x.insufficient_data, x.note, x.beyond_horizon, x.action_reason,
-                       x.first_action ? x.first_action->text : ""),
+                       x.treats_paper, x.first_action ? x.first_action->text : ""),
               std::tie(y.rank, y.tied, y.unit_id, y.site, y.rated_mva, y.health_index, y.band, y.remaining_life_years,
                        y.limiting_factor, y.probability_of_failure, y.consequence, y.risk, y.recommended_action,
                        y.action_year, y.insufficient_data, y.note, y.beyond_horizon, y.action_reason,
-                       y.first_action ? y.first_action->text : ""))
+                       y.treats_paper, y.first_action ? y.first_action->text : ""))
         << x.unit_id;
   }
   ASSERT_EQ(whole.mva_due_by_year.size(), from_fields.mva_due_by_year.size());
