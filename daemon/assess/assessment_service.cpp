@@ -255,4 +255,11 @@ std::vector<analytics::SiteView> apply_site_view(std::vector<analytics::UnitAsse
   return sites;
 }
 
+std::vector<analytics::SiteView> apply_site_view(std::vector<analytics::RankingInput>& units,
+                                                 const config::SiteConfig& config) {
+  auto sites = analytics::site_view(units, site_view_options_from_config(config));
+  analytics::apply_site_view(units, sites);
+  return sites;
+}
+
 }  // namespace ferrum::assess
