@@ -7,18 +7,32 @@ namespace ferrum::analytics {
 
 namespace {
 
-RankedUnit row_of(const RankingOptions& o, const UnitAssessment& a) {
+double consequence(int criticality, std::optional<int> customers_served, double rated_mva, const RankingOptions& o) {
+  double sum = 0, weights = 0;
+  auto add = [&](double w, double v) {
+    if (w <= 0 || !std::isfinite(v)) return;
+    sum += w * std::clamp(v, 0.0, 1.0);
+    weights += w;
+  };
+  add(o.weight_criticality, criticality / 5.0);
+  if (customers_served && o.customers_reference > 0)
+    add(o.weight_customers, *customers_served / o.customers_reference);
+  if (rated_mva > 0 && o.mva_reference > 0) add(o.weight_mva, rated_mva / o.mva_reference);
+  return weights > 0 ? sum / weights : 0;
+}
+
+RankedUnit row_of(const RankingOptions& o, RankingInput&& a) {
   RankedUnit r;
-  r.unit_id = a.unit.unit_id;
-  r.site = a.unit.site;
-  r.rated_mva = a.unit.rated_mva;
+  r.unit_id = std::move(a.unit_id);
+  r.site = std::move(a.site);
+  r.rated_mva = a.rated_mva;
   r.health_index = a.health_index;
-  r.band = a.band;
-  r.remaining_life_years = a.remaining_life.years;
-  r.beyond_horizon = a.remaining_life.beyond_horizon;
-  r.horizon_years = a.remaining_life.horizon_years;
-  r.limiting_factor = a.remaining_life.limiting_factor;
-  r.consequence = consequence_of(a.unit, o);
+  r.band = std::move(a.band);
+  r.remaining_life_years = a.remaining_life_years;
+  r.beyond_horizon = a.beyond_horizon;
+  r.horizon_years = a.horizon_years;
+  r.limiting_factor = std::move(a.limiting_factor);
+  r.consequence = consequence(a.criticality, a.customers_served, a.rated_mva, o);
   if (a.health_index && std::isfinite(*a.health_index)) {
     r.probability_of_failure = probability_of_failure(*a.health_index, o);
     r.failures_per_1000_unit_years = *r.probability_of_failure * 1000;
@@ -29,11 +43,11 @@ RankedUnit row_of(const RankingOptions& o, const UnitAssessment& a) {
     for (const auto& m : a.missing) r.note += "; " + m;
   }
   // The one decision of the assessment (analytics/decision/decision.h).
-  r.recommended_action = a.decision.action;
-  r.action_year = a.decision.year;
-  r.action_reason = a.decision.reason;
-  r.treats_paper = a.decision.treats_paper;
-  r.first_action = a.decision.first_action;
+  r.recommended_action = std::move(a.action);
+  r.action_year = a.action_year;
+  r.action_reason = std::move(a.action_reason);
+  r.treats_paper = a.treats_paper;
+  r.first_action = std::move(a.first_action);
   return r;
 }
 
@@ -79,61 +93,22 @@ double probability_of_failure(double hi, const RankingOptions& o) {
   return std::clamp(p, 0.0, 1.0);
 }
 
-UnitAssessment ranking_fields(const UnitAssessment& a) {
-  UnitAssessment r;
-  r.unit.unit_id = a.unit.unit_id;
-  r.unit.site = a.unit.site;
-  r.unit.rated_mva = a.unit.rated_mva;
-  r.unit.criticality = a.unit.criticality;
-  r.unit.customers_served = a.unit.customers_served;
-  r.health_index = a.health_index;
-  r.condition_index = a.condition_index;
-  r.band = a.band;
-  r.confidence = a.confidence;
-  r.missing = a.missing;
-  r.remaining_life.years = a.remaining_life.years;
-  r.remaining_life.limiting_factor = a.remaining_life.limiting_factor;
-  r.remaining_life.beyond_horizon = a.remaining_life.beyond_horizon;
-  r.remaining_life.horizon_years = a.remaining_life.horizon_years;
-  r.decision.action = a.decision.action;
-  r.decision.year = a.decision.year;
-  r.decision.reason = a.decision.reason;
-  r.decision.first_action = a.decision.first_action;
-  // What the site view reads (site_view.h).
-  r.thermal.peak_load_pu = a.thermal.peak_load_pu;
-  r.thermal.emergency_load_pu = a.thermal.emergency_load_pu;
-  r.thermal.hours_above_normal_cyclic = a.thermal.hours_above_normal_cyclic;
-  r.thermal.normal_cyclic_limit_c = a.thermal.normal_cyclic_limit_c;
-  r.thermal.hot_spot_from_measured_top_oil = a.thermal.hot_spot_from_measured_top_oil;
-  r.oil.paper_moisture_pct = a.oil.paper_moisture_pct;
-  r.unsafe_inspection = a.unsafe_inspection;
-  r.active_arcing = a.active_arcing;
-  r.dga.c57104_2008_fault_condition = a.dga.c57104_2008_fault_condition;
-  return r;
-}
-
 double consequence_of(const UnitInfo& u, const RankingOptions& o) {
-  double sum = 0, weights = 0;
-  auto add = [&](double w, double v) {
-    if (w <= 0 || !std::isfinite(v)) return;
-    sum += w * std::clamp(v, 0.0, 1.0);
-    weights += w;
-  };
-  add(o.weight_criticality, u.criticality / 5.0);
-  if (u.customers_served && o.customers_reference > 0)
-    add(o.weight_customers, *u.customers_served / o.customers_reference);
-  if (u.rated_mva > 0 && o.mva_reference > 0) add(o.weight_mva, u.rated_mva / o.mva_reference);
-  return weights > 0 ? sum / weights : 0;
+  return consequence(u.criticality, u.customers_served, u.rated_mva, o);
 }
 
 FleetRanking rank_fleet(const std::vector<UnitAssessment>& units, Day as_of, const RankingOptions& o) {
+  return rank_fleet(ranking_inputs(units), as_of, o);
+}
+
+FleetRanking rank_fleet(std::vector<RankingInput> units, Day as_of, const RankingOptions& o) {
   FleetRanking out;
   out.as_of = as_of;
   int this_year = civil_from_days(as_of).year;
   std::vector<RankedUnit> ranked, unranked;
   ranked.reserve(units.size());  // most units are ranked; doubling would hold up to twice the fleet
-  for (const auto& a : units) {
-    RankedUnit r = row_of(o, a);
+  for (auto& a : units) {
+    RankedUnit r = row_of(o, std::move(a));
     (r.insufficient_data ? unranked : ranked).push_back(std::move(r));
   }
   std::sort(ranked.begin(), ranked.end(), [](const RankedUnit& x, const RankedUnit& y) {

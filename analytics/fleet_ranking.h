@@ -29,6 +29,7 @@
 #include <vector>
 
 #include "analytics/assessment.h"
+#include "analytics/ranking_input.h"
 
 namespace ferrum::analytics {
 
@@ -51,17 +52,13 @@ struct RankingOptions {
 };
 
 // Ranks every unit; never drops one. REQUIRES nothing: empty input gives an
-// empty ranking with the ten-year summary at zero.
+// empty ranking with the ten-year summary at zero. The rows are taken by
+// value: a caller done with them moves them in, and their text moves into
+// the ranking instead of being copied (the whole fleet's rows and ranking
+// are held at once).
+FleetRanking rank_fleet(std::vector<RankingInput> units, Day as_of, const RankingOptions& options);
+// The same from whole assessments (ranking_inputs of them).
 FleetRanking rank_fleet(const std::vector<UnitAssessment>& units, Day as_of, const RankingOptions& options);
-
-// The fields of an assessment that rank_fleet reads, and only those (unit id,
-// site, MVA, criticality, customers; health and condition index, band,
-// confidence, missing data; remaining life, its limiting factor and horizon;
-// the decision's action, year, reason and first action):
-// rank_fleet gives the same ranking from them as from the whole assessments
-// (tested). What a stored ranking input keeps (daemon/assess/ranking_cache).
-// Kept beside rank_fleet so that the two change together.
-UnitAssessment ranking_fields(const UnitAssessment& a);
 
 // The two factors of risk, exposed for tests and reports.
 double probability_of_failure(double health_index, const RankingOptions& options);

@@ -24,13 +24,13 @@ std::string pct(double v) {
 // after this module rewrote it.
 const char* kTransferText = "Reduce the load";
 
-SiteUnitView unit_view(const UnitAssessment& a, const SiteViewOptions& o) {
+SiteUnitView unit_view(const std::string& unit_id, double rated_mva, const SiteInputs& th,
+                       const std::string& decision, const SiteViewOptions& o) {
   SiteUnitView u;
-  u.unit_id = a.unit.unit_id;
-  u.rated_mva = a.unit.rated_mva;
-  const auto& th = a.thermal;
-  if (th.peak_load_pu) u.peak_load_mva = *th.peak_load_pu * a.unit.rated_mva;
-  if (th.emergency_load_pu) u.emergency_mva = *th.emergency_load_pu * a.unit.rated_mva;
+  u.unit_id = unit_id;
+  u.rated_mva = rated_mva;
+  if (th.peak_load_pu) u.peak_load_mva = *th.peak_load_pu * rated_mva;
+  if (th.emergency_load_pu) u.emergency_mva = *th.emergency_load_pu * rated_mva;
   if (th.hours_above_normal_cyclic.value_or(0) > 0) {
     u.constrained = true;
     u.limits.push_back("loading limited (hot spot above " + std::to_string(static_cast<int>(th.normal_cyclic_limit_c)) +
@@ -40,17 +40,17 @@ SiteUnitView unit_view(const UnitAssessment& a, const SiteViewOptions& o) {
     u.constrained = true;
     u.limits.push_back("top oil runs above the model (cooling suspect)");
   }
-  if (a.oil.paper_moisture_pct && *a.oil.paper_moisture_pct > o.wet_paper_pct) {
+  if (th.paper_moisture_pct && *th.paper_moisture_pct > o.wet_paper_pct) {
     u.wet = true;
-    u.limits.push_back("wet paper (" + pct(*a.oil.paper_moisture_pct) + " water, above " + pct(o.wet_paper_pct) + ")");
+    u.limits.push_back("wet paper (" + pct(*th.paper_moisture_pct) + " water, above " + pct(o.wet_paper_pct) + ")");
   }
   std::vector<std::string> health;
-  if (a.unsafe_inspection) health.push_back("unsafe inspection item");
-  if (a.active_arcing) health.push_back("active arcing");
+  if (th.unsafe_inspection) health.push_back("unsafe inspection item");
+  if (th.active_arcing) health.push_back("active arcing");
   // The fault-gas condition (IEEE C57.104-2008 Table 1 without CO and CO2):
   // carbon oxides alone are paper ageing, not a fault that bars extra load.
-  if (a.dga.c57104_2008_fault_condition && *a.dga.c57104_2008_fault_condition >= 3)
-    health.push_back("dissolved gases condition " + std::to_string(*a.dga.c57104_2008_fault_condition));
+  if (th.c57104_2008_fault_condition && *th.c57104_2008_fault_condition >= 3)
+    health.push_back("dissolved gases condition " + std::to_string(*th.c57104_2008_fault_condition));
   if (!health.empty()) {
     u.unhealthy = true;
     std::string s;
@@ -60,7 +60,7 @@ SiteUnitView unit_view(const UnitAssessment& a, const SiteViewOptions& o) {
   // A unit with work decided on takes no extra load either, whatever its
   // index: it is said as pending work, not as ill health (a sound unit whose
   // cooling is to be repaired is not "unhealthy").
-  const std::string& d = a.decision.action;
+  const std::string& d = decision;
   if (d == "replace" || d == "refurbish" || d == "repair") {
     u.unhealthy = true;
     u.limits.push_back("work pending (decision: " + d + ")");
@@ -130,19 +130,18 @@ bool is_transfer_action(const Action& x) {
   return x.need == "load-reduce" || x.text.rfind(kTransferText, 0) == 0;
 }
 
-}  // namespace
-
-std::vector<SiteView> site_view(std::span<const UnitAssessment> units, const SiteViewOptions& options) {
-  std::vector<SiteView> sites;
-  for (const auto& a : units) {
-    auto it = std::find_if(sites.begin(), sites.end(), [&](const SiteView& s) { return s.site == a.unit.site; });
-    if (it == sites.end()) {
-      sites.push_back({});
-      it = sites.end() - 1;
-      it->site = a.unit.site;
-    }
-    it->units.push_back(unit_view(a, options));
+// Adds a unit's view to its site's, in order of first appearance.
+void add_unit(std::vector<SiteView>& sites, const std::string& site, SiteUnitView u) {
+  auto it = std::find_if(sites.begin(), sites.end(), [&](const SiteView& s) { return s.site == site; });
+  if (it == sites.end()) {
+    sites.push_back({});
+    it = sites.end() - 1;
+    it->site = site;
   }
+  it->units.push_back(std::move(u));
+}
+
+void complete(std::vector<SiteView>& sites) {
   for (auto& s : sites) {
     double peak = 0;
     for (const auto& u : s.units) {
@@ -153,6 +152,31 @@ std::vector<SiteView> site_view(std::span<const UnitAssessment> units, const Sit
     if (s.without_load.empty()) s.peak_load_mva = peak;
     check_n1(s);
   }
+}
+
+void rewrite_transfer(std::optional<Action>& first_action, const SiteView& site, const std::string& unit_id) {
+  if (first_action && is_transfer_action(*first_action)) first_action->text = transfer_advice(site, unit_id);
+}
+
+const SiteView* site_named(std::span<const SiteView> sites, const std::string& site) {
+  const auto it = std::find_if(sites.begin(), sites.end(), [&](const SiteView& s) { return s.site == site; });
+  return it == sites.end() ? nullptr : &*it;
+}
+
+}  // namespace
+
+std::vector<SiteView> site_view(std::span<const UnitAssessment> units, const SiteViewOptions& options) {
+  std::vector<SiteView> sites;
+  for (const auto& a : units)
+    add_unit(sites, a.unit.site, unit_view(a.unit.unit_id, a.unit.rated_mva, site_inputs(a), a.decision.action, options));
+  complete(sites);
+  return sites;
+}
+
+std::vector<SiteView> site_view(std::span<const RankingInput> units, const SiteViewOptions& options) {
+  std::vector<SiteView> sites;
+  for (const auto& r : units) add_unit(sites, r.site, unit_view(r.unit_id, r.rated_mva, r.site_inputs, r.action, options));
+  complete(sites);
   return sites;
 }
 
@@ -195,17 +219,22 @@ std::string site_line(const SiteView& s) {
 }
 
 void apply_site_view(UnitAssessment& a, std::span<const SiteView> sites) {
-  const auto it = std::find_if(sites.begin(), sites.end(), [&](const SiteView& s) { return s.site == a.unit.site; });
-  if (it == sites.end()) return;
-  a.site_summary = site_line(*it);
-  const std::string advice = transfer_advice(*it, a.unit.unit_id);
+  const SiteView* site = site_named(sites, a.unit.site);
+  if (!site) return;
+  a.site_summary = site_line(*site);
+  const std::string advice = transfer_advice(*site, a.unit.unit_id);
   for (auto& x : a.actions)
     if (is_transfer_action(x)) x.text = advice;
-  if (a.decision.first_action && is_transfer_action(*a.decision.first_action)) a.decision.first_action->text = advice;
+  rewrite_transfer(a.decision.first_action, *site, a.unit.unit_id);
 }
 
 void apply_site_view(std::vector<UnitAssessment>& units, std::span<const SiteView> sites) {
   for (auto& a : units) apply_site_view(a, sites);
+}
+
+void apply_site_view(std::vector<RankingInput>& units, std::span<const SiteView> sites) {
+  for (auto& r : units)
+    if (const SiteView* site = site_named(sites, r.site)) rewrite_transfer(r.first_action, *site, r.unit_id);
 }
 
 }  // namespace ferrum::analytics

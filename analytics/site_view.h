@@ -37,6 +37,7 @@
 #include <vector>
 
 #include "analytics/assessment.h"
+#include "analytics/ranking_input.h"
 
 namespace ferrum::analytics {
 
@@ -77,8 +78,10 @@ struct SiteView {
   bool flagged() const { return n1_ok && !*n1_ok; }
 };
 
-// One SiteView per site, in order of first appearance in `units`.
+// One SiteView per site, in order of first appearance in `units`; the same
+// from whole assessments or from their ranking inputs (ranking_input.h).
 std::vector<SiteView> site_view(std::span<const UnitAssessment> units, const SiteViewOptions& options);
+std::vector<SiteView> site_view(std::span<const RankingInput> units, const SiteViewOptions& options);
 
 // Units of the site that may take load from `unit_id`: others that can take
 // load and have spare capacity at nameplate, most spare first.
@@ -97,5 +100,7 @@ std::string site_line(const SiteView& site);
 // decision's first action.
 void apply_site_view(std::vector<UnitAssessment>& units, std::span<const SiteView> sites);
 void apply_site_view(UnitAssessment& unit, std::span<const SiteView> sites);
+// Of a ranking input, the first action only (it has no site line or action list).
+void apply_site_view(std::vector<RankingInput>& units, std::span<const SiteView> sites);
 
 }  // namespace ferrum::analytics

@@ -76,7 +76,7 @@ int cmd_assess(const Invocation& inv) {
     for (const auto& u : site->store->units()) ids.push_back(u.unit_id);
   // The key before the first read: an import meanwhile changes it (ranking_cache.h).
   const std::string cache_key = whole_fleet ? assess::ranking_cache_key(site->root, *site->store, as_of) : "";
-  std::vector<analytics::UnitAssessment> ranking_inputs;  // reserved below, once the ids are known
+  std::vector<analytics::RankingInput> ranking_inputs;  // reserved below, once the ids are known
   if (!whole_fleet)  // named units must exist; the register's own list needs no check
     for (const auto& id : ids)
       if (!site->store->find_unit(id)) throw std::runtime_error("unit " + id + " is not in the register");
@@ -93,7 +93,7 @@ int cmd_assess(const Invocation& inv) {
         ids.push_back(id);
   for (const auto& id : ids) ++site_left[site_of[id]];
   if (whole_fleet) ranking_inputs.reserve(ids.size());
-  std::map<std::string, std::vector<analytics::UnitAssessment>> site_units;  // ranking fields, until complete
+  std::map<std::string, std::vector<analytics::RankingInput>> site_units;  // until the site is complete
   std::map<std::string, analytics::SiteView> site_views;
   std::deque<analytics::UnitAssessment> waiting;  // printed units whose site is not complete yet
   // Units are assessed on every core and written out one by one, in order:
@@ -116,9 +116,10 @@ int cmd_assess(const Invocation& inv) {
   assess::assess_units_parallel(*site->store, ids, as_of, options, 0,
                                 [&](analytics::UnitAssessment&& a) {
                                   progress.update(static_cast<double>(++done), static_cast<double>(ids.size()));
-                                  if (whole_fleet) ranking_inputs.push_back(analytics::ranking_fields(a));
                                   const std::string& s = a.unit.site;
-                                  site_units[s].push_back(analytics::ranking_fields(a));
+                                  auto row = analytics::ranking_input(a);
+                                  if (whole_fleet) ranking_inputs.push_back(row);
+                                  site_units[s].push_back(std::move(row));
                                   if (--site_left[s] == 0) {
                                     site_views[s] = analytics::site_view(site_units[s], site_options).at(0);
                                     site_units.erase(s);
@@ -141,7 +142,7 @@ int cmd_rank(const Invocation& inv) {
   const analytics::Day as_of = today(inv, site->config);
   auto units = fleet_ranking_inputs(inv, *site, as_of);
   const auto sites = assess::apply_site_view(units, site->config);
-  const auto ranking = analytics::rank_fleet(units, as_of, assess::ranking_options_from_config(site->config));
+  const auto ranking = analytics::rank_fleet(std::move(units), as_of, assess::ranking_options_from_config(site->config));
   if (inv.has("json")) {
     auto doc = assess::to_json(ranking);
     doc->set("sites", assess::to_json(sites));

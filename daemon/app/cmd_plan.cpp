@@ -150,8 +150,8 @@ int cmd_plan(const Invocation& inv) {
   auto site = open_site(inv, Access::read);
   const auto budgets = budgets_from(inv, config::plan_configured(site->config));
   const analytics::Day as_of = today(inv, site->config);
-  const auto units = fleet_ranking_inputs(inv, *site, as_of);
-  const auto ranking = analytics::rank_fleet(units, as_of, assess::ranking_options_from_config(site->config));
+  auto units = fleet_ranking_inputs(inv, *site, as_of);
+  const auto ranking = analytics::rank_fleet(std::move(units), as_of, assess::ranking_options_from_config(site->config));
   const auto plan_units = assess::plan_units(ranking, site->store->units());
   std::vector<analytics::FleetPlan> plans;
   for (const auto& b : budgets) {

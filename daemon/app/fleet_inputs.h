@@ -1,17 +1,17 @@
 // The whole-fleet assessment behind `rank` and `plan`: the last one from
 // ROOT/cache/ when nothing changed since (daemon/assess/ranking_cache.h),
 // else a fresh one (with --fresh always), stored for next time. Either way
-// each unit's ranking fields only (analytics::ranking_fields).
+// each unit's ranking input only (analytics/ranking_input.h).
 #pragma once
 
 #include <vector>
 
-#include "analytics/assessment.h"
+#include "analytics/ranking_input.h"
 #include "daemon/app/command_line.h"
 #include "daemon/app/site_context.h"
 
 namespace ferrum::app {
 
-std::vector<analytics::UnitAssessment> fleet_ranking_inputs(const Invocation& inv, SiteContext& site, analytics::Day as_of);
+std::vector<analytics::RankingInput> fleet_ranking_inputs(const Invocation& inv, SiteContext& site, analytics::Day as_of);
 
 }  // namespace ferrum::app

@@ -7,6 +7,7 @@
 #include <condition_variable>
 #include <exception>
 #include <fstream>
+#include <memory>
 #include <mutex>
 #include <optional>
 #include <sstream>
@@ -183,15 +184,19 @@ void run_in_order(const store::Store& database, std::size_t n, unsigned workers,
 void assess_units_parallel(const store::Store& database, const std::vector<std::string>& ids, analytics::Day as_of,
                            const analytics::AssessmentOptions& options, unsigned workers,
                            const std::function<void(analytics::UnitAssessment&&)>& emit) {
-  // At most a window of finished assessments is held (run_in_order).
-  std::vector<std::optional<analytics::UnitAssessment>> slots(ids.size());
+  // At most a window of finished assessments is held (run_in_order). A slot
+  // is a pointer, not the assessment's 3 KB in place: slots of the whole
+  // fleet's size, all touched when made, were most of what grew with the
+  // fleet in `assess` and `rank` (bench/results.md, "Peak memory").
+  std::vector<std::unique_ptr<analytics::UnitAssessment>> slots(ids.size());
   run_in_order(
       database, ids.size(), workers,
-      [&](store::Store& store, std::size_t i) { slots[i] = assess_unit(store, ids[i], as_of, options); },
+      [&](store::Store& store, std::size_t i) {
+        slots[i] = std::make_unique<analytics::UnitAssessment>(assess_unit(store, ids[i], as_of, options));
+      },
       [&](std::size_t i) {
-        analytics::UnitAssessment a = std::move(*slots[i]);
-        slots[i].reset();
-        emit(std::move(a));
+        const auto a = std::move(slots[i]);
+        emit(std::move(*a));
       });
 }
 
@@ -249,6 +254,13 @@ analytics::SiteViewOptions site_view_options_from_config(const config::SiteConfi
 }
 
 std::vector<analytics::SiteView> apply_site_view(std::vector<analytics::UnitAssessment>& units,
+                                                 const config::SiteConfig& config) {
+  auto sites = analytics::site_view(units, site_view_options_from_config(config));
+  analytics::apply_site_view(units, sites);
+  return sites;
+}
+
+std::vector<analytics::SiteView> apply_site_view(std::vector<analytics::RankingInput>& units,
                                                  const config::SiteConfig& config) {
   auto sites = analytics::site_view(units, site_view_options_from_config(config));
   analytics::apply_site_view(units, sites);

@@ -77,5 +77,7 @@ analytics::SiteViewOptions site_view_options_from_config(const config::SiteConfi
 // transfer targets): analytics::site_view then apply_site_view.
 std::vector<analytics::SiteView> apply_site_view(std::vector<analytics::UnitAssessment>& units,
                                                  const config::SiteConfig& config);
+std::vector<analytics::SiteView> apply_site_view(std::vector<analytics::RankingInput>& units,
+                                                 const config::SiteConfig& config);
 
 }  // namespace ferrum::assess

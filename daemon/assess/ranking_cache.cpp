@@ -49,13 +49,13 @@ std::optional<T> get_opt(const Object::Ptr& o, const std::string& key) {
   return o->getValue<T>(key);
 }
 
-Object::Ptr unit_to_json(const analytics::UnitAssessment& a) {
+Object::Ptr unit_to_json(const analytics::RankingInput& a) {
   Object::Ptr o = new Object;
-  o->set("unit_id", a.unit.unit_id);
-  o->set("site", a.unit.site);
-  o->set("rated_mva", a.unit.rated_mva);
-  o->set("criticality", a.unit.criticality);
-  o->set("customers_served", opt(a.unit.customers_served));
+  o->set("unit_id", a.unit_id);
+  o->set("site", a.site);
+  o->set("rated_mva", a.rated_mva);
+  o->set("criticality", a.criticality);
+  o->set("customers_served", opt(a.customers_served));
   o->set("health_index", opt(a.health_index));
   o->set("condition_index", opt(a.condition_index));
   o->set("band", a.band);
@@ -63,15 +63,15 @@ Object::Ptr unit_to_json(const analytics::UnitAssessment& a) {
   Array::Ptr missing = new Array;
   for (const auto& m : a.missing) missing->add(m);
   o->set("missing", missing);
-  o->set("remaining_life_years", opt(a.remaining_life.years));
-  o->set("limiting_factor", a.remaining_life.limiting_factor);
-  o->set("beyond_horizon", a.remaining_life.beyond_horizon);
-  o->set("horizon_years", a.remaining_life.horizon_years);
-  o->set("action", a.decision.action);
-  o->set("action_year", opt(a.decision.year));
-  o->set("action_reason", a.decision.reason);
-  o->set("treats_paper", a.decision.treats_paper);
-  if (const auto& f = a.decision.first_action) {
+  o->set("remaining_life_years", opt(a.remaining_life_years));
+  o->set("limiting_factor", a.limiting_factor);
+  o->set("beyond_horizon", a.beyond_horizon);
+  o->set("horizon_years", a.horizon_years);
+  o->set("action", a.action);
+  o->set("action_year", opt(a.action_year));
+  o->set("action_reason", a.action_reason);
+  o->set("treats_paper", a.treats_paper);
+  if (const auto& f = a.first_action) {
     Object::Ptr x = new Object;
     x->set("priority", f->priority);
     x->set("due", f->due);
@@ -89,41 +89,42 @@ Object::Ptr unit_to_json(const analytics::UnitAssessment& a) {
     x->set("work_note", f->work_note);
     o->set("first_action", x);
   }
+  const auto& in = a.site_inputs;
   Object::Ptr site = new Object;  // what the site view reads (analytics/site_view.h)
-  site->set("peak_load_pu", opt(a.thermal.peak_load_pu));
-  site->set("emergency_load_pu", opt(a.thermal.emergency_load_pu));
-  site->set("hours_above_normal_cyclic", opt(a.thermal.hours_above_normal_cyclic));
-  site->set("normal_cyclic_limit_c", a.thermal.normal_cyclic_limit_c);
-  site->set("hot_spot_from_measured_top_oil", a.thermal.hot_spot_from_measured_top_oil);
-  site->set("paper_moisture_pct", opt(a.oil.paper_moisture_pct));
-  site->set("unsafe_inspection", a.unsafe_inspection);
-  site->set("active_arcing", a.active_arcing);
-  site->set("c57104_2008_fault_condition", opt(a.dga.c57104_2008_fault_condition));
+  site->set("peak_load_pu", opt(in.peak_load_pu));
+  site->set("emergency_load_pu", opt(in.emergency_load_pu));
+  site->set("hours_above_normal_cyclic", opt(in.hours_above_normal_cyclic));
+  site->set("normal_cyclic_limit_c", in.normal_cyclic_limit_c);
+  site->set("hot_spot_from_measured_top_oil", in.hot_spot_from_measured_top_oil);
+  site->set("paper_moisture_pct", opt(in.paper_moisture_pct));
+  site->set("unsafe_inspection", in.unsafe_inspection);
+  site->set("active_arcing", in.active_arcing);
+  site->set("c57104_2008_fault_condition", opt(in.c57104_2008_fault_condition));
   o->set("site_inputs", site);
   return o;
 }
 
-analytics::UnitAssessment unit_from_json(const Object::Ptr& o) {
-  analytics::UnitAssessment a;
-  a.unit.unit_id = o->getValue<std::string>("unit_id");
-  a.unit.site = o->getValue<std::string>("site");
-  a.unit.rated_mva = o->getValue<double>("rated_mva");
-  a.unit.criticality = o->getValue<int>("criticality");
-  a.unit.customers_served = get_opt<int>(o, "customers_served");
+analytics::RankingInput unit_from_json(const Object::Ptr& o) {
+  analytics::RankingInput a;
+  a.unit_id = o->getValue<std::string>("unit_id");
+  a.site = o->getValue<std::string>("site");
+  a.rated_mva = o->getValue<double>("rated_mva");
+  a.criticality = o->getValue<int>("criticality");
+  a.customers_served = get_opt<int>(o, "customers_served");
   a.health_index = get_opt<double>(o, "health_index");
   a.condition_index = get_opt<double>(o, "condition_index");
   a.band = o->getValue<std::string>("band");
   a.confidence = o->getValue<std::string>("confidence");
   const auto missing = o->getArray("missing");
   for (std::size_t i = 0; missing && i < missing->size(); ++i) a.missing.push_back(missing->getElement<std::string>(i));
-  a.remaining_life.years = get_opt<double>(o, "remaining_life_years");
-  a.remaining_life.limiting_factor = o->getValue<std::string>("limiting_factor");
-  a.remaining_life.beyond_horizon = o->getValue<bool>("beyond_horizon");
-  a.remaining_life.horizon_years = o->getValue<double>("horizon_years");
-  a.decision.action = o->getValue<std::string>("action");
-  a.decision.year = get_opt<int>(o, "action_year");
-  a.decision.reason = o->getValue<std::string>("action_reason");
-  a.decision.treats_paper = o->optValue<bool>("treats_paper", false);
+  a.remaining_life_years = get_opt<double>(o, "remaining_life_years");
+  a.limiting_factor = o->getValue<std::string>("limiting_factor");
+  a.beyond_horizon = o->getValue<bool>("beyond_horizon");
+  a.horizon_years = o->getValue<double>("horizon_years");
+  a.action = o->getValue<std::string>("action");
+  a.action_year = get_opt<int>(o, "action_year");
+  a.action_reason = o->getValue<std::string>("action_reason");
+  a.treats_paper = o->optValue<bool>("treats_paper", false);
   if (const auto x = o->getObject("first_action")) {
     analytics::Action f;
     f.priority = x->getValue<int>("priority");
@@ -140,18 +141,19 @@ analytics::UnitAssessment unit_from_json(const Object::Ptr& o) {
     f.status = x->optValue<std::string>("status", "");
     f.work_date = x->optValue<analytics::Day>("work_date", 0);
     f.work_note = x->optValue<std::string>("work_note", "");
-    a.decision.first_action = std::move(f);
+    a.first_action = std::move(f);
   }
   if (const auto x = o->getObject("site_inputs")) {
-    a.thermal.peak_load_pu = get_opt<double>(x, "peak_load_pu");
-    a.thermal.emergency_load_pu = get_opt<double>(x, "emergency_load_pu");
-    a.thermal.hours_above_normal_cyclic = get_opt<double>(x, "hours_above_normal_cyclic");
-    a.thermal.normal_cyclic_limit_c = x->getValue<double>("normal_cyclic_limit_c");
-    a.thermal.hot_spot_from_measured_top_oil = x->getValue<bool>("hot_spot_from_measured_top_oil");
-    a.oil.paper_moisture_pct = get_opt<double>(x, "paper_moisture_pct");
-    a.unsafe_inspection = x->getValue<bool>("unsafe_inspection");
-    a.active_arcing = x->getValue<bool>("active_arcing");
-    a.dga.c57104_2008_fault_condition = get_opt<int>(x, "c57104_2008_fault_condition");
+    auto& in = a.site_inputs;
+    in.peak_load_pu = get_opt<double>(x, "peak_load_pu");
+    in.emergency_load_pu = get_opt<double>(x, "emergency_load_pu");
+    in.hours_above_normal_cyclic = get_opt<double>(x, "hours_above_normal_cyclic");
+    in.normal_cyclic_limit_c = x->getValue<double>("normal_cyclic_limit_c");
+    in.hot_spot_from_measured_top_oil = x->getValue<bool>("hot_spot_from_measured_top_oil");
+    in.paper_moisture_pct = get_opt<double>(x, "paper_moisture_pct");
+    in.unsafe_inspection = x->getValue<bool>("unsafe_inspection");
+    in.active_arcing = x->getValue<bool>("active_arcing");
+    in.c57104_2008_fault_condition = get_opt<int>(x, "c57104_2008_fault_condition");
   }
   return a;
 }
@@ -181,8 +183,8 @@ std::string ranking_cache_key(const site::SiteRoot& root, store::Store& store, a
 // so that neither side holds the whole document as a Poco tree (at 5,000
 // units that tree, not the units, was most of `rank`'s memory). Each unit
 // line is parsed on its own; anything else in the file means "assess afresh".
-std::optional<std::vector<analytics::UnitAssessment>> read_ranking_cache(const site::SiteRoot& root,
-                                                                         const std::string& key) {
+std::optional<std::vector<analytics::RankingInput>> read_ranking_cache(const site::SiteRoot& root,
+                                                                       const std::string& key) {
   try {
     const fs::path p = cache_file(root);
     if (!fs::exists(p)) return std::nullopt;
@@ -196,7 +198,7 @@ std::optional<std::vector<analytics::UnitAssessment>> read_ranking_cache(const s
       if (head->getValue<std::string>("key") != key) return std::nullopt;
       count = head->getValue<std::size_t>("count");
     }
-    std::vector<analytics::UnitAssessment> out;
+    std::vector<analytics::RankingInput> out;
     out.reserve(count);
     while (std::getline(in, line)) {
       if (line == "]}") {  // complete: nothing after it, and every unit the head announced
@@ -214,25 +216,31 @@ std::optional<std::vector<analytics::UnitAssessment>> read_ranking_cache(const s
 }
 
 bool write_ranking_cache(const site::SiteRoot& root, const std::string& key,
-                         const std::vector<analytics::UnitAssessment>& units) {
+                         const std::vector<analytics::RankingInput>& units) {
   try {
     Object::Ptr head = new Object;
     head->set("key", key);
     head->set("count", units.size());  // a file cut at a line's end is not taken for a smaller fleet
     std::ostringstream text;
     Poco::JSON::Stringifier::stringify(head, text, 0);
-    std::string out = text.str();
-    out.pop_back();  // the head's closing brace: the units follow
-    out += ",\"units\":[\n";
-    for (std::size_t i = 0; i < units.size(); ++i) {
-      std::ostringstream unit;
-      Poco::JSON::Stringifier::stringify(unit_to_json(units[i]), unit, 0);  // one line: no indent
-      out += unit.str();
-      out += i + 1 < units.size() ? ",\n" : "\n";
-    }
-    out += "]}\n";
+    std::string head_text = text.str();
+    head_text.pop_back();  // the head's closing brace: the units follow
+    head_text += ",\"units\":[\n";
     fs::create_directories(cache_file(root).parent_path());
-    site::write_file_atomically(cache_file(root), out);
+    site::write_file_atomically(cache_file(root), [&](const site::WritePiece& write) {
+      std::ostringstream piece;  // some units at a time, not one write per line
+      piece << head_text;
+      for (std::size_t i = 0; i < units.size(); ++i) {
+        Poco::JSON::Stringifier::stringify(unit_to_json(units[i]), piece, 0);  // one line: no indent
+        piece << (i + 1 < units.size() ? ",\n" : "\n");
+        if (piece.view().size() >= 64 * 1024) {
+          write(piece.view());
+          piece.str("");
+        }
+      }
+      piece << "]}\n";
+      write(piece.view());
+    });
     return true;
   } catch (const std::exception&) {
     return false;

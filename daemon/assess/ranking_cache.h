@@ -3,9 +3,9 @@
 // second `rank`) need not assess every unit again: over 5,000 units the
 // assessments are the whole cost of a ranking (bench/results.md §2).
 //
-// The cache holds, per unit, analytics::ranking_fields (exactly the fields
-// rank_fleet reads; fleet_ranking.h); tests compare rankings made from full
-// and from cached assessments. It is used only under the key it was written
+// The cache holds, per unit, its analytics::RankingInput (exactly what the
+// ranking, the plan and the site view read; ranking_input.h); tests compare
+// rankings made from full and from cached assessments. It is used only under the key it was written
 // with: a digest of the ferrum executable (size and time), ferrum.ini, the
 // site's own IEEE C57.104 tables, the newest file record in the database
 // (every import adds one) and the as-of day. Anything else, or any error
@@ -17,7 +17,7 @@
 #include <string>
 #include <vector>
 
-#include "analytics/assessment.h"
+#include "analytics/ranking_input.h"
 #include "daemon/site/site_root.h"
 #include "schema/store.h"
 
@@ -25,14 +25,14 @@ namespace ferrum::assess {
 
 std::string ranking_cache_key(const site::SiteRoot& root, store::Store& store, analytics::Day as_of);
 
-// The cached units (only the ranking's fields filled), when the cache
-// exists and was written under `key`.
-std::optional<std::vector<analytics::UnitAssessment>> read_ranking_cache(const site::SiteRoot& root,
-                                                                         const std::string& key);
+// The cached units, when the cache exists and was written under `key`.
+std::optional<std::vector<analytics::RankingInput>> read_ranking_cache(const site::SiteRoot& root,
+                                                                       const std::string& key);
 
 // Best effort: a site root the command may not write to (a reader's
-// account) only means no cache; returns whether it was written.
+// account) only means no cache; returns whether it was written. Written one
+// unit at a time: the file is never held whole.
 bool write_ranking_cache(const site::SiteRoot& root, const std::string& key,
-                         const std::vector<analytics::UnitAssessment>& units);
+                         const std::vector<analytics::RankingInput>& units);
 
 }  // namespace ferrum::assess

@@ -222,7 +222,7 @@ analytics::PlanSchedule ReportWriter::unit_plan_schedule(const analytics::UnitAs
   auto inputs = assess::read_ranking_cache(root_, assess::ranking_cache_key(root_, store_, as_of));
   if (!inputs) return unknown;
   assess::apply_site_view(*inputs, config_);
-  auto ranking = rank(*inputs, as_of);
+  auto ranking = analytics::rank_fleet(std::move(*inputs), as_of, assess::ranking_options_from_config(config_));
   if (!plan_section(ranking, as_of).plan) return unknown;
   for (const auto& r : ranking.units)
     if (r.unit_id == unit.unit.unit_id && r.recommended_action == unit.decision.action &&

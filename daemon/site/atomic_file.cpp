@@ -39,23 +39,34 @@ void sync_directory(const std::filesystem::path& dir) {
 }
 
 void write_file_atomically(const std::filesystem::path& path, std::string_view content) {
+  write_file_atomically(path, [&](const WritePiece& write) { write(content); });
+}
+
+void write_file_atomically(const std::filesystem::path& path, const std::function<void(const WritePiece& write)>& produce) {
   const std::filesystem::path tmp = path.parent_path() / temporary_name(path.filename().string());
   const int fd = ::open(tmp.c_str(), O_WRONLY | O_CREAT | O_TRUNC | O_CLOEXEC, 0644);
   if (fd < 0) fail("cannot create", tmp);
-  const char* p = content.data();
-  std::size_t left = content.size();
-  while (left > 0) {
-    const ssize_t n = ::write(fd, p, left);
-    if (n < 0) {
-      if (errno == EINTR) continue;
-      const int e = errno;
-      ::close(fd);
-      ::unlink(tmp.c_str());
-      errno = e;
-      fail("cannot write", tmp);
+  const auto write = [&](std::string_view content) {
+    const char* p = content.data();
+    std::size_t left = content.size();
+    while (left > 0) {
+      const ssize_t n = ::write(fd, p, left);
+      if (n < 0) {
+        if (errno == EINTR) continue;
+        fail("cannot write", tmp);
+      }
+      p += n;
+      left -= static_cast<std::size_t>(n);
     }
-    p += n;
-    left -= static_cast<std::size_t>(n);
+  };
+  try {
+    produce(write);
+  } catch (...) {
+    const int e = errno;
+    ::close(fd);
+    ::unlink(tmp.c_str());
+    errno = e;
+    throw;
   }
   if (::fsync(fd) != 0 || ::close(fd) != 0) {
     const int e = errno;

@@ -5,12 +5,19 @@
 #pragma once
 
 #include <filesystem>
+#include <functional>
 #include <string_view>
 
 namespace ferrum::site {
 
 // Throws std::system_error on failure (the temporary file is removed).
 void write_file_atomically(const std::filesystem::path& path, std::string_view content);
+
+// The same with the content given piece by piece: `produce` calls `write`
+// with each piece in turn, so that a large file is never held whole. An
+// exception from `produce` removes the temporary file and is rethrown.
+using WritePiece = std::function<void(std::string_view)>;
+void write_file_atomically(const std::filesystem::path& path, const std::function<void(const WritePiece& write)>& produce);
 
 // fsync of a folder, so that a rename in it survives a power loss.
 void sync_directory(const std::filesystem::path& dir);

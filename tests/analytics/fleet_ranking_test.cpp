@@ -5,6 +5,7 @@
 
 #include "analytics/action_plan.h"
 
+#include <algorithm>
 #include <cmath>
 #include <tuple>
 
@@ -163,15 +164,16 @@ TEST(FleetRanking, FailuresPerThousandUnitYears) {
 }
 
 TEST(FleetRanking, EmptyFleet) {
-  auto r = fa::rank_fleet({}, fa::days_from_civil(2024, 1, 1), fa::RankingOptions{});
+  auto r = fa::rank_fleet(std::vector<fa::RankingInput>{}, fa::days_from_civil(2024, 1, 1), fa::RankingOptions{});
   EXPECT_TRUE(r.units.empty());
   EXPECT_EQ(r.mva_due_by_year.size(), 10u);
 }
 
-// The ranking from ranking_fields equals the ranking from whole assessments,
-// on a fleet that uses every field rank_fleet reads and many it does not.
+// The ranking from the compact ranking inputs equals the ranking from whole
+// assessments, on a fleet that uses every field rank_fleet reads and many it
+// does not, and each row carries its own assessment's fields.
 // (Consistency of two code paths: no engineering value, no source needed.)
-TEST(FleetRanking, RankingFieldsGiveTheSameRanking) {
+TEST(FleetRanking, RankingInputsGiveTheSameRanking) {
   std::vector<fa::UnitAssessment> fleet{unit("A", 20, 5, 80), unit("B", 62, 3, 40), unit("C", std::nullopt, 2, 10),
                                         unit("D", 45, 4, 25), unit("E", 88, 1, 5)};
   fleet[0].remaining_life.years = 1.5;
@@ -189,25 +191,36 @@ TEST(FleetRanking, RankingFieldsGiveTheSameRanking) {
     a.dga.tdcg_ppm = 500;
     fa::finalize_actions(a);
   }
+  fleet[1].decision.action = "refurbish";  // drying out the paper: the ten-year plan reads it (plan.h)
+  fleet[1].decision.treats_paper = true;
   fa::RankingOptions o;
   o.weight_customers = 0.5;
   const auto whole = fa::rank_fleet(fleet, fleet[0].as_of, o);
-  std::vector<fa::UnitAssessment> reduced;
-  for (const auto& a : fleet) reduced.push_back(fa::ranking_fields(a));
-  EXPECT_TRUE(reduced[0].methods.empty());
-  const auto from_fields = fa::rank_fleet(reduced, fleet[0].as_of, o);
+  const auto from_fields = fa::rank_fleet(fa::ranking_inputs(fleet), fleet[0].as_of, o);
   ASSERT_EQ(whole.units.size(), from_fields.units.size());
   for (std::size_t i = 0; i < whole.units.size(); ++i) {
     const auto &x = whole.units[i], &y = from_fields.units[i];
     EXPECT_EQ(std::tie(x.rank, x.tied, x.unit_id, x.site, x.rated_mva, x.health_index, x.band, x.remaining_life_years,
                        x.limiting_factor, x.probability_of_failure, x.consequence, x.risk, x.recommended_action,
                        x.action_year, x.insufficient_data, x.note, x.beyond_horizon, x.action_reason,
-                       x.first_action ? x.first_action->text : ""),
+                       x.treats_paper, x.first_action ? x.first_action->text : ""),
               std::tie(y.rank, y.tied, y.unit_id, y.site, y.rated_mva, y.health_index, y.band, y.remaining_life_years,
                        y.limiting_factor, y.probability_of_failure, y.consequence, y.risk, y.recommended_action,
                        y.action_year, y.insufficient_data, y.note, y.beyond_horizon, y.action_reason,
-                       y.first_action ? y.first_action->text : ""))
+                       y.treats_paper, y.first_action ? y.first_action->text : ""))
         << x.unit_id;
+    const auto& a = *std::find_if(fleet.begin(), fleet.end(), [&](auto& u) { return u.unit.unit_id == y.unit_id; });
+    EXPECT_EQ(std::tie(y.site, y.rated_mva, y.health_index, y.band, y.remaining_life_years, y.limiting_factor,
+                       y.recommended_action, y.action_year, y.action_reason, y.treats_paper),
+              std::tie(a.unit.site, a.unit.rated_mva, a.health_index, a.band, a.remaining_life.years,
+                       a.remaining_life.limiting_factor, a.decision.action, a.decision.year, a.decision.reason,
+                       a.decision.treats_paper))
+        << y.unit_id;
+    EXPECT_EQ(y.consequence, fa::consequence_of(a.unit, o)) << y.unit_id;
+    ASSERT_EQ(bool(y.first_action), bool(a.decision.first_action)) << y.unit_id;
+    if (y.first_action) {
+      EXPECT_EQ(y.first_action->reference, a.decision.first_action->reference);
+    }
   }
   ASSERT_EQ(whole.mva_due_by_year.size(), from_fields.mva_due_by_year.size());
   for (std::size_t i = 0; i < whole.mva_due_by_year.size(); ++i)

@@ -7,6 +7,8 @@
 
 #include <gtest/gtest.h>
 
+#include <tuple>
+
 namespace ferrum::analytics {
 namespace {
 
@@ -164,6 +166,53 @@ TEST(SiteView, MissingLoadLeavesNMinusOneUnknown) {
   EXPECT_FALSE(s.flagged());
   EXPECT_EQ(s.without_load, std::vector<std::string>{"T2"});
   EXPECT_NE(s.n1_text.find("not assessed"), std::string::npos);
+}
+
+// The site view from the compact ranking inputs (what `rank` and the ranking
+// cache hold) equals the one from the whole assessments, with every input
+// that bars a unit from taking load in use, and rewrites the first action the
+// same way. (Consistency of two code paths: no engineering value.)
+TEST(SiteView, RankingInputsGiveTheSameView) {
+  std::vector<UnitAssessment> fleet = {unit("T1", "Mill", 20, 1.1), unit("T2", "Mill", 20, 0.5),
+                                       unit("T3", "Mill", 20, 0.4), unit("T4", "Mill", 7.5, 0.2),
+                                       unit("T5", "Mill", 10, 0.3), unit("T6", "Mill", 10, 0.3),
+                                       unit("T7", "Mill", 10, std::nullopt), unit("T8", "Mill", 12, 0.1),
+                                       unit("T9", "Dale", 40, 0.5)};
+  fleet[0].thermal.hours_above_normal_cyclic = 30;
+  fleet[0].thermal.normal_cyclic_limit_c = 110;
+  fleet[0].decision.first_action = load_reduce();
+  fleet[1].thermal.hot_spot_from_measured_top_oil = true;
+  fleet[2].unsafe_inspection = true;
+  fleet[3].oil.paper_moisture_pct = 3.1;
+  fleet[4].active_arcing = true;
+  fleet[5].dga.c57104_2008_fault_condition = 4;
+  fleet[6].decision.action = "refurbish";
+  fleet[8].decision.first_action = load_reduce();
+  auto rows = ranking_inputs(fleet);
+  const auto whole = site_view(fleet, {});
+  const auto compact = site_view(rows, {});
+  ASSERT_EQ(whole.size(), compact.size());
+  for (std::size_t i = 0; i < whole.size(); ++i) {
+    EXPECT_EQ(site_line(whole[i]), site_line(compact[i]));
+    ASSERT_EQ(whole[i].units.size(), compact[i].units.size());
+    for (std::size_t k = 0; k < whole[i].units.size(); ++k) {
+      const auto &x = whole[i].units[k], &y = compact[i].units[k];
+      EXPECT_EQ(std::tie(x.unit_id, x.rated_mva, x.peak_load_mva, x.emergency_mva, x.limits, x.spare_mva),
+                std::tie(y.unit_id, y.rated_mva, y.peak_load_mva, y.emergency_mva, y.limits, y.spare_mva))
+          << x.unit_id;
+    }
+  }
+  EXPECT_EQ(whole[0].units[7].limits, std::vector<std::string>{});  // T8 can take load: a target of T1
+  apply_site_view(fleet, whole);
+  apply_site_view(rows, compact);
+  for (std::size_t k = 0; k < fleet.size(); ++k) {
+    ASSERT_EQ(bool(fleet[k].decision.first_action), bool(rows[k].first_action));
+    if (rows[k].first_action) {
+      EXPECT_EQ(fleet[k].decision.first_action->text, rows[k].first_action->text);
+    }
+  }
+  EXPECT_EQ(rows[0].first_action->text, "Reduce the load or transfer load to T8 (10.8 MVA spare at nameplate)");
+  EXPECT_EQ(rows[8].first_action->text.rfind("Reduce the load: no other unit at Dale can take load", 0), 0u);
 }
 
 }  // namespace
