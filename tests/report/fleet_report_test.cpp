@@ -157,8 +157,8 @@ TEST_F(FleetReportTest, WeeklyCoverPutsThePlannersWeekFirst) {
   row.reason = "silica gel saturated at the last inspection";
   row.due = w.as_of + 40;
   w.work_list = {row};
-  w.due_30 = {{w.as_of + 20, 2, "T-117", "Northgate", "Infrared survey"}};
-  w.needing_action = {{"T-117", "Northgate", "replace", 2030}};
+  w.due_30 = {{w.as_of + 20, 2, "T-117", "Northgate", "Infrared survey", 0, ""}};
+  w.needing_action = {{"T-117", "Northgate", "replace", 2030, "", {}}};
   w.have_previous_week = true;
   w.changes = {{"T-117", "Northgate", "band fair -> poor"}};
   w.alerts = {{"2026-11-28T10:00:00Z", "T-204", "acetylene", "acetylene appeared: 3 ppm"}};
