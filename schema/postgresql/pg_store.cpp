@@ -716,7 +716,10 @@ class PgStore final : public Store {
     if (queue_.empty()) return;
     note_queued_months();
     write_queue_rows();
-    if (!in_transaction_) stale_written_packs();  // after the rows: a pack made meanwhile is refused
+    // Outside a transaction (no caller of ferrum's writes points so: imports
+    // and retention run in one), after the rows: a pack made meanwhile is
+    // refused; a crash between the two statements would leave a stale pack.
+    if (!in_transaction_) stale_written_packs();
   }
 
   void write_queue_rows() {
