@@ -656,6 +656,11 @@ def main():
     for name in sections:
         getattr(b, "bench_" + name)()
     b.write(started)
+    if args.smoke:
+        # The smoke run's data, site roots and PostgreSQL folder (~370 MB) are
+        # of no use once it has passed, and CI's disk is small; a failed run
+        # keeps them to look at.
+        shutil.rmtree(b.work, ignore_errors=True)
 
 
 if __name__ == "__main__":

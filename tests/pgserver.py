@@ -10,6 +10,7 @@ Python:   srv = PgServer(folder); srv.start(); srv.conninfo("ferrum"); srv.stop(
 Command:  pgserver.py start FOLDER   prints the connection string of database
                                      'ferrum' (created) and leaves the server running
           pgserver.py stop FOLDER
+          pgserver.py remove FOLDER     stops the server and deletes FOLDER
           pgserver.py psql FOLDER SQL   runs SQL in database 'ferrum', prints the rows
 Exit status 77 with a message on stderr: PostgreSQL is not installed (skip).
 """
@@ -125,7 +126,7 @@ class PgServer:
 
 
 def main(argv):
-    if len(argv) < 3 or argv[1] not in ("start", "stop", "psql"):
+    if len(argv) < 3 or argv[1] not in ("start", "stop", "remove", "psql"):
         print(__doc__, file=sys.stderr)
         return 2
     srv = PgServer(argv[2])
@@ -138,6 +139,8 @@ def main(argv):
         print(srv.conninfo())
     elif argv[1] == "stop":
         srv.stop()
+    elif argv[1] == "remove":
+        srv.remove()
     else:
         sys.stdout.write(srv.psql(argv[3]))
     return 0
