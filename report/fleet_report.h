@@ -3,6 +3,7 @@
 // analytics produced (analytics::FleetRanking) and compute nothing.
 #pragma once
 
+#include <iosfwd>
 #include <string>
 #include <utility>
 #include <vector>
@@ -31,7 +32,10 @@ void render_fleet_report(const analytics::FleetRanking& ranking, const std::vect
                          const std::vector<analytics::SiteView>* sites = nullptr);
 
 // The ranking as CSV (RFC 4180 quoting, "\n" line ends, header row first).
-// Absent values are empty fields. Pure.
+// Absent values are empty fields. The writer streams a row at a time (`rank
+// --csv` at 20,000 units would otherwise hold a 60 MB string beside the
+// ranking); the string form is for files written atomically and tests.
+void write_fleet_ranking_csv(std::ostream& out, const analytics::FleetRanking& ranking);
 std::string fleet_ranking_csv(const analytics::FleetRanking& ranking);
 
 // The week's cover: the planner's week first (actions due in 7 and 30 days,

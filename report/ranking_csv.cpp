@@ -1,6 +1,8 @@
 // fleet_ranking_csv: the ranking as a CSV file for spreadsheets.
 #include <cstdio>
 #include <optional>
+#include <ostream>
+#include <sstream>
 
 #include "report/csv_field.h"
 #include "report/fleet_report.h"
@@ -49,8 +51,8 @@ std::string quote(const std::string& field) {
   return out + "\"";
 }
 
-std::string fleet_ranking_csv(const analytics::FleetRanking& ranking) {
-  std::string csv =
+void write_fleet_ranking_csv(std::ostream& csv, const analytics::FleetRanking& ranking) {
+  csv <<
       "rank,tied,unit_id,site,rated_mva,health_index,band,remaining_life_years,beyond_horizon,limiting_factor,"
       "probability_of_failure,failures_per_1000_unit_years,consequence,risk,recommended_action,action_year,plan_year,"
       "first_action_priority,first_action_due,first_action_overdue,first_action_reference,first_action,action_reason,"
@@ -70,17 +72,21 @@ std::string fleet_ranking_csv(const analytics::FleetRanking& ranking) {
                                   u.insufficient_data ? "yes" : "no", quote(u.note)};
     bool first = true;
     for (const auto& f : fields) {
-      if (!first) csv += ',';
-      csv += f;
+      if (!first) csv << ',';
+      csv << f;
       first = false;
     }
-    csv += '\n';
+    csv << '\n';
   }
   // The caution as a final comment line (spreadsheets show it; CSV readers
   // told to skip comments ignore it).
-  csv += csv_caution_line();  // appended: at 5,000 units a copy of the text was 15 MB
-  csv += '\n';
-  return csv;
+  csv << csv_caution_line() << '\n';
+}
+
+std::string fleet_ranking_csv(const analytics::FleetRanking& ranking) {
+  std::ostringstream csv;
+  write_fleet_ranking_csv(csv, ranking);
+  return std::move(csv).str();
 }
 
 }  // namespace ferrum::report

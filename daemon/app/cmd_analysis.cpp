@@ -144,13 +144,13 @@ int cmd_rank(const Invocation& inv) {
   const auto sites = assess::apply_site_view(units, site->config);
   const auto ranking = analytics::rank_fleet(std::move(units), as_of, assess::ranking_options_from_config(site->config));
   if (inv.has("json")) {
-    auto doc = assess::to_json(ranking);
-    doc->set("sites", assess::to_json(sites));
-    std::cout << with_caution(doc) << "\n";
+    assess::write_json(std::cout, ranking,
+                       {{"sites", assess::to_json(sites)}, {"caution", report::one_line_caution()}});
+    std::cout << "\n";
     return kOk;
   }
   if (inv.has("csv")) {
-    std::cout << report::fleet_ranking_csv(ranking);
+    report::write_fleet_ranking_csv(std::cout, ranking);
     return kOk;
   }
   std::cout << std::left << std::setw(6) << "rank" << std::setw(9) << "unit" << std::setw(16) << "site"

@@ -4,6 +4,8 @@
 
 #include <cmath>
 #include <sstream>
+#include <stdexcept>
+#include <string_view>
 
 #include "daemon/assess/electrical_json.h"
 #include "analytics/held_back.h"
@@ -366,37 +368,39 @@ Object::Ptr to_json(const analytics::UnitAssessment& a) {
   return o;
 }
 
-Object::Ptr to_json(const analytics::FleetRanking& r) {
+namespace {
+
+Object::Ptr ranked_unit_json(const analytics::RankedUnit& u) {
+  Object::Ptr x = new Object;
+  x->set("rank", u.insufficient_data ? Var() : Var(u.rank));
+  x->set("tied", u.tied);
+  x->set("unit_id", u.unit_id);
+  x->set("site", u.site);
+  x->set("rated_mva", tidy(u.rated_mva));
+  x->set("health_index", opt(u.health_index));
+  x->set("band", text_or_null(u.band));
+  x->set("remaining_life_years", opt(u.remaining_life_years));
+  x->set("beyond_horizon", u.beyond_horizon);
+  x->set("horizon_years", tidy(u.horizon_years));
+  x->set("limiting_factor", text_or_null(u.limiting_factor));
+  x->set("probability_of_failure", opt(u.probability_of_failure));
+  x->set("failures_per_1000_unit_years", opt(u.failures_per_1000_unit_years));
+  x->set("consequence", tidy(u.consequence));
+  x->set("risk", opt(u.risk));
+  x->set("recommended_action", text_or_null(u.recommended_action));
+  x->set("action_year", opt(u.action_year));
+  x->set("action_reason", text_or_null(u.action_reason));
+  x->set("treats_paper", u.treats_paper);
+  x->set("first_action", action_json(u.first_action));
+  x->set("insufficient_data", u.insufficient_data);
+  x->set("note", text_or_null(u.note));
+  return x;
+}
+
+// Everything of the ranking but its units.
+Object::Ptr ranking_head_json(const analytics::FleetRanking& r) {
   Object::Ptr o = new Object;
   o->set("as_of", analytics::format_day(r.as_of));
-  Array::Ptr units = new Array;
-  for (const auto& u : r.units) {
-    Object::Ptr x = new Object;
-    x->set("rank", u.insufficient_data ? Var() : Var(u.rank));
-    x->set("tied", u.tied);
-    x->set("unit_id", u.unit_id);
-    x->set("site", u.site);
-    x->set("rated_mva", tidy(u.rated_mva));
-    x->set("health_index", opt(u.health_index));
-    x->set("band", text_or_null(u.band));
-    x->set("remaining_life_years", opt(u.remaining_life_years));
-    x->set("beyond_horizon", u.beyond_horizon);
-    x->set("horizon_years", tidy(u.horizon_years));
-    x->set("limiting_factor", text_or_null(u.limiting_factor));
-    x->set("probability_of_failure", opt(u.probability_of_failure));
-    x->set("failures_per_1000_unit_years", opt(u.failures_per_1000_unit_years));
-    x->set("consequence", tidy(u.consequence));
-    x->set("risk", opt(u.risk));
-    x->set("recommended_action", text_or_null(u.recommended_action));
-    x->set("action_year", opt(u.action_year));
-    x->set("action_reason", text_or_null(u.action_reason));
-    x->set("treats_paper", u.treats_paper);
-    x->set("first_action", action_json(u.first_action));
-    x->set("insufficient_data", u.insufficient_data);
-    x->set("note", text_or_null(u.note));
-    units->add(x);
-  }
-  o->set("units", units);
   Array::Ptr due = new Array;
   for (const auto& y : r.mva_due_by_year) {
     Object::Ptr x = new Object;
@@ -422,6 +426,44 @@ Object::Ptr to_json(const analytics::FleetRanking& r) {
   o->set("outlook", outlook);
   o->set("risk_calibration", text_or_null(r.risk_calibration));
   return o;
+}
+
+}  // namespace
+
+Object::Ptr to_json(const analytics::FleetRanking& r) {
+  Object::Ptr o = ranking_head_json(r);
+  Array::Ptr units = new Array;
+  for (const auto& u : r.units) units->add(ranked_unit_json(u));
+  o->set("units", units);
+  return o;
+}
+
+void write_json(std::ostream& out, const analytics::FleetRanking& r,
+                const std::vector<std::pair<std::string, Var>>& extra) {
+  // The document without its units, with a marker where they go; then the
+  // units one at a time, laid out as Poco's Stringifier lays out an array of
+  // objects under a top-level key at indent 2 (elements at 4, their keys at
+  // 6, ",\n" between them, "\n  ]" after the last; "[\n\n  ]" when empty).
+  // tests/daemon/ranking_json_test.cpp holds this to stringify(to_json(r)).
+  static const std::string marker = "ferrum-ranking-units-go-here";
+  Object::Ptr o = ranking_head_json(r);
+  for (const auto& [key, value] : extra) o->set(key, value);
+  o->set("units", marker);
+  const std::string head = stringify(o);
+  const std::string at = "\"units\": \"" + marker + "\"";
+  const auto pos = head.find(at);
+  if (pos == std::string::npos) throw std::logic_error("write_json: the units marker is missing");
+  out.write(head.data(), static_cast<std::streamsize>(pos));
+  out << "\"units\": [\n";
+  bool first = true;
+  for (const auto& u : r.units) {
+    if (!first) out << ",\n";
+    first = false;
+    out << "    ";
+    Poco::JSON::Stringifier::stringify(ranked_unit_json(u), out, 6, 2);
+  }
+  out << "\n  ]";
+  out << std::string_view(head).substr(pos + at.size());
 }
 
 Array::Ptr to_json(const std::vector<analytics::SiteView>& sites) {

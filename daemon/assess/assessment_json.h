@@ -6,7 +6,9 @@
 #include <Poco/JSON/Array.h>
 #include <Poco/JSON/Object.h>
 
+#include <ostream>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "analytics/assessment.h"
@@ -22,5 +24,11 @@ Poco::JSON::Array::Ptr to_json(const std::vector<analytics::SiteView>& sites);
 
 // Pretty-printed text of a JSON value.
 std::string stringify(const Poco::Dynamic::Var& v);
+
+// stringify(to_json(r)) with the `extra` top-level keys set, written a unit
+// at a time: `rank --json` never holds the whole fleet's tree (at 5,000
+// units it took more memory than the ranking itself).
+void write_json(std::ostream& out, const analytics::FleetRanking& r,
+                const std::vector<std::pair<std::string, Poco::Dynamic::Var>>& extra);
 
 }  // namespace ferrum::assess
