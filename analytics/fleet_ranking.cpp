@@ -111,6 +111,10 @@ FleetRanking rank_fleet(std::vector<RankingInput> units, Day as_of, const Rankin
     RankedUnit r = row_of(o, std::move(a));
     (r.insufficient_data ? unranked : ranked).push_back(std::move(r));
   }
+  // The rows' text has moved into the ranking; their husks (752 bytes a
+  // unit) go now rather than at return, so that they and the ranking are not
+  // held together through the sort.
+  std::vector<RankingInput>().swap(units);
   std::sort(ranked.begin(), ranked.end(), [](const RankedUnit& x, const RankedUnit& y) {
     if (*x.risk != *y.risk) return *x.risk > *y.risk;
     return x.unit_id < y.unit_id;
