@@ -32,7 +32,13 @@ int cmd_report(const Invocation& inv) {
     std::cout << f.pdf.string() << "\n" << f.csv.string() << "\n" << f.sites_csv.string() << "\n";
     return kOk;
   }
-  for (const auto& unit : inv.args) std::cout << writer.unit_report(unit, as_of, out).string() << "\n";
+  // One call for all the named units: their sites' units are assessed once.
+  std::string failed;
+  for (const auto& o : writer.unit_reports_by_id(inv.args, as_of, out)) {
+    if (o.error.empty()) std::cout << o.path.string() << "\n";
+    else failed += (failed.empty() ? "" : "; ") + o.unit_id + ": " + o.error;
+  }
+  if (!failed.empty()) throw std::runtime_error("no report for " + failed);
   return kOk;
 }
 

@@ -139,18 +139,66 @@ fs::path render_unit_file(store::Store& store, const analytics::UnitAssessment& 
 }  // namespace
 
 fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as_of, const fs::path& out_dir) {
-  if (!store_.find_unit(unit_id)) throw std::runtime_error("unit " + unit_id + " is not in the register");
-  analytics::UnitData data = store_.unit_data(unit_id);
-  data.held_back = ingest::held_back_of(store_, unit_id);
-  analytics::UnitAssessment current = analytics::assess_unit(data_as_of(data, as_of), as_of, options_);
-  const auto sites = site_of(current, as_of);
-  analytics::apply_site_view(current, sites);
-  current.budget_plan = unit_plan_schedule(current, as_of);
-  const analytics::Day previous_day = previous_report_day(store_, unit_id, as_of);
-  const fs::path path =
-      render_unit_file(store_, current, data, as_of, previous_day, sites, options_, report_options(config_), out_dir);
-  if (previous_day != as_of) store_.set_state("report:" + unit_id, std::to_string(as_of));
-  return path;
+  const auto outcome = unit_reports_by_id({unit_id}, as_of, out_dir).at(0);
+  if (!outcome.error.empty()) throw std::runtime_error(outcome.error);
+  return outcome.path;
+}
+
+std::vector<ReportWriter::UnitReportOutcome> ReportWriter::unit_reports_by_id(const std::vector<std::string>& unit_ids,
+                                                                              analytics::Day as_of,
+                                                                              const fs::path& out_dir) {
+  std::vector<UnitReportOutcome> out;
+  out.reserve(unit_ids.size());
+  for (const auto& id : unit_ids) out.push_back({id, {}, {}});
+  std::vector<analytics::UnitInfo> register_units;
+  try {
+    register_units = store_.units();
+  } catch (const std::exception& e) {
+    for (auto& o : out) o.error = e.what();
+    return out;
+  }
+  // Which of the wanted units each site holds (positions in `out`).
+  std::map<std::string, std::vector<std::size_t>> by_site;
+  for (std::size_t k = 0; k < out.size(); ++k) {
+    const auto u = std::find_if(register_units.begin(), register_units.end(),
+                                [&](const analytics::UnitInfo& x) { return x.unit_id == out[k].unit_id; });
+    if (u == register_units.end()) out[k].error = "unit " + out[k].unit_id + " is not in the register";
+    else by_site[u->site].push_back(k);
+  }
+  const report::ReportOptions ropts = report_options(config_);
+  CachedPlan plan;
+  for (const auto& [site, wanted] : by_site) {
+    // Every unit of the site, assessed once: the site view needs them all.
+    std::vector<analytics::UnitAssessment> peers;
+    std::vector<analytics::SiteView> sites;
+    try {
+      for (const auto& u : register_units)
+        if (u.site == site) peers.push_back(assess::assess_unit(store_, u.unit_id, as_of, options_));
+      sites = analytics::site_view(peers, assess::site_view_options_from_config(config_));
+    } catch (const std::exception& e) {
+      for (const auto k : wanted) out[k].error = e.what();
+      continue;
+    }
+    for (const auto k : wanted) {
+      const std::string& unit_id = out[k].unit_id;
+      try {
+        const auto peer = std::find_if(peers.begin(), peers.end(), [&](const analytics::UnitAssessment& a) {
+          return a.unit.unit_id == unit_id;
+        });
+        analytics::UnitData data = store_.unit_data(unit_id);
+        data.held_back = ingest::held_back_of(store_, unit_id);
+        analytics::UnitAssessment current = *peer;  // one of register_units: always found
+        analytics::apply_site_view(current, sites);
+        current.budget_plan = unit_plan_schedule(current, as_of, plan);
+        const analytics::Day previous_day = previous_report_day(store_, unit_id, as_of);
+        out[k].path = render_unit_file(store_, current, data, as_of, previous_day, sites, options_, ropts, out_dir);
+        if (previous_day != as_of) store_.set_state("report:" + unit_id, std::to_string(as_of));
+      } catch (const std::exception& e) {
+        out[k].error = e.what();
+      }
+    }
+  }
+  return out;
 }
 
 std::vector<fs::path> ReportWriter::unit_reports(const std::vector<analytics::UnitAssessment>& units,
@@ -189,14 +237,6 @@ ReportWriter::FleetFiles ReportWriter::fleet_report(analytics::Day as_of, const 
   return fleet_files(units, ranking, plan, sites, as_of, out_dir);
 }
 
-std::vector<analytics::SiteView> ReportWriter::site_of(const analytics::UnitAssessment& unit, analytics::Day as_of) {
-  std::vector<analytics::UnitAssessment> peers;
-  for (const auto& u : store_.units())
-    if (u.site == unit.unit.site)
-      peers.push_back(u.unit_id == unit.unit.unit_id ? unit : assess::assess_unit(store_, u.unit_id, as_of, options_));
-  return analytics::site_view(peers, assess::site_view_options_from_config(config_));
-}
-
 report::PlanSection ReportWriter::plan_section(analytics::FleetRanking& ranking, analytics::Day as_of) {
   report::PlanSection s;
   s.configured = config::plan_configured(config_);
@@ -208,7 +248,8 @@ report::PlanSection ReportWriter::plan_section(analytics::FleetRanking& ranking,
   return s;
 }
 
-analytics::PlanSchedule ReportWriter::unit_plan_schedule(const analytics::UnitAssessment& unit, analytics::Day as_of) {
+analytics::PlanSchedule ReportWriter::unit_plan_schedule(const analytics::UnitAssessment& unit, analytics::Day as_of,
+                                                         CachedPlan& plan) {
   analytics::PlanSchedule none;
   // Only the actions the plan funds (analytics/plan/plan.h): an oil treatment
   // is maintenance and never waits for the plan's budget.
@@ -217,14 +258,19 @@ analytics::PlanSchedule ReportWriter::unit_plan_schedule(const analytics::UnitAs
   if (!config::plan_configured(config_)) return none;
   analytics::PlanSchedule unknown;
   unknown.state = analytics::PlanSchedule::State::not_known;
-  // The plan is the fleet's: without the fleet's current ranking inputs it
-  // would take assessing every unit, which one unit's report does not do.
-  auto inputs = assess::read_ranking_cache(root_, assess::ranking_cache_key(root_, store_, as_of));
-  if (!inputs) return unknown;
-  assess::apply_site_view(*inputs, config_);
-  auto ranking = analytics::rank_fleet(std::move(*inputs), as_of, assess::ranking_options_from_config(config_));
-  if (!plan_section(ranking, as_of).plan) return unknown;
-  for (const auto& r : ranking.units)
+  if (!plan.read) {
+    plan.read = true;
+    // The plan is the fleet's: without the fleet's current ranking inputs it
+    // would take assessing every unit, which a unit's report does not do.
+    auto inputs = assess::read_ranking_cache(root_, assess::ranking_cache_key(root_, store_, as_of));
+    if (inputs) {
+      assess::apply_site_view(*inputs, config_);
+      auto ranking = analytics::rank_fleet(std::move(*inputs), as_of, assess::ranking_options_from_config(config_));
+      if (plan_section(ranking, as_of).plan) plan.ranking = std::move(ranking);
+    }
+  }
+  if (!plan.ranking) return unknown;
+  for (const auto& r : plan.ranking->units)
     if (r.unit_id == unit.unit.unit_id && r.recommended_action == unit.decision.action &&
         r.action_year == unit.decision.year)
       return r.budget_plan;

@@ -34,6 +34,21 @@ class ReportWriter {
   std::filesystem::path unit_report(const std::string& unit_id, analytics::Day as_of,
                                     const std::filesystem::path& out_dir);
 
+  // The reports of several units, each the file unit_report writes for it,
+  // with each unit of their sites assessed once for all of them and the
+  // ranking cache read at most once. A unit's report needs its site's view,
+  // which needs every unit of the site assessed: one by one, the reports of
+  // every unit of an n-unit site cost n² assessments (the daemon after a
+  // file naming them all; `ferrum report` naming them). Never throws: per
+  // unit, in the order given, its path or why it failed.
+  struct UnitReportOutcome {
+    std::string unit_id;
+    std::filesystem::path path;  // empty when it failed
+    std::string error;
+  };
+  std::vector<UnitReportOutcome> unit_reports_by_id(const std::vector<std::string>& unit_ids, analytics::Day as_of,
+                                                    const std::filesystem::path& out_dir);
+
   struct FleetFiles {
     std::filesystem::path pdf, csv, sites_csv;  // sites_csv: ferrum-fleet-sites-DATE.csv (site view)
   };
@@ -64,13 +79,18 @@ class ReportWriter {
   FleetFiles fleet_files(const std::vector<analytics::UnitAssessment>& units, const analytics::FleetRanking& ranking,
                          const report::PlanSection& plan, const std::vector<analytics::SiteView>& sites,
                          analytics::Day as_of, const std::filesystem::path& out_dir);
+  // The fleet ranking with the budget plan applied, made from the ranking
+  // inputs of the last whole-fleet assessment when they are still current
+  // (daemon/assess/ranking_cache.h); read once per unit_reports_by_id call.
+  struct CachedPlan {
+    bool read = false;
+    std::optional<analytics::FleetRanking> ranking;  // none: no current cache, or no plan
+  };
   // Where the budget plan puts one unit's action, for its report alone: from
-  // the ranking inputs of the last whole-fleet assessment when they are still
-  // current (daemon/assess/ranking_cache.h), else not_known (or none when no
-  // plan is configured).
-  analytics::PlanSchedule unit_plan_schedule(const analytics::UnitAssessment& unit, analytics::Day as_of);
-  // The site view of the unit's site, by assessing the site's units.
-  std::vector<analytics::SiteView> site_of(const analytics::UnitAssessment& unit, analytics::Day as_of);
+  // the cached plan when there is one, else not_known (or none when the
+  // action is not one the plan funds or no plan is configured).
+  analytics::PlanSchedule unit_plan_schedule(const analytics::UnitAssessment& unit, analytics::Day as_of,
+                                             CachedPlan& plan);
   // The weekly bundle's unit reports, one per assessment (site view applied),
   // rendered on one thread per core; paths in the order of `units`.
   std::vector<std::filesystem::path> unit_reports(const std::vector<analytics::UnitAssessment>& units,

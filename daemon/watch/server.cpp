@@ -345,23 +345,32 @@ struct Server::Impl {
 
   void render_dirty(bool force) {
     const auto now = std::chrono::steady_clock::now();
+    const auto as_of = today();
+    std::vector<std::string> due;
     for (auto it = dirty_units.begin(); it != dirty_units.end();) {
       if (!force && now - it->second < std::chrono::seconds(config.debounce_seconds)) {
         ++it;
         continue;
       }
-      const std::string unit = it->first;
+      due.push_back(it->first);
       it = dirty_units.erase(it);
+    }
+    std::vector<std::string> to_render;
+    for (const auto& unit : due) {
       try {
-        const auto as_of = today();
         const auto a = writer->assess(unit, as_of);
         check_alerts(unit, a);
-        if (!config.store.serves_site(a.unit.site)) continue;  // another root's region ([site] serves)
-        const auto path = writer->unit_report(unit, as_of, root.reports());
-        spdlog::info("report {} rendered: {}", unit, path.filename().string());
+        if (config.store.serves_site(a.unit.site)) to_render.push_back(unit);  // else another root's region
       } catch (const std::exception& e) {
         spdlog::error("report for {} failed: {}", unit, e.what());
       }
+    }
+    if (to_render.empty()) return;
+    // All at once: each unit of their sites is assessed once for all of
+    // them, not once per report (a file naming every unit of a site).
+    for (const auto& o : writer->unit_reports_by_id(to_render, as_of, root.reports())) {
+      if (o.error.empty()) spdlog::info("report {} rendered: {}", o.unit_id, o.path.filename().string());
+      else spdlog::error("report for {} failed: {}", o.unit_id, o.error);
     }
   }
 

@@ -2,7 +2,8 @@
 already made, on one thread per core. Each of its unit PDFs must read exactly
 as `ferrum report UNIT` writes it for the same day from the same data, in the
 register's order in the index, and each unit's report day must be recorded
-(the next report's "what changed" compares with it).
+(the next report's "what changed" compares with it). Units named together
+to `ferrum report` read as each named alone.
 Plumbing: the two paths are compared with each other, so no published source
 applies."""
 import glob
@@ -72,6 +73,29 @@ class WeeklyBundle(SiteTestCase):
         index = pdftotext(os.path.join(bundle, "index.pdf"))
         for u in UNITS:
             self.assertIn(f"ferrum-{u}-{AS_OF}.pdf", index.replace("\n", ""), u)
+
+    def test_units_reported_together_read_as_each_reported_alone(self):
+        # One call for every unit assesses each unit of their sites once
+        # (ReportWriter::unit_reports_by_id); the files must not differ from
+        # one call per unit, which assesses the unit's whole site each time.
+        together = os.path.join(self.root, "together")
+        printed = run("report", "--root", self.root, "--as-of", AS_OF, "--out", together, *UNITS).stdout.split()
+        self.assertEqual(printed, [os.path.join(together, f"ferrum-{u}-{AS_OF}.pdf") for u in UNITS])
+        alone = os.path.join(self.twin, "alone")
+        for u in UNITS:
+            run("report", "--root", self.twin, "--as-of", AS_OF, "--out", alone, u)
+        for u in UNITS:
+            name = f"ferrum-{u}-{AS_OF}.pdf"
+            self.assertEqual(pdftotext(os.path.join(together, name)), pdftotext(os.path.join(alone, name)), name)
+
+    def test_an_unknown_unit_does_not_stop_the_others(self):
+        out = os.path.join(self.root, "some")
+        p = run("report", "--root", self.root, "--as-of", AS_OF, "--out", out, "A1", "NOPE", "C2", check=False)
+        self.assertNotEqual(p.returncode, 0)
+        self.assertIn("NOPE: unit NOPE is not in the register", p.stderr)
+        self.assertEqual(p.stdout.split(), [os.path.join(out, f"ferrum-{u}-{AS_OF}.pdf") for u in ["A1", "C2"]])
+        for u in ["A1", "C2"]:
+            self.assertIn("SAFETY", pdftotext(os.path.join(out, f"ferrum-{u}-{AS_OF}.pdf")))
 
     def test_each_unit_report_day_is_recorded(self):
         run("report", "--root", self.root, "--as-of", AS_OF, "--weekly", "--quiet")
