@@ -11,9 +11,11 @@
 #include <charconv>
 #include <cctype>
 #include <cmath>
+#include <cstring>
 #include <functional>
 #include <map>
 #include <optional>
+#include <streambuf>
 
 #include "analytics/calendar.h"
 #include "daemon/ingest/field_parsers.h"
@@ -68,16 +70,83 @@ class Handler : public Poco::XML::DefaultHandler {
   }
 };
 
+// Poco::Zip reads a ZIP64 end-of-central-directory record by allocating the
+// record size the file states (new char[size], then a copy into a string)
+// before reading the record. A damaged or hostile file stating exabytes made
+// that allocation fail (std::bad_alloc: an abort under AddressSanitizer, found
+// by tests/fuzz/fuzz_workbook_reader), and one stating gigabytes made ferrum
+// allocate and copy gigabytes. This stream buffer sits between Poco and the
+// file: when Poco, having just read the record's signature "PK\6\6" (a 4-byte
+// read), reads the 8-byte record size and that size is more than the bytes
+// left in the file, Poco is given the smallest valid size instead and the
+// package is refused as damaged. A true ZIP64 record always fits in its file,
+// so no valid workbook is refused. Hand-written because Poco has no limit of
+// its own for this (README, "Where ferrum writes code by hand").
+class Zip64SizeGuard : public std::streambuf {
+ public:
+  explicit Zip64SizeGuard(std::streambuf* file) : file_(file) {
+    const auto start = file_->pubseekoff(0, std::ios::cur, std::ios::in);
+    const auto end = file_->pubseekoff(0, std::ios::end, std::ios::in);
+    if (start != pos_type(off_type(-1)) && end != pos_type(off_type(-1))) {
+      size_ = static_cast<std::int64_t>(end);
+      file_->pubseekpos(start, std::ios::in);
+    }
+  }
+  bool tripped() const { return tripped_; }
+
+ protected:
+  int_type underflow() override { return file_->sgetc(); }
+  int_type uflow() override {
+    after_signature_ = false;
+    return file_->sbumpc();
+  }
+  std::streamsize xsgetn(char* s, std::streamsize n) override {
+    const bool size_read = n == 8 && after_signature_;
+    after_signature_ = false;
+    const std::int64_t at = size_read ? static_cast<std::int64_t>(file_->pubseekoff(0, std::ios::cur, std::ios::in)) : 0;
+    const std::streamsize got = file_->sgetn(s, n);
+    if (size_read && got == 8 && size_ >= 0 && at >= 0) {
+      std::uint64_t stated = 0;
+      for (int i = 7; i >= 0; --i) stated = (stated << 8) | static_cast<unsigned char>(s[i]);
+      if (stated > static_cast<std::uint64_t>(size_ - (at + 8))) {
+        tripped_ = true;
+        constexpr std::uint64_t kSmallest = 44;  // the record's fixed fields after the size (APPNOTE 4.3.14)
+        for (int i = 0; i < 8; ++i) s[i] = static_cast<char>((kSmallest >> (8 * i)) & 0xff);
+      }
+    }
+    after_signature_ = n == 4 && got == 4 && std::memcmp(s, "PK\x06\x06", 4) == 0;
+    return got;
+  }
+  pos_type seekoff(off_type off, std::ios::seekdir dir, std::ios::openmode which) override {
+    if (!(off == 0 && dir == std::ios::cur)) after_signature_ = false;  // tellg() moves nothing
+    return file_->pubseekoff(off, dir, which);
+  }
+  pos_type seekpos(pos_type pos, std::ios::openmode which) override {
+    after_signature_ = false;
+    return file_->pubseekpos(pos, which);
+  }
+
+ private:
+  std::streambuf* file_;
+  std::int64_t size_ = -1;  // -1: not seekable (no check)
+  bool after_signature_ = false;
+  bool tripped_ = false;
+};
+
 class Package {
  public:
-  Package(std::istream& in, std::uint64_t max_part_bytes) : in_(in), max_(max_part_bytes) {
+  Package(std::istream& in, std::uint64_t max_part_bytes) : guard_(in.rdbuf()), in_(&guard_), max_(max_part_bytes) {
+    bool parsed = true;
     try {
       archive_.emplace(in_);
-    } catch (const Poco::Exception& e) {
-      throw WorkbookError{kDamaged};
+    } catch (const Poco::Exception&) {
+      parsed = false;
     } catch (const std::exception&) {
-      throw WorkbookError{kDamaged};
+      parsed = false;
     }
+    // The guard's reason first: Poco may fail further on, after the size it was given.
+    if (guard_.tripped()) throw WorkbookError{std::string(kDamaged) + " (a ZIP64 record states more bytes than the file has)"};
+    if (!parsed) throw WorkbookError{kDamaged};
     for (auto it = archive_->headerBegin(); it != archive_->headerEnd(); ++it) {
       if (it->second.isEncrypted()) {
         throw WorkbookError{"the workbook is encrypted (password-protected); save a copy without a "
@@ -114,7 +183,8 @@ class Package {
   }
 
  private:
-  std::istream& in_;
+  Zip64SizeGuard guard_;  // every read of the file goes through it
+  std::istream in_;
   std::uint64_t max_;
   std::optional<Poco::Zip::ZipArchive> archive_;
 };

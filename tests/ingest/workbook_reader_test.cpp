@@ -203,6 +203,45 @@ TEST(WorkbookReader, DamagedOrForeignContainersAreOneProblemNeverACrash) {
   EXPECT_NE(r.problems.kept()[0].reason.find("damaged or is not an .xlsx file"), std::string::npos);
 }
 
+// A ZIP64 end record (APPNOTE.TXT 4.3.14) whose stated size is more than the
+// file holds: Poco::Zip allocates the stated size before reading, so the
+// reader must refuse the file before Poco does (Zip64SizeGuard). The first
+// input is the one the fuzzer found (tests/fuzz/fuzz_workbook_reader; under
+// AddressSanitizer the allocation aborted the process), the others a good
+// workbook with such a record put after its central directory.
+// Plumbing: no published value applies.
+TEST(WorkbookReader, Zip64RecordLargerThanTheFileIsRefusedBeforeAllocating) {
+  std::ifstream f(std::filesystem::path(FERRUM_SOURCE_ROOT) / "tests/corpus/broken/xlsx_zip64_record_size.xlsx",
+                  std::ios::binary);
+  std::vector<std::string> inputs = {std::string(std::istreambuf_iterator<char>(f), {})};
+  ASSERT_GT(inputs[0].size(), 100u);
+  const std::string good = one_sheet({{"unit_id"}, {"T1"}});
+  const std::size_t end_record = good.rfind(std::string("PK\x05\x06", 4));
+  ASSERT_NE(end_record, std::string::npos);
+  for (const std::uint64_t stated : {std::uint64_t{1} << 40, std::uint64_t{0x0606060606060606}, std::uint64_t{100000}}) {
+    std::string record("PK\x06\x06", 4);
+    for (int i = 0; i < 8; ++i) record += static_cast<char>((stated >> (8 * i)) & 0xff);
+    record += std::string(44, '\0');
+    inputs.push_back(good.substr(0, end_record) + record + good.substr(end_record));
+  }
+  for (const std::string& bytes : inputs) {
+    const Read r = read_workbook(bytes);
+    ASSERT_FALSE(r.header_ok);
+    ASSERT_EQ(r.problems.count(), 1);
+    EXPECT_NE(r.problems.kept()[0].reason.find("a ZIP64 record states more bytes than the file has"), std::string::npos)
+        << r.problems.kept()[0].reason;
+  }
+  // A record that fits, with its locator (APPNOTE.TXT 4.3.15), is read as
+  // before: the workbook is not refused for it.
+  std::string fits("PK\x06\x06", 4);
+  fits += std::string("\x2c\0\0\0\0\0\0\0", 8) + std::string(44, '\0');
+  fits += std::string("PK\x06\x07", 4) + std::string(4, '\0');
+  for (int i = 0; i < 8; ++i) fits += static_cast<char>((std::uint64_t{end_record} >> (8 * i)) & 0xff);
+  fits += std::string("\x01\0\0\0", 4);
+  const Read ok = read_workbook(good.substr(0, end_record) + fits + good.substr(end_record));
+  EXPECT_TRUE(ok.header_ok) << (ok.problems.count() ? ok.problems.kept()[0].reason : "");
+}
+
 TEST(WorkbookReader, ColumnLetters) {
   EXPECT_EQ(column_letters(1), "A");
   EXPECT_EQ(column_letters(26), "Z");
