@@ -104,14 +104,17 @@ class Zip64SizeGuard : public std::streambuf {
     const bool size_read = n == 8 && after_signature_;
     after_signature_ = false;
     const std::int64_t at = size_read ? static_cast<std::int64_t>(file_->pubseekoff(0, std::ios::cur, std::ios::in)) : 0;
-    const std::streamsize got = file_->sgetn(s, n);
-    if (size_read && got == 8 && size_ >= 0 && at >= 0) {
+    std::streamsize got = file_->sgetn(s, n);
+    if (size_read && size_ >= 0 && at >= 0) {
       std::uint64_t stated = 0;
-      for (int i = 7; i >= 0; --i) stated = (stated << 8) | static_cast<unsigned char>(s[i]);
-      if (stated > static_cast<std::uint64_t>(size_ - (at + 8))) {
+      for (int i = 7; i >= 0; --i) stated = (stated << 8) | (i < got ? static_cast<unsigned char>(s[i]) : 0);
+      // A size cut short by the end of the file counts as too large: Poco
+      // would take it from the bytes it got and whatever its buffer held.
+      if (got < 8 || stated > static_cast<std::uint64_t>(size_ - (at + 8))) {
         tripped_ = true;
         constexpr std::uint64_t kSmallest = 44;  // the record's fixed fields after the size (APPNOTE 4.3.14)
         for (int i = 0; i < 8; ++i) s[i] = static_cast<char>((kSmallest >> (8 * i)) & 0xff);
+        got = 8;
       }
     }
     after_signature_ = n == 4 && got == 4 && std::memcmp(s, "PK\x06\x06", 4) == 0;

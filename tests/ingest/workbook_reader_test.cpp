@@ -206,14 +206,16 @@ TEST(WorkbookReader, DamagedOrForeignContainersAreOneProblemNeverACrash) {
 // A ZIP64 end record (APPNOTE.TXT 4.3.14) whose stated size is more than the
 // file holds: Poco::Zip allocates the stated size before reading, so the
 // reader must refuse the file before Poco does (Zip64SizeGuard). The first
-// input is the one the fuzzer found (tests/fuzz/fuzz_workbook_reader; under
-// AddressSanitizer the allocation aborted the process), the others a good
-// workbook with such a record put after its central directory.
+// two inputs are the ones the fuzzer found (tests/fuzz/fuzz_workbook_reader;
+// under AddressSanitizer the allocation aborted the process), the others a
+// good workbook with such a record put after its central directory.
 // Plumbing: no published value applies.
 TEST(WorkbookReader, Zip64RecordLargerThanTheFileIsRefusedBeforeAllocating) {
   std::ifstream f(std::filesystem::path(FERRUM_SOURCE_ROOT) / "tests/corpus/broken/xlsx_zip64_record_size.xlsx",
                   std::ios::binary);
-  std::vector<std::string> inputs = {std::string(std::istreambuf_iterator<char>(f), {})};
+  std::vector<std::string> inputs = {std::string(std::istreambuf_iterator<char>(f), {}),
+                                     // The second the fuzzer found: the size cut short by the file's end.
+                                     std::string("PK\x06\x06P\x08!U\xa4\x00\xac", 11)};
   ASSERT_GT(inputs[0].size(), 100u);
   const std::string good = one_sheet({{"unit_id"}, {"T1"}});
   const std::size_t end_record = good.rfind(std::string("PK\x05\x06", 4));
