@@ -53,39 +53,106 @@ RankedUnit row_of(const RankingOptions& o, RankingInput&& a) {
 
 bool same_risk(double x, double y, double tol) { return std::fabs(x - y) <= tol * std::max(x, y); }
 
-// Competition ranks over rows sorted by risk; ties marked and noted.
-void assign_ranks(std::vector<RankedUnit>& rows, double tol) {
+}  // namespace
+
+RankedUnit ranked_row(RankingInput&& unit, const RankingOptions& options) { return row_of(options, std::move(unit)); }
+
+RankingOrder::RankingOrder(Day as_of, const RankingOptions& options) : as_of_(as_of), options_(options) {}
+
+void RankingOrder::add(const RankedUnit& r) {
+  Entry e;
+  e.row = entries_.size();
+  e.unit_id = r.unit_id;
+  e.ranked = !r.insufficient_data;
+  e.risk = e.ranked ? *r.risk : 0;
+  e.rated_mva = r.rated_mva;
+  if (r.recommended_action == "replace" && r.action_year) {
+    e.replace_year = *r.action_year;
+    e.replaces = true;
+  }
+  if (r.remaining_life_years && !r.beyond_horizon && *r.remaining_life_years <= options_.horizon_years) {
+    const int ends =
+        civil_from_days(as_of_ + static_cast<Day>(std::lround(*r.remaining_life_years * 365.25))).year;
+    outlook_.push_back({e.row, {r.unit_id, r.site, r.rated_mva, *r.remaining_life_years, ends, r.limiting_factor,
+                                r.recommended_action, r.action_year}});
+  }
+  entries_.push_back(std::move(e));
+}
+
+void RankingOrder::finish() {
+  // Ranked rows first, by descending risk (then unit_id), then the rows
+  // without enough data, by unit_id.
+  std::sort(entries_.begin(), entries_.end(), [](const Entry& x, const Entry& y) {
+    if (x.ranked != y.ranked) return x.ranked;
+    if (x.ranked && x.risk != y.risk) return x.risk > y.risk;
+    return x.unit_id < y.unit_id;
+  });
+  // Competition ranks (1, 2, 2, 4) over groups of equal risk within the
+  // tolerance; risks equal within it but not to the bit are still ordered
+  // by unit_id.
   std::size_t i = 0;
-  while (i < rows.size()) {
+  while (i < entries_.size() && entries_[i].ranked) {
     std::size_t j = i + 1;
-    while (j < rows.size() && same_risk(*rows[i].risk, *rows[j].risk, tol)) ++j;
-    // Risks equal within the tolerance but not to the bit: still by unit_id.
-    std::sort(rows.begin() + i, rows.begin() + j,
-              [](const RankedUnit& x, const RankedUnit& y) { return x.unit_id < y.unit_id; });
-    // A few tied units are named; a large group is counted instead: every
-    // unit naming all the others made the notes grow with the square of the
-    // group (a 20,000-unit fleet's ranking held 384 MB of them,
-    // bench/results.md), and a list of hundreds of ids helps no reader.
-    constexpr std::size_t kNamedTies = 5;
-    const std::size_t others_n = j - i - 1;
+    while (j < entries_.size() && entries_[j].ranked && same_risk(entries_[i].risk, entries_[j].risk, options_.tie_tolerance))
+      ++j;
+    std::sort(entries_.begin() + static_cast<std::ptrdiff_t>(i), entries_.begin() + static_cast<std::ptrdiff_t>(j),
+              [](const Entry& x, const Entry& y) { return x.unit_id < y.unit_id; });
     for (std::size_t k = i; k < j; ++k) {
-      rows[k].rank = static_cast<int>(i) + 1;
-      if (others_n == 0) continue;
-      rows[k].tied = true;
-      std::string others;
-      if (others_n <= kNamedTies) {
-        for (std::size_t m = i; m < j; ++m)
-          if (m != k) others += (others.empty() ? "" : ", ") + rows[m].unit_id;
-      } else {
-        others = std::to_string(others_n) + " other units, all ranked " + std::to_string(i + 1);
-      }
-      rows[k].note = "equal risk with " + others + "; tied units ordered by unit_id";
+      entries_[k].rank = static_cast<int>(i) + 1;
+      entries_[k].group_begin = i;
+      entries_[k].group_end = j;
     }
     i = j;
   }
+  summary_.as_of = as_of_;
+  const int this_year = civil_from_days(as_of_).year;
+  for (int k = 0; k < options_.horizon_years; ++k) summary_.mva_due_by_year.push_back({this_year + k, 0, 0});
+  for (const auto& e : entries_) {  // in ranking order, as the ranking's own sums
+    if (!e.replaces) continue;
+    const int k = e.replace_year - this_year;
+    if (k < 0 || k >= options_.horizon_years) continue;
+    summary_.mva_due_by_year[static_cast<std::size_t>(k)].mva += e.rated_mva;
+    summary_.mva_due_by_year[static_cast<std::size_t>(k)].units += 1;
+  }
+  // The outlook in ranking order, then soonest end first (stable: equal
+  // remaining lives keep the ranking's order).
+  std::vector<std::size_t> position(entries_.size());
+  for (std::size_t p = 0; p < entries_.size(); ++p) position[entries_[p].row] = p;
+  std::sort(outlook_.begin(), outlook_.end(),
+            [&](const auto& x, const auto& y) { return position[x.first] < position[y.first]; });
+  std::stable_sort(outlook_.begin(), outlook_.end(), [](const auto& x, const auto& y) {
+    return x.second.remaining_life_years < y.second.remaining_life_years;
+  });
+  for (auto& [row, e] : outlook_) summary_.outlook.push_back(std::move(e));
+  std::vector<std::pair<std::size_t, FleetRanking::LifeEnd>>().swap(outlook_);
+  summary_.risk_calibration = options_.pof_source;
+  finished_ = true;
 }
 
-}  // namespace
+void RankingOrder::place(std::size_t p, RankedUnit& row) const {
+  const Entry& e = entries_[p];
+  if (!e.ranked) return;  // rank 0, its note says what is missing
+  row.rank = e.rank;
+  const std::size_t others_n = e.group_end - e.group_begin - 1;
+  if (others_n == 0) return;
+  row.tied = true;
+  // A few tied units are named; a large group is counted instead: every
+  // unit naming all the others made the notes grow with the square of the
+  // group (a 20,000-unit fleet's ranking held 384 MB of them,
+  // bench/results.md), and a list of hundreds of ids helps no reader.
+  constexpr std::size_t kNamedTies = 5;
+  std::string others;
+  if (others_n <= kNamedTies) {
+    for (std::size_t m = e.group_begin; m < e.group_end; ++m)
+      if (m != p) others += (others.empty() ? "" : ", ") + entries_[m].unit_id;
+  } else {
+    others = std::to_string(others_n) + " other units, all ranked " + std::to_string(e.group_begin + 1);
+  }
+  row.note = "equal risk with " + others + "; tied units ordered by unit_id";
+}
+
+FleetRanking RankingOrder::summary() const { return summary_; }
+
 
 double probability_of_failure(double hi, const RankingOptions& o) {
   double h = std::clamp(hi, 0.0, 100.0);
@@ -102,47 +169,24 @@ FleetRanking rank_fleet(const std::vector<UnitAssessment>& units, Day as_of, con
 }
 
 FleetRanking rank_fleet(std::vector<RankingInput> units, Day as_of, const RankingOptions& o) {
-  FleetRanking out;
-  out.as_of = as_of;
-  int this_year = civil_from_days(as_of).year;
-  std::vector<RankedUnit> ranked, unranked;
-  ranked.reserve(units.size());  // most units are ranked; doubling would hold up to twice the fleet
+  RankingOrder order(as_of, o);
+  std::vector<RankedUnit> rows;
+  rows.reserve(units.size());
   for (auto& a : units) {
-    RankedUnit r = row_of(o, std::move(a));
-    (r.insufficient_data ? unranked : ranked).push_back(std::move(r));
+    rows.push_back(row_of(o, std::move(a)));
+    order.add(rows.back());
   }
   // The rows' text has moved into the ranking; their husks (752 bytes a
   // unit) go now rather than at return, so that they and the ranking are not
   // held together through the sort.
   std::vector<RankingInput>().swap(units);
-  std::sort(ranked.begin(), ranked.end(), [](const RankedUnit& x, const RankedUnit& y) {
-    if (*x.risk != *y.risk) return *x.risk > *y.risk;
-    return x.unit_id < y.unit_id;
-  });
-  assign_ranks(ranked, o.tie_tolerance);
-  std::sort(unranked.begin(), unranked.end(),
-            [](const RankedUnit& x, const RankedUnit& y) { return x.unit_id < y.unit_id; });
-  out.units = std::move(ranked);
-  out.units.insert(out.units.end(), unranked.begin(), unranked.end());
-
-  for (int k = 0; k < o.horizon_years; ++k) out.mva_due_by_year.push_back({this_year + k, 0, 0});
-  for (const auto& r : out.units) {
-    if (r.recommended_action != "replace" || !r.action_year) continue;
-    int k = *r.action_year - this_year;
-    if (k < 0 || k >= o.horizon_years) continue;
-    out.mva_due_by_year[k].mva += r.rated_mva;
-    out.mva_due_by_year[k].units += 1;
+  order.finish();
+  FleetRanking out = order.summary();
+  out.units.reserve(rows.size());
+  for (std::size_t p = 0; p < order.size(); ++p) {
+    out.units.push_back(std::move(rows[order.row_at(p)]));
+    order.place(p, out.units.back());
   }
-  for (const auto& r : out.units) {
-    if (!r.remaining_life_years || r.beyond_horizon || *r.remaining_life_years > o.horizon_years) continue;
-    int ends = civil_from_days(as_of + static_cast<Day>(std::lround(*r.remaining_life_years * 365.25))).year;
-    out.outlook.push_back({r.unit_id, r.site, r.rated_mva, *r.remaining_life_years, ends, r.limiting_factor,
-                           r.recommended_action, r.action_year});
-  }
-  std::stable_sort(out.outlook.begin(), out.outlook.end(), [](const auto& x, const auto& y) {
-    return x.remaining_life_years < y.remaining_life_years;
-  });
-  out.risk_calibration = o.pof_source;
   return out;
 }
 

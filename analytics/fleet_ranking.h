@@ -25,7 +25,9 @@
 // whose remaining life ends within the ten years (outlook).
 #pragma once
 
+#include <cstddef>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "analytics/assessment.h"
@@ -59,6 +61,58 @@ struct RankingOptions {
 FleetRanking rank_fleet(std::vector<RankingInput> units, Day as_of, const RankingOptions& options);
 // The same from whole assessments (ranking_inputs of them).
 FleetRanking rank_fleet(const std::vector<UnitAssessment>& units, Day as_of, const RankingOptions& options);
+
+// One unit's row before its place in the fleet is known: risk and its
+// factors, the decision, the note on missing data; rank, tied and the tie
+// note are left for RankingOrder::place.
+RankedUnit ranked_row(RankingInput&& unit, const RankingOptions& options);
+
+// The order of a ranking without its rows: what the order, the ranks, the
+// ties and the ten-year summaries need of each row (a few dozen bytes), so
+// that a caller can keep the rows elsewhere (rank_fleet keeps them in a
+// vector; `ferrum rank` in a file, so that its memory does not grow with the
+// fleet) and fetch each one when its turn comes. rank_fleet is this with
+// the rows in memory: both give the same ranking.
+//   RankingOrder order(as_of, options);
+//   order.add(ranked_row(...)) for each unit;      // rows numbered 0, 1, ...
+//   order.finish();
+//   for p in [0, size): row = the row numbered row_at(p); place(p, row);
+class RankingOrder {
+ public:
+  RankingOrder(Day as_of, const RankingOptions& options);
+  // Adds the next row (numbered in the order added). REQUIRES !finished().
+  void add(const RankedUnit& row);
+  // Sorts and ranks; fills the summaries. REQUIRES !finished().
+  void finish();
+  bool finished() const { return finished_; }
+  std::size_t size() const { return entries_.size(); }
+  // Number of the row at `position` (0 = first) of the ranking. REQUIRES finished().
+  std::size_t row_at(std::size_t position) const { return entries_[position].row; }
+  // Sets rank, tied and the tie note of the row at `position`. REQUIRES finished().
+  void place(std::size_t position, RankedUnit& row) const;
+  // The ranking without its units: as_of, MVA due per year, the outlook and
+  // the calibration. REQUIRES finished().
+  FleetRanking summary() const;
+
+ private:
+  struct Entry {
+    double risk = 0;
+    std::string unit_id;
+    std::size_t row = 0;
+    int rank = 0;
+    bool ranked = false;
+    std::size_t group_begin = 0, group_end = 0;  // positions of its group of equal risk
+    double rated_mva = 0;
+    int replace_year = 0;  // of a replacement (replaces)
+    bool replaces = false;
+  };
+  Day as_of_;
+  RankingOptions options_;
+  std::vector<Entry> entries_;
+  std::vector<std::pair<std::size_t, FleetRanking::LifeEnd>> outlook_;  // by row number
+  FleetRanking summary_;
+  bool finished_ = false;
+};
 
 // The two factors of risk, exposed for tests and reports.
 double probability_of_failure(double health_index, const RankingOptions& options);

@@ -226,3 +226,65 @@ TEST(FleetRanking, RankingInputsGiveTheSameRanking) {
   for (std::size_t i = 0; i < whole.mva_due_by_year.size(); ++i)
     EXPECT_EQ(whole.mva_due_by_year[i].mva, from_fields.mva_due_by_year[i].mva);
 }
+
+// RankingOrder with the rows kept by the caller and fetched one at a time,
+// in whatever order the caller stored them, gives rank_fleet's ranking: the
+// same rows in the same places, the same ranks, ties, notes and summaries.
+// (Consistency of two ways to drive one ranking: no engineering value, no
+// source needed.)
+TEST(FleetRanking, OrderWithRowsKeptElsewhereGivesTheSameRanking) {
+  std::vector<fa::UnitAssessment> fleet;
+  for (int n = 0; n < 9; ++n) fleet.push_back(unit(("T" + std::to_string(n)).c_str(), 60, 3, 40));  // 8 others
+  for (const char* id : {"Q", "P", "R"}) fleet.push_back(unit(id, 35, 4, 40));                       // 2 others
+  fleet.push_back(unit("Z", std::nullopt, 2, 10));
+  fleet.push_back(unit("Y", std::nullopt, 5, 80));
+  fleet.push_back(unit("A", 15, 5, 80));
+  fleet[9].remaining_life.years = 3.0;   // equal lives: the outlook keeps the ranking's order
+  fleet[10].remaining_life.years = 3.0;
+  fleet[14].remaining_life.years = 1.0;  // A
+  fleet[0].remaining_life.years = 9.5;
+  for (auto& a : fleet) fa::finalize_actions(a);
+  fa::RankingOptions o;
+  const fa::Day as_of = fleet[0].as_of;
+  const auto whole = fa::rank_fleet(fleet, as_of, o);
+
+  // The caller's store: rows by number, reversed, so that position and number differ.
+  const auto inputs = fa::ranking_inputs(fleet);
+  fa::RankingOrder order(as_of, o);
+  std::vector<fa::RankedUnit> kept(inputs.size());
+  for (std::size_t k = 0; k < inputs.size(); ++k) {
+    auto copy = inputs[k];
+    const auto row = fa::ranked_row(std::move(copy), o);
+    order.add(row);
+    kept[inputs.size() - 1 - k] = row;
+  }
+  order.finish();
+  const auto summary = order.summary();
+  EXPECT_TRUE(summary.units.empty());
+  ASSERT_EQ(order.size(), whole.units.size());
+  for (std::size_t p = 0; p < order.size(); ++p) {
+    fa::RankedUnit y = kept[inputs.size() - 1 - order.row_at(p)];
+    order.place(p, y);
+    const auto& x = whole.units[p];
+    EXPECT_EQ(std::tie(x.rank, x.tied, x.unit_id, x.risk, x.note, x.insufficient_data, x.recommended_action),
+              std::tie(y.rank, y.tied, y.unit_id, y.risk, y.note, y.insufficient_data, y.recommended_action))
+        << p;
+  }
+  EXPECT_EQ(whole.units[0].unit_id, "A");
+  EXPECT_EQ(whole.units[1].note, "equal risk with Q, R; tied units ordered by unit_id");  // P, Q, R by id
+  ASSERT_EQ(summary.outlook.size(), whole.outlook.size());
+  ASSERT_EQ(summary.outlook.size(), 4u);
+  for (std::size_t i = 0; i < summary.outlook.size(); ++i) {
+    EXPECT_EQ(summary.outlook[i].unit_id, whole.outlook[i].unit_id);
+    EXPECT_EQ(summary.outlook[i].life_ends_year, whole.outlook[i].life_ends_year);
+  }
+  EXPECT_EQ(whole.outlook[0].unit_id, "A");
+  EXPECT_EQ(whole.outlook[1].unit_id, "P");  // 3.0 years each: in ranking order, P before Q
+  EXPECT_EQ(whole.outlook[2].unit_id, "Q");
+  ASSERT_EQ(summary.mva_due_by_year.size(), whole.mva_due_by_year.size());
+  for (std::size_t i = 0; i < summary.mva_due_by_year.size(); ++i) {
+    EXPECT_EQ(summary.mva_due_by_year[i].mva, whole.mva_due_by_year[i].mva);
+    EXPECT_EQ(summary.mva_due_by_year[i].units, whole.mva_due_by_year[i].units);
+  }
+  EXPECT_EQ(summary.risk_calibration, whole.risk_calibration);
+}
