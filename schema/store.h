@@ -20,6 +20,11 @@
 
 namespace ferrum::store {
 
+// A unit's id and site (Store::unit_sites).
+struct UnitSite {
+  std::string unit_id, site;
+};
+
 class StoreError : public std::runtime_error {
  public:
   using std::runtime_error::runtime_error;
@@ -119,6 +124,11 @@ class Store {
   // a replaced row is kept in the unit's history.
   virtual std::optional<analytics::UnitInfo> find_unit(std::string_view unit_id) = 0;
   virtual std::vector<analytics::UnitInfo> units() = 0;
+  // Id and site of every unit, in unit_id order: what a pass over the whole
+  // fleet needs of the register before it assesses (units() holds every
+  // field: at 20,000 units its vector and the copies of its growth were
+  // most of what `rank` held beyond a small fleet's; bench/results.md).
+  virtual std::vector<UnitSite> unit_sites() = 0;
   virtual bool upsert_unit(const analytics::UnitInfo& unit, std::int64_t file_id, int line) = 0;
 
   // Measurements. REQUIRES: the unit exists. Each add_* says whether the row

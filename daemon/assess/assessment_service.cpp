@@ -202,7 +202,9 @@ void assess_units_parallel(const store::Store& database, const std::vector<std::
 
 std::vector<std::string> register_unit_ids(store::Store& store) {
   std::vector<std::string> ids;
-  for (const auto& u : store.units()) ids.push_back(u.unit_id);
+  const auto units = store.unit_sites();
+  ids.reserve(units.size());
+  for (const auto& u : units) ids.push_back(u.unit_id);
   return ids;
 }
 

@@ -211,6 +211,15 @@ class PgStore final : public Store {
     return out;
   }
 
+  std::vector<UnitSite> unit_sites() override {
+    reconnect_if_lost();
+    auto r = db_.run("SELECT unit_id, site FROM units ORDER BY unit_id COLLATE \"C\"", Params());
+    std::vector<UnitSite> out;
+    out.reserve(static_cast<std::size_t>(r.rows()));
+    for (int i = 0; i < r.rows(); ++i) out.push_back({r.row(i).text(0), r.row(i).text(1)});
+    return out;
+  }
+
   bool upsert_unit(const analytics::UnitInfo& u, std::int64_t file_id, int line) override {
     write_queued_load();
     const auto old = find_unit(u.unit_id);

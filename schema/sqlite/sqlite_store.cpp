@@ -225,6 +225,15 @@ class SqliteStore final : public Store {
     return out;
   }
 
+  std::vector<UnitSite> unit_sites() override {
+    std::vector<UnitSite> out;
+    out.reserve(static_cast<std::size_t>(count_rows("units")));  // grown by doubling, it held twice the register
+    auto& s = stmt("SELECT unit_id, site FROM units ORDER BY unit_id");
+    while (s.step()) out.push_back({s.text(0), s.text(1)});
+    s.reset();
+    return out;
+  }
+
   bool upsert_unit(const analytics::UnitInfo& u, std::int64_t file_id, int line) override {
     const auto old = find_unit(u.unit_id);
     const std::string new_json = unit_json(u);

@@ -96,6 +96,26 @@ TEST_P(StoreTest, UnitOltcRoundTrip) {
   EXPECT_EQ(all[0].oltc, analytics::OltcType::sealed);
 }
 
+// Ids and sites of the register, in unit_id order (byte order on both
+// backends), as units() gives them. Plumbing: no engineering value.
+TEST_P(StoreTest, UnitSitesInUnitIdOrder) {
+  auto s = open_store();
+  const auto f = file(*s);
+  EXPECT_TRUE(s->unit_sites().empty());
+  for (const auto& [id, site] : {std::pair{"T2", "North"}, {"T10", "South"}, {"T1", "North"}, {"a1", "East"}}) {
+    auto u = unit(id);
+    u.site = site;
+    EXPECT_TRUE(s->upsert_unit(u, f, 2));
+  }
+  const auto sites = s->unit_sites();
+  std::vector<std::string> got;
+  for (const auto& u : sites) got.push_back(u.unit_id + "@" + u.site);
+  EXPECT_EQ(got, (std::vector<std::string>{"T1@North", "T10@South", "T2@North", "a1@East"}));
+  const auto all = s->units();
+  ASSERT_EQ(all.size(), sites.size());
+  for (std::size_t i = 0; i < all.size(); ++i) EXPECT_EQ(all[i].unit_id + "@" + all[i].site, got[i]);
+}
+
 TEST_P(StoreTest, OilSampleSupersededByCorrectedReissue) {
   auto s = open_store();
   const auto f = file(*s);
