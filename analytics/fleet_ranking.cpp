@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <stdexcept>
 
 namespace ferrum::analytics {
 
@@ -55,13 +56,20 @@ bool same_risk(double x, double y, double tol) { return std::fabs(x - y) <= tol 
 
 }  // namespace
 
+RankedRows rows_of(const FleetRanking& ranking) {
+  return [&ranking](const RankedUnitSink& each) {
+    for (const auto& r : ranking.units) each(r);
+  };
+}
+
 RankedUnit ranked_row(RankingInput&& unit, const RankingOptions& options) { return row_of(options, std::move(unit)); }
 
 RankingOrder::RankingOrder(Day as_of, const RankingOptions& options) : as_of_(as_of), options_(options) {}
 
 void RankingOrder::add(const RankedUnit& r) {
+  if (entries_.size() >= UINT32_MAX) throw std::length_error("a fleet of more than 4 billion units");
   Entry e;
-  e.row = entries_.size();
+  e.row = static_cast<std::uint32_t>(entries_.size());
   e.unit_id = r.unit_id;
   e.ranked = !r.insufficient_data;
   e.risk = e.ranked ? *r.risk : 0;
@@ -98,9 +106,8 @@ void RankingOrder::finish() {
     std::sort(entries_.begin() + static_cast<std::ptrdiff_t>(i), entries_.begin() + static_cast<std::ptrdiff_t>(j),
               [](const Entry& x, const Entry& y) { return x.unit_id < y.unit_id; });
     for (std::size_t k = i; k < j; ++k) {
-      entries_[k].rank = static_cast<int>(i) + 1;
-      entries_[k].group_begin = i;
-      entries_[k].group_end = j;
+      entries_[k].group_begin = static_cast<std::uint32_t>(i);
+      entries_[k].group_end = static_cast<std::uint32_t>(j);
     }
     i = j;
   }
@@ -132,7 +139,7 @@ void RankingOrder::finish() {
 void RankingOrder::place(std::size_t p, RankedUnit& row) const {
   const Entry& e = entries_[p];
   if (!e.ranked) return;  // rank 0, its note says what is missing
-  row.rank = e.rank;
+  row.rank = static_cast<int>(e.group_begin) + 1;
   const std::size_t others_n = e.group_end - e.group_begin - 1;
   if (others_n == 0) return;
   row.tied = true;
@@ -151,8 +158,6 @@ void RankingOrder::place(std::size_t p, RankedUnit& row) const {
   row.note = "equal risk with " + others + "; tied units ordered by unit_id";
 }
 
-FleetRanking RankingOrder::summary() const { return summary_; }
-
 
 double probability_of_failure(double hi, const RankingOptions& o) {
   double h = std::clamp(hi, 0.0, 100.0);
@@ -170,6 +175,7 @@ FleetRanking rank_fleet(const std::vector<UnitAssessment>& units, Day as_of, con
 
 FleetRanking rank_fleet(std::vector<RankingInput> units, Day as_of, const RankingOptions& o) {
   RankingOrder order(as_of, o);
+  order.reserve(units.size());
   std::vector<RankedUnit> rows;
   rows.reserve(units.size());
   for (auto& a : units) {

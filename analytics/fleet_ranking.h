@@ -26,6 +26,8 @@
 #pragma once
 
 #include <cstddef>
+#include <cstdint>
+#include <functional>
 #include <string>
 #include <utility>
 #include <vector>
@@ -62,6 +64,13 @@ FleetRanking rank_fleet(std::vector<RankingInput> units, Day as_of, const Rankin
 // The same from whole assessments (ranking_inputs of them).
 FleetRanking rank_fleet(const std::vector<UnitAssessment>& units, Day as_of, const RankingOptions& options);
 
+// A ranking's rows handed to `each` one at a time, in order: a
+// FleetRanking's own (rows_of) or rows kept in a file
+// (daemon/assess/spilled_ranking.h), for outputs that write a row at a time.
+using RankedUnitSink = std::function<void(const RankedUnit&)>;
+using RankedRows = std::function<void(const RankedUnitSink& each)>;
+RankedRows rows_of(const FleetRanking& ranking);  // REQUIRES ranking outlives the result
+
 // One unit's row before its place in the fleet is known: risk and its
 // factors, the decision, the note on missing data; rank, tied and the tie
 // note are left for RankingOrder::place.
@@ -80,6 +89,7 @@ RankedUnit ranked_row(RankingInput&& unit, const RankingOptions& options);
 class RankingOrder {
  public:
   RankingOrder(Day as_of, const RankingOptions& options);
+  void reserve(std::size_t rows) { entries_.reserve(rows); }
   // Adds the next row (numbered in the order added). REQUIRES !finished().
   void add(const RankedUnit& row);
   // Sorts and ranks; fills the summaries. REQUIRES !finished().
@@ -92,18 +102,17 @@ class RankingOrder {
   void place(std::size_t position, RankedUnit& row) const;
   // The ranking without its units: as_of, MVA due per year, the outlook and
   // the calibration. REQUIRES finished().
-  FleetRanking summary() const;
+  const FleetRanking& summary() const { return summary_; }
 
  private:
-  struct Entry {
+  struct Entry {  // 72 bytes: one per unit of the fleet
     double risk = 0;
-    std::string unit_id;
-    std::size_t row = 0;
-    int rank = 0;
-    bool ranked = false;
-    std::size_t group_begin = 0, group_end = 0;  // positions of its group of equal risk
     double rated_mva = 0;
-    int replace_year = 0;  // of a replacement (replaces)
+    std::string unit_id;
+    std::uint32_t row = 0;
+    std::uint32_t group_begin = 0, group_end = 0;  // positions of its group of equal risk (rank: begin + 1)
+    std::int32_t replace_year = 0;                 // of a replacement (replaces)
+    bool ranked = false;
     bool replaces = false;
   };
   Day as_of_;

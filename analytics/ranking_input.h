@@ -7,7 +7,8 @@
 // stores (daemon/assess/ranking_cache.h). Not a method: no source applies.
 //
 // A field that one of those steps comes to read must be added here, to
-// ranking_input() and to the cache, or a ranking from these rows differs
+// ranking_input(), to the cache and to the ranking's temporary file
+// (daemon/assess/spilled_ranking.cpp), or a ranking from these rows differs
 // from one made from the whole assessments.
 #pragma once
 

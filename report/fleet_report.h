@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "analytics/assessment.h"
+#include "analytics/fleet_ranking.h"
 #include "analytics/site_view.h"
 #include "report/plan_report.h"
 #include "report/render_error.h"
@@ -36,6 +37,7 @@ void render_fleet_report(const analytics::FleetRanking& ranking, const std::vect
 // --csv` at 20,000 units would otherwise hold a 60 MB string beside the
 // ranking); the string form is for files written atomically and tests.
 void write_fleet_ranking_csv(std::ostream& out, const analytics::FleetRanking& ranking);
+void write_fleet_ranking_csv(std::ostream& out, const analytics::RankedRows& rows);  // the rows from elsewhere
 std::string fleet_ranking_csv(const analytics::FleetRanking& ranking);
 
 // The week's cover: the planner's week first (actions due in 7 and 30 days,

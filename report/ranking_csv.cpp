@@ -52,12 +52,16 @@ std::string quote(const std::string& field) {
 }
 
 void write_fleet_ranking_csv(std::ostream& csv, const analytics::FleetRanking& ranking) {
+  write_fleet_ranking_csv(csv, analytics::rows_of(ranking));
+}
+
+void write_fleet_ranking_csv(std::ostream& csv, const analytics::RankedRows& rows) {
   csv <<
       "rank,tied,unit_id,site,rated_mva,health_index,band,remaining_life_years,beyond_horizon,limiting_factor,"
       "probability_of_failure,failures_per_1000_unit_years,consequence,risk,recommended_action,action_year,plan_year,"
       "first_action_priority,first_action_due,first_action_overdue,first_action_reference,first_action,action_reason,"
       "insufficient_data,note\n";
-  for (const auto& u : ranking.units) {
+  rows([&](const analytics::RankedUnit& u) {
     const std::string fields[] = {u.insufficient_data ? "" : std::to_string(u.rank), u.tied ? "yes" : "no",
                                   quote(u.unit_id), quote(u.site), number(u.rated_mva), number(u.health_index),
                                   quote(u.band), number(u.remaining_life_years), u.beyond_horizon ? "yes" : "no",
@@ -77,7 +81,7 @@ void write_fleet_ranking_csv(std::ostream& csv, const analytics::FleetRanking& r
       first = false;
     }
     csv << '\n';
-  }
+  });
   // The caution as a final comment line (spreadsheets show it; CSV readers
   // told to skip comments ignore it).
   csv << csv_caution_line() << '\n';

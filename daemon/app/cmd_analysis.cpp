@@ -6,6 +6,7 @@
 #include <iomanip>
 #include <iostream>
 #include <map>
+#include <optional>
 #include <set>
 #include <span>
 
@@ -18,6 +19,7 @@
 #include "daemon/assess/assessment_json.h"
 #include "daemon/assess/assessment_service.h"
 #include "daemon/assess/ranking_cache.h"
+#include "daemon/assess/spilled_ranking.h"
 #include "daemon/ingest/field_parsers.h"
 #include "report/decision_text.h"
 #include "report/fleet_report.h"
@@ -72,27 +74,39 @@ int cmd_assess(const Invocation& inv) {
   const auto options = assess::options_from_config(site->config, &site->root);
   std::vector<std::string> ids = inv.args;
   const bool whole_fleet = ids.empty();
-  if (whole_fleet)
-    for (const auto& u : site->store->units()) ids.push_back(u.unit_id);
   // The key before the first read: an import meanwhile changes it (ranking_cache.h).
   const std::string cache_key = whole_fleet ? assess::ranking_cache_key(site->root, *site->store, as_of) : "";
-  std::vector<analytics::RankingInput> ranking_inputs;  // reserved below, once the ids are known
   if (!whole_fleet)  // named units must exist; the register's own list needs no check
     for (const auto& id : ids)
       if (!site->store->find_unit(id)) throw std::runtime_error("unit " + id + " is not in the register");
   // The site view (load transfer targets, the site line) needs every unit of
   // a site: named units bring their site's other units along (assessed, not
   // printed), and a unit is printed once its site is complete.
-  std::map<std::string, std::string> site_of;
   std::map<std::string, std::size_t> site_left;
-  for (const auto& u : site->store->units()) site_of[u.unit_id] = u.site;
-  const std::set<std::string> printed(ids.begin(), ids.end());
-  if (!whole_fleet)
-    for (const auto& [id, s] : site_of)
-      if (!printed.count(id) && std::any_of(ids.begin(), ids.end(), [&](auto& x) { return site_of[x] == s; }))
-        ids.push_back(id);
-  for (const auto& id : ids) ++site_left[site_of[id]];
-  if (whole_fleet) ranking_inputs.reserve(ids.size());
+  std::map<std::string, std::size_t> site_to_print;  // a site's view goes once its units are printed
+  std::set<std::string> printed;  // named units; the whole fleet prints every unit
+  {
+    const auto register_units = site->store->unit_sites();
+    if (whole_fleet) {
+      ids.reserve(register_units.size());
+      for (const auto& u : register_units) ids.push_back(u.unit_id);
+      for (const auto& u : register_units) ++site_left[u.site];
+      site_to_print = site_left;
+    } else {
+      std::map<std::string, std::string> site_of;
+      for (const auto& u : register_units) site_of[u.unit_id] = u.site;
+      printed.insert(ids.begin(), ids.end());
+      for (const auto& [id, s] : site_of)
+        if (!printed.count(id) && std::any_of(ids.begin(), ids.end(), [&](auto& x) { return site_of[x] == s; }))
+          ids.push_back(id);
+      for (const auto& id : ids) ++site_left[site_of[id]];
+      for (const auto& id : printed) ++site_to_print[site_of[id]];
+    }
+  }
+  // Over the whole fleet, each unit's ranking input goes to the ranking
+  // cache as it comes (`rank` after `assess` reads it), never held.
+  std::optional<assess::RankingCacheWriter> cache;
+  if (whole_fleet) cache.emplace(site->root, cache_key, ids.size());
   std::map<std::string, std::vector<analytics::RankingInput>> site_units;  // until the site is complete
   std::map<std::string, analytics::SiteView> site_views;
   std::deque<analytics::UnitAssessment> waiting;  // printed units whose site is not complete yet
@@ -118,21 +132,23 @@ int cmd_assess(const Invocation& inv) {
                                   progress.update(static_cast<double>(++done), static_cast<double>(ids.size()));
                                   const std::string& s = a.unit.site;
                                   auto row = analytics::ranking_input(a);
-                                  if (whole_fleet) ranking_inputs.push_back(row);
+                                  if (cache) cache->add(row);
                                   site_units[s].push_back(std::move(row));
                                   if (--site_left[s] == 0) {
                                     site_views[s] = analytics::site_view(site_units[s], site_options).at(0);
                                     site_units.erase(s);
                                   }
-                                  if (printed.count(a.unit.unit_id)) waiting.push_back(std::move(a));
+                                  if (whole_fleet || printed.count(a.unit.unit_id)) waiting.push_back(std::move(a));
                                   while (!waiting.empty() && site_views.count(waiting.front().unit.site)) {
+                                    const std::string printed_site = waiting.front().unit.site;
                                     print(waiting.front());
                                     waiting.pop_front();
+                                    if (--site_to_print[printed_site] == 0) site_views.erase(printed_site);
                                   }
                                 });
   if (json) std::cout << (first ? "]\n" : "\n]\n");
   else std::cout << "\n" << report::one_line_caution() << "\n";
-  if (whole_fleet) assess::write_ranking_cache(site->root, cache_key, ranking_inputs);
+  if (cache) cache->commit();
   return kOk;
 }
 
@@ -140,23 +156,28 @@ int cmd_rank(const Invocation& inv) {
   if (inv.has("json") && inv.has("csv")) throw UsageError("--json or --csv, not both");
   auto site = open_site(inv, Access::read);
   const analytics::Day as_of = today(inv, site->config);
-  auto units = fleet_ranking_inputs(inv, *site, as_of);
-  const auto sites = assess::apply_site_view(units, site->config);
-  const auto ranking = analytics::rank_fleet(std::move(units), as_of, assess::ranking_options_from_config(site->config));
+  // The rows wait in a temporary file, a unit's few dozen bytes of order in
+  // memory: `rank` of any fleet holds about as much as of a small one.
+  assess::SpilledRanking ranking(as_of, assess::ranking_options_from_config(site->config),
+                                 assess::site_view_options_from_config(site->config), inv.has("json"));
+  for_each_fleet_ranking_input(
+      inv, *site, as_of, [&](analytics::RankingInput&& u) { ranking.add(u); }, [&] { ranking.clear(); });
+  ranking.finish();
+  const analytics::FleetRanking& summary = ranking.summary();
   if (inv.has("json")) {
-    assess::write_json(std::cout, ranking,
-                       {{"sites", assess::to_json(sites)}, {"caution", report::one_line_caution()}});
+    assess::write_json(std::cout, summary, ranking.rows(),
+                       {{"sites", assess::to_json(ranking.sites())}, {"caution", report::one_line_caution()}});
     std::cout << "\n";
     return kOk;
   }
   if (inv.has("csv")) {
-    report::write_fleet_ranking_csv(std::cout, ranking);
+    report::write_fleet_ranking_csv(std::cout, ranking.rows());
     return kOk;
   }
   std::cout << std::left << std::setw(6) << "rank" << std::setw(9) << "unit" << std::setw(16) << "site"
             << std::setw(5) << "HI" << std::setw(15) << "band" << std::setw(19) << "remaining life" << std::setw(8)
             << "risk" << std::setw(18) << "action" << "first action\n";
-  for (const auto& u : ranking.units) {
+  ranking.rows()([](const analytics::RankedUnit& u) {
     std::cout << std::left << std::setw(6)
               << (u.insufficient_data ? std::string("-") : std::to_string(u.rank) + (u.tied ? "=" : ""))
               << std::setw(9) << u.unit_id << std::setw(16) << u.site << std::setw(5) << fmt(u.health_index, 0)
@@ -165,17 +186,17 @@ int cmd_rank(const Invocation& inv) {
               << report::risk_text(u.risk) << std::setw(18) << report::action_text(u.recommended_action, u.action_year)
               << report::first_action_text(u.first_action) << "\n";
     if (u.insufficient_data) std::cout << "      too little data: " << u.note << "\n";
-  }
+  });
   std::cout << "\nrisk: expected failures per 1,000 unit-years x consequence (0-1); calibration: "
-            << ranking.risk_calibration << "\n";
-  if (!ranking.outlook.empty()) {
+            << summary.risk_calibration << "\n";
+  if (!summary.outlook.empty()) {
     std::cout << "remaining life ending within ten years:";
-    for (const auto& e : ranking.outlook)
+    for (const auto& e : summary.outlook)
       std::cout << "  " << e.unit_id << " " << e.life_ends_year << " (" << report::limiting_factor_words(e.limiting_factor) << ")";
     std::cout << "\n";
   }
   std::cout << "\nrated MVA due per year:";
-  for (const auto& y : ranking.mva_due_by_year) std::cout << "  " << y.year << ": " << report::fmt_mva(y.mva);
+  for (const auto& y : summary.mva_due_by_year) std::cout << "  " << y.year << ": " << report::fmt_mva(y.mva);
   std::cout << "\n\n" << report::one_line_caution() << "\n";
   return kOk;
 }

@@ -440,6 +440,11 @@ Object::Ptr to_json(const analytics::FleetRanking& r) {
 
 void write_json(std::ostream& out, const analytics::FleetRanking& r,
                 const std::vector<std::pair<std::string, Var>>& extra) {
+  write_json(out, r, analytics::rows_of(r), extra);
+}
+
+void write_json(std::ostream& out, const analytics::FleetRanking& r, const analytics::RankedRows& rows,
+                const std::vector<std::pair<std::string, Var>>& extra) {
   // The document without its units, with a marker where they go; then the
   // units one at a time, laid out as Poco's Stringifier lays out an array of
   // objects under a top-level key at indent 2 (elements at 4, their keys at
@@ -456,12 +461,12 @@ void write_json(std::ostream& out, const analytics::FleetRanking& r,
   out.write(head.data(), static_cast<std::streamsize>(pos));
   out << "\"units\": [\n";
   bool first = true;
-  for (const auto& u : r.units) {
+  rows([&](const analytics::RankedUnit& u) {
     if (!first) out << ",\n";
     first = false;
     out << "    ";
     Poco::JSON::Stringifier::stringify(ranked_unit_json(u), out, 6, 2);
-  }
+  });
   out << "\n  ]";
   out << std::string_view(head).substr(pos + at.size());
 }

@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "analytics/assessment.h"
+#include "analytics/fleet_ranking.h"
 #include "analytics/site_view.h"
 
 namespace ferrum::assess {
@@ -29,6 +30,10 @@ std::string stringify(const Poco::Dynamic::Var& v);
 // at a time: `rank --json` never holds the whole fleet's tree (at 5,000
 // units it took more memory than the ranking itself).
 void write_json(std::ostream& out, const analytics::FleetRanking& r,
+                const std::vector<std::pair<std::string, Poco::Dynamic::Var>>& extra);
+// The same with the rows from `rows` (r's own units are not read): a
+// ranking whose rows wait in a file (spilled_ranking.h).
+void write_json(std::ostream& out, const analytics::FleetRanking& r, const analytics::RankedRows& rows,
                 const std::vector<std::pair<std::string, Poco::Dynamic::Var>>& extra);
 
 }  // namespace ferrum::assess

@@ -183,68 +183,118 @@ std::string ranking_cache_key(const site::SiteRoot& root, store::Store& store, a
 // so that neither side holds the whole document as a Poco tree (at 5,000
 // units that tree, not the units, was most of `rank`'s memory). Each unit
 // line is parsed on its own; anything else in the file means "assess afresh".
-std::optional<std::vector<analytics::RankingInput>> read_ranking_cache(const site::SiteRoot& root,
-                                                                       const std::string& key) {
+bool read_ranking_cache(const site::SiteRoot& root, const std::string& key,
+                        const std::function<void(analytics::RankingInput&&)>& each) {
   try {
     const fs::path p = cache_file(root);
-    if (!fs::exists(p)) return std::nullopt;
+    if (!fs::exists(p)) return false;
     std::ifstream in(p);
     std::string line;
-    std::size_t count = 0;
-    if (!std::getline(in, line)) return std::nullopt;
+    std::size_t count = 0, read = 0;
+    if (!std::getline(in, line)) return false;
     {
       Poco::JSON::Parser parser;
       const auto head = parser.parse(line + "]}").extract<Object::Ptr>();
-      if (head->getValue<std::string>("key") != key) return std::nullopt;
+      if (head->getValue<std::string>("key") != key) return false;
       count = head->getValue<std::size_t>("count");
     }
-    std::vector<analytics::RankingInput> out;
-    out.reserve(count);
     while (std::getline(in, line)) {
-      if (line == "]}") {  // complete: nothing after it, and every unit the head announced
-        if (std::getline(in, line) || out.size() != count) return std::nullopt;
-        return out;
-      }
+      if (line == "]}")  // complete: nothing after it, and every unit the head announced
+        return !std::getline(in, line) && read == count;
       if (!line.empty() && line.back() == ',') line.pop_back();
-      Poco::JSON::Parser parser;
-      out.push_back(unit_from_json(parser.parse(line).extract<Object::Ptr>()));
+      each(ranking_input_of_line(line));
+      ++read;
     }
-    return std::nullopt;  // cut short
+    return false;  // cut short
   } catch (const std::exception&) {  // Poco's exceptions too
-    return std::nullopt;                // unreadable or of another version: assess afresh
+    return false;                     // unreadable or of another version: assess afresh
+  }
+}
+
+std::optional<std::vector<analytics::RankingInput>> read_ranking_cache(const site::SiteRoot& root,
+                                                                       const std::string& key) {
+  std::vector<analytics::RankingInput> out;
+  if (!read_ranking_cache(root, key, [&](analytics::RankingInput&& u) { out.push_back(std::move(u)); }))
+    return std::nullopt;
+  return out;
+}
+
+std::string ranking_input_line(const analytics::RankingInput& unit) {
+  std::ostringstream s;
+  Poco::JSON::Stringifier::stringify(unit_to_json(unit), s, 0);  // one line: no indent
+  return std::move(s).str();
+}
+
+analytics::RankingInput ranking_input_of_line(const std::string& line) {
+  Poco::JSON::Parser parser;
+  return unit_from_json(parser.parse(line).extract<Object::Ptr>());
+}
+
+RankingCacheWriter::RankingCacheWriter(const site::SiteRoot& root, const std::string& key, std::size_t count)
+    : count_(count) {
+  try {
+    Object::Ptr head = new Object;
+    head->set("key", key);
+    head->set("count", count);  // a file cut at a line's end is not taken for a smaller fleet
+    std::ostringstream text;
+    Poco::JSON::Stringifier::stringify(head, text, 0);
+    piece_ = text.str();
+    piece_.pop_back();  // the head's closing brace: the units follow
+    piece_ += ",\"units\":[\n";
+    fs::create_directories(cache_file(root).parent_path());
+    file_ = std::make_unique<site::AtomicFileWriter>(cache_file(root));
+  } catch (const std::exception&) {
+    file_.reset();  // a root the command may not write to: no cache
+  }
+}
+
+RankingCacheWriter::~RankingCacheWriter() = default;
+
+void RankingCacheWriter::flush() {
+  try {
+    if (file_) file_->write(piece_);
+  } catch (const std::exception&) {
+    file_.reset();
+  }
+  piece_.clear();
+}
+
+void RankingCacheWriter::add(const analytics::RankingInput& unit) {
+  if (!file_) return;
+  try {
+    if (added_ > 0) piece_ += ",\n";
+    piece_ += ranking_input_line(unit);
+    ++added_;
+  } catch (const std::exception&) {
+    file_.reset();
+    return;
+  }
+  if (piece_.size() >= 64 * 1024) flush();  // some units at a time, not one write per line
+}
+
+bool RankingCacheWriter::commit() {
+  if (!file_ || added_ != count_) {
+    file_.reset();
+    return false;
+  }
+  piece_ += added_ > 0 ? "\n]}\n" : "]}\n";
+  flush();
+  try {
+    if (!file_) return false;
+    file_->commit();
+    file_.reset();
+    return true;
+  } catch (const std::exception&) {
+    file_.reset();
+    return false;
   }
 }
 
 bool write_ranking_cache(const site::SiteRoot& root, const std::string& key,
                          const std::vector<analytics::RankingInput>& units) {
-  try {
-    Object::Ptr head = new Object;
-    head->set("key", key);
-    head->set("count", units.size());  // a file cut at a line's end is not taken for a smaller fleet
-    std::ostringstream text;
-    Poco::JSON::Stringifier::stringify(head, text, 0);
-    std::string head_text = text.str();
-    head_text.pop_back();  // the head's closing brace: the units follow
-    head_text += ",\"units\":[\n";
-    fs::create_directories(cache_file(root).parent_path());
-    site::write_file_atomically(cache_file(root), [&](const site::WritePiece& write) {
-      std::ostringstream piece;  // some units at a time, not one write per line
-      piece << head_text;
-      for (std::size_t i = 0; i < units.size(); ++i) {
-        Poco::JSON::Stringifier::stringify(unit_to_json(units[i]), piece, 0);  // one line: no indent
-        piece << (i + 1 < units.size() ? ",\n" : "\n");
-        if (piece.view().size() >= 64 * 1024) {
-          write(piece.view());
-          piece.str("");
-        }
-      }
-      piece << "]}\n";
-      write(piece.view());
-    });
-    return true;
-  } catch (const std::exception&) {
-    return false;
-  }
+  RankingCacheWriter writer(root, key, units.size());
+  for (const auto& u : units) writer.add(u);
+  return writer.commit();
 }
 
 }  // namespace ferrum::assess

@@ -7,7 +7,9 @@
 
 #include <algorithm>
 #include <cerrno>
+#include <stdexcept>
 #include <system_error>
+#include <utility>
 
 #ifndef RENAME_NOREPLACE
 #define RENAME_NOREPLACE (1 << 0)
@@ -42,45 +44,59 @@ void write_file_atomically(const std::filesystem::path& path, std::string_view c
   write_file_atomically(path, [&](const WritePiece& write) { write(content); });
 }
 
-void write_file_atomically(const std::filesystem::path& path, const std::function<void(const WritePiece& write)>& produce) {
-  const std::filesystem::path tmp = path.parent_path() / temporary_name(path.filename().string());
-  const int fd = ::open(tmp.c_str(), O_WRONLY | O_CREAT | O_TRUNC | O_CLOEXEC, 0644);
-  if (fd < 0) fail("cannot create", tmp);
-  const auto write = [&](std::string_view content) {
-    const char* p = content.data();
-    std::size_t left = content.size();
-    while (left > 0) {
-      const ssize_t n = ::write(fd, p, left);
-      if (n < 0) {
-        if (errno == EINTR) continue;
-        fail("cannot write", tmp);
-      }
-      p += n;
-      left -= static_cast<std::size_t>(n);
+AtomicFileWriter::AtomicFileWriter(std::filesystem::path path)
+    : path_(std::move(path)), tmp_(path_.parent_path() / temporary_name(path_.filename().string())) {
+  fd_ = ::open(tmp_.c_str(), O_WRONLY | O_CREAT | O_TRUNC | O_CLOEXEC, 0644);
+  if (fd_ < 0) fail("cannot create", tmp_);
+}
+
+AtomicFileWriter::~AtomicFileWriter() {
+  if (fd_ < 0) return;
+  const int e = errno;
+  ::close(fd_);
+  ::unlink(tmp_.c_str());
+  errno = e;
+}
+
+void AtomicFileWriter::write(std::string_view content) {
+  if (fd_ < 0) throw std::logic_error("AtomicFileWriter::write after commit");
+  const char* p = content.data();
+  std::size_t left = content.size();
+  while (left > 0) {
+    const ssize_t n = ::write(fd_, p, left);
+    if (n < 0) {
+      if (errno == EINTR) continue;
+      fail("cannot write", tmp_);
     }
-  };
-  try {
-    produce(write);
-  } catch (...) {
-    const int e = errno;
-    ::close(fd);
-    ::unlink(tmp.c_str());
-    errno = e;
-    throw;
+    p += n;
+    left -= static_cast<std::size_t>(n);
   }
-  if (::fsync(fd) != 0 || ::close(fd) != 0) {
-    const int e = errno;
-    ::unlink(tmp.c_str());
+}
+
+void AtomicFileWriter::commit() {
+  if (fd_ < 0) throw std::logic_error("AtomicFileWriter::commit twice");
+  const int fd = fd_;
+  fd_ = -1;
+  int e = ::fsync(fd) == 0 ? 0 : errno;
+  if (::close(fd) != 0 && e == 0) e = errno;
+  if (e != 0) {
+    ::unlink(tmp_.c_str());
     errno = e;
-    fail("cannot flush", tmp);
+    fail("cannot flush", tmp_);
   }
-  if (::rename(tmp.c_str(), path.c_str()) != 0) {
+  if (::rename(tmp_.c_str(), path_.c_str()) != 0) {
     const int e = errno;
-    ::unlink(tmp.c_str());
+    ::unlink(tmp_.c_str());
     errno = e;
-    fail("cannot rename into", path);
+    fail("cannot rename into", path_);
   }
-  sync_directory(path.parent_path());
+  sync_directory(path_.parent_path());
+}
+
+void write_file_atomically(const std::filesystem::path& path, const std::function<void(const WritePiece& write)>& produce) {
+  AtomicFileWriter file(path);  // an exception from `produce` removes the temporary file
+  produce([&](std::string_view content) { file.write(content); });
+  file.commit();
 }
 
 bool move_no_replace(const std::filesystem::path& from, const std::filesystem::path& to) {

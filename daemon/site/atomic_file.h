@@ -19,6 +19,25 @@ void write_file_atomically(const std::filesystem::path& path, std::string_view c
 using WritePiece = std::function<void(std::string_view)>;
 void write_file_atomically(const std::filesystem::path& path, const std::function<void(const WritePiece& write)>& produce);
 
+// The same for a writer that has the content in pieces over time (the
+// ranking cache, written as the units are assessed): write() appends,
+// commit() flushes, renames into place and syncs the folder. Destroyed
+// without commit(), the temporary file is removed and `path` is untouched.
+// Throws std::system_error on failure.
+class AtomicFileWriter {
+ public:
+  explicit AtomicFileWriter(std::filesystem::path path);
+  ~AtomicFileWriter();
+  AtomicFileWriter(const AtomicFileWriter&) = delete;
+  AtomicFileWriter& operator=(const AtomicFileWriter&) = delete;
+  void write(std::string_view content);
+  void commit();
+
+ private:
+  std::filesystem::path path_, tmp_;
+  int fd_ = -1;
+};
+
 // fsync of a folder, so that a rename in it survives a power loss.
 void sync_directory(const std::filesystem::path& dir);
 

@@ -38,4 +38,26 @@ TEST_F(AtomicFileTest, AFailingProducerLeavesTheOldFileAndNoTemporary) {
   EXPECT_EQ(files, 1u);
 }
 
+// The writer that gets its content over time: the file appears whole at
+// commit(); destroyed before, it leaves the old file and no temporary one.
+TEST_F(AtomicFileTest, AWriterWithoutCommitLeavesTheOldFile) {
+  site::write_file_atomically(dir / "f.txt", "old");
+  {
+    site::AtomicFileWriter w(dir / "f.txt");
+    w.write("new, ");
+    EXPECT_EQ(text_of(dir / "f.txt"), "old");
+  }
+  EXPECT_EQ(text_of(dir / "f.txt"), "old");
+  std::size_t files = 0;
+  for ([[maybe_unused]] const auto& e : std::filesystem::directory_iterator(dir)) ++files;
+  EXPECT_EQ(files, 1u);
+  site::AtomicFileWriter w(dir / "f.txt");
+  w.write("new, ");
+  w.write("whole");
+  w.commit();
+  EXPECT_EQ(text_of(dir / "f.txt"), "new, whole");
+  EXPECT_THROW(w.write("more"), std::logic_error);
+  EXPECT_THROW(site::AtomicFileWriter(dir / "no-such-folder" / "f.txt"), std::system_error);
+}
+
 }  // namespace

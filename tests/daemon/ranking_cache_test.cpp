@@ -2,62 +2,14 @@
 // back whole, and only under its key. Plumbing: no engineering values.
 #include "daemon/assess/ranking_cache.h"
 
+#include "tests/daemon/ranking_rows.h"
 #include "tests/daemon/temp_dir.h"
 
 using namespace ferrum;
+using ferrum::testing::full_row;
 using ferrum::testing::text_of;
 
 namespace {
-
-// A row with every field away from its default.
-analytics::RankingInput full_row(const std::string& id) {
-  analytics::RankingInput r;
-  r.unit_id = id;
-  r.site = "Mill";
-  r.rated_mva = 31.5;
-  r.criticality = 5;
-  r.customers_served = 12000;
-  r.health_index = 41.5;
-  r.condition_index = 55.25;
-  r.band = "poor";
-  r.confidence = "5 of 7 factors";
-  r.missing = {"infrared survey", "inspection"};
-  r.remaining_life_years = 6.5;
-  r.limiting_factor = "paper";
-  r.beyond_horizon = true;
-  r.horizon_years = 30;
-  r.action = "refurbish";
-  r.action_year = 2027;
-  r.action_reason = "wet paper";
-  r.treats_paper = true;
-  analytics::Action f;
-  f.priority = 1;
-  f.due = 20500;
-  f.text = "Reduce the load";
-  f.reason = "hot spot";
-  f.found = 20400;
-  f.source = analytics::kSourceLoad;
-  f.need = "load-reduce";
-  f.reference = id + "/load-reduce";
-  f.outage = true;
-  f.crew = analytics::kCrewEngineering;
-  f.overdue = true;
-  f.status = "booked";
-  f.work_date = 20510;
-  f.work_note = "crew 3";
-  r.first_action = f;
-  auto& in = r.site_inputs;
-  in.peak_load_pu = 1.05;
-  in.emergency_load_pu = 1.3;
-  in.hours_above_normal_cyclic = 12;
-  in.normal_cyclic_limit_c = 110;
-  in.hot_spot_from_measured_top_oil = true;
-  in.paper_moisture_pct = 3.2;
-  in.unsafe_inspection = true;
-  in.active_arcing = true;
-  in.c57104_2008_fault_condition = 3;
-  return r;
-}
 
 class RankingCacheTest : public ferrum::testing::TempDirTest {
  protected:
@@ -110,4 +62,50 @@ TEST_F(RankingCacheTest, ALargeFleetIsWrittenWhole) {
   EXPECT_EQ(back->back().unit_id, "U10299");
 }
 
+// The cache written as units come: it appears only at commit(), and only
+// with as many units as its head announced; the old cache stays otherwise.
+TEST_F(RankingCacheTest, TheStreamedWriterKeepsItsCount) {
+  const std::vector<analytics::RankingInput> rows{full_row("T1"), full_row("T2"), full_row("T3")};
+  ASSERT_TRUE(assess::write_ranking_cache(root, "old", rows));
+  const std::string old = text_of(file());
+  {
+    assess::RankingCacheWriter w(root, "new", 3);
+    w.add(rows[0]);
+    w.add(rows[1]);
+    EXPECT_FALSE(w.commit());  // two of three
+  }
+  { assess::RankingCacheWriter w(root, "new", 3); w.add(rows[0]); }  // never committed
+  EXPECT_EQ(text_of(file()), old);
+  assess::RankingCacheWriter w(root, "new", 3);
+  for (const auto& r : rows) w.add(r);
+  ASSERT_TRUE(w.commit());
+  ASSERT_TRUE(assess::write_ranking_cache(root, "new", rows));  // the same bytes as the writer's
+  const std::string whole = text_of(file());
+  EXPECT_NE(whole, old);
+  // Read a unit at a time; a file cut part-way gives some units, then false.
+  std::vector<std::string> ids;
+  EXPECT_TRUE(assess::read_ranking_cache(root, "new", [&](analytics::RankingInput&& u) { ids.push_back(u.unit_id); }));
+  EXPECT_EQ(ids, (std::vector<std::string>{"T1", "T2", "T3"}));
+  std::ofstream(file()) << whole.substr(0, whole.rfind("\n{"));
+  ids.clear();
+  EXPECT_FALSE(assess::read_ranking_cache(root, "new", [&](analytics::RankingInput&& u) { ids.push_back(u.unit_id); }));
+  EXPECT_EQ(ids.size(), 2u);
+  // Empty fleet: a cache of no units is still a cache.
+  assess::RankingCacheWriter none(root, "empty", 0);
+  ASSERT_TRUE(none.commit());
+  const auto back = assess::read_ranking_cache(root, "empty");
+  ASSERT_TRUE(back);
+  EXPECT_TRUE(back->empty());
+}
+
+// A root the command may not write to (here: "cache" is a file) means no
+// cache, never an error.
+TEST_F(RankingCacheTest, AnUnwritableRootMeansNoCache) {
+  std::ofstream(root.root / "cache") << "not a folder";
+  assess::RankingCacheWriter w(root, "k", 1);
+  w.add(full_row("T1"));
+  EXPECT_FALSE(w.commit());
+}
+
 }  // namespace
+
