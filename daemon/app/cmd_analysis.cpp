@@ -165,8 +165,7 @@ int cmd_rank(const Invocation& inv) {
   ranking.finish();
   const analytics::FleetRanking& summary = ranking.summary();
   if (inv.has("json")) {
-    assess::write_json(std::cout, summary, ranking.rows(),
-                       {{"sites", assess::to_json(ranking.sites())}, {"caution", report::one_line_caution()}});
+    assess::write_json(std::cout, summary, ranking.rows(), ranking.sites(), {{"caution", report::one_line_caution()}});
     std::cout << "\n";
     return kOk;
   }

@@ -2,6 +2,7 @@
 
 #include <Poco/JSON/Stringifier.h>
 
+#include <algorithm>
 #include <cmath>
 #include <sstream>
 #include <stdexcept>
@@ -443,67 +444,113 @@ void write_json(std::ostream& out, const analytics::FleetRanking& r,
   write_json(out, r, analytics::rows_of(r), extra);
 }
 
+namespace {
+
+// The document `head` with each of `arrays` in it under its key, written an
+// element at a time: the head is stringified with a marker where each array
+// goes, and each array is laid out as Poco's Stringifier lays out an array
+// of objects under a top-level key at indent 2 (elements at 4, their keys at
+// 6, ",\n" between them, "\n  ]" after the last; "[\n\n  ]" when empty).
+// tests/daemon/ranking_json_test.cpp holds this to stringify(to_json(r)).
+void write_document(std::ostream& out, Object::Ptr head,
+                    const std::vector<std::pair<std::string, TextElements>>& arrays) {
+  const std::string marker = "ferrum-array-goes-here-";
+  for (std::size_t k = 0; k < arrays.size(); ++k) head->set(arrays[k].first, marker + std::to_string(k));
+  const std::string text = stringify(head);
+  std::vector<std::pair<std::size_t, std::size_t>> places;  // (position of its marker, array)
+  for (std::size_t k = 0; k < arrays.size(); ++k) {
+    const auto pos = text.find("\"" + arrays[k].first + "\": \"" + marker + std::to_string(k) + "\"");
+    if (pos == std::string::npos) throw std::logic_error("write_json: the marker of " + arrays[k].first + " is missing");
+    places.emplace_back(pos, k);
+  }
+  std::sort(places.begin(), places.end());
+  std::size_t from = 0;
+  for (const auto& [pos, k] : places) {
+    const std::string at = "\"" + arrays[k].first + "\": \"" + marker + std::to_string(k) + "\"";
+    out.write(text.data() + from, static_cast<std::streamsize>(pos - from));
+    out << "\"" << arrays[k].first << "\": [\n";
+    bool first = true;
+    arrays[k].second([&](std::string_view element) {
+      if (!first) out << ",\n";
+      first = false;
+      out << element;
+    });
+    out << "\n  ]";
+    from = pos + at.size();
+  }
+  out << std::string_view(text).substr(from);
+}
+
+TextElements unit_elements(const analytics::RankedRows& rows) {
+  return [&rows](const std::function<void(std::string_view)>& each) {
+    rows([&](const analytics::RankedUnit& u) { each(element_text(ranked_unit_json(u))); });
+  };
+}
+
+}  // namespace
+
+std::string element_text(const Var& element) {
+  std::ostringstream out;
+  out << "    ";
+  Poco::JSON::Stringifier::stringify(element, out, 6, 2);
+  return std::move(out).str();
+}
+
 void write_json(std::ostream& out, const analytics::FleetRanking& r, const analytics::RankedRows& rows,
                 const std::vector<std::pair<std::string, Var>>& extra) {
-  // The document without its units, with a marker where they go; then the
-  // units one at a time, laid out as Poco's Stringifier lays out an array of
-  // objects under a top-level key at indent 2 (elements at 4, their keys at
-  // 6, ",\n" between them, "\n  ]" after the last; "[\n\n  ]" when empty).
-  // tests/daemon/ranking_json_test.cpp holds this to stringify(to_json(r)).
-  static const std::string marker = "ferrum-ranking-units-go-here";
   Object::Ptr o = ranking_head_json(r);
   for (const auto& [key, value] : extra) o->set(key, value);
-  o->set("units", marker);
-  const std::string head = stringify(o);
-  const std::string at = "\"units\": \"" + marker + "\"";
-  const auto pos = head.find(at);
-  if (pos == std::string::npos) throw std::logic_error("write_json: the units marker is missing");
-  out.write(head.data(), static_cast<std::streamsize>(pos));
-  out << "\"units\": [\n";
-  bool first = true;
-  rows([&](const analytics::RankedUnit& u) {
-    if (!first) out << ",\n";
-    first = false;
-    out << "    ";
-    Poco::JSON::Stringifier::stringify(ranked_unit_json(u), out, 6, 2);
-  });
-  out << "\n  ]";
-  out << std::string_view(head).substr(pos + at.size());
+  write_document(out, o, {{"units", unit_elements(rows)}});
 }
+
+void write_json(std::ostream& out, const analytics::FleetRanking& r, const analytics::RankedRows& rows,
+                const TextElements& sites, const std::vector<std::pair<std::string, Var>>& extra) {
+  Object::Ptr o = ranking_head_json(r);
+  for (const auto& [key, value] : extra) o->set(key, value);
+  write_document(out, o, {{"sites", sites}, {"units", unit_elements(rows)}});
+}
+
+namespace {
+
+Object::Ptr site_json(const analytics::SiteView& s) {
+  Object::Ptr o = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+  o->set("site", s.site);
+  o->set("installed_mva", tidy(s.installed_mva));
+  o->set("peak_load_mva", opt(s.peak_load_mva));
+  o->set("units_without_load", strings(s.without_load));
+  o->set("n1_unit_out", text_or_null(s.n1_unit_out));
+  o->set("n1_unit_out_mva", tidy(s.n1_unit_out_mva));
+  o->set("n1_capacity_mva", opt(s.n1_capacity_mva));
+  o->set("n1_margin_mva", opt(s.n1_margin_mva));
+  o->set("n1_ok", s.n1_ok ? Var(*s.n1_ok) : Var());
+  o->set("flagged", s.flagged());
+  o->set("n1_text", s.n1_text);
+  Array::Ptr units = new Array;
+  for (const auto& u : s.units) {
+    Object::Ptr x = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
+    x->set("unit_id", u.unit_id);
+    x->set("rated_mva", tidy(u.rated_mva));
+    x->set("peak_load_mva", opt(u.peak_load_mva));
+    x->set("emergency_mva", opt(u.emergency_mva));
+    x->set("spare_mva", opt(u.spare_mva));
+    x->set("can_take_load", u.can_take_load());
+    x->set("constrained", u.constrained);
+    x->set("wet", u.wet);
+    x->set("unhealthy", u.unhealthy);
+    x->set("limits", strings(u.limits));
+    units->add(x);
+  }
+  o->set("units", units);
+  return o;
+}
+
+}  // namespace
+
+std::string site_element_text(const analytics::SiteView& site) { return element_text(site_json(site)); }
 
 Array::Ptr to_json(const std::vector<analytics::SiteView>& sites) {
   Array::Ptr out = new Array;
-  for (const auto& s : sites) {
-    Object::Ptr o = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
-    o->set("site", s.site);
-    o->set("installed_mva", tidy(s.installed_mva));
-    o->set("peak_load_mva", opt(s.peak_load_mva));
-    o->set("units_without_load", strings(s.without_load));
-    o->set("n1_unit_out", text_or_null(s.n1_unit_out));
-    o->set("n1_unit_out_mva", tidy(s.n1_unit_out_mva));
-    o->set("n1_capacity_mva", opt(s.n1_capacity_mva));
-    o->set("n1_margin_mva", opt(s.n1_margin_mva));
-    o->set("n1_ok", s.n1_ok ? Var(*s.n1_ok) : Var());
-    o->set("flagged", s.flagged());
-    o->set("n1_text", s.n1_text);
-    Array::Ptr units = new Array;
-    for (const auto& u : s.units) {
-      Object::Ptr x = new Object(Poco::JSON_PRESERVE_KEY_ORDER);
-      x->set("unit_id", u.unit_id);
-      x->set("rated_mva", tidy(u.rated_mva));
-      x->set("peak_load_mva", opt(u.peak_load_mva));
-      x->set("emergency_mva", opt(u.emergency_mva));
-      x->set("spare_mva", opt(u.spare_mva));
-      x->set("can_take_load", u.can_take_load());
-      x->set("constrained", u.constrained);
-      x->set("wet", u.wet);
-      x->set("unhealthy", u.unhealthy);
-      x->set("limits", strings(u.limits));
-      units->add(x);
-    }
-    o->set("units", units);
-    out->add(o);
-  }
+  for (const auto& s : sites) out->add(site_json(s));
   return out;
 }
 

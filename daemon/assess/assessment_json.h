@@ -6,8 +6,10 @@
 #include <Poco/JSON/Array.h>
 #include <Poco/JSON/Object.h>
 
+#include <functional>
 #include <ostream>
 #include <string>
+#include <string_view>
 #include <utility>
 #include <vector>
 
@@ -35,5 +37,15 @@ void write_json(std::ostream& out, const analytics::FleetRanking& r,
 // ranking whose rows wait in a file (spilled_ranking.h).
 void write_json(std::ostream& out, const analytics::FleetRanking& r, const analytics::RankedRows& rows,
                 const std::vector<std::pair<std::string, Poco::Dynamic::Var>>& extra);
+
+// The elements of an array written one at a time, each as the text
+// element_text gives it (its place in a top-level array of the document).
+using TextElements = std::function<void(const std::function<void(std::string_view)>& each)>;
+std::string element_text(const Poco::Dynamic::Var& element);
+// A site of the site view as such an element: the "sites" of `rank --json`.
+std::string site_element_text(const analytics::SiteView& site);
+// write_json with a "sites" array as well, written a site at a time.
+void write_json(std::ostream& out, const analytics::FleetRanking& r, const analytics::RankedRows& rows,
+                const TextElements& sites, const std::vector<std::pair<std::string, Poco::Dynamic::Var>>& extra);
 
 }  // namespace ferrum::assess

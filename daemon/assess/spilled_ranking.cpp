@@ -209,7 +209,7 @@ void SpilledRanking::finish() {
     auto views = analytics::site_view(units, site_options_);
     analytics::apply_site_view(units, views);
     if (keep_sites_)
-      for (auto& v : views) sites_.push_back(std::move(v));
+      for (const auto& v : views) sites_.push_back(append(site_element_text(v)));
     for (auto& u : units) {
       ranked_rows.push_back(append(spill_form(u)));
       order_->add(analytics::ranked_row(std::move(u), options_));
@@ -224,6 +224,13 @@ void SpilledRanking::finish() {
 const analytics::FleetRanking& SpilledRanking::summary() const {
   if (!finished_) throw std::logic_error("SpilledRanking::summary before finish");
   return order_->summary();
+}
+
+TextElements SpilledRanking::sites() const {
+  if (!finished_ || !keep_sites_) throw std::logic_error("SpilledRanking::sites without finish or keep_sites");
+  return [this](const std::function<void(std::string_view)>& each) {
+    for (const auto r : sites_) each(read(r));
+  };
 }
 
 analytics::RankedRows SpilledRanking::rows() const {

@@ -23,6 +23,7 @@
 #include "analytics/fleet_ranking.h"
 #include "analytics/ranking_input.h"
 #include "analytics/site_view.h"
+#include "daemon/assess/assessment_json.h"
 
 namespace ferrum::assess {
 
@@ -33,7 +34,8 @@ analytics::RankingInput of_spill_form(const std::string& bytes);
 class SpilledRanking {
  public:
   enum class Storage { temporary_file, memory };  // memory: what happens when no file can be made
-  // keep_sites: keep the site views for sites() (the JSON output lists them).
+  // keep_sites: keep the site views, as the text of `rank --json` gives
+  // them (assess::site_element_text), for sites().
   SpilledRanking(analytics::Day as_of, const analytics::RankingOptions& ranking,
                  const analytics::SiteViewOptions& site_view, bool keep_sites,
                  Storage storage = Storage::temporary_file);
@@ -49,7 +51,9 @@ class SpilledRanking {
   // REQUIRES finish(). The ranking without its units; its rows in order.
   const analytics::FleetRanking& summary() const;
   analytics::RankedRows rows() const;
-  const std::vector<analytics::SiteView>& sites() const { return sites_; }
+  // The site views in order of first appearance, as JSON array elements.
+  // REQUIRES finish() and keep_sites.
+  TextElements sites() const;
   bool in_file() const { return fd_ >= 0; }
 
  private:
@@ -73,7 +77,7 @@ class SpilledRanking {
   std::map<std::string, std::uint32_t> site_index_;
   std::vector<std::string> site_names_;  // in order of first appearance
   std::unique_ptr<analytics::RankingOrder> order_;
-  std::vector<analytics::SiteView> sites_;
+  std::vector<Record> sites_;  // site views as text, in the file
   bool finished_ = false;
 };
 

@@ -71,7 +71,7 @@ std::string spilled_json(const std::vector<analytics::RankingInput>& units, asse
   EXPECT_EQ(spilled.size(), units.size());
   EXPECT_TRUE(spilled.summary().units.empty());
   std::ostringstream out;
-  assess::write_json(out, spilled.summary(), spilled.rows(), {{"sites", assess::to_json(spilled.sites())}});
+  assess::write_json(out, spilled.summary(), spilled.rows(), spilled.sites(), {});
   return out.str();
 }
 
