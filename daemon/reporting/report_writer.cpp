@@ -144,9 +144,9 @@ fs::path ReportWriter::unit_report(const std::string& unit_id, analytics::Day as
   return outcome.path;
 }
 
-std::vector<ReportWriter::UnitReportOutcome> ReportWriter::unit_reports_by_id(const std::vector<std::string>& unit_ids,
-                                                                              analytics::Day as_of,
-                                                                              const fs::path& out_dir) {
+std::vector<ReportWriter::UnitReportOutcome> ReportWriter::unit_reports_by_id(
+    const std::vector<std::string>& unit_ids, analytics::Day as_of, const fs::path& out_dir,
+    const std::function<void(const analytics::UnitAssessment&)>& assessed) {
   std::vector<UnitReportOutcome> out;
   out.reserve(unit_ids.size());
   for (const auto& id : unit_ids) out.push_back({id, {}, {}});
@@ -187,7 +187,8 @@ std::vector<ReportWriter::UnitReportOutcome> ReportWriter::unit_reports_by_id(co
         });
         analytics::UnitData data = store_.unit_data(unit_id);
         data.held_back = ingest::held_back_of(store_, unit_id);
-        analytics::UnitAssessment current = *peer;  // one of register_units: always found
+        if (assessed) assessed(*peer);  // one of register_units: always found
+        analytics::UnitAssessment current = *peer;
         analytics::apply_site_view(current, sites);
         current.budget_plan = unit_plan_schedule(current, as_of, plan);
         const analytics::Day previous_day = previous_report_day(store_, unit_id, as_of);

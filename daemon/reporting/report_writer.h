@@ -6,6 +6,7 @@
 
 #include <cstdint>
 #include <filesystem>
+#include <functional>
 #include <optional>
 #include <string>
 #include <vector>
@@ -40,14 +41,18 @@ class ReportWriter {
   // which needs every unit of the site assessed: one by one, the reports of
   // every unit of an n-unit site cost n² assessments (the daemon after a
   // file naming them all; `ferrum report` naming them). Never throws: per
-  // unit, in the order given, its path or why it failed.
+  // unit, in the order given, its path or why it failed. `assessed`, when
+  // given, sees each wanted unit's assessment (without its site view) before
+  // its report is rendered: the daemon checks its alerts on it instead of
+  // assessing the unit a second time.
   struct UnitReportOutcome {
     std::string unit_id;
     std::filesystem::path path;  // empty when it failed
     std::string error;
   };
-  std::vector<UnitReportOutcome> unit_reports_by_id(const std::vector<std::string>& unit_ids, analytics::Day as_of,
-                                                    const std::filesystem::path& out_dir);
+  std::vector<UnitReportOutcome> unit_reports_by_id(
+      const std::vector<std::string>& unit_ids, analytics::Day as_of, const std::filesystem::path& out_dir,
+      const std::function<void(const analytics::UnitAssessment&)>& assessed = {});
 
   struct FleetFiles {
     std::filesystem::path pdf, csv, sites_csv;  // sites_csv: ferrum-fleet-sites-DATE.csv (site view)

@@ -355,20 +355,35 @@ struct Server::Impl {
       due.push_back(it->first);
       it = dirty_units.erase(it);
     }
+    // Units of the sites this root serves get their reports, all at once:
+    // each unit of their sites is assessed once for all of them, not once
+    // per report (a file naming every unit of a site), and their alerts are
+    // checked on that same assessment. Units of another root's region are
+    // assessed for their alerts only.
     std::vector<std::string> to_render;
     for (const auto& unit : due) {
       try {
-        const auto a = writer->assess(unit, as_of);
+        const auto info = store->find_unit(unit);
+        if (info && config.store.serves_site(info->site)) {
+          to_render.push_back(unit);
+          continue;
+        }
+        const auto a = writer->assess(unit, as_of);  // throws for a unit not in the register
         check_alerts(unit, a);
-        if (config.store.serves_site(a.unit.site)) to_render.push_back(unit);  // else another root's region
       } catch (const std::exception& e) {
         spdlog::error("report for {} failed: {}", unit, e.what());
       }
     }
     if (to_render.empty()) return;
-    // All at once: each unit of their sites is assessed once for all of
-    // them, not once per report (a file naming every unit of a site).
-    for (const auto& o : writer->unit_reports_by_id(to_render, as_of, root.reports())) {
+    const auto outcomes = writer->unit_reports_by_id(to_render, as_of, root.reports(),
+                                                     [&](const analytics::UnitAssessment& a) {
+                                                       try {
+                                                         check_alerts(a.unit.unit_id, a);
+                                                       } catch (const std::exception& e) {
+                                                         spdlog::error("alerts of {} failed: {}", a.unit.unit_id, e.what());
+                                                       }
+                                                     });
+    for (const auto& o : outcomes) {
       if (o.error.empty()) spdlog::info("report {} rendered: {}", o.unit_id, o.path.filename().string());
       else spdlog::error("report for {} failed: {}", o.unit_id, o.error);
     }
