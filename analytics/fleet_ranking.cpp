@@ -158,7 +158,6 @@ void RankingOrder::place(std::size_t p, RankedUnit& row) const {
   row.note = "equal risk with " + others + "; tied units ordered by unit_id";
 }
 
-
 double probability_of_failure(double hi, const RankingOptions& o) {
   double h = std::clamp(hi, 0.0, 100.0);
   double p = o.pof_as_new * std::pow(o.pof_at_zero / o.pof_as_new, (100.0 - h) / 100.0);
